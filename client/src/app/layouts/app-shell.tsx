@@ -1,0 +1,84 @@
+import { useEffect } from 'react';
+import { NavLink, Outlet, useLocation, useNavigate } from 'react-router-dom';
+import { useQuery } from '@tanstack/react-query';
+import { ROLE_LABELS } from '@shared/schemas/common';
+import { sessionQueryOptions, useSignOut } from '../../lib/session';
+import { onUnauthenticated } from '../../lib/api-client';
+import { NAV_ITEMS } from '../role-homes';
+import { useCurrentStation } from '../use-current-station';
+import { useQueryClient } from '@tanstack/react-query';
+
+export function AppShell() {
+  const { data: session } = useQuery(sessionQueryOptions());
+  const user = session?.user ?? null;
+  const signOut = useSignOut();
+  const navigate = useNavigate();
+  const location = useLocation();
+  const qc = useQueryClient();
+  const { station, stations, choose } = useCurrentStation();
+
+  // A session that expires mid-work sends the user to sign in, remembering the page to come back to.
+  useEffect(
+    () =>
+      onUnauthenticated(() => {
+        qc.setQueryData(sessionQueryOptions().queryKey, (s) => (s ? { ...s, user: null } : s));
+        if (!location.pathname.startsWith('/sign-in')) navigate(`/sign-in?next=${encodeURIComponent(location.pathname + location.search)}&expired=1`);
+      }),
+    [navigate, location, qc],
+  );
+
+  return (
+    <div className="min-h-screen">
+      <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:left-2 focus:top-2 focus:bg-signal focus:p-2">
+        Skip to content
+      </a>
+      <header className="no-print bg-harbour text-white">
+        <div className="mx-auto flex max-w-7xl flex-wrap items-center gap-x-6 gap-y-2 px-4 py-3">
+          <span className="flex items-center gap-2 text-2xl font-bold tracking-tight">
+            <span aria-hidden className="inline-block h-6 w-6 rounded bg-signal" />
+            Bumpboard
+          </span>
+          {user && (
+            <nav aria-label="Main" className="flex flex-wrap gap-1">
+              {NAV_ITEMS.filter((i) => i.roles.includes(user.role)).map((i) => (
+                <NavLink key={i.to} to={i.to} className={({ isActive }) => `rounded px-3 py-2 font-bold ${isActive ? 'bg-white text-harbour' : 'hover:bg-white/15'}`}>
+                  {i.label}
+                </NavLink>
+              ))}
+            </nav>
+          )}
+          {user && (
+            <div className="ml-auto flex flex-wrap items-center gap-3">
+              {stations.length > 1 ? (
+                <label className="flex items-center gap-2">
+                  <span className="text-sm">Station</span>
+                  <select className="rounded bg-white px-2 py-1 font-bold text-harbour" value={station?.id ?? ''} onChange={(e) => choose(Number(e.target.value))}>
+                    {stations.map((s) => (
+                      <option key={s.id} value={s.id}>
+                        {s.iata} · {s.name}
+                      </option>
+                    ))}
+                  </select>
+                </label>
+              ) : (
+                station && <span className="font-bold">{station.iata}</span>
+              )}
+              <span className="text-sm">
+                {user.displayName} · {ROLE_LABELS[user.role]}
+              </span>
+              <button type="button" className="rounded border-2 border-white px-3 py-1 font-bold hover:bg-white hover:text-harbour" onClick={() => signOut.mutate(undefined, { onSettled: () => navigate('/sign-in') })}>
+                Sign out
+              </button>
+            </div>
+          )}
+        </div>
+        {session?.demo && (
+          <p className="bg-signal px-4 py-1 text-center text-sm font-bold text-ink">Demo data: an invented carrier, invented people and flights.</p>
+        )}
+      </header>
+      <main id="main">
+        <Outlet />
+      </main>
+    </div>
+  );
+}

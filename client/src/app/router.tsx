@@ -1,0 +1,54 @@
+import { lazy, Suspense, type ReactNode } from 'react';
+import { createBrowserRouter, Navigate } from 'react-router-dom';
+import type { QueryClient } from '@tanstack/react-query';
+import type { Role } from '@shared/schemas/common';
+import { AppShell } from './layouts/app-shell';
+import { RequireSession } from './layouts/require-session';
+import { RouteError } from './layouts/route-error';
+import { SignInPage } from './routes/sign-in';
+import { HomeRedirect } from './routes/home-redirect';
+import { NotFoundPage } from './routes/not-found';
+import { sessionQueryOptions } from '../lib/session';
+
+const DeparturesPage = lazy(() => import('./routes/departures'));
+const StationDayPage = lazy(() => import('./routes/station-day'));
+const FlightDeskPage = lazy(() => import('./routes/flight-desk'));
+const LedgerPage = lazy(() => import('./routes/finance-ledger'));
+const ReconciliationPage = lazy(() => import('./routes/finance-reconciliation'));
+const ReportPage = lazy(() => import('./routes/finance-report'));
+const PlannerPage = lazy(() => import('./routes/planner'));
+const SetupPage = lazy(() => import('./routes/setup'));
+
+function guarded(roles: Role[], page: ReactNode) {
+  return (
+    <RequireSession roles={roles}>
+      <Suspense fallback={<p className="p-6 text-ink-soft">Loading…</p>}>{page}</Suspense>
+    </RequireSession>
+  );
+}
+
+export function createAppRouter(queryClient: QueryClient) {
+  return createBrowserRouter([
+    {
+      path: '/',
+      element: <AppShell />,
+      errorElement: <RouteError />,
+      // The session is known before any page draws, so guards never flash the wrong screen.
+      loader: () => queryClient.ensureQueryData(sessionQueryOptions()),
+      children: [
+        { index: true, element: <HomeRedirect /> },
+        { path: 'sign-in', element: <SignInPage /> },
+        { path: 'departures', element: guarded(['agent', 'supervisor', 'admin'], <DeparturesPage />) },
+        { path: 'day', element: guarded(['supervisor'], <StationDayPage />) },
+        { path: 'flights/:flightId', element: guarded(['agent', 'supervisor', 'admin'], <FlightDeskPage />) },
+        { path: 'ledger', element: guarded(['finance'], <LedgerPage />) },
+        { path: 'reconciliation', element: guarded(['finance'], <ReconciliationPage />) },
+        { path: 'report', element: guarded(['finance'], <ReportPage />) },
+        { path: 'planner', element: guarded(['admin', 'supervisor'], <PlannerPage />) },
+        { path: 'setup', element: guarded(['admin'], <SetupPage />) },
+        { path: '*', element: <NotFoundPage /> },
+      ],
+    },
+    { path: '/home', element: <Navigate to="/" replace /> },
+  ]);
+}

@@ -1,0 +1,63 @@
+import { useState } from 'react';
+import { useQuery } from '@tanstack/react-query';
+import { ROLE_LABELS } from '@shared/schemas/common';
+import type { User } from '@shared/schemas/users';
+import { Button } from '../../../components/ui/button';
+import { usersQueryOptions, useUpdateUser } from '../api/users';
+import { UserForm } from './user-form';
+
+export function UsersAdmin() {
+  const { data, isPending, error } = useQuery(usersQueryOptions());
+  const [editing, setEditing] = useState<User | 'new' | null>(null);
+  const update = useUpdateUser();
+
+  if (isPending) return <p className="text-ink-soft">Loading users…</p>;
+  if (error) return <p role="alert" className="text-alert">{error.message}</p>;
+
+  return (
+    <div className="space-y-4">
+      {editing ? (
+        <UserForm user={editing === 'new' ? null : editing} onDone={() => setEditing(null)} />
+      ) : (
+        <Button onClick={() => setEditing('new')}>Add a user</Button>
+      )}
+      {update.error && <p role="alert" className="font-bold text-alert">{update.error.message}</p>}
+      <table className="w-full">
+        <caption className="sr-only">Users of your stations</caption>
+        <thead className="bg-harbour-soft text-left">
+          <tr>
+            <th className="px-2 py-2">Name</th>
+            <th className="px-2 py-2">Role</th>
+            <th className="px-2 py-2">Stations</th>
+            <th className="px-2 py-2">Status</th>
+            <th className="px-2 py-2">
+              <span className="sr-only">Actions</span>
+            </th>
+          </tr>
+        </thead>
+        <tbody>
+          {data.users.map((u) => (
+            <tr key={u.id} className="border-t border-line">
+              <td className="px-2 py-2">
+                <span className="font-bold">{u.displayName}</span>
+                <br />
+                <span className="text-sm text-ink-soft">{u.email}</span>
+              </td>
+              <td className="px-2 py-2">{ROLE_LABELS[u.role]}</td>
+              <td className="px-2 py-2">{u.stations.map((s) => s.iata).join(', ')}</td>
+              <td className="px-2 py-2">{u.active ? 'Active' : <span className="font-bold text-alert">Deactivated</span>}</td>
+              <td className="px-2 py-2 text-right whitespace-nowrap">
+                <Button variant="quiet" onClick={() => setEditing(u)}>
+                  Edit
+                </Button>
+                <Button variant={u.active ? 'secondary' : 'quiet'} disabled={update.isPending} onClick={() => update.mutate({ id: u.id, body: { active: !u.active } })}>
+                  {u.active ? 'Deactivate' : 'Reactivate'}
+                </Button>
+              </td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </div>
+  );
+}

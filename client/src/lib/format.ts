@@ -1,0 +1,21 @@
+// Formatting happens only at the edge: money from integer minor units, times in the station's named zone.
+
+export function formatMoney(amountMinor: number, currency: string, locale = 'en-US') {
+  const digits = new Intl.NumberFormat(locale, { style: 'currency', currency }).resolvedOptions().maximumFractionDigits ?? 2;
+  return new Intl.NumberFormat(locale, { style: 'currency', currency }).format(amountMinor / 10 ** digits);
+}
+
+export function formatTime(iso: string, timeZone: string) {
+  return new Intl.DateTimeFormat('en-GB', { timeZone, hour: '2-digit', minute: '2-digit', hourCycle: 'h23' }).format(new Date(iso));
+}
+
+export function zoneLabel(timeZone: string, at = new Date()) {
+  const name = new Intl.DateTimeFormat('en-US', { timeZone, timeZoneName: 'short' }).formatToParts(at).find((p) => p.type === 'timeZoneName')?.value;
+  return `${timeZone.replace(/_/g, ' ')}${name ? ` (${name})` : ''}`;
+}
+
+export function formatPercent(p: number) {
+  if (p > 0 && p < 0.001) return '<0.1 %';
+  if (p < 1 && p > 0.999) return '>99.9 %';
+  return `${(p * 100).toFixed(p < 0.1 ? 1 : 0)} %`;
+}

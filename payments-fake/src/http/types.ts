@@ -1,0 +1,18 @@
+import type { FormObject } from './formParser.js';
+
+/** What an endpoint produced: the HTTP status and the JSON body, before any injected fault alters delivery. */
+export interface ApiResult {
+  status: number;
+  body: unknown;
+}
+
+/** Everything an endpoint needs from the request, already decoded. */
+export interface OperationInput {
+  params: FormObject;
+  pathParams: Record<string, string>;
+  requestId: string;
+  idempotencyKey: string | null;
+  apiVersion: string;
+}
+
+export type Operation = (input: OperationInput) => ApiResult;

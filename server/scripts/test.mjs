@@ -1,0 +1,74 @@
+// `npm test`: a separate test instance (own data folder and ports, so it runs beside `npm start`), then lint,
+// type-check, unit tests, API tests against the real MariaDB, and end-to-end tests in Debian's Chromium.
+// Every step runs; the summary is the last thing printed; the exit code is non-zero if any step failed.
+import { existsSync, rmSync } from 'node:fs';
+import { ensureDependencies } from './lib/deps.mjs';
+import { aptInstall } from './lib/mariadb.mjs';
+import { buildClientIfStale } from './lib/client-build.mjs';
+import { migrateAndLoadDemo, serviceEnv, startDatabase, startServices } from './lib/stack.mjs';
+import { run, stopChildren } from './lib/processes.mjs';
+import { say } from './lib/log.mjs';
+
+const local = '.local/test';
+const ports = { app: 4700, mail: 4701, payments: 4702, smtp: 4725, db: 4710 };
+const results = [];
+let db;
+
+async function step(name, fn) {
+  const t0 = Date.now();
+  say('test', `── ${name}`);
+  let ok = false;
+  try {
+    ok = (await fn()) !== false;
+  } catch (err) {
+    console.error(`[test] ${name}: ${err instanceof Error ? err.message : err}`);
+  }
+  results.push({ name, ok, seconds: (Date.now() - t0) / 1000 });
+  return ok;
+}
+
+function ensureChromium() {
+  if (existsSync('/usr/bin/chromium')) return;
+  say('test', 'installing Chromium from Debian (one time)…');
+  aptInstall(['chromium']);
+  if (!existsSync('/usr/bin/chromium')) throw new Error('Chromium is not installed. Run: apt-get install -y chromium');
+}
+
+async function main() {
+  const setupOk = await step('set-up (dependencies, test database, migrations, demo)', async () => {
+    ensureDependencies();
+    db = await startDatabase({ local, dbPort: ports.db });
+    if (!process.env.DATABASE_URL) db.resetDatabase();
+    rmSync(`${local}/mail-fake`, { recursive: true, force: true });
+    rmSync(`${local}/payments-fake`, { recursive: true, force: true });
+    migrateAndLoadDemo(db.url);
+  });
+  await step('lint (ESLint)', () => run('node_modules/.bin/eslint', ['--config', 'tests/lint/eslint.config.js', '.']) === 0);
+  await step('type-check (tsc)', () => run('node_modules/.bin/tsc', ['-p', 'tsconfig.json', '--noEmit']) === 0);
+  await step('unit tests (vitest)', () => run('node_modules/.bin/vitest', ['run', '--project', 'unit', '--project', 'client']) === 0);
+  if (!setupOk) return;
+  const env = { ...serviceEnv({ local, ports, databaseUrl: db.url }), NODE_ENV: 'test' };
+  await step('API tests against MariaDB (vitest)', () => run('node_modules/.bin/vitest', ['run', '--project', 'api'], env) === 0);
+  await step('end-to-end tests in Chromium (Playwright)', async () => {
+    ensureChromium();
+    buildClientIfStale();
+    // The API tests changed data; the browser tests start from a fresh demo.
+    if (!process.env.DATABASE_URL) db.resetDatabase();
+    migrateAndLoadDemo(db.url);
+    await startServices(env, { quiet: !process.env.VERBOSE });
+    return run('node_modules/.bin/playwright', ['test', '--config', 'tests/e2e/playwright.config.ts'], env) === 0;
+  });
+}
+
+try {
+  await main();
+} finally {
+  await stopChildren();
+  await db?.stop();
+  const width = Math.max(...results.map((r) => r.name.length));
+  console.log('\n  Bumpboard test summary');
+  for (const r of results) console.log(`    ${r.ok ? 'PASS' : 'FAIL'}  ${r.name.padEnd(width)}  ${r.seconds.toFixed(1)} s`);
+  const failed = results.filter((r) => !r.ok).length;
+  console.log(failed ? `\n  ${failed} step(s) failed.\n` : '\n  All steps passed.\n');
+  process.exitCode = failed ? 1 : 0;
+}

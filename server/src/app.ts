@@ -1,0 +1,62 @@
+import express, { Router } from 'express';
+import helmet from 'helmet';
+import passport from 'passport';
+import path from 'node:path';
+import { existsSync } from 'node:fs';
+import type { DataSource } from 'typeorm';
+import type { Env } from './config/env';
+import { csrfSynchronisedProtection } from './http/csrf';
+import { errorHandler } from './http/error-handler';
+import { notFound } from './http/errors';
+import type { SessionSetup } from './http/session';
+import { authRouter, configurePassport } from './modules/auth/auth.routes';
+import type { SignInThrottle } from './modules/auth/throttle';
+import { departuresRouter } from './modules/flights/flights.routes';
+import { healthRouter } from './modules/health/health.routes';
+import { stationsRouter } from './modules/stations/stations.routes';
+import { usersRouter } from './modules/users/users.routes';
+
+export interface AppDeps {
+  env: Env;
+  db: DataSource;
+  session: SessionSetup;
+  throttle: SignInThrottle;
+  demo: boolean;
+  /** Called when a user must lose every live connection at once (sign-out, deactivation). */
+  disconnectUser?: (userId: number) => void;
+}
+
+/** Builds the whole HTTP app without listening, so tests run it in-process on port 0. */
+export function createApp(deps: AppDeps) {
+  const app = express();
+  app.set('trust proxy', 'loopback');
+  app.disable('x-powered-by');
+  app.use(helmet({ contentSecurityPolicy: { directives: { 'upgrade-insecure-requests': null, 'img-src': ["'self'", 'data:'] } } }));
+
+  app.use('/api/health', healthRouter(deps));
+
+  configurePassport(deps.db);
+  const api = Router();
+  api.use(express.json({ limit: '1mb' }));
+  api.use(deps.session.middleware, deps.session.enforceAbsoluteTimeout);
+  api.use(passport.session());
+  api.use(csrfSynchronisedProtection);
+  api.use('/auth', authRouter({ db: deps.db, throttle: deps.throttle, demo: deps.demo, onSignOut: deps.disconnectUser }));
+  api.use('/users', usersRouter({ db: deps.db, onUserLockedOut: deps.disconnectUser }));
+  api.use('/stations', stationsRouter(deps));
+  api.use('/departures', departuresRouter(deps));
+  api.use((req) => {
+    throw notFound(`The API route ${req.method} ${req.path}`);
+  });
+  app.use('/api', api);
+
+  const staticDir = path.resolve(deps.env.STATIC_DIR);
+  if (existsSync(staticDir)) {
+    app.use(express.static(staticDir, { index: false, maxAge: '1h' }));
+    // The single-page app answers every other path; the client router takes over.
+    app.get('/{*splat}', (_req, res) => res.sendFile(path.join(staticDir, 'index.html')));
+  }
+
+  app.use(errorHandler());
+  return app;
+}

@@ -1,0 +1,37 @@
+import { Column, CreateDateColumn, Entity, Index, JoinColumn, ManyToOne, OneToMany, PrimaryGeneratedColumn, type Relation } from 'typeorm';
+import { FlightEntity } from './flight.entity';
+import { PassengerEntity } from './passenger.entity';
+
+/** One PNR on one flight: the party that was booked together. */
+@Entity({ name: 'bookings' })
+@Index('uq_booking_flight_pnr', ['flightId', 'pnr'], { unique: true })
+export class BookingEntity {
+  @PrimaryGeneratedColumn({ type: 'int' })
+  id!: number;
+
+  @ManyToOne(() => FlightEntity, { nullable: false, onDelete: 'CASCADE' })
+  @JoinColumn({ name: 'flight_id' })
+  flight!: Relation<FlightEntity>;
+
+  @Column({ type: 'int', name: 'flight_id' })
+  flightId!: number;
+
+  @Column({ type: 'varchar', length: 8 })
+  pnr!: string;
+
+  @Column({ type: 'varchar', length: 254, name: 'contact_email', nullable: true })
+  contactEmail!: string | null;
+
+  /** Whether the party must travel (and show) together; a party may choose to split at the gate. */
+  @Column({ type: 'boolean', name: 'travels_together', default: true })
+  travelsTogether!: boolean;
+
+  @Column({ type: 'varchar', length: 16, default: 'active' })
+  status!: 'active' | 'cancelled';
+
+  @OneToMany(() => PassengerEntity, (p) => p.booking)
+  passengers!: Relation<PassengerEntity[]>;
+
+  @CreateDateColumn({ type: 'datetime', precision: 3, default: () => 'CURRENT_TIMESTAMP(3)', name: 'created_at' })
+  createdAt!: Date;
+}

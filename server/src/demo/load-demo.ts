@@ -1,0 +1,94 @@
+import type { DataSource, EntityManager } from 'typeorm';
+import { BookingEntity, FlightEntity, PassengerEntity, StationEntity, UserEntity } from '../db/entities';
+import type { FlightState } from '@shared/schemas/flights';
+import { hashPassword } from '../modules/auth/password';
+import { audit } from '../modules/audit/audit.service';
+import { localDate } from '../time/zone';
+import { demoManifest } from './manifest';
+import { seededRandom } from './random';
+import { DEMO_CARRIER, DEMO_PASSWORD, DEMO_STATIONS, DEMO_USERS, type DemoFlight, type DemoStation } from './scenario';
+
+const MINUTE = 60_000;
+
+function stateAt(departsIn: number): FlightState {
+  if (departsIn < -5) return 'departed';
+  if (departsIn < 40) return 'boarding';
+  return 'check-in-open';
+}
+
+async function insertFlight(em: EntityManager, station: StationEntity, demo: DemoStation, f: DemoFlight, now: Date, seed: number) {
+  const departure = new Date(Math.round((now.getTime() + f.departsIn * MINUTE) / (5 * MINUTE)) * 5 * MINUTE);
+  const flight = await em.save(em.create(FlightEntity, {
+    stationId: station.id,
+    carrierCode: DEMO_CARRIER.code,
+    flightNumber: f.number,
+    serviceDate: localDate(departure, station.timeZone),
+    origin: station.iata,
+    destination: f.destination,
+    scheduledDeparture: departure,
+    scheduledArrival: new Date(departure.getTime() + f.blockMinutes * MINUTE),
+    aircraftType: f.aircraft,
+    seatsByCabin: f.seats,
+    gate: f.gate,
+    state: stateAt(f.departsIn),
+  }));
+  const rng = seededRandom(seed);
+  for (const b of demoManifest(rng, demo, f, departure, now)) {
+    const booking = await em.save(em.create(BookingEntity, { flightId: flight.id, pnr: b.pnr, contactEmail: b.contactEmail, travelsTogether: true, status: 'active' }));
+    await em.insert(PassengerEntity, b.passengers.map((p, i) => ({
+      ...p,
+      bookingId: booking.id,
+      flightId: flight.id,
+      pnrSequence: i + 1,
+      fareCurrency: station.currency,
+      seat: null,
+      inboundEstimatedArrival: p.inboundScheduledArrival,
+      status: p.boardedAt ? 'boarded' : p.checkedInAt ? 'checked-in' : 'booked',
+    } as const)));
+  }
+}
+
+/** True when the database holds no station yet: the demo is loaded only then (or when asked to refresh). */
+export async function isEmpty(db: DataSource) {
+  return (await db.getRepository(StationEntity).count()) === 0;
+}
+
+/** Loads the invented scenario: stations, demo users, and a morning of flights relative to `now`. */
+export async function loadDemo(db: DataSource, now = new Date()) {
+  const hashes = await Promise.all(DEMO_USERS.map(() => hashPassword(DEMO_PASSWORD)));
+  await db.transaction(async (em) => {
+    const stations: StationEntity[] = [];
+    for (const s of DEMO_STATIONS) {
+      stations.push(await em.save(em.create(StationEntity, { iata: s.iata, name: s.name, timeZone: s.timeZone, regime: s.regime, currency: s.currency, riskToleranceBp: 500 })));
+    }
+    for (const [i, u] of DEMO_USERS.entries()) {
+      await em.save(em.create(UserEntity, { ...u, passwordHash: hashes[i], active: true, stations }));
+    }
+    await insertFlights(em, stations, now);
+    await audit(em, { actor: { label: 'demo loader' }, action: 'demo.loaded', entityType: 'demo', entityId: 'scenario', after: { at: now.toISOString() } });
+  });
+}
+
+async function insertFlights(em: EntityManager, stations: StationEntity[], now: Date) {
+  let seed = 2026;
+  for (const s of DEMO_STATIONS) {
+    const station = stations.find((x) => x.iata === s.iata)!;
+    for (const f of s.flights) await insertFlight(em, station, s, f, now, seed++);
+  }
+}
+
+/** A demo left from another day has nothing moving: replace its flights with a fresh morning. */
+export async function refreshDemoFlights(db: DataSource, now = new Date()) {
+  await db.transaction(async (em) => {
+    await em.query('DELETE FROM flights');
+    const stations = await em.find(StationEntity);
+    await insertFlights(em, stations, now);
+    await audit(em, { actor: { label: 'demo loader' }, action: 'demo.refreshed', entityType: 'demo', entityId: 'scenario', after: { at: now.toISOString() } });
+  });
+}
+
+/** Whether every demo flight has already left: the sign that the demo should be refreshed. */
+export async function demoIsStale(db: DataSource, now = new Date()) {
+  const latest = await db.getRepository(FlightEntity).createQueryBuilder('f').select('MAX(f.scheduled_departure)', 'latest').getRawOne<{ latest: Date | null }>();
+  return !latest?.latest || new Date(latest.latest).getTime() < now.getTime();
+}

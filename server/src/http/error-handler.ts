@@ -1,0 +1,25 @@
+import type { ErrorRequestHandler } from 'express';
+import { HttpError } from './errors';
+
+/** Registered last: the only place a failure becomes a response. Never leaks a stack trace. */
+export function errorHandler(log: (msg: string) => void = console.error): ErrorRequestHandler {
+  return (err, _req, res, _next) => {
+    if (err instanceof HttpError) {
+      res.status(err.status).json({ error: err.code, message: err.message, ...(err.details ? { details: err.details } : {}) });
+      return;
+    }
+    // Failures raised by middleware we do not own (body parser, csrf-sync, multer) carry a status of their own.
+    const status = typeof err?.status === 'number' ? err.status : typeof err?.statusCode === 'number' ? err.statusCode : 500;
+    if (status === 403 && err?.code === 'EBADCSRFTOKEN') {
+      res.status(403).json({ error: 'csrf_token_invalid', message: 'The form was stale or not from this app. Reload the page and try again.' });
+      return;
+    }
+    if (status >= 400 && status < 500) {
+      const code = err?.type === 'entity.parse.failed' ? 'malformed_json' : err?.type === 'entity.too.large' ? 'body_too_large' : 'invalid_request';
+      res.status(status).json({ error: code, message: err?.type === 'entity.parse.failed' ? 'The request body is not valid JSON.' : String(err?.message ?? 'Bad request') });
+      return;
+    }
+    log(`[server] unexpected error: ${err?.stack ?? err}`);
+    res.status(500).json({ error: 'internal_error', message: 'Something went wrong on our side. The action was not completed; try again.' });
+  };
+}

@@ -1,0 +1,41 @@
+// Start-up order: config → database → HTTP server → socket.io → listen. Stops cleanly on SIGINT/SIGTERM.
+import { createServer } from 'node:http';
+import { loadEnv } from './config/env';
+import { createDataSource } from './db/data-source';
+import { createApp } from './app';
+import { createSessionSetup } from './http/session';
+import { createSignInThrottle } from './modules/auth/throttle';
+import { createSocketServer, disconnectUserSockets, type AppIo } from './realtime/socket-server';
+
+const env = loadEnv();
+const db = createDataSource(env.DATABASE_URL);
+await db.initialize();
+const session = createSessionSetup(env);
+const ioRef: { io?: AppIo } = {};
+const app = createApp({
+  env,
+  db,
+  session,
+  throttle: createSignInThrottle(),
+  demo: env.NODE_ENV !== 'production',
+  disconnectUser: (id) => ioRef.io && disconnectUserSockets(ioRef.io, id),
+});
+const http = createServer(app);
+ioRef.io = createSocketServer(http, { db, sessionMiddleware: session.middleware });
+http.listen(env.PORT, env.HOST, () => {
+  console.log(`[server] listening on http://${env.HOST}:${env.PORT}`);
+});
+
+let stopping = false;
+async function stop(signal: string) {
+  if (stopping) return;
+  stopping = true;
+  console.log(`[server] ${signal}: stopping`);
+  ioRef.io?.close();
+  http.close();
+  await session.close();
+  await db.destroy();
+  process.exit(0);
+}
+process.on('SIGINT', () => void stop('SIGINT'));
+process.on('SIGTERM', () => void stop('SIGTERM'));

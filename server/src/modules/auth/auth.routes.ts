@@ -1,0 +1,78 @@
+import { Router } from 'express';
+import passport from 'passport';
+import { Strategy as LocalStrategy } from 'passport-local';
+import type { DataSource } from 'typeorm';
+import { signInBodySchema, type SessionResponse } from '@shared/schemas/auth';
+import { parse } from '../../http/validate';
+import { HttpError } from '../../http/errors';
+import { generateToken } from '../../http/csrf';
+import type { SignInThrottle } from './throttle';
+import { authenticate } from './auth.service';
+import { loadActiveSessionUser } from './session-user';
+
+export function configurePassport(db: DataSource) {
+  passport.use(
+    new LocalStrategy({ usernameField: 'email', passwordField: 'password', session: true }, (email, password, done) => {
+      authenticate(db, email, password).then((u) => done(null, u ?? false), done);
+    }),
+  );
+  passport.serializeUser((user, done) => done(null, user.id));
+  passport.deserializeUser((id: number, done) => {
+    loadActiveSessionUser(db, id).then((u) => done(null, u ?? false), done);
+  });
+}
+
+export function authRouter(deps: { db: DataSource; throttle: SignInThrottle; demo: boolean; onSignOut?: (userId: number) => void }) {
+  const r = Router();
+
+  const sessionResponse = (req: Parameters<typeof generateToken>[0], overwrite = false): SessionResponse => ({
+    user: req.user ?? null,
+    csrfToken: generateToken(req, overwrite),
+    demo: deps.demo,
+  });
+
+  // Public: tells the client who is signed in and hands out the CSRF token (which starts a session).
+  r.get('/session', (req, res) => {
+    res.json(sessionResponse(req));
+  });
+
+  // Public, CSRF-protected like every POST; throttled per account and per address.
+  r.post('/sign-in', async (req, res, next) => {
+    const body = parse(signInBodySchema, req.body);
+    const ip = req.ip ?? 'unknown';
+    await deps.throttle.check(body.email, ip);
+    req.body = body;
+    passport.authenticate('local', (err: unknown, user: Express.User | false) => {
+      if (err) return next(err);
+      if (!user) {
+        deps.throttle.recordFailure(body.email, ip).then(
+          // One answer for an unknown e-mail and a wrong password: never reveal which accounts exist.
+          () => next(new HttpError(401, 'sign_in_failed', 'That e-mail and password do not match an active account.')),
+          next,
+        );
+        return;
+      }
+      // req.logIn regenerates the session, so a session id planted before sign-in is worthless afterwards.
+      req.logIn(user, (loginErr) => {
+        if (loginErr) return next(loginErr);
+        req.session.signedInAt = Date.now();
+        deps.throttle.recordSuccess(body.email).then(() => res.json(sessionResponse(req, true)), next);
+      });
+    })(req, res, next);
+  });
+
+  r.post('/sign-out', (req, res, next) => {
+    const userId = req.user?.id;
+    req.logout((err) => {
+      if (err) return next(err);
+      req.session.destroy((destroyErr) => {
+        if (destroyErr) return next(destroyErr);
+        if (userId) deps.onSignOut?.(userId);
+        res.clearCookie('bumpboard.sid');
+        res.status(204).end();
+      });
+    });
+  });
+
+  return r;
+}

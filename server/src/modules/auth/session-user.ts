@@ -1,0 +1,19 @@
+import type { DataSource } from 'typeorm';
+import type { SessionUser } from '@shared/schemas/auth';
+import { UserEntity } from '../../db/entities';
+
+export function presentSessionUser(u: UserEntity): SessionUser {
+  return {
+    id: u.id,
+    email: u.email,
+    displayName: u.displayName,
+    role: u.role,
+    stations: [...(u.stations ?? [])].sort((a, b) => a.iata.localeCompare(b.iata)).map((s) => ({ id: s.id, iata: s.iata, name: s.name, timeZone: s.timeZone })),
+  };
+}
+
+/** Reloaded on every request so a role change or deactivation takes effect at once. */
+export async function loadActiveSessionUser(db: DataSource, id: number): Promise<SessionUser | null> {
+  const u = await db.getRepository(UserEntity).findOne({ where: { id }, relations: { stations: true } });
+  return u && u.active ? presentSessionUser(u) : null;
+}

@@ -1,0 +1,39 @@
+import { describe, expect, it } from 'vitest';
+import { describeRules, parsePriorityRules, priorityRulesSchema } from './index';
+
+describe('describeRules', () => {
+  it('prints the carrier rules in order, then ties, parties and the protected groups', () => {
+    const lines = describeRules([
+      { factor: 'check-in-time', direction: 'latest-first' },
+      { factor: 'fare-paid', direction: 'lowest-first' },
+      { factor: 'frequent-flyer-tier' },
+    ]);
+    expect(lines[0]).toContain('volunteers');
+    expect(lines[2]).toMatch(/^1\. Check-in time: passengers who checked in latest/);
+    expect(lines[3]).toMatch(/^2\. Fare paid: .*lowest fare/);
+    expect(lines[4]).toMatch(/^3\. Frequent-flyer status/);
+    const text = lines.join(' ');
+    for (const group of ['unaccompanied minors', 'disability', 'families travelling with children', 'already denied', 'boarded']) {
+      expect(text).toContain(group);
+    }
+  });
+
+  it('refuses an invalid rules list like the ranking does', () => {
+    expect(() => describeRules([{ factor: 'lottery' } as never])).toThrow(/^rules\[0\]\.factor:/);
+  });
+});
+
+describe('priority rules schema (zod)', () => {
+  it('fills the single-direction factors with their default', () => {
+    expect(parsePriorityRules([{ factor: 'seat-assigned-before-gate' }, { factor: 'frequent-flyer-tier' }])).toEqual([
+      { factor: 'seat-assigned-before-gate', direction: 'unassigned-first' },
+      { factor: 'frequent-flyer-tier', direction: 'none-first' },
+    ]);
+  });
+
+  it('rejects unknown keys, missing directions and duplicates', () => {
+    expect(priorityRulesSchema.safeParse([{ factor: 'fare-paid', direction: 'lowest-first', weight: 2 }]).success).toBe(false);
+    expect(priorityRulesSchema.safeParse([{ factor: 'fare-paid' }]).success).toBe(false);
+    expect(priorityRulesSchema.safeParse([{ factor: 'fare-paid', direction: 'lowest-first' }, { factor: 'fare-paid', direction: 'highest-first' }]).success).toBe(false);
+  });
+});

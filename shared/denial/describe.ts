@@ -1,0 +1,35 @@
+// The carrier's priority rules in plain English, for the written statement given to passengers.
+import { parsePriorityRules, type PriorityRule, type PriorityRuleInput } from './priority-rules.schema';
+
+function ruleSentence(rule: PriorityRule): string {
+  switch (rule.factor) {
+    case 'check-in-time':
+      return rule.direction === 'latest-first'
+        ? 'Check-in time: passengers who checked in latest are selected first; a passenger not checked in counts as latest.'
+        : 'Check-in time: passengers who checked in earliest are selected first.';
+    case 'fare-paid':
+      return rule.direction === 'lowest-first'
+        ? 'Fare paid: passengers who paid the lowest fare are selected first.'
+        : 'Fare paid: passengers who paid the highest fare are selected first.';
+    case 'frequent-flyer-tier':
+      return 'Frequent-flyer status: passengers without status are selected first, then the lowest tiers.';
+    case 'seat-assigned-before-gate':
+      return 'Seat assignment: passengers without a seat assigned before reaching the gate are selected first.';
+    case 'party-size':
+      return rule.direction === 'smallest-first'
+        ? 'Party size: passengers travelling alone and small parties are selected first.'
+        : 'Party size: the largest parties are selected first.';
+  }
+}
+
+export function describeRules(rules: PriorityRuleInput[]): string[] {
+  const parsed = parsePriorityRules(rules);
+  return [
+    'We first ask for volunteers. Passengers are denied boarding against their will only when too few volunteer.',
+    'If we must deny boarding, we choose in this order:',
+    ...parsed.map((rule, index) => `${index + 1}. ${ruleSentence(rule)}`),
+    'Passengers still level after every rule are taken in order of booking reference.',
+    'People travelling together are kept together and ranked as one, by the values of the member who would be chosen last, unless they chose to travel separately.',
+    'Never selected: unaccompanied minors; passengers with a disability and the companions travelling with them; families travelling with children; anyone already denied boarding on the same ticket; anyone who has boarded with an accepted boarding pass.',
+  ];
+}

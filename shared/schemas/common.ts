@@ -1,0 +1,43 @@
+import { z } from 'zod';
+
+export const ROLES = ['agent', 'supervisor', 'finance', 'admin'] as const;
+export const roleSchema = z.enum(ROLES, { error: 'role must be one of agent, supervisor, finance, admin' });
+export type Role = z.infer<typeof roleSchema>;
+
+export const ROLE_LABELS: Record<Role, string> = {
+  agent: 'Gate agent',
+  supervisor: 'Supervisor',
+  finance: 'Finance',
+  admin: 'Admin',
+};
+
+export const REGIMES = ['us-dot', 'eu-261', 'uk-261', 'ca-appr'] as const;
+export const regimeSchema = z.enum(REGIMES, { error: 'regime must be one of us-dot, eu-261, uk-261, ca-appr' });
+export type RegimeCode = z.infer<typeof regimeSchema>;
+
+export const REGIME_LABELS: Record<RegimeCode, string> = {
+  'us-dot': 'United States, 14 CFR Part 250',
+  'eu-261': 'European Union, Regulation (EC) 261/2004',
+  'uk-261': 'United Kingdom, retained Regulation 261',
+  'ca-appr': 'Canada, Air Passenger Protection Regulations',
+};
+
+export const idParamSchema = z.object({ id: z.coerce.number({ error: 'id must be a number' }).int('id must be a whole number').positive('id must be positive') });
+
+export const iataAirportSchema = z.string().regex(/^[A-Z]{3}$/, 'must be a three-letter IATA airport code in capitals');
+export const currencySchema = z.string().regex(/^[A-Z]{3}$/, 'must be a three-letter ISO 4217 currency code');
+
+/** Money travels as integer minor units with its currency, from the form to the ledger. */
+export const moneySchema = z.object({
+  amountMinor: z.number().int('amountMinor must be a whole number of minor units').nonnegative('amountMinor must not be negative'),
+  currency: currencySchema,
+});
+export type Money = z.infer<typeof moneySchema>;
+
+/** The single error shape every API failure answers with. */
+export const apiErrorSchema = z.object({
+  error: z.string(),
+  message: z.string(),
+  details: z.array(z.object({ field: z.string(), rule: z.string() })).optional(),
+});
+export type ApiError = z.infer<typeof apiErrorSchema>;
