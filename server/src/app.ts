@@ -15,6 +15,12 @@ import { departuresRouter } from './modules/flights/flights.routes';
 import { healthRouter } from './modules/health/health.routes';
 import { stationsRouter } from './modules/stations/stations.routes';
 import { usersRouter } from './modules/users/users.routes';
+import { plansRouter } from './modules/plans/plans.routes';
+import { flightDeskRouter } from './modules/flights/flight-desk.routes';
+import { integrationEventsRouter } from './modules/integrations/events.routes';
+import { integrationKeysRouter } from './modules/integrations/integration-keys.routes';
+import { createForecastScheduler, type ForecastScheduler } from './modules/forecast/forecast-scheduler';
+import { silentPublisher, type Publisher } from './realtime/publisher';
 
 export interface AppDeps {
   env: Env;
@@ -24,6 +30,10 @@ export interface AppDeps {
   demo: boolean;
   /** Called when a user must lose every live connection at once (sign-out, deactivation). */
   disconnectUser?: (userId: number) => void;
+  /** Tells live consoles what changed; silent in tests that do not watch sockets. */
+  publisher?: Publisher;
+  /** Coalesced forecast recomputes; built here when the caller does not bring one. */
+  forecast?: ForecastScheduler;
 }
 
 /** Builds the whole HTTP app without listening, so tests run it in-process on port 0. */
@@ -35,6 +45,11 @@ export function createApp(deps: AppDeps) {
 
   app.use('/api/health', healthRouter(deps));
 
+  const publisher = deps.publisher ?? silentPublisher;
+  const forecast = deps.forecast ?? createForecastScheduler(deps.db, (o) => publisher.flightChanged(o.flightId, o.stationId, ['forecast', 'counts', 'events']));
+  // The feed authenticates with an API key, not a session: mounted before the session and CSRF middleware.
+  app.use('/api/integrations', integrationEventsRouter({ db: deps.db, onFlightsChanged: (ids) => ids.forEach((id) => forecast.markDirty(id)) }));
+
   configurePassport(deps.db);
   const api = Router();
   api.use(express.json({ limit: '1mb' }));
@@ -43,8 +58,11 @@ export function createApp(deps: AppDeps) {
   api.use(csrfSynchronisedProtection);
   api.use('/auth', authRouter({ db: deps.db, throttle: deps.throttle, demo: deps.demo, onSignOut: deps.disconnectUser }));
   api.use('/users', usersRouter({ db: deps.db, onUserLockedOut: deps.disconnectUser }));
+  api.use('/stations/:stationId/integration-keys', integrationKeysRouter(deps));
   api.use('/stations', stationsRouter(deps));
+  api.use('/flights', flightDeskRouter({ db: deps.db, onFlightChanged: (id, stationId) => publisher.flightChanged(id, stationId, ['forecast', 'shock']) }));
   api.use('/departures', departuresRouter(deps));
+  api.use('/plans', plansRouter(deps));
   api.use((req) => {
     throw notFound(`The API route ${req.method} ${req.path}`);
   });

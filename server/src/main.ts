@@ -6,13 +6,20 @@ import { createApp } from './app';
 import { createSessionSetup } from './http/session';
 import { createSignInThrottle } from './modules/auth/throttle';
 import { createSocketServer, disconnectUserSockets, type AppIo } from './realtime/socket-server';
+import { socketPublisher } from './realtime/publisher';
+import { createForecastScheduler } from './modules/forecast/forecast-scheduler';
 
 const env = loadEnv();
 const db = createDataSource(env.DATABASE_URL);
 await db.initialize();
 const session = createSessionSetup(env);
 const ioRef: { io?: AppIo } = {};
+const publisher = socketPublisher(() => ioRef.io);
+const forecast = createForecastScheduler(db, (o) => publisher.flightChanged(o.flightId, o.stationId, ['forecast', 'counts', 'events']));
+forecast.startClock();
 const app = createApp({
+  publisher,
+  forecast,
   env,
   db,
   session,
@@ -31,6 +38,7 @@ async function stop(signal: string) {
   if (stopping) return;
   stopping = true;
   console.log(`[server] ${signal}: stopping`);
+  forecast.stop();
   ioRef.io?.close();
   http.close();
   await session.close();

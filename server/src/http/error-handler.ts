@@ -15,8 +15,16 @@ export function errorHandler(log: (msg: string) => void = console.error): ErrorR
       return;
     }
     if (status >= 400 && status < 500) {
-      const code = err?.type === 'entity.parse.failed' ? 'malformed_json' : err?.type === 'entity.too.large' ? 'body_too_large' : 'invalid_request';
-      res.status(status).json({ error: code, message: err?.type === 'entity.parse.failed' ? 'The request body is not valid JSON.' : String(err?.message ?? 'Bad request') });
+      // Body-parser failures name the body as the field, like every other 400, so clients read one shape.
+      if (err?.type === 'entity.parse.failed') {
+        res.status(status).json({ error: 'malformed_json', message: 'The request body is not valid JSON.', details: [{ field: 'body', rule: 'must be valid JSON' }] });
+        return;
+      }
+      if (err?.type === 'entity.too.large') {
+        res.status(status).json({ error: 'body_too_large', message: 'The request body is larger than this route accepts.', details: [{ field: 'body', rule: 'must not exceed the size limit' }] });
+        return;
+      }
+      res.status(status).json({ error: 'invalid_request', message: String(err?.message ?? 'Bad request') });
       return;
     }
     log(`[server] unexpected error: ${err?.stack ?? err}`);

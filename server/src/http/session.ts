@@ -52,7 +52,9 @@ export function createSessionSetup(env: Env): SessionSetup {
   const enforceAbsoluteTimeout: RequestHandler = (req, _res, next) => {
     const started = req.session?.signedInAt;
     if (started && Date.now() - started > absoluteMs) {
-      req.session.destroy(() => next());
+      // Regenerate, not destroy: the stored session goes, but later middleware (passport, CSRF) still needs a
+      // session object, and meets an empty, signed-out one instead of crashing on a missing req.session.
+      req.session.regenerate((err) => next(err));
       return;
     }
     next();

@@ -1,5 +1,6 @@
 import { Column, CreateDateColumn, Entity, Index, JoinColumn, ManyToOne, PrimaryGeneratedColumn, type Relation } from 'typeorm';
 import type { FlightState } from '@shared/schemas/flights';
+import type { CommonShock } from '@shared/forecast';
 import { StationEntity } from './station.entity';
 
 @Entity({ name: 'flights' })
@@ -50,6 +51,10 @@ export class FlightEntity {
 
   @Column({ type: 'varchar', length: 16, default: 'scheduled' })
   state!: FlightState;
+
+  /** A common shock for disruption days (weather, a late bank of connections), set by a supervisor with a reason. */
+  @Column({ type: 'json', nullable: true })
+  shock!: CommonShock | null;
 
   @CreateDateColumn({ type: 'datetime', precision: 3, default: () => 'CURRENT_TIMESTAMP(3)', name: 'created_at' })
   createdAt!: Date;

@@ -72,4 +72,8 @@ export class PassengerEntity {
 
   @Column({ type: 'datetime', precision: 3, name: 'boarded_at', nullable: true })
   boardedAt!: Date | null;
+
+  /** When the feed last changed this passenger's status: older events arriving late do not undo newer ones. */
+  @Column({ type: 'datetime', precision: 3, name: 'status_changed_at', nullable: true })
+  statusChangedAt!: Date | null;
 }

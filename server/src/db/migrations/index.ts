@@ -1,5 +1,7 @@
 // Listed by hand: a glob of .ts files does not load inside vitest. Append new migrations at the end.
 import { Initial1796151413508 } from './1796151413508-Initial';
 import { SessionsAndAuditGuard1796151413600 } from './1796151413600-SessionsAndAuditGuard';
+import { LiveFlightDesk1796152035497 } from './1796152035497-LiveFlightDesk';
+import { SavedPlans1796151413700 } from './1796151413700-SavedPlans';
 
-export const migrations = [Initial1796151413508, SessionsAndAuditGuard1796151413600];
+export const migrations = [Initial1796151413508, SessionsAndAuditGuard1796151413600, LiveFlightDesk1796152035497, SavedPlans1796151413700];

@@ -1,6 +1,6 @@
-import { Between, type DataSource } from 'typeorm';
+import { Between, In, type DataSource } from 'typeorm';
 import type { DepartureRow } from '@shared/schemas/flights';
-import { FlightEntity, StationEntity } from '../../db/entities';
+import { FlightEntity, FlightForecastEntity, StationEntity } from '../../db/entities';
 import { notFound } from '../../http/errors';
 
 interface CountRow { flight_id: number; bookings: string; checked_in: string; boarded: string }
@@ -26,6 +26,8 @@ export async function listDepartures(db: DataSource, stationId: number, now = ne
       )
     : [];
   const byFlight = new Map(counts.map((c) => [Number(c.flight_id), c]));
+  const forecasts = flights.length ? await db.getRepository(FlightForecastEntity).find({ select: { flightId: true, pOversale: true, expectedDenied: true }, where: { flightId: In(flights.map((f) => f.id)) } }) : [];
+  const odds = new Map(forecasts.map((x) => [x.flightId, x]));
   const rows: DepartureRow[] = flights.map((f) => {
     const c = byFlight.get(f.id);
     return {
@@ -43,8 +45,8 @@ export async function listDepartures(db: DataSource, stationId: number, now = ne
       bookings: Number(c?.bookings ?? 0),
       checkedIn: Number(c?.checked_in ?? 0),
       boarded: Number(c?.boarded ?? 0),
-      pOversale: null,
-      expectedDenied: null,
+      pOversale: odds.get(f.id)?.pOversale ?? null,
+      expectedDenied: odds.get(f.id)?.expectedDenied ?? null,
     };
   });
   return { station: { id: station.id, iata: station.iata, name: station.name, timeZone: station.timeZone }, flights: rows };

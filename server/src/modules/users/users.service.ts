@@ -42,7 +42,8 @@ export async function updateUser(db: DataSource, admin: SessionUser, id: number,
   const stations = body.stationIds ? await loadStations(db, body.stationIds) : undefined;
   const passwordHash = body.password ? await hashPassword(body.password) : undefined;
   return db.transaction(async (em) => {
-    const user = await em.findOne(UserEntity, { where: { id }, relations: { stations: true }, lock: { mode: 'pessimistic_write', tables: ['users'] } });
+    // FOR UPDATE without an OF list: TypeORM accepts `tables` only on PostgreSQL and throws on MariaDB.
+    const user = await em.findOne(UserEntity, { where: { id }, relations: { stations: true }, lock: { mode: 'pessimistic_write' } });
     if (!user || !adminSharesStation(admin, user)) throw notFound('User');
     const before = presentUser(user);
     if (body.displayName !== undefined) user.displayName = body.displayName;

@@ -1,0 +1,44 @@
+import { createHash, randomBytes } from 'node:crypto';
+import { IsNull, type DataSource } from 'typeorm';
+import type { SessionUser } from '@shared/schemas/auth';
+import { IntegrationKeyEntity } from '../../db/entities';
+import { notFound } from '../../http/errors';
+import { audit } from '../audit/audit.service';
+
+export const hashKey = (key: string) => createHash('sha256').update(key).digest('hex');
+
+export function presentKey(k: IntegrationKeyEntity) {
+  return { id: k.id, stationId: k.stationId, name: k.name, prefix: k.prefix, createdAt: k.createdAt.toISOString(), revokedAt: k.revokedAt?.toISOString() ?? null, lastUsedAt: k.lastUsedAt?.toISOString() ?? null };
+}
+
+/** A new key, returned in full exactly once; only its hash is stored. */
+export async function createIntegrationKey(db: DataSource, stationId: number, name: string, actor: SessionUser | { label: string }) {
+  const key = `bbk_${randomBytes(24).toString('base64url')}`;
+  return db.transaction(async (em) => {
+    const row = await em.save(em.create(IntegrationKeyEntity, { stationId, name, prefix: key.slice(0, 10), keyHash: hashKey(key), createdByUserId: 'id' in actor ? actor.id : null, revokedAt: null, lastUsedAt: null }));
+    await audit(em, { actor, action: 'integration_key.created', entityType: 'integration_key', entityId: row.id, stationId, after: presentKey(row) });
+    return { ...presentKey(row), key };
+  });
+}
+
+export async function revokeIntegrationKey(db: DataSource, stationId: number, keyId: number, actor: SessionUser) {
+  return db.transaction(async (em) => {
+    const row = await em.findOneBy(IntegrationKeyEntity, { id: keyId, stationId });
+    if (!row) throw notFound('Integration key');
+    if (!row.revokedAt) {
+      const before = presentKey(row);
+      row.revokedAt = new Date();
+      await em.save(row);
+      await audit(em, { actor, action: 'integration_key.revoked', entityType: 'integration_key', entityId: row.id, stationId, before, after: presentKey(row) });
+    }
+    return presentKey(row);
+  });
+}
+
+/** The station a presented key belongs to, or null for an unknown or revoked key. */
+export async function stationForKey(db: DataSource, presented: string): Promise<{ stationId: number; keyId: number } | null> {
+  const row = await db.getRepository(IntegrationKeyEntity).findOneBy({ keyHash: hashKey(presented), revokedAt: IsNull() });
+  if (!row) return null;
+  await db.getRepository(IntegrationKeyEntity).update({ id: row.id }, { lastUsedAt: new Date() });
+  return { stationId: row.stationId, keyId: row.id };
+}

@@ -1,0 +1,85 @@
+// Runs the real app in-process on the test MariaDB (DATABASE_URL from `npm test`), with a supertest agent per user.
+import 'reflect-metadata';
+import { createServer, type Server } from 'node:http';
+import type { AddressInfo } from 'node:net';
+import request from 'supertest';
+import type { DataSource } from 'typeorm';
+import { loadEnv } from '../../server/src/config/env';
+import { createDataSource } from '../../server/src/db/data-source';
+import { createApp } from '../../server/src/app';
+import { createSessionSetup } from '../../server/src/http/session';
+import { createSignInThrottle, type SignInThrottle } from '../../server/src/modules/auth/throttle';
+
+export const DEMO_PASSWORD = 'bumpboard-demo-2026';
+
+export interface TestApp {
+  app: ReturnType<typeof createApp>;
+  db: DataSource;
+  http: Server;
+  baseUrl: string;
+  close(): Promise<void>;
+}
+
+export async function startTestApp(opts: { throttle?: SignInThrottle } = {}): Promise<TestApp> {
+  const env = loadEnv({ ...process.env, NODE_ENV: 'test', SESSION_SECRET: process.env.SESSION_SECRET ?? 'test-secret-test-secret-test-secret-42', STATIC_DIR: 'no-static-in-api-tests' });
+  const db = createDataSource(env.DATABASE_URL);
+  await db.initialize();
+  const session = createSessionSetup(env);
+  const app = createApp({ env, db, session, throttle: opts.throttle ?? createSignInThrottle({ perAccount: 1000, perAddress: 10_000 }), demo: true });
+  const http = createServer(app);
+  await new Promise<void>((r) => http.listen(0, '127.0.0.1', r));
+  const baseUrl = `http://127.0.0.1:${(http.address() as AddressInfo).port}`;
+  return {
+    app,
+    db,
+    http,
+    baseUrl,
+    async close() {
+      await new Promise((r) => http.close(r));
+      await session.close();
+      await db.destroy();
+    },
+  };
+}
+
+/** A browser-like client: keeps its cookie and sends the CSRF token on every change. */
+export class Client {
+  readonly agent: ReturnType<typeof request.agent>;
+  csrf = '';
+  constructor(app: TestApp['app']) {
+    this.agent = request.agent(app);
+  }
+  async refreshCsrf() {
+    const res = await this.agent.get('/api/auth/session').expect(200);
+    this.csrf = res.body.csrfToken;
+    return res.body;
+  }
+  async signIn(email: string, password = DEMO_PASSWORD) {
+    await this.refreshCsrf();
+    const res = await this.agent.post('/api/auth/sign-in').set('X-CSRF-Token', this.csrf).send({ email, password });
+    if (res.status === 200) this.csrf = res.body.csrfToken;
+    return res;
+  }
+  get(path: string) {
+    return this.agent.get(path);
+  }
+  post(path: string, body: unknown = {}) {
+    return this.agent.post(path).set('X-CSRF-Token', this.csrf).send(body as object);
+  }
+  patch(path: string, body: unknown = {}) {
+    return this.agent.patch(path).set('X-CSRF-Token', this.csrf).send(body as object);
+  }
+  put(path: string, body: unknown = {}) {
+    return this.agent.put(path).set('X-CSRF-Token', this.csrf).send(body as object);
+  }
+  delete(path: string) {
+    return this.agent.delete(path).set('X-CSRF-Token', this.csrf);
+  }
+}
+
+export async function signedIn(app: TestApp, email: string) {
+  const c = new Client(app.app);
+  const res = await c.signIn(email);
+  if (res.status !== 200) throw new Error(`sign-in as ${email} failed: ${res.status} ${JSON.stringify(res.body)}`);
+  return c;
+}
