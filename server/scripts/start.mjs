@@ -29,7 +29,7 @@ process.on('SIGTERM', () => void stop(0));
 try {
   ensureDependencies();
   db = await startDatabase({ local, dbPort: ports.db });
-  migrateAndLoadDemo(db.url);
+  migrateAndLoadDemo(db.url, { local });
   if (!dev) buildClientIfStale();
   const env = serviceEnv({ local, ports, databaseUrl: db.url });
   await startServices(env, { dev });

@@ -10,7 +10,9 @@ import { run, stopChildren } from './lib/processes.mjs';
 import { say } from './lib/log.mjs';
 
 const local = '.local/test';
-const ports = { app: 4700, mail: 4701, payments: 4702, smtp: 4725, db: 4710 };
+// TEST_PORT moves the whole test instance (default 4700: app 4700, mail 4701, payments 4702, db 4710, SMTP 4725).
+const base = Number(process.env.TEST_PORT ?? 4700);
+const ports = { app: base, mail: base + 1, payments: base + 2, smtp: base + 25, db: base + 10 };
 const results = [];
 let db;
 
@@ -41,20 +43,20 @@ async function main() {
     if (!process.env.DATABASE_URL) db.resetDatabase();
     rmSync(`${local}/mail-fake`, { recursive: true, force: true });
     rmSync(`${local}/payments-fake`, { recursive: true, force: true });
-    migrateAndLoadDemo(db.url);
+    migrateAndLoadDemo(db.url, { local });
   });
   await step('lint (ESLint)', () => run('node_modules/.bin/eslint', ['--config', 'tests/lint/eslint.config.js', '.']) === 0);
   await step('type-check (tsc)', () => run('node_modules/.bin/tsc', ['-p', 'tsconfig.json', '--noEmit']) === 0);
   await step('unit tests (vitest)', () => run('node_modules/.bin/vitest', ['run', '--project', 'unit', '--project', 'client']) === 0);
   if (!setupOk) return;
-  const env = { ...serviceEnv({ local, ports, databaseUrl: db.url }), NODE_ENV: 'test' };
+  const env = { ...serviceEnv({ local, ports, databaseUrl: db.url }), NODE_ENV: 'test', SIMULATOR: 'off' };
   await step('API tests against MariaDB (vitest)', () => run('node_modules/.bin/vitest', ['run', '--project', 'api'], env) === 0);
   await step('end-to-end tests in Chromium (Playwright)', async () => {
     ensureChromium();
     buildClientIfStale();
     // The API tests changed data; the browser tests start from a fresh demo.
     if (!process.env.DATABASE_URL) db.resetDatabase();
-    migrateAndLoadDemo(db.url);
+    migrateAndLoadDemo(db.url, { local });
     await startServices(env, { quiet: !process.env.VERBOSE });
     return run('node_modules/.bin/playwright', ['test', '--config', 'tests/e2e/playwright.config.ts'], env) === 0;
   });

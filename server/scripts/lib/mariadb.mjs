@@ -3,7 +3,7 @@
 import { spawn, spawnSync, execFileSync } from 'node:child_process';
 import { existsSync, mkdirSync, readFileSync, writeFileSync, openSync } from 'node:fs';
 import { randomBytes } from 'node:crypto';
-import { join } from 'node:path';
+import { join, resolve } from 'node:path';
 import { say } from './log.mjs';
 
 const DB_NAME = 'bumpboard';
@@ -64,8 +64,10 @@ async function waitFor(check, timeoutMs, what) {
  * Starts (initialising on first use) a MariaDB under `baseDir` on 127.0.0.1:`port`.
  * Returns the connection URL of the application user and a stop() that shuts the server down cleanly.
  */
-export async function startPrivateMariadb({ baseDir, port }) {
+export async function startPrivateMariadb({ baseDir: relativeBase, port }) {
   ensureMariadbInstalled();
+  // mariadbd resolves relative paths against its own base directory, not ours.
+  const baseDir = resolve(relativeBase);
   const dataDir = join(baseDir, 'data');
   const runDir = join(baseDir, 'run');
   const socket = join(runDir, 'mariadb.sock');
@@ -88,7 +90,10 @@ export async function startPrivateMariadb({ baseDir, port }) {
       '--collation-server=utf8mb4_unicode_ci', '--innodb-buffer-pool-size=128M', '--max-connections=500'],
       { stdio: ['ignore', log, log], detached: false });
     child.on('exit', (code) => { if (code && code !== 0) say('db', `mariadbd exited with ${code}; see ${join(runDir, 'error.log')}`); });
-    await waitFor(() => ping(socket), 30_000, 'MariaDB');
+    await waitFor(() => {
+      if (child.exitCode !== null) throw new Error(`MariaDB stopped during start-up; see ${join(runDir, 'error.log')}`);
+      return ping(socket);
+    }, 30_000, 'MariaDB');
   }
 
   let creds;

@@ -16,10 +16,11 @@ export async function startDatabase({ local, dbPort }) {
   return startPrivateMariadb({ baseDir: `${local}/db`, port: dbPort });
 }
 
-export function migrateAndLoadDemo(databaseUrl, { demo = true } = {}) {
+export function migrateAndLoadDemo(databaseUrl, { local, demo = true } = {}) {
   if (run(TSX, ['server/src/db/migrate.ts'], { DATABASE_URL: databaseUrl }) !== 0) throw new Error('migrations failed; see above');
   if (demo && process.env.NODE_ENV !== 'production') {
-    if (run(TSX, ['server/src/demo/cli.ts'], { DATABASE_URL: databaseUrl }) !== 0) throw new Error('loading the demo failed; see above');
+    const env = { DATABASE_URL: databaseUrl, DEMO_KEYS_FILE: `${local}/demo-feed-keys.json` };
+    if (run(TSX, ['server/src/demo/cli.ts'], env) !== 0) throw new Error('loading the demo failed; see above');
   }
 }
 
@@ -43,6 +44,7 @@ export function serviceEnv({ local, ports, databaseUrl }) {
     PAYMENTS_FAKE_DATA_DIR: `${local}/payments-fake`,
     PAYMENTS_FAKE_WEBHOOK_URL: `http://127.0.0.1:${ports.app}/api/payments/webhook`,
     PAYMENTS_FAKE_WEBHOOK_SECRET: stripeWebhookSecret,
+    DEMO_KEYS_FILE: `${local}/demo-feed-keys.json`,
   };
 }
 
@@ -53,4 +55,8 @@ export async function startServices(env, { dev = false, quiet = false } = {}) {
   startChild('server', TSX, serverArgs, { env, quiet });
   await waitForHttp(`http://127.0.0.1:${env.PORT}/api/health`);
   await waitForHttp(`http://127.0.0.1:${env.MAIL_FAKE_HTTP_PORT}/api/health`);
+  // The demo simulator plays check-ins through the feed API; SIMULATOR=off leaves the demo still.
+  if ((env.SIMULATOR ?? process.env.SIMULATOR ?? 'on') !== 'off' && existsSync(env.DEMO_KEYS_FILE)) {
+    startChild('simulator', TSX, ['server/src/demo/simulator.ts'], { env, quiet });
+  }
 }

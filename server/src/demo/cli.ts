@@ -1,6 +1,7 @@
 // Loads the demo on an empty database, refreshes a stale one; refuses to run in production.
 import { createDataSource } from '../db/data-source';
-import { demoIsStale, isEmpty, loadDemo, refreshDemoFlights } from './load-demo';
+import { writeFileSync } from 'node:fs';
+import { createDemoFeedKeys, demoIsStale, isEmpty, loadDemo, refreshDemoFlights } from './load-demo';
 
 if (process.env.NODE_ENV === 'production') {
   console.error('[demo] refused: NODE_ENV=production. The demo scenario is for trying Bumpboard out, never for a live station.');
@@ -16,5 +17,10 @@ if (await isEmpty(db)) {
 } else if (process.env.DEMO_REFRESH === '1' || (await demoIsStale(db))) {
   await refreshDemoFlights(db);
   console.log('[demo] refreshed the demo flights for the current time');
+}
+const keysFile = process.env.DEMO_KEYS_FILE;
+if (keysFile) {
+  // Fresh keys at every start: the file is the only place they exist in clear.
+  writeFileSync(keysFile, JSON.stringify(await createDemoFeedKeys(db), null, 2), { mode: 0o600 });
 }
 await db.destroy();

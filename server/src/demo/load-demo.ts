@@ -1,9 +1,10 @@
-import type { DataSource, EntityManager } from 'typeorm';
-import { BookingEntity, FlightEntity, PassengerEntity, StationEntity, UserEntity } from '../db/entities';
+import { IsNull, type DataSource, type EntityManager } from 'typeorm';
+import { BookingEntity, FlightEntity, IntegrationKeyEntity, PassengerEntity, StationEntity, UserEntity } from '../db/entities';
 import type { FlightState } from '@shared/schemas/flights';
 import { hashPassword } from '../modules/auth/password';
 import { audit } from '../modules/audit/audit.service';
 import { localDate } from '../time/zone';
+import { createIntegrationKey } from '../modules/integrations/integration-keys.service';
 import { demoManifest } from './manifest';
 import { seededRandom } from './random';
 import { DEMO_CARRIER, DEMO_PASSWORD, DEMO_STATIONS, DEMO_USERS, type DemoFlight, type DemoStation } from './scenario';
@@ -77,10 +78,24 @@ async function insertFlights(em: EntityManager, stations: StationEntity[], now: 
   }
 }
 
+/**
+ * The demo's feed keys, one per station, for the simulator. Created through the same service an admin uses, so the
+ * simulator has no side door; the keys go to a git-ignored file and never into the database in clear.
+ */
+export async function createDemoFeedKeys(db: DataSource): Promise<Record<string, string>> {
+  const keys: Record<string, string> = {};
+  await db.getRepository(IntegrationKeyEntity).update({ name: 'Demo simulator', revokedAt: IsNull() }, { revokedAt: new Date() });
+  for (const station of await db.getRepository(StationEntity).find()) {
+    keys[station.iata] = (await createIntegrationKey(db, station.id, 'Demo simulator', { label: 'demo loader' })).key;
+  }
+  return keys;
+}
+
 /** A demo left from another day has nothing moving: replace its flights with a fresh morning. */
 export async function refreshDemoFlights(db: DataSource, now = new Date()) {
   await db.transaction(async (em) => {
-    await em.query('DELETE FROM flights');
+    // Figures and trails of the old flights go with them (they hang off flights without foreign keys).
+    for (const table of ['flight_forecasts', 'forecast_snapshots', 'flight_events', 'flights']) await em.query(`DELETE FROM ${table}`);
     const stations = await em.find(StationEntity);
     await insertFlights(em, stations, now);
     await audit(em, { actor: { label: 'demo loader' }, action: 'demo.refreshed', entityType: 'demo', entityId: 'scenario', after: { at: now.toISOString() } });

@@ -35,7 +35,7 @@ export const DEMO_STATIONS: (DemoStation & { flights: DemoFlight[] })[] = [
       { number: '101', destination: 'ORD', departsIn: -170, blockMinutes: 165, aircraft: '320', seats: { J: 12, Y: 138 }, loadFactor: 0.97, gate: 'B12' },
       { number: '103', destination: 'ORD', departsIn: -35, blockMinutes: 165, aircraft: '320', seats: { J: 12, Y: 138 }, loadFactor: 0.93, gate: 'B12' },
       { number: '221', destination: 'DCA', departsIn: 20, blockMinutes: 95, aircraft: 'E75', seats: { J: 12, Y: 64 }, loadFactor: 0.92, gate: 'B4' },
-      { number: '105', destination: 'ORD', departsIn: 100, blockMinutes: 165, aircraft: '320', seats: { J: 12, Y: 138 }, loadFactor: 1.17, gate: 'B14' },
+      { number: '105', destination: 'ORD', departsIn: 100, blockMinutes: 165, aircraft: '320', seats: { J: 12, Y: 138 }, loadFactor: 1.12, gate: 'B14' },
       { number: '223', destination: 'DCA', departsIn: 160, blockMinutes: 95, aircraft: 'E75', seats: { J: 12, Y: 64 }, loadFactor: 0.81, gate: 'B4' },
       { number: '611', destination: 'LIS', departsIn: 280, blockMinutes: 400, aircraft: '21N', seats: { J: 16, Y: 180 }, loadFactor: 1.04, gate: 'E7' },
       { number: '107', destination: 'ORD', departsIn: 420, blockMinutes: 165, aircraft: '320', seats: { J: 12, Y: 138 }, loadFactor: 0.93, gate: 'B12' },
@@ -46,7 +46,7 @@ export const DEMO_STATIONS: (DemoStation & { flights: DemoFlight[] })[] = [
     flights: [
       { number: '401', destination: 'HAM', departsIn: -120, blockMinutes: 140, aircraft: '320', seats: { J: 8, Y: 162 }, loadFactor: 0.95, gate: 'B22' },
       { number: '411', destination: 'BRU', departsIn: -20, blockMinutes: 130, aircraft: '319', seats: { Y: 144 }, loadFactor: 0.9, gate: 'B25' },
-      { number: '403', destination: 'HAM', departsIn: 100, blockMinutes: 140, aircraft: '320', seats: { J: 8, Y: 162 }, loadFactor: 1.17, gate: 'B22' },
+      { number: '403', destination: 'HAM', departsIn: 100, blockMinutes: 140, aircraft: '320', seats: { J: 8, Y: 162 }, loadFactor: 1.12, gate: 'B22' },
       { number: '421', destination: 'LIS', departsIn: 190, blockMinutes: 175, aircraft: '320', seats: { J: 8, Y: 162 }, loadFactor: 0.86, gate: 'C3' },
       { number: '405', destination: 'HAM', departsIn: 330, blockMinutes: 140, aircraft: '320', seats: { J: 8, Y: 162 }, loadFactor: 0.84, gate: 'B20' },
       { number: '413', destination: 'BRU', departsIn: 480, blockMinutes: 130, aircraft: '319', seats: { Y: 144 }, loadFactor: 0.91, gate: 'B25' },
@@ -57,7 +57,7 @@ export const DEMO_STATIONS: (DemoStation & { flights: DemoFlight[] })[] = [
     flights: [
       { number: '801', destination: 'YYZ', departsIn: -140, blockMinutes: 80, aircraft: '223', seats: { J: 12, Y: 125 }, loadFactor: 0.94, gate: 'A51' },
       { number: '803', destination: 'YYZ', departsIn: -10, blockMinutes: 80, aircraft: '223', seats: { J: 12, Y: 125 }, loadFactor: 0.89, gate: 'A51' },
-      { number: '851', destination: 'YVR', departsIn: 100, blockMinutes: 330, aircraft: '7M8', seats: { J: 16, Y: 153 }, loadFactor: 1.17, gate: 'A49' },
+      { number: '851', destination: 'YVR', departsIn: 100, blockMinutes: 330, aircraft: '7M8', seats: { J: 16, Y: 153 }, loadFactor: 1.12, gate: 'A49' },
       { number: '805', destination: 'YYZ', departsIn: 210, blockMinutes: 80, aircraft: '223', seats: { J: 12, Y: 125 }, loadFactor: 0.9, gate: 'A53' },
       { number: '853', destination: 'YVR', departsIn: 390, blockMinutes: 330, aircraft: '7M8', seats: { J: 16, Y: 153 }, loadFactor: 0.87, gate: 'A49' },
     ],
