@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import type { BookingLimitOptions } from '../forecast/types';
 
 /** Largest cabin the planner accepts, and the booking search bound the forecast engine uses by default. */
 export const PLANNER_MAX_CAPACITY = 1000;
@@ -68,4 +69,16 @@ export type DenialCostHelper = z.infer<typeof denialCostHelperSchema>;
 /** Cost of one denied boarding from its parts, for costPerDenialMinor. */
 export function totalDenialCostMinor(parts: DenialCostHelper): number {
   return parts.averageCompensationMinor + parts.rebookingCostMinor + parts.goodwillMinor;
+}
+
+/** The forecast engine's options for validated planner inputs; rho becomes a beta-binomial common shock. */
+export function toBookingLimitOptions(input: PlannerInput): BookingLimitOptions {
+  return {
+    capacity: input.capacity,
+    showProbability: input.showProbability,
+    revenuePerBooking: input.revenuePerBookingMinor,
+    costPerDenial: input.costPerDenialMinor,
+    ...(input.maxBookings === undefined ? {} : { maxBookings: input.maxBookings }),
+    ...(input.rho === undefined ? {} : { shock: { kind: 'beta-binomial', rho: input.rho } }),
+  };
 }

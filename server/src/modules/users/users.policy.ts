@@ -8,6 +8,10 @@ export function adminSharesStation(admin: SessionUser, target: UserEntity): bool
   return target.stations.some((s) => mine.has(s.id));
 }
 
+export function adminHoldsStation(admin: SessionUser, stationId: number): boolean {
+  return admin.stations.some((s) => s.id === stationId);
+}
+
 export function assertMayGrantStations(admin: SessionUser, stationIds: number[]): void {
   const mine = new Set(admin.stations.map((s) => s.id));
   const foreign = stationIds.filter((id) => !mine.has(id));

@@ -5,8 +5,10 @@ import { StationEntity, UserEntity } from '../../db/entities';
 import { badRequest, conflict, notFound } from '../../http/errors';
 import { audit } from '../audit/audit.service';
 import { hashPassword } from '../auth/password';
-import { adminSharesStation, assertMayGrantStations } from './users.policy';
+import { adminHoldsStation, adminSharesStation, assertMayGrantStations } from './users.policy';
 import { presentUser } from './users.presenter';
+
+const isDuplicateKey = (err: unknown) => (err as { driverError?: { code?: string } })?.driverError?.code === 'ER_DUP_ENTRY';
 
 export async function listUsers(db: DataSource, admin: SessionUser) {
   const all = await db.getRepository(UserEntity).find({ relations: { stations: true }, order: { displayName: 'ASC' } });
@@ -27,7 +29,10 @@ export async function createUser(db: DataSource, admin: SessionUser, body: Creat
     const email = body.email.toLowerCase();
     if (await em.findOneBy(UserEntity, { email })) throw conflict('email_taken', 'A user with this e-mail already exists.');
     const user = em.create(UserEntity, { email, displayName: body.displayName, role: body.role, passwordHash, active: true, stations });
-    await em.save(user);
+    // Two creates racing past the check above meet at the unique index: the loser is a conflict, not a failure.
+    await em.save(user).catch((err: unknown) => {
+      throw isDuplicateKey(err) ? conflict('email_taken', 'A user with this e-mail already exists.') : err;
+    });
     const shown = presentUser(user);
     await audit(em, { actor: admin, action: 'user.created', entityType: 'user', entityId: user.id, after: shown });
     return shown;
@@ -49,7 +54,8 @@ export async function updateUser(db: DataSource, admin: SessionUser, id: number,
     if (body.displayName !== undefined) user.displayName = body.displayName;
     if (body.role !== undefined) user.role = body.role;
     if (body.active !== undefined) user.active = body.active;
-    if (stations) user.stations = stations;
+    // Stations the admin does not hold stay as they are: granting is limited to the admin's stations, and so is taking away.
+    if (stations) user.stations = [...stations, ...user.stations.filter((s) => !adminHoldsStation(admin, s.id))];
     if (passwordHash) user.passwordHash = passwordHash;
     await em.save(user);
     const after = presentUser(user);

@@ -1,0 +1,158 @@
+/**
+ * Every route of the API, one row each, for the access-control matrix in route-matrix.test.ts.
+ *
+ * TO ADD A ROUTE: add one row to ROUTES below. Give
+ *   - method and pattern exactly as Express registers them (pattern with `:params`, e.g. /api/users/:id);
+ *     the matrix fails while a registered route has no row, or a row names a route that is not registered;
+ *   - access: 'public', or the roles that may call it;
+ *   - call(ctx, scope): the URL and a valid body. With scope 'own' the call must succeed for every allowed role;
+ *     with scope 'other' it must point at an object of ctx.otherStationId (only asked when otherStation is set);
+ *     call() runs once per request, so create unique values (ctx.uniqueEmail) inside it;
+ *   - success: the status a right role gets;
+ *   - otherStation: for station-scoped routes, the status an allowed role gets for another station's object
+ *     (404 when the route hides that the object exists, 403 when the caller names the station themselves).
+ * If a route needs an object that ctx lacks, add it to RouteContext and create it in the matrix's beforeAll.
+ */
+import type { Role } from '@shared/schemas/common';
+import { DEMO, TEST_PASSWORD } from './helpers';
+import { DEMO_PASSWORD } from './harness';
+
+export type Method = 'GET' | 'POST' | 'PATCH' | 'PUT' | 'DELETE';
+export type Scope = 'own' | 'other';
+
+export interface RouteContext {
+  /** A station every demo user belongs to. */
+  ownStationId: number;
+  /** A station no demo user belongs to. */
+  otherStationId: number;
+  /** A user on the own station only, free to be modified by the tests. */
+  ownUserId: number;
+  /** A user on the other station only. */
+  otherUserId: number;
+  uniqueEmail(label: string): string;
+  /** A flight departing from each station, and an integration key of each. */
+  ownFlightId: number;
+  otherFlightId: number;
+  ownKeyId: number;
+  otherKeyId: number;
+  /** A working feed key of the own station and a flight reference it may post events for. */
+  ownFeedKey: string;
+  ownFlightRef: { carrier: string; number: string; date: string };
+}
+
+export interface RouteCall {
+  url: string;
+  body?: unknown;
+}
+
+export interface RouteRow {
+  method: Method;
+  pattern: string;
+  /** 'api-key': the departure-control feed, which authenticates with a station key, never a session. */
+  access: 'public' | 'api-key' | readonly Role[];
+  call(ctx: RouteContext, scope: Scope): RouteCall;
+  success: number;
+  otherStation?: 403 | 404;
+}
+
+const ALL_ROLES: readonly Role[] = ['agent', 'supervisor', 'finance', 'admin'];
+const GATE_ROLES: readonly Role[] = ['agent', 'supervisor', 'admin'];
+const flightOf = (ctx: RouteContext, scope: Scope) => (scope === 'own' ? ctx.ownFlightId : ctx.otherFlightId);
+const stationOf = (ctx: RouteContext, scope: Scope) => (scope === 'own' ? ctx.ownStationId : ctx.otherStationId);
+
+export const ROUTES: readonly RouteRow[] = [
+  { method: 'GET', pattern: '/api/health', access: 'public', call: () => ({ url: '/api/health' }), success: 200 },
+  { method: 'GET', pattern: '/api/auth/session', access: 'public', call: () => ({ url: '/api/auth/session' }), success: 200 },
+  {
+    method: 'POST',
+    pattern: '/api/auth/sign-in',
+    access: 'public',
+    call: () => ({ url: '/api/auth/sign-in', body: { email: DEMO.agent, password: DEMO_PASSWORD } }),
+    success: 200,
+  },
+  { method: 'POST', pattern: '/api/auth/sign-out', access: 'public', call: () => ({ url: '/api/auth/sign-out' }), success: 204 },
+  { method: 'GET', pattern: '/api/users', access: ['admin'], call: () => ({ url: '/api/users' }), success: 200 },
+  {
+    method: 'POST',
+    pattern: '/api/users',
+    access: ['admin'],
+    call: (ctx, scope) => ({
+      url: '/api/users',
+      body: {
+        email: ctx.uniqueEmail('matrix'),
+        displayName: 'Matrix test user',
+        role: 'agent',
+        stationIds: [scope === 'own' ? ctx.ownStationId : ctx.otherStationId],
+        password: TEST_PASSWORD,
+      },
+    }),
+    success: 201,
+    // The caller names the station in the body, so refusing it reveals nothing new.
+    otherStation: 403,
+  },
+  {
+    method: 'PATCH',
+    pattern: '/api/users/:id',
+    access: ['admin'],
+    call: (ctx, scope) => ({ url: `/api/users/${scope === 'own' ? ctx.ownUserId : ctx.otherUserId}`, body: { displayName: 'Renamed by the matrix' } }),
+    success: 200,
+    otherStation: 404,
+  },
+  { method: 'GET', pattern: '/api/stations', access: ALL_ROLES, call: () => ({ url: '/api/stations' }), success: 200 },
+  {
+    method: 'GET',
+    pattern: '/api/departures',
+    access: GATE_ROLES,
+    call: (ctx, scope) => ({ url: `/api/departures?stationId=${scope === 'own' ? ctx.ownStationId : ctx.otherStationId}` }),
+    success: 200,
+    otherStation: 404,
+  },
+  { method: 'GET', pattern: '/api/flights/:id', access: GATE_ROLES, call: (ctx, scope) => ({ url: `/api/flights/${flightOf(ctx, scope)}` }), success: 200, otherStation: 404 },
+  { method: 'GET', pattern: '/api/flights/:id/passengers', access: GATE_ROLES, call: (ctx, scope) => ({ url: `/api/flights/${flightOf(ctx, scope)}/passengers` }), success: 200, otherStation: 404 },
+  { method: 'GET', pattern: '/api/flights/:id/forecast-history', access: GATE_ROLES, call: (ctx, scope) => ({ url: `/api/flights/${flightOf(ctx, scope)}/forecast-history` }), success: 200, otherStation: 404 },
+  { method: 'GET', pattern: '/api/flights/:id/events', access: GATE_ROLES, call: (ctx, scope) => ({ url: `/api/flights/${flightOf(ctx, scope)}/events` }), success: 200, otherStation: 404 },
+  {
+    method: 'PUT',
+    pattern: '/api/flights/:id/shock',
+    access: ['supervisor', 'admin'],
+    // Setting "no shock" keeps the shared demo flight's figures as they were.
+    call: (ctx, scope) => ({ url: `/api/flights/${flightOf(ctx, scope)}/shock`, body: { shock: null, reason: 'route matrix check' } }),
+    success: 200,
+    otherStation: 404,
+  },
+  { method: 'GET', pattern: '/api/stations/:stationId/integration-keys', access: ['admin'], call: (ctx, scope) => ({ url: `/api/stations/${stationOf(ctx, scope)}/integration-keys` }), success: 200, otherStation: 404 },
+  {
+    method: 'POST',
+    pattern: '/api/stations/:stationId/integration-keys',
+    access: ['admin'],
+    call: (ctx, scope) => ({ url: `/api/stations/${stationOf(ctx, scope)}/integration-keys`, body: { name: 'route matrix' } }),
+    success: 201,
+    otherStation: 404,
+  },
+  {
+    method: 'DELETE',
+    pattern: '/api/stations/:stationId/integration-keys/:keyId',
+    access: ['admin'],
+    call: (ctx, scope) => ({ url: `/api/stations/${stationOf(ctx, scope)}/integration-keys/${scope === 'own' ? ctx.ownKeyId : ctx.otherKeyId}` }),
+    success: 200,
+    otherStation: 404,
+  },
+  { method: 'GET', pattern: '/api/plans', access: ['supervisor', 'admin'], call: (ctx, scope) => ({ url: `/api/plans?stationId=${stationOf(ctx, scope)}&routeKey=BOS-ORD` }), success: 200, otherStation: 404 },
+  {
+    method: 'POST',
+    pattern: '/api/plans',
+    access: ['supervisor', 'admin'],
+    call: (ctx, scope) => ({ url: '/api/plans', body: { stationId: stationOf(ctx, scope), routeKey: 'BOS-ORD', name: 'Route matrix plan', inputs: { capacity: 150, showProbability: 0.9, revenuePerBookingMinor: 20_000, costPerDenialMinor: 40_000, currency: 'USD' } } }),
+    success: 201,
+    otherStation: 404,
+  },
+  {
+    method: 'POST',
+    pattern: '/api/integrations/events',
+    access: 'api-key',
+    call: (ctx) => ({ url: '/api/integrations/events', body: { events: [{ id: `matrix-${Date.now()}-${Math.random()}`, type: 'inbound.updated', occurredAt: new Date().toISOString(), flight: ctx.ownFlightRef, inboundFlight: 'ZZ000', estimatedArrival: new Date().toISOString() }] } }),
+    success: 200,
+  },
+];
+
+export const routeKey = (method: string, pattern: string) => `${method.toUpperCase()} ${pattern}`;
