@@ -134,3 +134,14 @@ describe('scenario shock', () => {
     expect(Array.from(shocked)).toEqual(Array.from(showUpDistribution(units)));
   });
 });
+
+describe('beta-binomial shock at the edge of floating point', () => {
+  // Found by the fast-check property "raising a p never lowers P(X > C)": a mean show rate of 5e-324 makes the Beta's
+  // a underflow to 0. The Beta is then a point mass, so the result must equal the distribution without a shock.
+  it('treats a mean that rounds the Beta shape to zero as no shock at all', () => {
+    const units = [{ size: 2, showProbability: 5e-324 }];
+    const plain = showUpDistribution(units);
+    const shocked = showUpDistribution(units, { kind: 'beta-binomial', rho: 2 / 3 });
+    expect(Array.from(shocked)).toEqual(Array.from(plain));
+  });
+});

@@ -77,6 +77,9 @@ export function integrateOverShock(
   const mean = context.meanProbability;
   if (mean <= 0 || mean >= 1 || context.degree === 0) return conditional((p) => p);
   const { a, b } = betaShape(mean, shock.rho);
+  // A mean within rounding of 0 or 1 makes a or b underflow to 0: the Beta is then a point mass at the mean, so the
+  // shock changes nothing.
+  if (!(a > 0 && b > 0 && Number.isFinite(a) && Number.isFinite(b))) return conditional((p) => p);
   const rule = betaQuadrature(quadratureNodeCount(context.degree, context.people), a, b);
   return mix(
     Array.from(rule.nodes, (theta, j) => ({ weight: rule.weights[j], transform: betaRateTransform(theta, mean) })),
