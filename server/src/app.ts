@@ -19,6 +19,8 @@ import { plansRouter } from './modules/plans/plans.routes';
 import { flightDeskRouter } from './modules/flights/flight-desk.routes';
 import { integrationEventsRouter } from './modules/integrations/events.routes';
 import { integrationKeysRouter } from './modules/integrations/integration-keys.routes';
+import { manifestsRouter } from './modules/manifests/manifests.routes';
+import { showUpProfilesRouter } from './modules/show-up-profiles/show-up-profiles.routes';
 import { createForecastScheduler, type ForecastScheduler } from './modules/forecast/forecast-scheduler';
 import { silentPublisher, type Publisher } from './realtime/publisher';
 
@@ -59,6 +61,8 @@ export function createApp(deps: AppDeps) {
   api.use('/auth', authRouter({ db: deps.db, throttle: deps.throttle, demo: deps.demo, onSignOut: deps.disconnectUser }));
   api.use('/users', usersRouter({ db: deps.db, onUserLockedOut: deps.disconnectUser }));
   api.use('/stations/:stationId/integration-keys', integrationKeysRouter(deps));
+  api.use('/stations/:stationId/manifests', manifestsRouter({ db: deps.db, onFlightsChanged: (ids) => ids.forEach((id) => forecast.markDirty(id)) }));
+  api.use('/stations/:stationId/show-up-profile', showUpProfilesRouter({ db: deps.db, onFlightsChanged: (ids) => ids.forEach((id) => forecast.markDirty(id)) }));
   api.use('/stations', stationsRouter(deps));
   api.use('/flights', flightDeskRouter({ db: deps.db, onFlightChanged: (id, stationId) => publisher.flightChanged(id, stationId, ['forecast', 'shock']) }));
   api.use('/departures', departuresRouter(deps));

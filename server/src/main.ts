@@ -8,6 +8,8 @@ import { createSignInThrottle } from './modules/auth/throttle';
 import { createSocketServer, disconnectUserSockets, type AppIo } from './realtime/socket-server';
 import { socketPublisher } from './realtime/publisher';
 import { createForecastScheduler } from './modules/forecast/forecast-scheduler';
+import { createMailTransport } from './integrations/mail/mail-transport';
+import { createOutboxWorker } from './modules/outbox/outbox-worker';
 
 const env = loadEnv();
 const db = createDataSource(env.DATABASE_URL);
@@ -17,6 +19,9 @@ const ioRef: { io?: AppIo } = {};
 const publisher = socketPublisher(() => ioRef.io);
 const forecast = createForecastScheduler(db, (o) => publisher.flightChanged(o.flightId, o.stationId, ['forecast', 'counts', 'events']));
 forecast.startClock();
+const mailTransport = createMailTransport(env);
+const outbox = createOutboxWorker(db, mailTransport);
+outbox.start();
 const app = createApp({
   publisher,
   forecast,
@@ -41,6 +46,9 @@ async function stop(signal: string) {
   forecast.stop();
   ioRef.io?.close();
   http.close();
+  // The send in flight finishes and is recorded before the database goes away.
+  await outbox.stop();
+  mailTransport.close();
   await session.close();
   await db.destroy();
   process.exit(0);

@@ -83,3 +83,12 @@ export async function signedIn(app: TestApp, email: string) {
   if (res.status !== 200) throw new Error(`sign-in as ${email} failed: ${res.status} ${JSON.stringify(res.body)}`);
   return c;
 }
+
+/** A multipart upload of one file, with the client's cookie and CSRF token, as a browser's form would send it. */
+export function upload(c: Client, path: string, file: { field?: string; name: string; content: string | Buffer; type?: string }) {
+  const content = typeof file.content === 'string' ? Buffer.from(file.content, 'utf8') : file.content;
+  return c.agent
+    .post(path)
+    .set('X-CSRF-Token', c.csrf)
+    .attach(file.field ?? 'file', content, { filename: file.name, contentType: file.type ?? 'text/csv' });
+}

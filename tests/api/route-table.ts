@@ -16,6 +16,7 @@
 import type { Role } from '@shared/schemas/common';
 import { DEMO, TEST_PASSWORD } from './helpers';
 import { DEMO_PASSWORD } from './harness';
+import { DEFAULT_SHOW_UP_PROFILE } from '@shared/schemas/show-up-profile';
 
 export type Method = 'GET' | 'POST' | 'PATCH' | 'PUT' | 'DELETE';
 export type Scope = 'own' | 'other';
@@ -146,6 +147,20 @@ export const ROUTES: readonly RouteRow[] = [
     success: 201,
     otherStation: 404,
   },
+  { method: 'GET', pattern: '/api/stations/:stationId/show-up-profile', access: ['supervisor', 'admin'], call: (ctx, scope) => ({ url: `/api/stations/${stationOf(ctx, scope)}/show-up-profile` }), success: 200, otherStation: 404 },
+  {
+    method: 'PUT',
+    pattern: '/api/stations/:stationId/show-up-profile',
+    access: ['admin'],
+    // The default profile: writing it leaves the demo's odds as they were.
+    call: (ctx, scope) => ({ url: `/api/stations/${stationOf(ctx, scope)}/show-up-profile`, body: DEFAULT_SHOW_UP_PROFILE }),
+    success: 200,
+    otherStation: 404,
+  },
+  { method: 'GET', pattern: '/api/stations/:stationId/manifests/template', access: ['admin'], call: (ctx, scope) => ({ url: `/api/stations/${stationOf(ctx, scope)}/manifests/template` }), success: 200, otherStation: 404 },
+  // The matrix sends JSON, not a file: an allowed role gets past access control and is told the file is missing.
+  { method: 'POST', pattern: '/api/stations/:stationId/manifests/preview', access: ['admin'], call: (ctx, scope) => ({ url: `/api/stations/${stationOf(ctx, scope)}/manifests/preview` }), success: 400, otherStation: 404 },
+  { method: 'POST', pattern: '/api/stations/:stationId/manifests/import', access: ['admin'], call: (ctx, scope) => ({ url: `/api/stations/${stationOf(ctx, scope)}/manifests/import` }), success: 400, otherStation: 404 },
   {
     method: 'POST',
     pattern: '/api/integrations/events',

@@ -7,10 +7,11 @@ import { In, MoreThan, type DataSource } from 'typeorm';
 import { createDataSource } from '../db/data-source';
 import { BookingEntity, FlightEntity, PassengerEntity, StationEntity } from '../db/entities';
 import { DEFAULT_SHOW_UP_PROFILE } from '@shared/schemas/show-up-profile';
+import { showProbabilityNotCheckedIn } from '@shared/forecast';
 import { seededRandom } from './random';
 
 const MINUTE = 60_000;
-const speed = Number(process.env.SIMULATOR_SPEED ?? 4);
+const speed = Number(process.env.SIMULATOR_SPEED ?? 2);
 const tickMs = Number(process.env.SIMULATOR_TICK_MS ?? 3000);
 const apiUrl = process.env.APP_BASE_URL ?? 'http://127.0.0.1:4600';
 const keys: Record<string, string> = JSON.parse(readFileSync(process.env.DEMO_KEYS_FILE ?? '.local/demo-feed-keys.json', 'utf8'));
@@ -18,12 +19,29 @@ const startedAt = Date.now();
 let sequence = 0;
 const lateInboundSent = new Set<number>();
 
-/** Where on the curve this booking checks in, fixed per booking so restarts replay the same morning. */
-function planFor(bookingId: number) {
+const curve = DEFAULT_SHOW_UP_PROFILE.checkInCurve;
+
+/** Share of eventual shows checked in by `minutesBefore` departure, on the station's default curve. */
+function shareAt(minutesBefore: number) {
+  if (minutesBefore >= curve[0][0]) return curve[0][1];
+  for (let i = 1; i < curve.length; i++) {
+    const [m0, g0] = curve[i - 1];
+    const [m1, g1] = curve[i];
+    if (minutesBefore >= m1) return g0 + ((m0 - minutesBefore) / (m0 - m1)) * (g1 - g0);
+  }
+  return 1;
+}
+
+/**
+ * Whether and when a booking still unchecked at the simulator's start checks in, fixed per booking so restarts replay
+ * the same morning. Drawn on the same Bayes update the forecast uses (a booking not yet checked in is less likely to
+ * show), and on the rest of the curve after the start, so the demo neither overshoots nor stalls.
+ */
+function planFor(bookingId: number, minutesLeftAtStart: number) {
   const rng = seededRandom(bookingId * 7919);
-  const shows = rng.next() < 0.9;
-  const share = rng.next();
-  const curve = DEFAULT_SHOW_UP_PROFILE.checkInCurve;
+  const startShare = shareAt(minutesLeftAtStart);
+  const shows = rng.next() < showProbabilityNotCheckedIn(0.9, Math.min(startShare, 0.999));
+  const share = startShare + rng.next() * (1 - startShare);
   let minutesBefore = curve[curve.length - 1][0];
   for (let i = 1; i < curve.length; i++) {
     const [m0, g0] = curve[i - 1];
@@ -50,7 +68,7 @@ async function eventsForFlight(db: DataSource, flight: FlightEntity, now: number
   for (const b of bookings) {
     const party = byBooking.get(b.id);
     if (!party) continue;
-    const plan = planFor(b.id);
+    const plan = planFor(b.id, (departure - startedAt) / MINUTE);
     const plannedAt = departure - plan.minutesBefore * MINUTE;
     const dueAt = startedAt + (plannedAt - startedAt) / speed;
     if (plan.shows && party.some((p) => p.status === 'booked') && dueAt <= now) events.push(event('passenger.checked-in', flight, { pnr: b.pnr }));

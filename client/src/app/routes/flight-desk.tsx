@@ -1,11 +1,17 @@
 import { useParams } from 'react-router-dom';
-import { ComingNext, Page } from '../../components/ui/page';
+import { Page } from '../../components/ui/page';
+import { FlightDesk } from '../../features/flight-desk/components/flight-desk';
 
 export default function FlightDeskPage() {
   const { flightId } = useParams();
-  return (
-    <Page title="Flight desk" subtitle={`Flight ${flightId}`}>
-      <ComingNext what="the live flight desk (counts by cabin, the odds panel, the passenger list and the event trail)." />
-    </Page>
-  );
+  const id = Number(flightId);
+  if (!Number.isInteger(id) || id <= 0) {
+    return (
+      <Page title="Flight desk">
+        <p role="alert">“{flightId}” is not a flight number this screen knows. Open a flight from Departures.</p>
+      </Page>
+    );
+  }
+  // A new flight is a new desk: no filter, sort or form state carries over from the previous one.
+  return <FlightDesk key={id} flightId={id} />;
 }

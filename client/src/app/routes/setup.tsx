@@ -1,8 +1,13 @@
 import { Page, Panel } from '../../components/ui/page';
 import { UsersAdmin } from '../../features/users/components/users-admin';
 import { StationsOverview } from '../../features/stations/components/stations-overview';
+import { ShowUpProfileEditor } from '../../features/station-setup/components/show-up-profile-editor';
+import { ManifestPanel } from '../../features/station-setup/components/manifest-panel';
+import { IntegrationKeysPanel } from '../../features/station-setup/components/integration-keys-panel';
+import { useCurrentStation } from '../use-current-station';
 
 export default function SetupPage() {
+  const { station } = useCurrentStation();
   return (
     <Page title="Station setup" subtitle="People, stations and the rules each station works by.">
       <div className="grid gap-4 lg:grid-cols-[2fr_1fr]">
@@ -13,6 +18,25 @@ export default function SetupPage() {
           <StationsOverview />
         </Panel>
       </div>
+      {station && (
+        <section aria-labelledby="station-tools" className="mt-8 space-y-4">
+          <header>
+            <h2 id="station-tools" className="text-2xl font-bold text-harbour">
+              {station.iata} · {station.name}
+            </h2>
+            <p className="text-ink-soft">The tools below work on this station. Choose another station at the top of the page.</p>
+          </header>
+          <Panel title={`Show-up profile · ${station.iata}`}>
+            <ShowUpProfileEditor station={station} />
+          </Panel>
+          <Panel title={`Manifest upload · ${station.iata}`}>
+            <ManifestPanel key={station.id} station={station} />
+          </Panel>
+          <Panel title={`Integration keys · ${station.iata}`}>
+            <IntegrationKeysPanel key={station.id} station={station} />
+          </Panel>
+        </section>
+      )}
     </Page>
   );
 }

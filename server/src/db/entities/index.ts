@@ -8,9 +8,16 @@ import { ShowUpProfileEntity } from './show-up-profile.entity';
 import { IntegrationKeyEntity } from './integration-key.entity';
 import { FlightEventEntity } from './flight-event.entity';
 import { FlightForecastEntity, ForecastSnapshotEntity } from './flight-forecast.entity';
+import { OfferApprovalEntity, RebookingEntity, VolunteerEntity, VolunteerPolicyEntity, VolunteerRoundEntity } from './volunteer.entity';
 import { SavedPlanEntity } from './saved-plan.entity';
+import { CompensationEntity } from './compensation.entity';
+import { OutboxMessageEntity } from './outbox-message.entity';
 
 export { AuditLogEntity, BookingEntity, FlightEntity, PassengerEntity, StationEntity, UserEntity };
 export { ShowUpProfileEntity, IntegrationKeyEntity, FlightEventEntity, FlightForecastEntity, ForecastSnapshotEntity };
+export { OfferApprovalEntity, RebookingEntity, VolunteerEntity, VolunteerPolicyEntity, VolunteerRoundEntity };
+export { CompensationEntity };
+export { OutboxMessageEntity };
 export const entities = [StationEntity, UserEntity, FlightEntity, BookingEntity, PassengerEntity, AuditLogEntity,
-  ShowUpProfileEntity, IntegrationKeyEntity, FlightEventEntity, FlightForecastEntity, ForecastSnapshotEntity, SavedPlanEntity];
+  ShowUpProfileEntity, IntegrationKeyEntity, FlightEventEntity, FlightForecastEntity, ForecastSnapshotEntity, SavedPlanEntity,
+  VolunteerPolicyEntity, VolunteerRoundEntity, OfferApprovalEntity, VolunteerEntity, RebookingEntity, OutboxMessageEntity, CompensationEntity];

@@ -2,6 +2,9 @@
 import { Initial1796151413508 } from './1796151413508-Initial';
 import { SessionsAndAuditGuard1796151413600 } from './1796151413600-SessionsAndAuditGuard';
 import { LiveFlightDesk1796152035497 } from './1796152035497-LiveFlightDesk';
+import { VolunteerRounds1796152709441 } from './1796152709441-VolunteerRounds';
 import { SavedPlans1796151413700 } from './1796151413700-SavedPlans';
+import { Outbox1796152300000 } from './1796152300000-Outbox';
+import { Compensations1796153183331 } from './1796153183331-Compensations';
 
-export const migrations = [Initial1796151413508, SessionsAndAuditGuard1796151413600, LiveFlightDesk1796152035497, SavedPlans1796151413700];
+export const migrations = [Initial1796151413508, SessionsAndAuditGuard1796151413600, LiveFlightDesk1796152035497, SavedPlans1796151413700, VolunteerRounds1796152709441, Outbox1796152300000, Compensations1796153183331];

@@ -1,7 +1,7 @@
 // Coalesces bursts: a batch of 200 check-ins marks a flight dirty 200 times and recomputes it once. A recompute
 // starts at most `delayMs` after the first change, so figures are never stale for longer than that plus the work.
 import type { DataSource } from 'typeorm';
-import { MoreThan, Not, In } from 'typeorm';
+import { LessThan, MoreThan, Not, In } from 'typeorm';
 import { FlightEntity } from '../../db/entities';
 import { recomputeFlight, type RecomputeOutcome } from './forecast.service';
 
@@ -12,6 +12,16 @@ export interface ForecastScheduler {
   recomputeCount(): number;
   startClock(intervalMs?: number): void;
   stop(): void;
+}
+
+/**
+ * Moves flight states along the clock until the departure-control feed sends states of its own: boarding from
+ * 40 minutes before departure, departed 10 minutes after it (common practice for narrow-body turns, no source).
+ */
+async function advanceFlightStates(db: DataSource, now: Date) {
+  const repo = db.getRepository(FlightEntity);
+  await repo.update({ state: In(['scheduled', 'check-in-open']), scheduledDeparture: LessThan(new Date(now.getTime() + 40 * 60_000)) }, { state: 'boarding' });
+  await repo.update({ state: In(['scheduled', 'check-in-open', 'boarding', 'closed']), scheduledDeparture: LessThan(new Date(now.getTime() - 10 * 60_000)) }, { state: 'departed' });
 }
 
 export function createForecastScheduler(db: DataSource, onRecomputed: (o: RecomputeOutcome) => void, delayMs = 150): ForecastScheduler {
@@ -54,6 +64,7 @@ export function createForecastScheduler(db: DataSource, onRecomputed: (o: Recomp
     // Without events the figures still move: people not yet checked in become less likely to show as time passes.
     startClock(intervalMs = 60_000) {
       const tick = async () => {
+        await advanceFlightStates(db, new Date());
         const open = await db.getRepository(FlightEntity).find({
           select: { id: true },
           where: { scheduledDeparture: MoreThan(new Date(Date.now() - 15 * 60_000)), state: Not(In(['departed', 'cancelled'])) },

@@ -1,5 +1,5 @@
 import type { DataSource } from 'typeorm';
-import { BookingEntity, FlightEntity, FlightForecastEntity, ForecastSnapshotEntity, PassengerEntity, StationEntity } from '../../db/entities';
+import { BookingEntity, FlightEntity, VolunteerEntity, FlightForecastEntity, ForecastSnapshotEntity, PassengerEntity, StationEntity } from '../../db/entities';
 import { computeFlightForecast } from './flight-forecast';
 import { showUpProfileFor } from './profile.service';
 
@@ -23,8 +23,10 @@ export async function recomputeFlight(db: DataSource, flightId: number, now = ne
   ]);
   const bookings = await db.getRepository(BookingEntity).find({ select: { id: true, travelsTogether: true }, where: { flightId } });
   const together = new Map(bookings.map((b) => [b.id, b.travelsTogether]));
+  const accepted = await db.getRepository(VolunteerEntity).findBy({ flightId, status: 'accepted' });
+  const volunteered = new Set(accepted.flatMap((v) => v.passengerIds));
   const result = computeFlightForecast({
-    passengers: passengers.map((p) => ({ ...p, travelsTogether: together.get(p.bookingId) ?? true })),
+    passengers: passengers.map((p) => ({ ...p, travelsTogether: together.get(p.bookingId) ?? true, volunteered: volunteered.has(p.id) })),
     seatsByCabin: flight.seatsByCabin,
     departure: flight.scheduledDeparture,
     now,

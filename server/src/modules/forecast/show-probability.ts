@@ -10,6 +10,8 @@ export interface PassengerState {
   status: 'booked' | 'checked-in' | 'boarded' | 'offloaded' | 'cancelled';
   inboundFlight: string | null;
   inboundEstimatedArrival: Date | null;
+  /** Accepted as a volunteer: gives up the seat on this flight. */
+  volunteered?: boolean;
 }
 
 export interface ShowEstimate {
@@ -48,6 +50,7 @@ export function connectionProbability(profile: ShowUpProfile, departure: Date, i
 const pct = (p: number) => `${Number((p * 100).toFixed(p > 0.99 && p < 1 ? 1 : 0))} %`;
 
 export function passengerShowProbability(p: PassengerState, profile: ShowUpProfile, departure: Date, now: Date): ShowEstimate {
+  if (p.volunteered) return { probability: 0, why: 'Volunteered to give up the seat.' };
   if (p.status === 'boarded') return { probability: 1, why: 'Boarded: boarding pass scanned.' };
   if (p.status === 'offloaded' || p.status === 'cancelled') return { probability: 0, why: p.status === 'offloaded' ? 'Offloaded.' : 'Booking cancelled.' };
   const minutesBefore = (departure.getTime() - now.getTime()) / 60_000;

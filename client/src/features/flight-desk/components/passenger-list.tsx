@@ -1,0 +1,101 @@
+import { useMemo, useState } from 'react';
+import { useTable, type ColumnFiltersState, type SortingState } from '@tanstack/react-table';
+import type { DeskPassenger } from '@shared/schemas/flight-desk';
+import { Button } from '../../../components/ui/button';
+import { Panel } from '../../../components/ui/page';
+import { TextField } from '../../../components/ui/text-field';
+import { filterChoices, matchesSearch, NO_FILTERS, type PassengerFilters } from '../model/passenger-filters';
+import { passengerColumns, passengerTableFeatures } from './passenger-columns';
+import { PassengerFilterBar } from './passenger-filter-bar';
+
+const NO_PASSENGERS: DeskPassenger[] = [];
+
+export function PassengerList({ passengers, timeZone, departureIso }: { passengers: DeskPassenger[] | undefined; timeZone: string; departureIso: string }) {
+  const data = passengers ?? NO_PASSENGERS;
+  const [filters, setFilters] = useState<PassengerFilters>(NO_FILTERS);
+  const [search, setSearch] = useState('');
+  const [sorting, setSorting] = useState<SortingState>([{ id: 'name', desc: false }]);
+  const columns = useMemo(() => passengerColumns({ timeZone, departureIso }), [timeZone, departureIso]);
+  const columnFilters = useMemo<ColumnFiltersState>(
+    () => Object.entries(filters).filter(([, v]) => v !== 'all').map(([id, value]) => ({ id, value })),
+    [filters],
+  );
+  const choices = useMemo(() => filterChoices(data), [data]);
+
+  const table = useTable({
+    features: passengerTableFeatures,
+    columns,
+    data,
+    getRowId: (p) => String(p.id),
+    state: { sorting, columnFilters, globalFilter: search },
+    onSortingChange: setSorting,
+    // The search looks at name and PNR together, so it is run once per row from the name column.
+    globalFilterFn: (row, _id, value: string) => matchesSearch(row.original, value),
+    getColumnCanGlobalFilter: (column) => column.id === 'name',
+  });
+  const rows = table.getRowModel().rows;
+  const narrowed = columnFilters.length > 0 || search.trim() !== '';
+
+  return (
+    <Panel title="Passengers">
+      <div className="mb-3 flex flex-wrap items-end gap-3">
+        <TextField label="Search name or PNR" value={search} onChange={setSearch} className="w-72" placeholder="e.g. Okafor or K7QX2M" type="search" />
+        <PassengerFilterBar filters={filters} onChange={setFilters} cabins={choices.cabins} ssrCodes={choices.ssrCodes} />
+        {narrowed && (
+          <Button
+            variant="quiet"
+            onClick={() => {
+              setFilters(NO_FILTERS);
+              setSearch('');
+            }}
+          >
+            Clear filters
+          </Button>
+        )}
+      </div>
+      <p className="mb-2 font-bold" role="status" aria-live="polite" data-testid="passenger-count">
+        {passengers === undefined ? 'Loading passengers…' : narrowed ? `Showing ${rows.length} of ${data.length} passengers` : `${data.length} passengers`}
+      </p>
+      <div className="max-h-[70vh] overflow-auto rounded-md border-2 border-line">
+        <table className="w-full text-base">
+          <caption className="sr-only">Passengers on this flight; the column buttons sort the list</caption>
+          <thead className="sticky top-0 z-10 bg-harbour-soft">
+            {table.getHeaderGroups().map((group) => (
+              <tr key={group.id}>
+                {group.headers.map((header) => {
+                  const sorted = header.column.getIsSorted();
+                  return (
+                    <th key={header.id} scope="col" className="px-3 py-2 text-left" aria-sort={sorted === 'asc' ? 'ascending' : sorted === 'desc' ? 'descending' : undefined}>
+                      <button type="button" className="font-bold underline-offset-2 hover:underline" onClick={header.column.getToggleSortingHandler()}>
+                        <table.FlexRender header={header} />
+                        <span aria-hidden>{sorted === 'asc' ? ' ▴' : sorted === 'desc' ? ' ▾' : ''}</span>
+                      </button>
+                    </th>
+                  );
+                })}
+              </tr>
+            ))}
+          </thead>
+          <tbody>
+            {rows.map((row) => (
+              <tr key={row.id} className="border-t border-line align-top odd:bg-paper/40" data-pnr={row.original.pnr}>
+                {row.getAllCells().map((cell) => (
+                  <td key={cell.id} className="px-3 py-2">
+                    <table.FlexRender cell={cell} />
+                  </td>
+                ))}
+              </tr>
+            ))}
+            {rows.length === 0 && passengers !== undefined && (
+              <tr>
+                <td colSpan={columns.length} className="px-3 py-6 text-center text-lg">
+                  No passenger matches these filters.
+                </td>
+              </tr>
+            )}
+          </tbody>
+        </table>
+      </div>
+    </Panel>
+  );
+}

@@ -1,0 +1,87 @@
+import { Column, CreateDateColumn, Entity, Index, PrimaryGeneratedColumn, UpdateDateColumn } from 'typeorm';
+
+export type CompensationState = 'due' | 'issuing' | 'issued' | 'settled' | 'failed' | 'voided';
+
+/**
+ * What one passenger (of a volunteer or denied party) is owed for one flight, and where its payment stands. The unique
+ * source key means the same fact can never create two compensations; the idempotency key is fixed before the first
+ * call to the payment provider, so a retry can never issue twice.
+ */
+@Entity({ name: 'compensations' })
+@Index('uq_compensation_source', ['sourceKind', 'sourceId', 'passengerId'], { unique: true })
+@Index('ix_compensation_station_created', ['stationId', 'createdAt'])
+export class CompensationEntity {
+  @PrimaryGeneratedColumn({ type: 'int' })
+  id!: number;
+
+  @Column({ type: 'int', name: 'station_id' })
+  stationId!: number;
+
+  @Column({ type: 'int', name: 'flight_id' })
+  flightId!: number;
+
+  @Column({ type: 'int', name: 'booking_id' })
+  bookingId!: number;
+
+  @Column({ type: 'int', name: 'passenger_id' })
+  passengerId!: number;
+
+  /** 'volunteer' (agreed benefits) or 'denial' (owed under the regime); sourceId is the volunteer or denial row. */
+  @Column({ type: 'varchar', length: 12, name: 'source_kind' })
+  sourceKind!: 'volunteer' | 'denial';
+
+  @Column({ type: 'int', name: 'source_id' })
+  sourceId!: number;
+
+  @Column({ type: 'varchar', length: 16 })
+  regime!: string;
+
+  @Column({ type: 'boolean' })
+  voluntary!: boolean;
+
+  @Column({ type: 'int', name: 'amount_minor' })
+  amountMinor!: number;
+
+  @Column({ type: 'char', length: 3 })
+  currency!: string;
+
+  @Column({ type: 'varchar', length: 80, default: '' })
+  band!: string;
+
+  @Column({ type: 'varchar', length: 120, name: 'rule_ref', default: '' })
+  ruleRef!: string;
+
+  @Column({ type: 'text' })
+  explanation!: string;
+
+  /** prepaid-card (cash equivalent, the default) or voucher (only with the passenger's recorded agreement). */
+  @Column({ type: 'varchar', length: 16, default: 'prepaid-card' })
+  form!: 'prepaid-card' | 'voucher';
+
+  @Column({ type: 'datetime', precision: 3, name: 'voucher_agreed_at', nullable: true })
+  voucherAgreedAt!: Date | null;
+
+  @Column({ type: 'varchar', length: 12, default: 'due' })
+  state!: CompensationState;
+
+  @Column({ type: 'varchar', length: 80, name: 'idempotency_key', nullable: true, unique: true })
+  idempotencyKey!: string | null;
+
+  @Column({ type: 'varchar', length: 64, name: 'provider_cardholder_id', nullable: true })
+  providerCardholderId!: string | null;
+
+  @Column({ type: 'varchar', length: 64, name: 'provider_card_id', nullable: true })
+  providerCardId!: string | null;
+
+  @Column({ type: 'varchar', length: 300, name: 'last_error', nullable: true })
+  lastError!: string | null;
+
+  @Column({ type: 'varchar', length: 200, name: 'void_reason', nullable: true })
+  voidReason!: string | null;
+
+  @CreateDateColumn({ type: 'datetime', precision: 3, default: () => 'CURRENT_TIMESTAMP(3)', name: 'created_at' })
+  createdAt!: Date;
+
+  @UpdateDateColumn({ type: 'datetime', precision: 3, default: () => 'CURRENT_TIMESTAMP(3)', onUpdate: 'CURRENT_TIMESTAMP(3)', name: 'updated_at' })
+  updatedAt!: Date;
+}

@@ -1,0 +1,102 @@
+import type { DataSource, EntityManager } from 'typeorm';
+import type { SessionUser } from '@shared/schemas/auth';
+import type { ManifestFlightPreview, ManifestImportResult, ManifestPreview, ManifestProblem } from '@shared/schemas/manifest';
+import { FlightEntity, StationEntity } from '../../db/entities';
+import { HttpError } from '../../http/errors';
+import { audit } from '../audit/audit.service';
+import { applyFlightManifest, emptyCounts, passengerKey, storedManifest } from './manifest-apply';
+import { parseManifestCsv } from './manifest-csv';
+import { groupManifestRows, type ManifestFlightGroup } from './manifest-rows';
+
+/** The 400 of an import with problems: rendered by the route with every problem and its line. */
+export class ManifestRejectedError extends HttpError {
+  constructor(readonly problems: ManifestProblem[]) {
+    super(400, 'manifest_invalid', `The manifest has ${problems.length} problem${problems.length === 1 ? '' : 's'}; nothing was imported.`, problems.slice(0, 50).map((p) => ({ field: `line ${p.line}: ${p.field}`, rule: p.rule })));
+  }
+}
+
+/** A manifest may not rewrite a flight that has left or was cancelled: compensation and finance rely on those records. */
+const CLOSED_STATES = new Set(['departed', 'cancelled']);
+
+interface Analysis {
+  rows: number;
+  problems: ManifestProblem[];
+  flights: { group: ManifestFlightGroup; flight: FlightEntity | null }[];
+}
+
+const byLine = (a: ManifestProblem, b: ManifestProblem) => a.line - b.line;
+
+/** Everything that can be known about the file without writing: the same checks for preview and for import. */
+async function analyse(em: EntityManager, stationId: number, text: string, lock: boolean): Promise<Analysis> {
+  const csv = parseManifestCsv(text);
+  const grouped = groupManifestRows(csv.records);
+  const problems = [...csv.problems, ...grouped.problems];
+  const station = await em.findOneByOrFail(StationEntity, { id: stationId });
+  const flights: Analysis['flights'] = [];
+
+  for (const group of grouped.flights.values()) {
+    const flight = await em.findOne(FlightEntity, {
+      where: { stationId, carrierCode: group.carrier, flightNumber: group.number, serviceDate: group.date },
+      ...(lock ? { lock: { mode: 'pessimistic_write' as const } } : {}),
+    });
+    flights.push({ group, flight });
+    const label = `${group.carrier}${group.number} on ${group.date}`;
+    if (!flight) {
+      for (const line of group.lines) problems.push({ line, field: 'flight_number', rule: `no flight ${label} departs from ${station.iata}` });
+      continue;
+    }
+    if (CLOSED_STATES.has(flight.state)) {
+      problems.push({ line: group.firstLine, field: 'flight_number', rule: `flight ${label} is ${flight.state}; its manifest can no longer change` });
+    }
+    const cabins = Object.keys(flight.seatsByCabin);
+    for (const booking of group.bookings.values()) {
+      for (const p of booking.passengers) {
+        if (!cabins.includes(p.row.cabin)) problems.push({ line: p.line, field: 'cabin', rule: `flight ${label} has no cabin ${p.row.cabin} (its cabins: ${cabins.join(', ')})` });
+      }
+    }
+  }
+  return { rows: csv.records.length, problems: problems.sort(byLine), flights };
+}
+
+const passengersIn = (g: ManifestFlightGroup) => [...g.bookings.values()].reduce((n, b) => n + b.passengers.length, 0);
+
+export async function previewManifest(db: DataSource, stationId: number, text: string): Promise<ManifestPreview> {
+  const a = await analyse(db.manager, stationId, text, false);
+  const flights: ManifestFlightPreview[] = [];
+  for (const { group, flight } of a.flights) {
+    let willCancel = 0;
+    if (flight) {
+      const inFile = new Set([...group.bookings.values()].flatMap((b) => b.passengers.map((p) => passengerKey(b.pnr, p.sequence))));
+      const stored = await storedManifest(db.manager, flight.id, false);
+      for (const [key, p] of stored.passengersByKey) if (!inFile.has(key) && p.status !== 'cancelled') willCancel++;
+    }
+    flights.push({ carrier: group.carrier, number: group.number, date: group.date, found: Boolean(flight), bookings: group.bookings.size, passengers: passengersIn(group), willCancel });
+  }
+  return { rows: a.rows, flights, errors: a.problems };
+}
+
+/** All or nothing: one transaction, and any problem (found again under the locks) rolls everything back. */
+export async function importManifest(db: DataSource, stationId: number, text: string, actor: SessionUser, fileName: string): Promise<ManifestImportResult> {
+  const now = new Date();
+  return db.transaction(async (em) => {
+    const a = await analyse(em, stationId, text, true);
+    if (a.problems.length) throw new ManifestRejectedError(a.problems);
+    const totals = emptyCounts();
+    const flights: ManifestImportResult['flights'] = [];
+    for (const { group, flight } of a.flights) {
+      if (!flight) continue; // unreachable: a missing flight is a problem above
+      const counts = await applyFlightManifest(em, flight, group, now);
+      for (const k of Object.keys(totals) as (keyof typeof totals)[]) totals[k] += counts[k];
+      flights.push({ flightId: flight.id, carrier: group.carrier, number: group.number, date: group.date, counts });
+      await audit(em, {
+        actor,
+        action: 'manifest.imported',
+        entityType: 'flight',
+        entityId: flight.id,
+        stationId,
+        after: { fileName, rows: passengersIn(group), bookings: group.bookings.size, ...counts },
+      });
+    }
+    return { rows: a.rows, flights, totals };
+  });
+}

@@ -1,0 +1,50 @@
+import { Router } from 'express';
+import { z } from 'zod';
+import type { DataSource } from 'typeorm';
+import { canSeeStation, currentUser, requireRole } from '../../http/require-role';
+import { notFound } from '../../http/errors';
+import { parse } from '../../http/validate';
+import { recomputeInBackground, type FlightsChanged } from '../show-up-profiles/recompute-flights';
+import { manifestTemplateCsv } from './manifest-csv';
+import { importManifest, ManifestRejectedError, previewManifest } from './manifest.service';
+import { manifestUpload, uploadedText } from './manifest-upload';
+
+const stationParams = z.object({ stationId: z.coerce.number().int().positive('stationId must be positive') });
+
+/**
+ * Mounted at /api/stations/:stationId/manifests, admins of the station only. The station check runs before the
+ * upload is read, so nobody else's file is ever parsed.
+ */
+export function manifestsRouter(deps: { db: DataSource; onFlightsChanged?: FlightsChanged }) {
+  const flightsChanged = deps.onFlightsChanged ?? recomputeInBackground(deps.db);
+  const r = Router({ mergeParams: true });
+  r.use(requireRole('admin'));
+  r.use((req, res, next) => {
+    const { stationId } = parse(stationParams, req.params, 'params');
+    if (!canSeeStation(currentUser(req), stationId)) throw notFound('Station');
+    res.locals.stationId = stationId;
+    next();
+  });
+
+  r.get('/template', (_req, res) => {
+    res.type('text/csv; charset=utf-8').attachment('bumpboard-manifest-template.csv').send(manifestTemplateCsv());
+  });
+
+  r.post('/preview', manifestUpload, async (req, res) => {
+    const { text } = uploadedText(req);
+    res.json(await previewManifest(deps.db, res.locals.stationId as number, text));
+  });
+
+  r.post('/import', manifestUpload, async (req, res) => {
+    const { text, fileName } = uploadedText(req);
+    try {
+      const result = await importManifest(deps.db, res.locals.stationId as number, text, currentUser(req), fileName);
+      res.json(result);
+      flightsChanged(result.flights.map((f) => f.flightId));
+    } catch (err) {
+      if (!(err instanceof ManifestRejectedError)) throw err;
+      res.status(400).json({ error: err.code, message: err.message, details: err.details, errors: err.problems });
+    }
+  });
+  return r;
+}

@@ -1,0 +1,39 @@
+import { Router } from 'express';
+import { z } from 'zod';
+import type { DataSource } from 'typeorm';
+import { showUpProfileSchema } from '@shared/schemas/show-up-profile';
+import { canSeeStation, currentUser, requireRole } from '../../http/require-role';
+import { notFound } from '../../http/errors';
+import { parse } from '../../http/validate';
+import { recomputeInBackground, type FlightsChanged } from './recompute-flights';
+import { getShowUpProfile, openFlightIds, putShowUpProfile } from './show-up-profiles.service';
+
+const stationParams = z.object({ stationId: z.coerce.number().int().positive('stationId must be positive') });
+
+/** Mounted at /api/stations/:stationId/show-up-profile: supervisors read it, admins change it. */
+export function showUpProfilesRouter(deps: { db: DataSource; onFlightsChanged?: FlightsChanged }) {
+  const flightsChanged = deps.onFlightsChanged ?? recomputeInBackground(deps.db);
+  const r = Router({ mergeParams: true });
+  r.use(requireRole('admin', 'supervisor'));
+  r.use((req, res, next) => {
+    const { stationId } = parse(stationParams, req.params, 'params');
+    if (!canSeeStation(currentUser(req), stationId)) throw notFound('Station');
+    res.locals.stationId = stationId;
+    next();
+  });
+
+  r.get('/', async (_req, res) => {
+    res.json(await getShowUpProfile(deps.db, res.locals.stationId as number));
+  });
+
+  r.put('/', requireRole('admin'), async (req, res) => {
+    const stationId = res.locals.stationId as number;
+    const profile = parse(showUpProfileSchema, req.body);
+    res.json(await putShowUpProfile(deps.db, stationId, profile, currentUser(req)));
+    // The odds of flights already on the boards move with the profile; the answer does not wait for them.
+    openFlightIds(deps.db, stationId)
+      .then(flightsChanged)
+      .catch((err: unknown) => console.error(`[show-up-profile] listing flights to recompute failed: ${err instanceof Error ? err.message : err}`));
+  });
+  return r;
+}

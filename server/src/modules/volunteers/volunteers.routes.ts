@@ -1,0 +1,152 @@
+import { Router, type Request } from 'express';
+import { z } from 'zod';
+import type { DataSource } from 'typeorm';
+import { idParamSchema } from '@shared/schemas/common';
+import { addVolunteerBodySchema, decideApprovalBodySchema, openRoundBodySchema, raiseOfferBodySchema, rebookBodySchema, volunteerPolicySchema } from '@shared/schemas/volunteers';
+import { PassengerEntity, VolunteerPolicyEntity } from '../../db/entities';
+import { badRequest, notFound } from '../../http/errors';
+import { canSeeStation, currentUser, requireRole } from '../../http/require-role';
+import { parse } from '../../http/validate';
+import { audit } from '../audit/audit.service';
+import { flightForUser } from '../flights/flight-desk.service';
+import { acceptVolunteer, declineVolunteer } from './accept.service';
+import { flightToken } from './bid-link';
+import { policyFor } from './policy.service';
+import { alternatesFor, rebookVolunteer } from './rebooking.service';
+import { presentRounds } from './rounds.presenter';
+import { addVolunteer, closeRound, decideApproval, openRound, raiseOffer, roundForUser } from './rounds.service';
+
+export interface VolunteerDeps {
+  db: DataSource;
+  secret: string;
+  appBaseUrl: string;
+  /** After a commit: tell the consoles, and let the forecast drop accepted volunteers. */
+  changed: (flightId: number, stationId: number, topics: string[]) => void;
+  /** Notices for the passengers concerned, written by the caller's own module after the commit. */
+  onAccepted?: (volunteerId: number) => Promise<void>;
+  onRebooked?: (volunteerId: number) => Promise<void>;
+}
+
+const flightParams = z.object({ flightId: z.coerce.number().int().positive('flightId must be positive') });
+const volunteerParams = z.object({ id: z.coerce.number().int().positive(), volunteerId: z.coerce.number().int().positive('volunteerId must be positive') });
+const stationParams = z.object({ stationId: z.coerce.number().int().positive('stationId must be positive') });
+const desk = requireRole('agent', 'supervisor', 'admin');
+
+export function volunteersRouter(deps: VolunteerDeps) {
+  const r = Router();
+  const flightOf = (req: Request) => flightForUser(deps.db, currentUser(req), parse(flightParams, req.params, 'params').flightId);
+  const roundsOf = async (flightId: number, stationId: number) => ({ rounds: await presentRounds(deps.db, flightId), policy: await policyFor(deps.db, stationId) });
+
+  r.get('/flights/:flightId/rounds', desk, async (req, res) => {
+    const flight = await flightOf(req);
+    res.json({ ...(await roundsOf(flight.id, flight.stationId)), bidLink: `${deps.appBaseUrl}/offer/${flightToken(deps.secret, flight.id, flight.scheduledDeparture)}` });
+  });
+
+  r.post('/flights/:flightId/rounds', desk, async (req, res) => {
+    const flight = await flightOf(req);
+    const body = parse(openRoundBodySchema, req.body);
+    const round = await openRound(deps.db, currentUser(req), flight, body);
+    deps.changed(flight.id, flight.stationId, ['rounds']);
+    res.status(201).json({ id: round.id });
+  });
+
+  r.get('/flights/:flightId/alternates', desk, async (req, res) => {
+    res.json({ alternates: await alternatesFor(deps.db, await flightOf(req)) });
+  });
+
+  r.post('/rounds/:id/raise', desk, async (req, res) => {
+    const { id } = parse(idParamSchema, req.params, 'params');
+    const { offerMinor } = parse(raiseOfferBodySchema, req.body);
+    const { round, approvalRequested } = await raiseOffer(deps.db, currentUser(req), id, offerMinor);
+    deps.changed(round.flightId, round.stationId, approvalRequested ? ['rounds', 'approvals'] : ['rounds']);
+    res.json({ approvalRequested });
+  });
+
+  r.post('/rounds/:id/close', desk, async (req, res) => {
+    const round = await closeRound(deps.db, currentUser(req), parse(idParamSchema, req.params, 'params').id);
+    deps.changed(round.flightId, round.stationId, ['rounds', 'approvals']);
+    res.json({ status: round.status });
+  });
+
+  r.post('/rounds/:id/volunteers', desk, async (req, res) => {
+    const user = currentUser(req);
+    const { id } = parse(idParamSchema, req.params, 'params');
+    const body = parse(addVolunteerBodySchema, req.body);
+    const v = await deps.db.transaction(async (em) => {
+      const round = await roundForUser(em, user, id, true);
+      const first = await em.findOneBy(PassengerEntity, { id: body.passengerIds[0], flightId: round.flightId });
+      if (!first) throw badRequest('passengerIds: must be passengers of this flight', [{ field: 'passengerIds', rule: 'must be passengers of this flight' }]);
+      return { v: await addVolunteer(em, round, first.bookingId, body.passengerIds, body.askMinor ?? null, 'agent', user), round };
+    });
+    deps.changed(v.round.flightId, v.round.stationId, ['rounds']);
+    res.status(201).json({ id: v.v.id });
+  });
+
+  r.post('/rounds/:id/volunteers/:volunteerId/accept', desk, async (req, res) => {
+    const { id, volunteerId } = parse(volunteerParams, req.params, 'params');
+    const { round } = await acceptVolunteer(deps.db, currentUser(req), id, volunteerId);
+    deps.changed(round.flightId, round.stationId, ['rounds', 'forecast']);
+    await deps.onAccepted?.(volunteerId);
+    res.json({ status: 'accepted' });
+  });
+
+  r.post('/rounds/:id/volunteers/:volunteerId/decline', desk, async (req, res) => {
+    const { id, volunteerId } = parse(volunteerParams, req.params, 'params');
+    const { round } = await declineVolunteer(deps.db, currentUser(req), id, volunteerId);
+    deps.changed(round.flightId, round.stationId, ['rounds']);
+    res.json({ status: 'declined' });
+  });
+
+  r.post('/volunteers/:id/rebook', desk, async (req, res) => {
+    const { id } = parse(idParamSchema, req.params, 'params');
+    const choice = parse(rebookBodySchema, req.body);
+    const { round, rebooking } = await rebookVolunteer(deps.db, currentUser(req), id, choice);
+    deps.changed(round.flightId, round.stationId, ['rounds']);
+    if (rebooking.alternateFlightId) deps.changed(rebooking.alternateFlightId, round.stationId, ['counts']);
+    await deps.onRebooked?.(id);
+    res.json({ plannedArrivalDelayMinutes: rebooking.plannedArrivalDelayMinutes, label: rebooking.label });
+  });
+
+  r.get('/approvals', requireRole('supervisor', 'admin'), async (req, res) => {
+    const user = currentUser(req);
+    const rows = await deps.db.query(
+      `SELECT a.id, a.round_id, a.offer_minor, a.requested_by_label, a.requested_at, r.flight_id, r.currency, f.carrier_code, f.flight_number, a.station_id
+         FROM offer_approvals a JOIN volunteer_rounds r ON r.id = a.round_id JOIN flights f ON f.id = r.flight_id
+        WHERE a.status = 'pending' ORDER BY a.requested_at`,
+    ) as { id: number; round_id: number; offer_minor: number; requested_by_label: string; requested_at: Date; flight_id: number; currency: string; carrier_code: string; flight_number: string; station_id: number }[];
+    res.json({
+      approvals: rows.filter((a) => canSeeStation(user, a.station_id)).map((a) => ({
+        id: a.id, roundId: a.round_id, flightId: a.flight_id, flight: `${a.carrier_code} ${a.flight_number}`, offerMinor: a.offer_minor, currency: a.currency, requestedBy: a.requested_by_label, requestedAt: new Date(a.requested_at).toISOString(),
+      })),
+    });
+  });
+
+  r.post('/approvals/:id', requireRole('supervisor', 'admin'), async (req, res) => {
+    const { id } = parse(idParamSchema, req.params, 'params');
+    const body = parse(decideApprovalBodySchema, req.body);
+    const round = await decideApproval(deps.db, currentUser(req), id, body.approve, body.reason);
+    deps.changed(round.flightId, round.stationId, ['rounds', 'approvals']);
+    res.json({ offerMinor: round.offerMinor });
+  });
+
+  r.get('/stations/:stationId/volunteer-policy', desk, async (req, res) => {
+    const { stationId } = parse(stationParams, req.params, 'params');
+    if (!canSeeStation(currentUser(req), stationId)) throw notFound('Station');
+    res.json(await policyFor(deps.db, stationId));
+  });
+
+  r.put('/stations/:stationId/volunteer-policy', requireRole('admin'), async (req, res) => {
+    const user = currentUser(req);
+    const { stationId } = parse(stationParams, req.params, 'params');
+    if (!canSeeStation(user, stationId)) throw notFound('Station');
+    const policy = parse(volunteerPolicySchema, req.body);
+    await deps.db.transaction(async (em) => {
+      const before = await policyFor(em, stationId);
+      await em.upsert(VolunteerPolicyEntity, { stationId, policy }, ['stationId']);
+      await audit(em, { actor: user, action: 'volunteer_policy.updated', entityType: 'station', entityId: stationId, stationId, before, after: policy });
+    });
+    res.json(policy);
+  });
+
+  return r;
+}

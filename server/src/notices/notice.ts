@@ -1,0 +1,62 @@
+// A notice is written once as blocks and rendered twice, as plain text and as HTML, so the two never drift
+// apart and every piece of data passes through the one escaping function.
+import { escapeHtml } from './format';
+
+export interface Notice {
+  subject: string;
+  text: string;
+  html: string;
+}
+
+export type Block =
+  | { kind: 'paragraph'; text: string }
+  | { kind: 'facts'; rows: ReadonlyArray<readonly [label: string, value: string]> }
+  | { kind: 'list'; title: string; items: readonly string[] }
+  | { kind: 'caution'; text: string };
+
+/**
+ * Every notice ends with this: the figures come from configured rules, and people with authority decide what
+ * is owed.
+ */
+export const CAUTION =
+  'Amounts in this message were computed from the rules configured for this station and the applicable passenger-rights ' +
+  'regulation. The regulation, the contract of carriage and the carrier\'s compliance staff decide what is owed; ' +
+  'if anything here differs from them, they prevail.';
+
+export function renderNotice(subject: string, blocks: readonly Block[]): Notice {
+  if (/[\r\n]/.test(subject)) throw new RangeError('subject: must be one line');
+  const all = [...blocks, { kind: 'caution', text: CAUTION } as const];
+  return { subject, text: `${all.map(blockText).join('\n\n')}\n`, html: pageHtml(subject, all.map(blockHtml).join('\n')) };
+}
+
+function blockText(block: Block): string {
+  switch (block.kind) {
+    case 'paragraph':
+      return block.text;
+    case 'facts': {
+      const width = Math.max(...block.rows.map(([label]) => label.length));
+      return block.rows.map(([label, value]) => `${`${label}:`.padEnd(width + 2)}${value}`).join('\n');
+    }
+    case 'list':
+      return [block.title, ...block.items.map((item) => `- ${item}`)].join('\n');
+    case 'caution':
+      return `Please note: ${block.text}`;
+  }
+}
+
+function blockHtml(block: Block): string {
+  switch (block.kind) {
+    case 'paragraph':
+      return `<p>${escapeHtml(block.text)}</p>`;
+    case 'facts':
+      return `<table role="presentation">${block.rows.map(([label, value]) => `<tr><th scope="row" style="text-align:left;padding-right:1em">${escapeHtml(label)}</th><td>${escapeHtml(value)}</td></tr>`).join('')}</table>`;
+    case 'list':
+      return `<p>${escapeHtml(block.title)}</p><ul>${block.items.map((item) => `<li>${escapeHtml(item)}</li>`).join('')}</ul>`;
+    case 'caution':
+      return `<p style="font-size:smaller;color:#555"><strong>Please note:</strong> ${escapeHtml(block.text)}</p>`;
+  }
+}
+
+function pageHtml(subject: string, body: string): string {
+  return `<!doctype html>\n<html lang="en"><head><meta charset="utf-8"><title>${escapeHtml(subject)}</title></head>\n<body style="font-family:sans-serif;line-height:1.4">\n${body}\n</body></html>\n`;
+}

@@ -1,0 +1,146 @@
+import { z } from 'zod';
+import { apiErrorSchema } from './common';
+
+/**
+ * The manifest CSV a station exports from its booking system: one row per passenger, in our own column layout.
+ * Columns may come in any order; every one must be present (an empty cell is fine where the column is optional).
+ */
+export const MANIFEST_COLUMNS = [
+  'flight_carrier',
+  'flight_number',
+  'flight_date',
+  'pnr',
+  'sequence',
+  'first_name',
+  'last_name',
+  'cabin',
+  'fare_minor',
+  'fare_currency',
+  'fare_type',
+  'ssr_codes',
+  'frequent_flyer_tier',
+  'is_child',
+  'inbound_flight',
+  'inbound_scheduled_arrival',
+  'contact_email',
+] as const;
+export type ManifestColumn = (typeof MANIFEST_COLUMNS)[number];
+
+/** What each column holds, shown beside the template download. */
+export const MANIFEST_COLUMN_HELP: Record<ManifestColumn, string> = {
+  flight_carrier: 'Airline designator, 2-3 letters or digits (ZZ).',
+  flight_number: '1-4 digits, optionally a letter suffix (107).',
+  flight_date: 'Local departure date at this station, YYYY-MM-DD.',
+  pnr: 'Booking reference, 5-8 letters or digits.',
+  sequence: "Passenger's position in the PNR, 1-9; stays the same across exports.",
+  first_name: 'Given name.',
+  last_name: 'Family name.',
+  cabin: 'One capital letter that the flight has seats in (J, Y).',
+  fare_minor: 'Fare paid in minor units, digits only (18950 = 189.50).',
+  fare_currency: 'ISO 4217 code (USD, EUR, CAD).',
+  fare_type: 'standard, flex or award; empty means standard.',
+  ssr_codes: 'Special-service codes separated by spaces (WCHR CHLD); may be empty.',
+  frequent_flyer_tier: 'Tier name, or empty.',
+  is_child: 'true or false; empty means false.',
+  inbound_flight: 'The connecting flight that brings the passenger (ZZ386), or empty for a local passenger.',
+  inbound_scheduled_arrival: 'Scheduled arrival of the inbound flight, ISO 8601 with offset (2026-12-01T14:05:00-05:00).',
+  contact_email: 'Booking contact e-mail, the same on every row of the PNR; may be empty.',
+};
+
+export const MANIFEST_MAX_BYTES = 2 * 1024 * 1024;
+/** Parties larger than nine are group bookings split across PNRs in most booking systems (common practice). */
+export const MANIFEST_MAX_PARTY = 9;
+/** The passengers table stores fares in a signed 32-bit column. */
+const MAX_FARE_MINOR = 2_147_483_647;
+
+const cell = z.string().trim();
+const upper = cell.transform((s) => s.toUpperCase());
+const required = (col: string, max: number) => cell.pipe(z.string().min(1, `${col} is required`).max(max, `${col} must be at most ${max} characters`));
+const optional = (col: string, max: number) =>
+  cell.pipe(z.string().max(max, `${col} must be at most ${max} characters`)).transform((s) => (s === '' ? null : s));
+
+/** One CSV row as text cells in, typed passenger fields out; each message names its column. */
+export const manifestRowSchema = z
+  .object({
+    flight_carrier: upper.pipe(z.string().regex(/^[A-Z0-9]{2,3}$/, 'flight_carrier must be a 2-3 character airline designator')),
+    flight_number: upper.pipe(z.string().regex(/^\d{1,4}[A-Z]?$/, 'flight_number must be 1-4 digits, optionally a letter suffix')),
+    flight_date: cell.pipe(z.iso.date({ error: 'flight_date must be a calendar date YYYY-MM-DD' })),
+    pnr: upper.pipe(z.string().regex(/^[A-Z0-9]{5,8}$/, 'pnr must be 5-8 letters or digits')),
+    sequence: cell.pipe(z.string().regex(/^[1-9]$/, `sequence must be a whole number from 1 to ${MANIFEST_MAX_PARTY}`)).transform(Number),
+    first_name: required('first_name', 60),
+    last_name: required('last_name', 60),
+    cabin: upper.pipe(z.string().regex(/^[A-Z]$/, 'cabin must be one letter')),
+    fare_minor: cell
+      .pipe(z.string().regex(/^\d+$/, 'fare_minor must be whole minor units, digits only (18950 for 189.50)'))
+      .transform(Number)
+      .pipe(z.number().max(MAX_FARE_MINOR, 'fare_minor is too large')),
+    fare_currency: upper.pipe(z.string().regex(/^[A-Z]{3}$/, 'fare_currency must be a three-letter ISO 4217 code')),
+    fare_type: cell
+      .transform((s) => s.toLowerCase() || 'standard')
+      .pipe(z.string().regex(/^[a-z][a-z-]{0,15}$/, 'fare_type must be a word of at most 16 letters, such as standard, flex or award')),
+    ssr_codes: upper
+      .transform((s) => (s === '' ? [] : s.split(/\s+/)))
+      .pipe(z.array(z.string().regex(/^[A-Z]{4}$/, 'ssr_codes must be four-letter codes separated by spaces'))),
+    frequent_flyer_tier: optional('frequent_flyer_tier', 16),
+    is_child: cell
+      .transform((s) => s.toLowerCase())
+      .pipe(z.enum(['', 'true', 'false'], { error: 'is_child must be true or false' }))
+      .transform((s) => s === 'true'),
+    inbound_flight: upper.transform((s) => s.replace(/\s+/g, '')).pipe(z.string().max(10, 'inbound_flight must be at most 10 characters')).transform((s) => s || null),
+    inbound_scheduled_arrival: cell.pipe(
+      z.union([z.literal('').transform(() => null), z.iso.datetime({ offset: true, error: 'inbound_scheduled_arrival must be an ISO 8601 date-time with an offset' })]),
+    ),
+    contact_email: cell.pipe(z.union([z.literal('').transform(() => null), z.email({ error: 'contact_email must be an e-mail address' })])),
+  })
+  // Only once every cell passed: a broken cell above should not also raise this rule about the same row.
+  .refine((row) => !(row.inbound_scheduled_arrival && !row.inbound_flight), {
+    path: ['inbound_flight'],
+    message: 'inbound_flight is required when inbound_scheduled_arrival is given',
+    when: (payload) => payload.issues.length === 0,
+  });
+export type ManifestRow = z.infer<typeof manifestRowSchema>;
+
+/** A problem in the file: the line as an editor shows it (header = line 1), the column, and the rule broken. */
+export const manifestProblemSchema = z.object({ line: z.number().int(), field: z.string(), rule: z.string() });
+export type ManifestProblem = z.infer<typeof manifestProblemSchema>;
+
+export const manifestFlightPreviewSchema = z.object({
+  carrier: z.string(),
+  number: z.string(),
+  date: z.string(),
+  found: z.boolean(),
+  /** Bookings and passengers the file holds for this flight. */
+  bookings: z.number().int(),
+  passengers: z.number().int(),
+  /** Passengers stored now and missing from the file: an import marks them cancelled. */
+  willCancel: z.number().int(),
+});
+export type ManifestFlightPreview = z.infer<typeof manifestFlightPreviewSchema>;
+
+export const manifestPreviewSchema = z.object({
+  rows: z.number().int(),
+  flights: z.array(manifestFlightPreviewSchema),
+  errors: z.array(manifestProblemSchema),
+});
+export type ManifestPreview = z.infer<typeof manifestPreviewSchema>;
+
+export const manifestImportCountsSchema = z.object({
+  bookingsCreated: z.number().int(),
+  bookingsUpdated: z.number().int(),
+  bookingsCancelled: z.number().int(),
+  passengersCreated: z.number().int(),
+  passengersUpdated: z.number().int(),
+  passengersCancelled: z.number().int(),
+});
+export type ManifestImportCounts = z.infer<typeof manifestImportCountsSchema>;
+
+export const manifestImportResultSchema = z.object({
+  rows: z.number().int(),
+  flights: z.array(z.object({ flightId: z.number().int(), carrier: z.string(), number: z.string(), date: z.string(), counts: manifestImportCountsSchema })),
+  totals: manifestImportCountsSchema,
+});
+export type ManifestImportResult = z.infer<typeof manifestImportResultSchema>;
+
+/** The 400 of an import that found problems: the usual error shape plus every problem with its line. */
+export const manifestRejectedSchema = apiErrorSchema.extend({ errors: z.array(manifestProblemSchema) });
+export type ManifestRejected = z.infer<typeof manifestRejectedSchema>;
