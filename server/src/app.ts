@@ -21,8 +21,12 @@ import { integrationEventsRouter } from './modules/integrations/events.routes';
 import { integrationKeysRouter } from './modules/integrations/integration-keys.routes';
 import { manifestsRouter } from './modules/manifests/manifests.routes';
 import { showUpProfilesRouter } from './modules/show-up-profiles/show-up-profiles.routes';
+import { noticesRouter } from './modules/outbox/outbox.routes';
 import { createForecastScheduler, type ForecastScheduler } from './modules/forecast/forecast-scheduler';
 import { silentPublisher, type Publisher } from './realtime/publisher';
+import { volunteersRouter } from './modules/volunteers/volunteers.routes';
+import { denialsRouter } from './modules/denials/denials.routes';
+import { publicOffersRouter } from './modules/volunteers/public-offers.routes';
 
 export interface AppDeps {
   env: Env;
@@ -50,6 +54,14 @@ export function createApp(deps: AppDeps) {
   const publisher = deps.publisher ?? silentPublisher;
   const forecast = deps.forecast ?? createForecastScheduler(deps.db, (o) => publisher.flightChanged(o.flightId, o.stationId, ['forecast', 'counts', 'events']));
   // The feed authenticates with an API key, not a session: mounted before the session and CSRF middleware.
+  const changed = (flightId: number, stationId: number, topics: string[]) => {
+    publisher.flightChanged(flightId, stationId, topics);
+    if (topics.includes('forecast')) forecast.markDirty(flightId);
+  };
+  // The provider's signed webhooks: the signature covers the raw body, so this comes before any JSON parser and
+  // outside the session and CSRF middleware.
+  // The passenger's "Offer your seat" page: no session; signed links and booking proof instead.
+  app.use('/api/public', publicOffersRouter({ db: deps.db, secret: deps.env.SESSION_SECRET, changed }));
   app.use('/api/integrations', integrationEventsRouter({ db: deps.db, onFlightsChanged: (ids) => ids.forEach((id) => forecast.markDirty(id)) }));
 
   configurePassport(deps.db);
@@ -60,10 +72,13 @@ export function createApp(deps: AppDeps) {
   api.use(csrfSynchronisedProtection);
   api.use('/auth', authRouter({ db: deps.db, throttle: deps.throttle, demo: deps.demo, onSignOut: deps.disconnectUser }));
   api.use('/users', usersRouter({ db: deps.db, onUserLockedOut: deps.disconnectUser }));
+  api.use(volunteersRouter({ db: deps.db, secret: deps.env.SESSION_SECRET, appBaseUrl: deps.env.APP_BASE_URL, changed }));
+  api.use(denialsRouter({ db: deps.db, changed }));
   api.use('/stations/:stationId/integration-keys', integrationKeysRouter(deps));
   api.use('/stations/:stationId/manifests', manifestsRouter({ db: deps.db, onFlightsChanged: (ids) => ids.forEach((id) => forecast.markDirty(id)) }));
   api.use('/stations/:stationId/show-up-profile', showUpProfilesRouter({ db: deps.db, onFlightsChanged: (ids) => ids.forEach((id) => forecast.markDirty(id)) }));
   api.use('/stations', stationsRouter(deps));
+  api.use('/flights/:flightId/notices', noticesRouter({ db: deps.db }));
   api.use('/flights', flightDeskRouter({ db: deps.db, onFlightChanged: (id, stationId) => publisher.flightChanged(id, stationId, ['forecast', 'shock']) }));
   api.use('/departures', departuresRouter(deps));
   api.use('/plans', plansRouter(deps));

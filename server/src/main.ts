@@ -22,6 +22,7 @@ forecast.startClock();
 const mailTransport = createMailTransport(env);
 const outbox = createOutboxWorker(db, mailTransport);
 outbox.start();
+// Its first pass retries every compensation a stopped server left 'issuing', with the keys fixed on each row.
 const app = createApp({
   publisher,
   forecast,
@@ -45,7 +46,12 @@ async function stop(signal: string) {
   console.log(`[server] ${signal}: stopping`);
   forecast.stop();
   ioRef.io?.close();
-  http.close();
+  // Requests already being handled finish before the database goes away (bounded, so a stuck client cannot hold us).
+  await new Promise<void>((resolve) => {
+    http.close(() => resolve());
+    http.closeIdleConnections();
+    setTimeout(resolve, 5_000).unref();
+  });
   // The send in flight finishes and is recorded before the database goes away.
   await outbox.stop();
   mailTransport.close();

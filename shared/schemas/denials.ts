@@ -141,6 +141,8 @@ export const passengerCompensationSchema = z.object({
   reviewFlags: z.array(z.string()),
   /** Why the rules could not be applied (e.g. a fare in the wrong currency); the amount is then 0 and must not be paid as is. */
   problem: z.string().nullable(),
+  /** The rules-table row used, kept so the statement quotes the amounts that were in force. */
+  rulesInForce: z.object({ effectiveFrom: z.string(), source: z.string() }).nullable(),
 });
 export type PassengerCompensation = z.infer<typeof passengerCompensationSchema>;
 
@@ -151,6 +153,8 @@ export const denialCompensationSnapshotSchema = z.object({
   passengers: z.array(passengerCompensationSchema),
   /** Flags about the case as a whole, e.g. enforcement-body details that must be checked. */
   reviewFlags: z.array(z.string()),
+  /** The station's priority rules when the statements were written, so a reprint says what the mail said. */
+  priorityRules: z.array(priorityRuleSchema).optional(),
 });
 export type DenialCompensationSnapshot = z.infer<typeof denialCompensationSnapshotSchema>;
 

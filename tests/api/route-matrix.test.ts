@@ -8,8 +8,11 @@ import { Client, signedIn, startTestApp, type TestApp } from './harness';
 import { DEMO, foreignStation, insertUser, removeRunUsers, stationIdByIata, uniqueEmail } from './helpers';
 import { ROUTES, routeKey, type RouteCall, type RouteContext, type RouteRow } from './route-table';
 import { registeredRoutes } from './route-walk';
+import { denialRouteContext, removeDenialFixtures } from './denials-fixtures';
+import { removeVolunteerRouteFixtures, volunteerRouteContext } from './volunteers-route-context';
 import { FlightEntity } from '../../server/src/db/entities';
 import { createIntegrationKey } from '../../server/src/modules/integrations/integration-keys.service';
+import { enqueueMessage } from '../../server/src/modules/outbox/outbox.service';
 
 /** A flight at the station no demo user belongs to, made once and reused by later runs. */
 async function foreignFlight(db: TestApp['db'], stationId: number) {
@@ -22,6 +25,7 @@ async function foreignFlight(db: TestApp['db'], stationId: number) {
 
 let t: TestApp;
 let ctx: RouteContext;
+const failedNotices: Record<'own' | 'other', string[]> = { own: [], other: [] };
 const asRole = {} as Record<Role, Client>;
 
 beforeAll(async () => {
@@ -32,16 +36,34 @@ beforeAll(async () => {
   const otherUser = await insertUser(t.db, { label: 'matrix-other', role: 'agent', stationIds: [other.id] });
   const ownFlight = await t.db.getRepository(FlightEntity).findOneByOrFail({ stationId: ownStationId, flightNumber: '107' });
   const otherFlight = await foreignFlight(t.db, other.id);
+  // Failed notices to re-queue: one per call the matrix makes (every call builds its URL, refused ones included).
+  for (const [scope, flight] of [['own', ownFlight], ['other', otherFlight]] as const) {
+    for (let i = 0; i < 8; i++) {
+      const { id } = await t.db.transaction((em) => enqueueMessage(em, { stationId: flight.stationId, flightId: flight.id, passengerIds: [], kind: 'volunteer-confirmation', to: 'matrix@passengers.bumpboard.test', subject: 'Route matrix notice', text: 'Route matrix notice' }));
+      await t.db.query("UPDATE outbox_messages SET status = 'failed', last_error = 'route matrix' WHERE id = ?", [id]);
+      failedNotices[scope].push(id);
+    }
+  }
   const ownKey = await createIntegrationKey(t.db, ownStationId, 'route matrix (own)', { label: 'route matrix test' });
   const otherKey = await createIntegrationKey(t.db, other.id, 'route matrix (other)', { label: 'route matrix test' });
   ctx = {
     ownStationId, otherStationId: other.id, ownUserId: ownUser.id, otherUserId: otherUser.id, uniqueEmail,
     ownFlightId: ownFlight.id, otherFlightId: otherFlight.id, ownKeyId: ownKey.id, otherKeyId: otherKey.id, ownFeedKey: (await createIntegrationKey(t.db, ownStationId, 'route matrix feed', { label: 'route matrix test' })).key,
     ownFlightRef: { carrier: ownFlight.carrierCode, number: ownFlight.flightNumber, date: ownFlight.serviceDate },
+    failedNoticeId: (scope) => {
+      const pool = failedNotices[scope];
+      const id = pool.shift();
+      if (!id) throw new Error(`the matrix ran out of failed notices for scope ${scope}`);
+      return id;
+    },
+    denials: await denialRouteContext(t.db, otherFlight),
+    volunteers: await volunteerRouteContext(t, { ownStationId, otherFlight, requesterUserId: ownUser.id }),
   };
   for (const role of ROLES) asRole[role] = await signedIn(t, DEMO[role]);
 });
 afterAll(async () => {
+  await removeDenialFixtures(t.db);
+  await removeVolunteerRouteFixtures(t.db);
   await removeRunUsers(t.db);
   await t.close();
 });

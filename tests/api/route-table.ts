@@ -16,6 +16,8 @@
 import type { Role } from '@shared/schemas/common';
 import { DEMO, TEST_PASSWORD } from './helpers';
 import { DEMO_PASSWORD } from './harness';
+import type { DenialRouteContext } from './denials-fixtures';
+import type { VolunteerRouteContext } from './volunteers-route-context';
 import { DEFAULT_SHOW_UP_PROFILE } from '@shared/schemas/show-up-profile';
 
 export type Method = 'GET' | 'POST' | 'PATCH' | 'PUT' | 'DELETE';
@@ -39,6 +41,12 @@ export interface RouteContext {
   /** A working feed key of the own station and a flight reference it may post events for. */
   ownFeedKey: string;
   ownFlightRef: { carrier: string; number: string; date: string };
+  /** A failed notice on the scope's flight, fresh for each call (a re-queued notice is no longer failed). */
+  failedNoticeId(scope: Scope): string;
+  /** Proposals, denials and flights for the denied-boarding routes (tests/api/denials-fixtures.ts). */
+  denials: DenialRouteContext;
+  /** Rounds, volunteers, approvals and a passenger link for the volunteer routes (tests/api/volunteers-route-context.ts). */
+  volunteers: VolunteerRouteContext;
 }
 
 export interface RouteCall {
@@ -161,11 +169,165 @@ export const ROUTES: readonly RouteRow[] = [
   // The matrix sends JSON, not a file: an allowed role gets past access control and is told the file is missing.
   { method: 'POST', pattern: '/api/stations/:stationId/manifests/preview', access: ['admin'], call: (ctx, scope) => ({ url: `/api/stations/${stationOf(ctx, scope)}/manifests/preview` }), success: 400, otherStation: 404 },
   { method: 'POST', pattern: '/api/stations/:stationId/manifests/import', access: ['admin'], call: (ctx, scope) => ({ url: `/api/stations/${stationOf(ctx, scope)}/manifests/import` }), success: 400, otherStation: 404 },
+  { method: 'GET', pattern: '/api/flights/:flightId/notices', access: GATE_ROLES, call: (ctx, scope) => ({ url: `/api/flights/${flightOf(ctx, scope)}/notices` }), success: 200, otherStation: 404 },
+  {
+    method: 'POST',
+    pattern: '/api/flights/:flightId/notices/:id/retry',
+    access: ['supervisor', 'admin'],
+    call: (ctx, scope) => ({ url: `/api/flights/${flightOf(ctx, scope)}/notices/${ctx.failedNoticeId(scope)}/retry` }),
+    success: 200,
+    otherStation: 404,
+  },
   {
     method: 'POST',
     pattern: '/api/integrations/events',
     access: 'api-key',
     call: (ctx) => ({ url: '/api/integrations/events', body: { events: [{ id: `matrix-${Date.now()}-${Math.random()}`, type: 'inbound.updated', occurredAt: new Date().toISOString(), flight: ctx.ownFlightRef, inboundFlight: 'ZZ000', estimatedArrival: new Date().toISOString() }] } }),
+    success: 200,
+  },
+  // Involuntary denied boarding. Calls that change an object take a fresh one from ctx.denials' pools.
+  { method: 'GET', pattern: '/api/stations/:stationId/priority-rules', access: GATE_ROLES, call: (ctx, scope) => ({ url: `/api/stations/${stationOf(ctx, scope)}/priority-rules` }), success: 200, otherStation: 404 },
+  {
+    method: 'PUT',
+    pattern: '/api/stations/:stationId/priority-rules',
+    access: ['admin'],
+    // The station's own rules as found: writing them back changes nothing.
+    call: (ctx, scope) => ({ url: `/api/stations/${stationOf(ctx, scope)}/priority-rules`, body: ctx.denials.ownRules }),
+    success: 200,
+    otherStation: 404,
+  },
+  { method: 'GET', pattern: '/api/stations/:stationId/denial-proposals', access: ['supervisor', 'admin'], call: (ctx, scope) => ({ url: `/api/stations/${stationOf(ctx, scope)}/denial-proposals` }), success: 200, otherStation: 404 },
+  { method: 'GET', pattern: '/api/flights/:flightId/denial-candidates', access: GATE_ROLES, call: (ctx, scope) => ({ url: `/api/flights/${flightOf(ctx, scope)}/denial-candidates` }), success: 200, otherStation: 404 },
+  { method: 'GET', pattern: '/api/flights/:flightId/denial-proposals', access: GATE_ROLES, call: (ctx, scope) => ({ url: `/api/flights/${flightOf(ctx, scope)}/denial-proposals` }), success: 200, otherStation: 404 },
+  {
+    method: 'POST',
+    pattern: '/api/flights/:flightId/denial-proposals',
+    access: ['agent', 'supervisor'],
+    call: (ctx, scope) => ({ url: `/api/flights/${scope === 'own' ? ctx.denials.nextProposeFlight() : ctx.otherFlightId}/denial-proposals`, body: { seatsNeeded: 1, reason: 'route matrix check' } }),
+    success: 201,
+    otherStation: 404,
+  },
+  {
+    method: 'POST',
+    pattern: '/api/denial-proposals/:id/authorize',
+    access: ['supervisor', 'admin'],
+    call: (ctx, scope) => ({ url: `/api/denial-proposals/${scope === 'own' ? ctx.denials.authorizeProposalId : ctx.denials.other.proposalId}/authorize`, body: {} }),
+    success: 200,
+    otherStation: 404,
+  },
+  {
+    method: 'POST',
+    pattern: '/api/denial-proposals/:id/change',
+    access: ['supervisor', 'admin'],
+    call: (ctx, scope) => {
+      const target = scope === 'own' ? ctx.denials.nextChangeProposal() : { proposalId: ctx.denials.other.proposalId, denialId: ctx.denials.other.denialId };
+      return { url: `/api/denial-proposals/${target.proposalId}/change`, body: { remove: [target.denialId], reason: 'route matrix check' } };
+    },
+    success: 200,
+    otherStation: 404,
+  },
+  {
+    method: 'POST',
+    pattern: '/api/denial-proposals/:id/withdraw',
+    access: GATE_ROLES,
+    call: (ctx, scope) => ({ url: `/api/denial-proposals/${scope === 'own' ? ctx.denials.withdrawProposalId : ctx.denials.other.proposalId}/withdraw`, body: { reason: 'route matrix check' } }),
+    success: 200,
+    otherStation: 404,
+  },
+  {
+    method: 'POST',
+    pattern: '/api/denials/:id/rebook',
+    access: GATE_ROLES,
+    call: (ctx, scope) => ({ url: `/api/denials/${scope === 'own' ? ctx.denials.nextRebookDenial() : ctx.denials.other.denialId}/rebook`, body: { noAlternate: true } }),
+    success: 200,
+    otherStation: 404,
+  },
+  { method: 'GET', pattern: '/api/denials/:id/statement', access: GATE_ROLES, call: (ctx, scope) => ({ url: `/api/denials/${scope === 'own' ? ctx.denials.statementDenialId : ctx.denials.other.denialId}/statement` }), success: 200, otherStation: 404 },
+  // Volunteer rounds. Calls that change an object take a fresh one from ctx.volunteers' pools; another station's
+  // objects are hidden (404) before anything about them is read.
+  { method: 'GET', pattern: '/api/flights/:flightId/rounds', access: GATE_ROLES, call: (ctx, scope) => ({ url: `/api/flights/${flightOf(ctx, scope)}/rounds` }), success: 200, otherStation: 404 },
+  {
+    method: 'POST',
+    pattern: '/api/flights/:flightId/rounds',
+    access: GATE_ROLES,
+    call: (ctx, scope) => ({ url: `/api/flights/${scope === 'own' ? ctx.volunteers.nextRoundlessFlight() : ctx.otherFlightId}/rounds`, body: { kind: 'sealed', volunteersNeeded: 1 } }),
+    success: 201,
+    otherStation: 404,
+  },
+  { method: 'GET', pattern: '/api/flights/:flightId/alternates', access: GATE_ROLES, call: (ctx, scope) => ({ url: `/api/flights/${flightOf(ctx, scope)}/alternates` }), success: 200, otherStation: 404 },
+  {
+    method: 'POST',
+    pattern: '/api/rounds/:id/raise',
+    access: GATE_ROLES,
+    // Above an agent's limit this still answers 200, with approvalRequested: each call has a round of its own.
+    call: (ctx, scope) => ({ url: `/api/rounds/${scope === 'own' ? ctx.volunteers.nextRaiseRound() : ctx.volunteers.other.roundId}/raise`, body: { offerMinor: 25_000 } }),
+    success: 200,
+    otherStation: 404,
+  },
+  { method: 'POST', pattern: '/api/rounds/:id/close', access: GATE_ROLES, call: (ctx, scope) => ({ url: `/api/rounds/${scope === 'own' ? ctx.volunteers.nextCloseRound() : ctx.volunteers.other.roundId}/close` }), success: 200, otherStation: 404 },
+  {
+    method: 'POST',
+    pattern: '/api/rounds/:id/volunteers',
+    access: GATE_ROLES,
+    call: (ctx, scope) => ({ url: `/api/rounds/${scope === 'own' ? ctx.volunteers.offerRoundId : ctx.volunteers.other.roundId}/volunteers`, body: { passengerIds: [ctx.volunteers.offerPassengerId] } }),
+    success: 201,
+    otherStation: 404,
+  },
+  {
+    method: 'POST',
+    pattern: '/api/rounds/:id/volunteers/:volunteerId/accept',
+    access: GATE_ROLES,
+    call: (ctx, scope) => ({ url: scope === 'own' ? `/api/rounds/${ctx.volunteers.offerRoundId}/volunteers/${ctx.volunteers.nextAcceptVolunteer()}/accept` : `/api/rounds/${ctx.volunteers.other.roundId}/volunteers/${ctx.volunteers.other.volunteerId}/accept` }),
+    success: 200,
+    otherStation: 404,
+  },
+  {
+    method: 'POST',
+    pattern: '/api/rounds/:id/volunteers/:volunteerId/decline',
+    access: GATE_ROLES,
+    call: (ctx, scope) => ({ url: scope === 'own' ? `/api/rounds/${ctx.volunteers.offerRoundId}/volunteers/${ctx.volunteers.nextDeclineVolunteer()}/decline` : `/api/rounds/${ctx.volunteers.other.roundId}/volunteers/${ctx.volunteers.other.volunteerId}/decline` }),
+    success: 200,
+    otherStation: 404,
+  },
+  {
+    method: 'POST',
+    pattern: '/api/volunteers/:id/rebook',
+    access: GATE_ROLES,
+    call: (ctx, scope) => ({
+      url: `/api/volunteers/${scope === 'own' ? ctx.volunteers.nextRebookVolunteer() : ctx.volunteers.other.volunteerId}/rebook`,
+      body: { manual: { carrier: 'XY', number: '204', departure: '2034-06-01T20:00:00Z', arrival: '2034-06-01T22:00:00Z' } },
+    }),
+    success: 200,
+    otherStation: 404,
+  },
+  { method: 'GET', pattern: '/api/approvals', access: ['supervisor', 'admin'], call: () => ({ url: '/api/approvals' }), success: 200 },
+  {
+    method: 'POST',
+    pattern: '/api/approvals/:id',
+    access: ['supervisor', 'admin'],
+    call: (ctx, scope) => ({ url: `/api/approvals/${scope === 'own' ? ctx.volunteers.nextApproval() : ctx.volunteers.other.approvalId}`, body: { approve: false, reason: 'route matrix check' } }),
+    success: 200,
+    otherStation: 404,
+  },
+  { method: 'GET', pattern: '/api/stations/:stationId/volunteer-policy', access: GATE_ROLES, call: (ctx, scope) => ({ url: `/api/stations/${stationOf(ctx, scope)}/volunteer-policy` }), success: 200, otherStation: 404 },
+  {
+    method: 'PUT',
+    pattern: '/api/stations/:stationId/volunteer-policy',
+    access: ['admin'],
+    // The station's own policy as found: writing it back changes nothing.
+    call: (ctx, scope) => ({ url: `/api/stations/${stationOf(ctx, scope)}/volunteer-policy`, body: ctx.volunteers.ownPolicy }),
+    success: 200,
+    otherStation: 404,
+  },
+  // The passenger's "Offer your seat" page: no session, a signed link and proof of the booking instead.
+  { method: 'GET', pattern: '/api/public/offers/:token', access: 'public', call: (ctx) => ({ url: `/api/public/offers/${ctx.volunteers.offerToken}` }), success: 200 },
+  { method: 'POST', pattern: '/api/public/offers/:token/identify', access: 'public', call: (ctx) => ({ url: `/api/public/offers/${ctx.volunteers.offerToken}/identify`, body: ctx.volunteers.publicBooking }), success: 200 },
+  { method: 'POST', pattern: '/api/public/offers/:token/bids', access: 'public', call: (ctx) => ({ url: `/api/public/offers/${ctx.volunteers.offerToken}/bids`, body: { passengerToken: ctx.volunteers.passengerToken, acceptPosted: true } }), success: 201 },
+  {
+    method: 'GET',
+    pattern: '/api/public/offers/:token/status',
+    access: 'public',
+    call: (ctx) => ({ url: `/api/public/offers/${ctx.volunteers.offerToken}/status?passengerToken=${encodeURIComponent(ctx.volunteers.passengerToken)}` }),
     success: 200,
   },
 ];

@@ -13,11 +13,13 @@ import { sessionQueryOptions } from '../lib/session';
 const DeparturesPage = lazy(() => import('./routes/departures'));
 const StationDayPage = lazy(() => import('./routes/station-day'));
 const FlightDeskPage = lazy(() => import('./routes/flight-desk'));
+const BumpReviewPage = lazy(() => import('./routes/bump-review'));
 const LedgerPage = lazy(() => import('./routes/finance-ledger'));
 const ReconciliationPage = lazy(() => import('./routes/finance-reconciliation'));
 const ReportPage = lazy(() => import('./routes/finance-report'));
 const PlannerPage = lazy(() => import('./routes/planner'));
 const SetupPage = lazy(() => import('./routes/setup'));
+const OfferYourSeatPage = lazy(() => import('./routes/offer-your-seat'));
 
 function guarded(roles: Role[], page: ReactNode) {
   return (
@@ -41,6 +43,8 @@ export function createAppRouter(queryClient: QueryClient) {
         { path: 'departures', element: guarded(['agent', 'supervisor', 'admin'], <DeparturesPage />) },
         { path: 'day', element: guarded(['supervisor'], <StationDayPage />) },
         { path: 'flights/:flightId', element: guarded(['agent', 'supervisor', 'admin'], <FlightDeskPage />) },
+        // Supervisors decide; agents and admins follow the review read-only (the page hides what they may not do).
+        { path: 'flights/:flightId/bump-review', element: guarded(['agent', 'supervisor', 'admin'], <BumpReviewPage />) },
         { path: 'ledger', element: guarded(['finance'], <LedgerPage />) },
         { path: 'reconciliation', element: guarded(['finance'], <ReconciliationPage />) },
         { path: 'report', element: guarded(['finance'], <ReportPage />) },
@@ -50,5 +54,15 @@ export function createAppRouter(queryClient: QueryClient) {
       ],
     },
     { path: '/home', element: <Navigate to="/" replace /> },
+    // The passenger's page from the gate's QR code: public, outside the staff shell and its session loader.
+    {
+      path: '/offer/:token',
+      errorElement: <RouteError />,
+      element: (
+        <Suspense fallback={<p className="p-6 text-xl text-ink-soft">Loading…</p>}>
+          <OfferYourSeatPage />
+        </Suspense>
+      ),
+    },
   ]);
 }

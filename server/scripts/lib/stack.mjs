@@ -45,6 +45,7 @@ export function serviceEnv({ local, ports, databaseUrl }) {
     PAYMENTS_FAKE_WEBHOOK_URL: `http://127.0.0.1:${ports.app}/api/payments/webhook`,
     PAYMENTS_FAKE_WEBHOOK_SECRET: stripeWebhookSecret,
     DEMO_KEYS_FILE: `${local}/demo-feed-keys.json`,
+    MAIL_FAKE_URL: `http://127.0.0.1:${ports.mail}`,
   };
 }
 

@@ -1,6 +1,8 @@
 import { useParams } from 'react-router-dom';
 import { Page } from '../../components/ui/page';
 import { FlightDesk } from '../../features/flight-desk/components/flight-desk';
+import { VolunteerRoundsPanel } from '../../features/volunteer-rounds/components/volunteer-rounds-panel';
+import { DeniedBoardingPanel } from '../../features/denials/components/denied-boarding-panel';
 
 export default function FlightDeskPage() {
   const { flightId } = useParams();
@@ -13,5 +15,14 @@ export default function FlightDeskPage() {
     );
   }
   // A new flight is a new desk: no filter, sort or form state carries over from the previous one.
-  return <FlightDesk key={id} flightId={id} />;
+  return (
+    <FlightDesk
+      key={id}
+      flightId={id}
+      volunteerRounds={(d) => (
+        <VolunteerRoundsPanel flightId={id} station={d.station} forecast={d.forecast} flightLabel={`${d.flight.carrierCode} ${d.flight.flightNumber} to ${d.flight.destination}`} />
+      )}
+      deniedBoarding={(d) => <DeniedBoardingPanel flightId={id} timeZone={d.station.timeZone} />}
+    />
+  );
 }

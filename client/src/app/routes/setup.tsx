@@ -4,6 +4,8 @@ import { StationsOverview } from '../../features/stations/components/stations-ov
 import { ShowUpProfileEditor } from '../../features/station-setup/components/show-up-profile-editor';
 import { ManifestPanel } from '../../features/station-setup/components/manifest-panel';
 import { IntegrationKeysPanel } from '../../features/station-setup/components/integration-keys-panel';
+import { VolunteerPolicyEditor } from '../../features/volunteer-rounds/components/volunteer-policy-editor';
+import { PriorityRulesEditor } from '../../features/denials/components/priority-rules-editor';
 import { useCurrentStation } from '../use-current-station';
 
 export default function SetupPage() {
@@ -34,6 +36,12 @@ export default function SetupPage() {
           </Panel>
           <Panel title={`Integration keys · ${station.iata}`}>
             <IntegrationKeysPanel key={station.id} station={station} />
+          </Panel>
+          <Panel title={`Volunteer policy · ${station.iata}`}>
+            <VolunteerPolicyEditor key={station.id} stationId={station.id} />
+          </Panel>
+          <Panel title={`Boarding priorities for denied boarding · ${station.iata}`}>
+            <PriorityRulesEditor key={station.id} stationId={station.id} />
           </Panel>
         </section>
       )}

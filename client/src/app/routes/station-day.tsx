@@ -1,5 +1,7 @@
-import { ComingNext, Page, Panel } from '../../components/ui/page';
+import { Page, Panel } from '../../components/ui/page';
 import { DeparturesBoard } from '../../features/departures/components/departures-board';
+import { PendingApprovals } from '../../features/volunteer-rounds/components/pending-approvals';
+import { WaitingDenialProposals } from '../../features/denials/components/waiting-proposals';
 import { zoneLabel } from '../../lib/format';
 import { useCurrentStation } from '../use-current-station';
 
@@ -10,7 +12,11 @@ export default function StationDayPage() {
     <Page title={`Station day · ${station.iata}`} subtitle={`What needs a supervisor today at ${station.name}. Times in ${zoneLabel(station.timeZone)}.`}>
       <div className="space-y-4">
         <Panel title="Waiting for you">
-          <ComingNext what="approvals of offers above the agent’s limit and the bump review of proposed involuntary denials arrive here." />
+          <PendingApprovals stationId={station.id} timeZone={station.timeZone} />
+          <div className="mt-4">
+            <h3 className="mb-2 text-lg font-bold">Denied-boarding proposals</h3>
+            <WaitingDenialProposals stationId={station.id} timeZone={station.timeZone} />
+          </div>
         </Panel>
         <Panel title="Departures">
           <DeparturesBoard stationId={station.id} timeZone={station.timeZone} />

@@ -4,13 +4,6 @@ import type { EntityManager } from 'typeorm';
 import { CompensationEntity } from '../../db/entities';
 import { conflict } from '../../http/errors';
 
-/**
- * How the money reaches the passenger: a prepaid card usable like cash unless the passenger agreed to a travel
- * voucher instead. For denied passengers 14 CFR 250.5(c) and Reg. 261/2004 Art. 7(3) make a voucher the passenger's
- * choice (from memory); volunteers get the same choice (common practice).
- */
-export type PaymentTerms = { form: 'prepaid-card' } | { form: 'voucher'; agreedAt: Date };
-
 export interface CompensationFact {
   stationId: number;
   flightId: number;
@@ -25,22 +18,21 @@ export interface CompensationFact {
   band: string;
   ruleRef: string;
   explanation: string;
-  /** Omitted: the cash-equivalent card. */
-  payment?: PaymentTerms;
 }
 
 /**
- * The caller holds the lock on the source row (the volunteer or the denial), so no other transaction can be adding
- * the same fact at the same time; the unique key is the backstop if one ever did.
+ * Always a cash-equivalent prepaid card at first: a travel voucher replaces it only after the passenger was told the
+ * cash amount and agreed (14 CFR 250.5(c), Reg. 261/2004 Art. 7(3), from memory). The caller holds the lock on the
+ * source row (the volunteer or the denial), so no other transaction adds the same fact at the same time; the unique
+ * key is the backstop if one ever did.
  */
 export async function recordCompensationDue(em: EntityManager, fact: CompensationFact): Promise<CompensationEntity> {
-  const { payment = { form: 'prepaid-card' }, ...rest } = fact;
   const existing = await em.findOneBy(CompensationEntity, { sourceKind: fact.sourceKind, sourceId: fact.sourceId, passengerId: fact.passengerId });
   if (existing) return existing;
   return em.save(em.create(CompensationEntity, {
-    ...rest,
-    form: payment.form,
-    voucherAgreedAt: payment.form === 'voucher' ? payment.agreedAt : null,
+    ...fact,
+    form: 'prepaid-card',
+    voucherAgreedAt: null,
     state: 'due',
     idempotencyKey: null,
     providerCardholderId: null,

@@ -24,41 +24,56 @@ async function advanceFlightStates(db: DataSource, now: Date) {
   await repo.update({ state: In(['scheduled', 'check-in-open', 'boarding', 'closed']), scheduledDeparture: LessThan(new Date(now.getTime() - 10 * 60_000)) }, { state: 'departed' });
 }
 
-export function createForecastScheduler(db: DataSource, onRecomputed: (o: RecomputeOutcome) => void, delayMs = 150): ForecastScheduler {
+export function createForecastScheduler(db: DataSource, onRecomputed: (o: RecomputeOutcome) => void, delayMs = 150, parallel = 4): ForecastScheduler {
   const dirty = new Set<number>();
   let timer: NodeJS.Timeout | null = null;
-  let running: Promise<void> = Promise.resolve();
+  let running: Promise<void> | null = null;
   let count = 0;
   let clock: NodeJS.Timeout | null = null;
 
+  const recompute = async (id: number) => {
+    try {
+      const outcome = await recomputeFlight(db, id);
+      count++;
+      if (outcome) onRecomputed(outcome);
+    } catch (err) {
+      console.error(`[forecast] recompute of flight ${id} failed: ${err instanceof Error ? err.message : err}`);
+    }
+  };
+
+  // One drain loop at a time: it takes every flight dirty *now*, recomputes them (a few in parallel), and goes round
+  // again while new changes arrived meanwhile. Under load the batches grow instead of queueing behind each other.
+  const drain = async () => {
+    while (dirty.size) {
+      const ids = [...dirty];
+      dirty.clear();
+      for (let i = 0; i < ids.length; i += parallel) await Promise.all(ids.slice(i, i + parallel).map(recompute));
+    }
+  };
   const runPending = () => {
     timer = null;
-    const ids = [...dirty];
-    dirty.clear();
-    running = running.then(async () => {
-      for (const id of ids) {
-        try {
-          const outcome = await recomputeFlight(db, id);
-          count++;
-          if (outcome) onRecomputed(outcome);
-        } catch (err) {
-          console.error(`[forecast] recompute of flight ${id} failed: ${err instanceof Error ? err.message : err}`);
-        }
-      }
+    if (running) return; // the loop in progress will pick the new changes up
+    running = drain().finally(() => {
+      running = null;
+      // A change that slipped in as the loop was finishing still gets its recompute.
+      if (dirty.size) timer ??= setTimeout(runPending, delayMs);
     });
   };
 
   const scheduler: ForecastScheduler = {
     markDirty(flightId) {
       dirty.add(flightId);
-      timer ??= setTimeout(runPending, delayMs);
+      if (!running) timer ??= setTimeout(runPending, delayMs);
     },
     async flush() {
       if (timer) {
         clearTimeout(timer);
         runPending();
       }
-      await running;
+      while (running || dirty.size) {
+        if (!running) runPending();
+        await running;
+      }
     },
     recomputeCount: () => count,
     // Without events the figures still move: people not yet checked in become less likely to show as time passes.

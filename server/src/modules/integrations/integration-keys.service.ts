@@ -35,10 +35,18 @@ export async function revokeIntegrationKey(db: DataSource, stationId: number, ke
   });
 }
 
+/** When each key's "last used" was last written: a busy feed would otherwise rewrite the same row on every batch. */
+const lastUsedWritten = new Map<number, number>();
+const LAST_USED_RESOLUTION_MS = 60_000;
+
 /** The station a presented key belongs to, or null for an unknown or revoked key. */
 export async function stationForKey(db: DataSource, presented: string): Promise<{ stationId: number; keyId: number } | null> {
   const row = await db.getRepository(IntegrationKeyEntity).findOneBy({ keyHash: hashKey(presented), revokedAt: IsNull() });
   if (!row) return null;
-  await db.getRepository(IntegrationKeyEntity).update({ id: row.id }, { lastUsedAt: new Date() });
+  const now = Date.now();
+  if (now - (lastUsedWritten.get(row.id) ?? 0) >= LAST_USED_RESOLUTION_MS) {
+    lastUsedWritten.set(row.id, now);
+    await db.getRepository(IntegrationKeyEntity).update({ id: row.id }, { lastUsedAt: new Date(now) });
+  }
   return { stationId: row.stationId, keyId: row.id };
 }

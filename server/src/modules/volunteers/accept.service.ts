@@ -1,11 +1,10 @@
 import type { DataSource, EntityManager } from 'typeorm';
 import type { SessionUser } from '@shared/schemas/auth';
-import { CompensationEntity, StationEntity, VolunteerEntity, type VolunteerRoundEntity } from '../../db/entities';
-import { recordCompensationDue, repriceVolunteerCompensation, type PaymentTerms } from '../compensations/compensation-due';
+import { StationEntity, VolunteerEntity, type VolunteerRoundEntity } from '../../db/entities';
+import { recordCompensationDue, repriceVolunteerCompensation } from '../compensations/compensation-due';
 import { conflict, notFound } from '../../http/errors';
 import { audit } from '../audit/audit.service';
 import { enqueueMessage } from '../outbox/outbox.service';
-import type { PaymentForm } from './notices';
 import { policyFor } from './policy.service';
 import { roundForUser } from './rounds.service';
 import { enqueueConfirmation, type Enqueue } from './volunteer-notices';
@@ -13,16 +12,17 @@ import { enqueueConfirmation, type Enqueue } from './volunteer-notices';
 const isRetryable = (err: unknown) => ['ER_LOCK_DEADLOCK', 'ER_LOCK_WAIT_TIMEOUT'].includes((err as { driverError?: { code?: string } })?.driverError?.code ?? '');
 
 /**
- * Accepts one volunteer, records what each passenger of the party is owed and queues the written confirmation, all
+ * Accepts one volunteer, records what each passenger of the party is owed (as a cash-equivalent card: a voucher is
+ * offered and agreed afterwards, through the compensation's voucher steps) and queues the written confirmation, all
  * in one transaction. The round row is locked first (FOR UPDATE), then the volunteer, so concurrent accepts queue
  * up: none can take the round past the seats it needs, and a volunteer already accepted is refused. READ COMMITTED:
  * the seat count read after the round lock sees every accept committed before this one got the lock (a repeatable
  * read could answer from a snapshot taken earlier).
  */
-export async function acceptVolunteer(db: DataSource, user: SessionUser, roundId: number, volunteerId: number, paymentForm: PaymentForm = 'prepaid-card', enqueue: Enqueue = enqueueMessage) {
+export async function acceptVolunteer(db: DataSource, user: SessionUser, roundId: number, volunteerId: number, enqueue: Enqueue = enqueueMessage) {
   for (let attempt = 1; ; attempt++) {
     try {
-      return await db.transaction('READ COMMITTED', (em) => acceptInTransaction(em, user, roundId, volunteerId, paymentForm, enqueue));
+      return await db.transaction('READ COMMITTED', (em) => acceptInTransaction(em, user, roundId, volunteerId, enqueue));
     } catch (err) {
       if (isRetryable(err) && attempt < 5) continue;
       throw err;
@@ -30,7 +30,7 @@ export async function acceptVolunteer(db: DataSource, user: SessionUser, roundId
   }
 }
 
-async function acceptInTransaction(em: EntityManager, user: SessionUser, roundId: number, volunteerId: number, paymentForm: PaymentForm, enqueue: Enqueue) {
+async function acceptInTransaction(em: EntityManager, user: SessionUser, roundId: number, volunteerId: number, enqueue: Enqueue) {
   const round = await roundForUser(em, user, roundId, true);
   if (round.status !== 'open') throw conflict('round_closed', 'This volunteer round is closed.');
   const v = await em.findOne(VolunteerEntity, { where: { id: volunteerId, roundId }, lock: { mode: 'pessimistic_write' } });
@@ -51,17 +51,16 @@ async function acceptInTransaction(em: EntityManager, user: SessionUser, roundId
   Object.assign(v, { status: 'accepted', agreedMinor: agreed, acceptedByUserId: user.id, acceptedAt: new Date() });
   await em.save(v);
   const station = await em.findOneByOrFail(StationEntity, { id: round.stationId });
-  const payment: PaymentTerms = paymentForm === 'voucher' ? { form: 'voucher', agreedAt: new Date() } : { form: 'prepaid-card' };
   for (const passengerId of v.passengerIds) {
     await recordCompensationDue(em, {
       stationId: round.stationId, flightId: round.flightId, bookingId: v.bookingId, passengerId, sourceKind: 'volunteer', sourceId: v.id,
-      regime: station.regime, voluntary: true, amountMinor: agreed, currency: round.currency, payment,
+      regime: station.regime, voluntary: true, amountMinor: agreed, currency: round.currency,
       band: round.kind === 'posted' ? 'posted offer' : 'sealed bid', ruleRef: 'agreed with the volunteer',
       explanation: `Volunteered in a ${round.kind === 'posted' ? 'posted-offer' : 'sealed-bid'} round at the agreed amount per seat. Volunteers agree their own benefits.`,
     });
   }
-  const notice = await enqueueConfirmation(em, round, v, paymentForm, enqueue);
-  await audit(em, { actor: user, action: 'volunteer.accepted', entityType: 'volunteer', entityId: v.id, stationId: round.stationId, before: { status: 'offered' }, after: { status: 'accepted', agreedMinor: agreed, currency: round.currency, passengerIds: v.passengerIds, paymentForm, notice } });
+  const notice = await enqueueConfirmation(em, round, v, enqueue);
+  await audit(em, { actor: user, action: 'volunteer.accepted', entityType: 'volunteer', entityId: v.id, stationId: round.stationId, before: { status: 'offered' }, after: { status: 'accepted', agreedMinor: agreed, currency: round.currency, passengerIds: v.passengerIds, notice } });
   return { round, volunteer: v };
 }
 
@@ -73,15 +72,9 @@ async function raiseEarlierVolunteers(em: EntityManager, round: VolunteerRoundEn
     const before = x.agreedMinor;
     x.agreedMinor = agreed;
     await em.update(VolunteerEntity, { id: x.id }, { agreedMinor: agreed });
-    const form = await earlierForm(em, x.id);
-    const notice = await enqueueConfirmation(em, round, x, form, enqueue, true);
+    const notice = await enqueueConfirmation(em, round, x, enqueue, true);
     await audit(em, { actor: { label: 'common-price rule' }, action: 'volunteer.repriced', entityType: 'volunteer', entityId: x.id, stationId: round.stationId, before: { agreedMinor: before }, after: { agreedMinor: agreed, notice } });
   }
-}
-
-async function earlierForm(em: EntityManager, volunteerId: number): Promise<PaymentForm> {
-  const row = await em.findOneBy(CompensationEntity, { sourceKind: 'volunteer', sourceId: volunteerId });
-  return row?.form ?? 'prepaid-card';
 }
 
 export async function declineVolunteer(db: DataSource, user: SessionUser, roundId: number, volunteerId: number) {

@@ -65,7 +65,7 @@ function agreementBlocks(input: VolunteerNoticeInput, names: string): Block[] {
     const restrictions = cleanList(input.agreement.voucherRestrictions);
     if (restrictions.length) blocks.push({ kind: 'list', title: 'Conditions of the travel voucher:', items: restrictions });
   } else {
-    blocks.push({ kind: 'paragraph', text: 'You will not be given a travel voucher instead unless you ask for one and agree to it.' });
+    blocks.push({ kind: 'paragraph', text: 'You may be offered a travel voucher instead; you will be told its conditions first, and you receive the card unless you agree to the voucher.' });
   }
   return blocks;
 }

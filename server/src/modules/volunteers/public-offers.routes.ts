@@ -5,7 +5,7 @@ import express, { Router } from 'express';
 import { RateLimiterMemory } from 'rate-limiter-flexible';
 import type { DataSource } from 'typeorm';
 import { identifyBodySchema, passengerBidBodySchema } from '@shared/schemas/volunteers';
-import { BookingEntity, FlightEntity, FlightForecastEntity, PassengerEntity, RebookingEntity, StationEntity, VolunteerEntity, VolunteerRoundEntity } from '../../db/entities';
+import { FlightEntity, FlightForecastEntity, PassengerEntity, RebookingEntity, StationEntity, VolunteerEntity, VolunteerRoundEntity } from '../../db/entities';
 import { HttpError, tooManyRequests } from '../../http/errors';
 import { parse } from '../../http/validate';
 import { passengerToken, readFlightToken, readPassengerToken } from './bid-link';
@@ -19,7 +19,8 @@ const notMatched = () => new HttpError(404, 'booking_not_matched', 'We could not
 export function publicOffersRouter(deps: { db: DataSource; secret: string; changed: (flightId: number, stationId: number, topics: string[]) => void; identifyLimit?: number }) {
   const r = Router();
   r.use(express.json({ limit: '16kb' }));
-  // OWASP (from memory): throttle guessing of booking references per address and per flight link.
+  // OWASP Authentication Cheat Sheet (from memory): throttle guessing of booking references, here per client
+  // address on each flight link; only failed attempts count.
   const limiter = new RateLimiterMemory({ keyPrefix: 'identify', points: deps.identifyLimit ?? 6, duration: 15 * 60 });
 
   async function flightOf(token: string) {
@@ -56,14 +57,15 @@ export function publicOffersRouter(deps: { db: DataSource; secret: string; chang
     const seen = await limiter.get(key);
     if (seen && seen.remainingPoints <= 0) throw tooManyRequests('Too many attempts. Please ask the gate agent for help.');
     const body = parse(identifyBodySchema, req.body);
-    const booking = await deps.db.getRepository(BookingEntity).findOneBy({ flightId: flight.id, pnr: body.pnr, status: 'active' });
-    const party = booking ? await deps.db.getRepository(PassengerEntity).findBy({ bookingId: booking.id }) : [];
-    const matches = party.some((p) => p.lastName.localeCompare(body.lastName, undefined, { sensitivity: 'base' }) === 0);
-    if (!booking || !matches) {
+    // One query whichever part is wrong, so neither the answer nor its timing tells a guesser which part was right.
+    const party = (await deps.db.getRepository(PassengerEntity).find({ where: { flightId: flight.id, booking: { pnr: body.pnr, status: 'active' } } }))
+      .filter((p) => p.status !== 'cancelled');
+    const match = party.find((p) => p.lastName.localeCompare(body.lastName, undefined, { sensitivity: 'base' }) === 0);
+    if (!match) {
       await limiter.penalty(key, 1);
       throw notMatched();
     }
-    res.json({ passengerToken: passengerToken(deps.secret, flight.id, booking.id, exp), names: party.filter((p) => p.status !== 'cancelled').map((p) => `${p.firstName} ${p.lastName}`) });
+    res.json({ passengerToken: passengerToken(deps.secret, flight.id, match.bookingId, exp), names: party.map((p) => `${p.firstName} ${p.lastName}`) });
   });
 
   r.post('/offers/:token/bids', async (req, res) => {

@@ -10,7 +10,11 @@ import { enqueueRebookingNotice, type Enqueue } from './volunteer-notices';
 const MINUTE = 60_000;
 const delayMinutes = (original: FlightEntity, arrival: Date) => Math.max(0, Math.round((arrival.getTime() - original.scheduledArrival.getTime()) / MINUTE));
 
-async function freeSeats(db: Pick<DataSource, 'getRepository'>, flight: FlightEntity) {
+/**
+ * Seats left on a flight: physical seats less passengers holding one and seats held for rebooked passengers. To
+ * hold seats on the strength of it, lock the flight row first, in a READ COMMITTED transaction (see rebookVolunteer).
+ */
+export async function freeSeats(db: Pick<DataSource, 'getRepository'>, flight: FlightEntity) {
   const seats = Object.values(flight.seatsByCabin).reduce((a, b) => a + b, 0);
   // Cancelled and offloaded passengers hold no seat.
   const booked = await db.getRepository(PassengerEntity).countBy({ flightId: flight.id, status: Not(In(['cancelled', 'offloaded'])) });

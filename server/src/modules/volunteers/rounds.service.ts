@@ -3,7 +3,7 @@ import type { SessionUser } from '@shared/schemas/auth';
 import type { z } from 'zod';
 import type { openRoundBodySchema } from '@shared/schemas/volunteers';
 import { BookingEntity, FlightEntity, OfferApprovalEntity, PassengerEntity, VolunteerEntity, VolunteerRoundEntity } from '../../db/entities';
-import { badRequest, conflict, notFound } from '../../http/errors';
+import { badRequest, conflict, forbidden, notFound } from '../../http/errors';
 import { canSeeStation } from '../../http/require-role';
 import { audit } from '../audit/audit.service';
 import { policyFor } from './policy.service';
@@ -62,12 +62,19 @@ export async function raiseOffer(db: DataSource, user: SessionUser, roundId: num
   });
 }
 
+/**
+ * A supervisor decides an offer above the agent limit. Four eyes (common practice): whoever asked for the offer
+ * cannot approve it. Locks are taken round first, then approval, the same order as raising and closing a round, so
+ * a decision and a close at the same moment wait for each other instead of deadlocking.
+ */
 export async function decideApproval(db: DataSource, user: SessionUser, approvalId: number, approve: boolean, reason: string) {
   return db.transaction(async (em) => {
-    const approval = await em.findOne(OfferApprovalEntity, { where: { id: approvalId }, lock: { mode: 'pessimistic_write' } });
-    if (!approval || !canSeeStation(user, approval.stationId)) throw notFound('Approval');
+    const found = await em.findOneBy(OfferApprovalEntity, { id: approvalId });
+    if (!found || !canSeeStation(user, found.stationId)) throw notFound('Approval');
+    const round = await roundForUser(em, user, found.roundId, true);
+    const approval = await em.findOneOrFail(OfferApprovalEntity, { where: { id: approvalId }, lock: { mode: 'pessimistic_write' } });
     if (approval.status !== 'pending') throw conflict('approval_decided', 'This approval was already decided.');
-    const round = await roundForUser(em, user, approval.roundId, true);
+    if (approval.requestedByUserId === user.id) throw forbidden('You asked for this offer; another supervisor must decide it.');
     approval.status = approve ? 'approved' : 'rejected';
     approval.decidedByUserId = user.id;
     approval.reason = reason;

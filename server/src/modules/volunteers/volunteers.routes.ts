@@ -3,12 +3,13 @@ import { z } from 'zod';
 import type { DataSource } from 'typeorm';
 import { idParamSchema } from '@shared/schemas/common';
 import { addVolunteerBodySchema, decideApprovalBodySchema, openRoundBodySchema, raiseOfferBodySchema, rebookBodySchema, volunteerPolicySchema } from '@shared/schemas/volunteers';
-import { PassengerEntity, VolunteerPolicyEntity } from '../../db/entities';
+import { PassengerEntity, StationEntity, VolunteerPolicyEntity } from '../../db/entities';
 import { badRequest, notFound } from '../../http/errors';
 import { canSeeStation, currentUser, requireRole } from '../../http/require-role';
 import { parse } from '../../http/validate';
 import { audit } from '../audit/audit.service';
 import { flightForUser } from '../flights/flight-desk.service';
+import { notifyOutbox } from '../outbox/outbox-signal';
 import { acceptVolunteer, declineVolunteer } from './accept.service';
 import { flightToken } from './bid-link';
 import { policyFor } from './policy.service';
@@ -22,9 +23,6 @@ export interface VolunteerDeps {
   appBaseUrl: string;
   /** After a commit: tell the consoles, and let the forecast drop accepted volunteers. */
   changed: (flightId: number, stationId: number, topics: string[]) => void;
-  /** Notices for the passengers concerned, written by the caller's own module after the commit. */
-  onAccepted?: (volunteerId: number) => Promise<void>;
-  onRebooked?: (volunteerId: number) => Promise<void>;
 }
 
 const flightParams = z.object({ flightId: z.coerce.number().int().positive('flightId must be positive') });
@@ -85,8 +83,8 @@ export function volunteersRouter(deps: VolunteerDeps) {
   r.post('/rounds/:id/volunteers/:volunteerId/accept', desk, async (req, res) => {
     const { id, volunteerId } = parse(volunteerParams, req.params, 'params');
     const { round } = await acceptVolunteer(deps.db, currentUser(req), id, volunteerId);
-    deps.changed(round.flightId, round.stationId, ['rounds', 'forecast']);
-    await deps.onAccepted?.(volunteerId);
+    notifyOutbox();
+    deps.changed(round.flightId, round.stationId, ['rounds', 'forecast', 'notices']);
     res.json({ status: 'accepted' });
   });
 
@@ -101,9 +99,9 @@ export function volunteersRouter(deps: VolunteerDeps) {
     const { id } = parse(idParamSchema, req.params, 'params');
     const choice = parse(rebookBodySchema, req.body);
     const { round, rebooking } = await rebookVolunteer(deps.db, currentUser(req), id, choice);
-    deps.changed(round.flightId, round.stationId, ['rounds']);
+    notifyOutbox();
+    deps.changed(round.flightId, round.stationId, ['rounds', 'notices']);
     if (rebooking.alternateFlightId) deps.changed(rebooking.alternateFlightId, round.stationId, ['counts']);
-    await deps.onRebooked?.(id);
     res.json({ plannedArrivalDelayMinutes: rebooking.plannedArrivalDelayMinutes, label: rebooking.label });
   });
 
@@ -140,6 +138,9 @@ export function volunteersRouter(deps: VolunteerDeps) {
     const { stationId } = parse(stationParams, req.params, 'params');
     if (!canSeeStation(user, stationId)) throw notFound('Station');
     const policy = parse(volunteerPolicySchema, req.body);
+    const station = await deps.db.getRepository(StationEntity).findOneByOrFail({ id: stationId });
+    // Rounds and compensations take the policy's currency; one the station does not pay in would reach finance unreconciled.
+    if (policy.currency !== station.currency) throw badRequest(`currency: must be the station's currency, ${station.currency}`, [{ field: 'currency', rule: `must be the station's currency, ${station.currency}` }]);
     await deps.db.transaction(async (em) => {
       const before = await policyFor(em, stationId);
       await em.upsert(VolunteerPolicyEntity, { stationId, policy }, ['stationId']);

@@ -1,4 +1,6 @@
+import type { ReactNode } from 'react';
 import { useQuery } from '@tanstack/react-query';
+import type { FlightDesk as FlightDeskData } from '@shared/schemas/flight-desk';
 import { Link } from 'react-router-dom';
 import { ComingNext } from '../../../components/ui/page';
 import { ApiRequestError } from '../../../lib/api-client';
@@ -15,8 +17,12 @@ import { OddsPanel } from './odds-panel';
 import { PassengerList } from './passenger-list';
 import { ShockControl } from './shock-control';
 
-/** The gate agent's main screen for one flight, kept live by the flight's change notices. */
-export function FlightDesk({ flightId }: { flightId: number }) {
+/**
+ * The gate agent's main screen for one flight, kept live by the flight's change notices. `volunteerRounds` draws the
+ * rounds panel from the loaded desk, `deniedBoarding` the denied-boarding panel: the route composes them, so this
+ * feature needs no other feature.
+ */
+export function FlightDesk({ flightId, volunteerRounds, deniedBoarding }: { flightId: number; volunteerRounds?: (desk: FlightDeskData) => ReactNode; deniedBoarding?: (desk: FlightDeskData) => ReactNode }) {
   const desk = useQuery(flightDeskQueryOptions(flightId));
   const passengers = useQuery(deskPassengersQueryOptions(flightId));
   const history = useQuery(forecastHistoryQueryOptions(flightId));
@@ -57,7 +63,8 @@ export function FlightDesk({ flightId }: { flightId: number }) {
           <EventTrail events={events.data?.events} timeZone={tz} />
         </div>
       </div>
-      <ComingNext what="Volunteer rounds and denied-boarding review arrive in the next release." />
+      {volunteerRounds?.(d)}
+      {deniedBoarding ? deniedBoarding(d) : <ComingNext what="Denied-boarding review arrives in the next release." />}
       {passengers.error ? (
         <p role="alert" className="font-bold text-alert">
           The passenger list could not be loaded: {passengers.error.message}

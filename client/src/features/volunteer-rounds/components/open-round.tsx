@@ -1,0 +1,84 @@
+import { useState } from 'react';
+import type { Round, VolunteerPolicy } from '@shared/schemas/volunteers';
+import { Button } from '../../../components/ui/button';
+import { formatMoney, formatTime } from '../../../lib/format';
+import { useCloseRound } from '../api/rounds';
+import { bidLinkToken, seatsFoundWords, seatsLeft } from '../model/round-words';
+import { AddVolunteer } from './add-volunteer';
+import { BidLinkQr } from './bid-link-qr';
+import { Disclosure } from './disclosure';
+import { OfferControl } from './offer-control';
+import { Problem } from './problem';
+import { VolunteerList } from './volunteer-list';
+
+export interface OpenRoundProps {
+  round: Round;
+  policy: VolunteerPolicy;
+  bidLink: string | null;
+  flightId: number;
+  timeZone: string;
+  role: string | undefined;
+  flightLabel?: string;
+}
+
+/** A round in progress: how many seats are found, the offer, who volunteered, and what they must be told. */
+export function OpenRound(props: OpenRoundProps) {
+  const { round, policy, bidLink, flightId, timeZone } = props;
+  const token = bidLink ? bidLinkToken(bidLink) : null;
+  const done = seatsLeft(round) === 0;
+  const offerText = round.kind === 'posted' && round.offerMinor !== null ? formatMoney(round.offerMinor, round.currency) : null;
+  return (
+    <div className="grid gap-5 xl:grid-cols-[3fr_2fr]">
+      <div className="space-y-5">
+        <div className={`flex flex-wrap items-center justify-between gap-3 rounded-lg border-2 px-4 py-3 ${done ? 'border-calm bg-calm-soft' : 'border-ink bg-signal'}`}>
+          <p className="text-3xl font-bold" data-testid="round-progress">
+            <span aria-hidden>{done ? '✓ ' : ''}</span>
+            {seatsFoundWords(round)}
+          </p>
+          <p className="text-ink">
+            {round.kind === 'posted' ? 'Posted offer' : 'Sealed bids'} · opened {formatTime(round.openedAt, timeZone)} by {round.openedBy}
+          </p>
+        </div>
+        {done && (
+          <p role="status" className="rounded-md border-l-4 border-calm bg-calm-soft px-3 py-2 text-lg font-bold">
+            All the seats this round needs are found. Rebook the accepted volunteers, then close the round so no more offers come in.
+          </p>
+        )}
+        <OfferControl round={round} policy={policy} role={props.role} flightId={flightId} timeZone={timeZone} />
+        <VolunteerList round={round} flightId={flightId} timeZone={timeZone} />
+        <AddVolunteer round={round} flightId={flightId} />
+      </div>
+      <aside className="space-y-4" aria-label="For the gate">
+        {bidLink && <BidLinkQr link={bidLink} flightLabel={props.flightLabel} offerText={offerText} extras={round.extras} />}
+        {token ? <Disclosure token={token} /> : <p className="text-ink-soft">No passenger link for this flight, so the disclosure cannot be shown.</p>}
+        <CloseRound roundId={round.id} flightId={flightId} prominent={done} />
+      </aside>
+    </div>
+  );
+}
+
+function CloseRound({ roundId, flightId, prominent }: { roundId: number; flightId: number; prominent: boolean }) {
+  const [confirming, setConfirming] = useState(false);
+  const close = useCloseRound(flightId);
+  if (!confirming) {
+    return (
+      <Button variant={prominent ? 'primary' : 'secondary'} className="w-full" onClick={() => setConfirming(true)}>
+        Close this round
+      </Button>
+    );
+  }
+  return (
+    <div className="rounded-lg border-2 border-alert p-3">
+      <p className="font-bold">Close the round? Passengers can no longer offer their seats; accepted volunteers stay accepted.</p>
+      <div className="mt-2 flex flex-wrap gap-2">
+        <Button variant="danger" disabled={close.isPending} onClick={() => close.mutate(roundId)}>
+          {close.isPending ? 'Closing…' : 'Yes, close the round'}
+        </Button>
+        <Button variant="quiet" onClick={() => setConfirming(false)}>
+          Keep it open
+        </Button>
+      </div>
+      <Problem error={close.error} />
+    </div>
+  );
+}

@@ -1,0 +1,78 @@
+import { useState } from 'react';
+import { useQuery } from '@tanstack/react-query';
+import { Link } from 'react-router-dom';
+import type { z } from 'zod';
+import type { pendingApprovalSchema } from '@shared/schemas/volunteers';
+import { Button } from '../../../components/ui/button';
+import { formatMoney, formatTime } from '../../../lib/format';
+import { approvalsQueryOptions, useDecideApproval } from '../api/rounds';
+import { useApprovalsLive } from '../api/use-live';
+import { Problem } from './problem';
+
+type Approval = z.infer<typeof pendingApprovalSchema>;
+
+/** A supervisor's queue of offers above the agent's limit, kept live by the station's change notices. */
+export function PendingApprovals({ stationId, timeZone }: { stationId: number; timeZone: string }) {
+  const approvals = useQuery(approvalsQueryOptions());
+  useApprovalsLive(stationId);
+  if (approvals.isPending) return <p className="text-lg text-ink-soft">Loading what waits for you…</p>;
+  if (approvals.error) return <p role="alert" className="font-bold text-alert">The approvals could not be loaded: {approvals.error.message}</p>;
+  const list = approvals.data.approvals;
+  return (
+    <section aria-label="Offers waiting for your approval" data-testid="pending-approvals">
+      <h3 className="mb-2 text-xl font-bold">
+        Offers above the agent’s limit {list.length > 0 && <span className="rounded-full bg-signal px-3 py-0.5 text-ink">{list.length}</span>}
+      </h3>
+      {list.length === 0 ? (
+        <p className="rounded-md border-2 border-calm bg-calm-soft px-4 py-3 text-lg font-bold text-calm">
+          <span aria-hidden>● </span>No offer waits for your approval.
+        </p>
+      ) : (
+        <ul className="space-y-3">
+          {list.map((a) => (
+            <ApprovalRow key={a.id} a={a} timeZone={timeZone} />
+          ))}
+        </ul>
+      )}
+    </section>
+  );
+}
+
+function ApprovalRow({ a, timeZone }: { a: Approval; timeZone: string }) {
+  const decide = useDecideApproval();
+  const [reason, setReason] = useState('');
+  const [reasonError, setReasonError] = useState<string | null>(null);
+  const send = (approve: boolean) => {
+    // A refusal tells the agent why; an approval may go without a word.
+    if (!approve && reason.trim().length < 3) return setReasonError('reason must say why the offer is refused (at least 3 characters)');
+    setReasonError(null);
+    decide.mutate({ approvalId: a.id, flightId: a.flightId, approve, reason: reason.trim() });
+  };
+  return (
+    <li className="rounded-lg border-2 border-watch p-3" data-testid="approval-row">
+      <div className="flex flex-wrap items-baseline justify-between gap-3">
+        <p className="text-xl">
+          <Link to={`/flights/${a.flightId}`} className="font-bold text-harbour underline">{a.flight}</Link>: raise the offer to{' '}
+          <strong className="text-3xl tabular-nums">{formatMoney(a.offerMinor, a.currency)}</strong>
+        </p>
+        <p className="text-ink-soft">
+          asked by {a.requestedBy} at {formatTime(a.requestedAt, timeZone)}
+        </p>
+      </div>
+      <div className="mt-3 flex flex-wrap items-end gap-2">
+        <label className="block min-w-64 flex-1">
+          <span className="mb-1 block font-bold">Reason (needed to reject)</span>
+          <input
+            value={reason} onChange={(e) => setReason(e.target.value)} maxLength={200} autoComplete="off"
+            aria-invalid={reasonError ? true : undefined}
+            className={`w-full rounded-md border-2 bg-card px-3 py-2 text-lg ${reasonError ? 'border-alert' : 'border-line'}`}
+          />
+        </label>
+        <Button disabled={decide.isPending} onClick={() => send(true)}>Approve {formatMoney(a.offerMinor, a.currency)}</Button>
+        <Button variant="danger" disabled={decide.isPending} onClick={() => send(false)}>Reject</Button>
+      </div>
+      {reasonError && <p className="mt-1 font-bold text-alert">{reasonError}</p>}
+      <Problem error={decide.error} />
+    </li>
+  );
+}

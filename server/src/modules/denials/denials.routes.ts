@@ -1,0 +1,125 @@
+// Involuntary denied boarding: priority rules, the ranking, proposals, the supervisor's authorization, rebooking
+// and the written statement. Routes parse, authorize and present; the services own the transactions.
+import { Router, type Request } from 'express';
+import type { DataSource } from 'typeorm';
+import { z } from 'zod';
+import { idParamSchema } from '@shared/schemas/common';
+import {
+  authorizeDenialsBodySchema, changeDenialsBodySchema, priorityRulesBodySchema, proposeDenialsBodySchema, rebookDenialBodySchema, withdrawDenialsBodySchema,
+} from '@shared/schemas/denials';
+import { FlightEntity } from '../../db/entities';
+import { notFound } from '../../http/errors';
+import { canSeeStation, currentUser, requireRole } from '../../http/require-role';
+import { parse } from '../../http/validate';
+import { flightForUser } from '../flights/flight-desk.service';
+import { notifyOutbox } from '../outbox/outbox-signal';
+import { rankFlight } from './candidates.service';
+import { priorityRulesFor, presentPriorityRules, savePriorityRules } from './priority-rules.service';
+import { presentProposals, waitingProposals } from './proposals.presenter';
+import { authorizeDenials, changeDenials, proposeDenials, withdrawProposal } from './proposals.service';
+import { rebookDenial } from './rebook.service';
+import { statementPageFor } from './statement-page.service';
+
+export interface DenialDeps {
+  db: DataSource;
+  /** After a commit: tell the flight's and the station's consoles what moved. */
+  changed: (flightId: number, stationId: number, topics: string[]) => void;
+}
+
+const flightParams = z.object({ flightId: z.coerce.number().int('flightId must be a whole number').positive('flightId must be positive') });
+const stationParams = z.object({ stationId: z.coerce.number().int('stationId must be a whole number').positive('stationId must be positive') });
+const statementQuery = z.object({ passengerId: z.coerce.number().int('passengerId must be a whole number').positive('passengerId must be positive').optional() });
+const desk = requireRole('agent', 'supervisor', 'admin');
+const supervisors = requireRole('supervisor', 'admin');
+
+export function denialsRouter(deps: DenialDeps) {
+  const r = Router();
+  const flightOf = (req: Request) => flightForUser(deps.db, currentUser(req), parse(flightParams, req.params, 'params').flightId);
+  const stationOf = (req: Request) => {
+    const { stationId } = parse(stationParams, req.params, 'params');
+    if (!canSeeStation(currentUser(req), stationId)) throw notFound('Station');
+    return stationId;
+  };
+  const proposalOf = async (flightId: number, proposalId: number) => {
+    const flight = await deps.db.getRepository(FlightEntity).findOneByOrFail({ id: flightId });
+    return (await presentProposals(deps.db, flight)).proposals.find((p) => p.id === proposalId)!;
+  };
+
+  r.get('/stations/:stationId/priority-rules', desk, async (req, res) => {
+    const stationId = stationOf(req);
+    res.json(presentPriorityRules(stationId, await priorityRulesFor(deps.db, stationId)));
+  });
+
+  r.put('/stations/:stationId/priority-rules', requireRole('admin'), async (req, res) => {
+    const stationId = stationOf(req);
+    const body = parse(priorityRulesBodySchema, req.body);
+    res.json(presentPriorityRules(stationId, await savePriorityRules(deps.db, currentUser(req), stationId, body)));
+  });
+
+  r.get('/stations/:stationId/denial-proposals', supervisors, async (req, res) => {
+    res.json({ proposals: await waitingProposals(deps.db, stationOf(req)) });
+  });
+
+  r.get('/flights/:flightId/denial-candidates', desk, async (req, res) => {
+    const { passengersById: _internal, ...ranking } = await rankFlight(deps.db, await flightOf(req));
+    res.json(ranking);
+  });
+
+  r.get('/flights/:flightId/denial-proposals', desk, async (req, res) => {
+    res.json(await presentProposals(deps.db, await flightOf(req)));
+  });
+
+  r.post('/flights/:flightId/denial-proposals', requireRole('agent', 'supervisor'), async (req, res) => {
+    const flight = await flightOf(req);
+    const body = parse(proposeDenialsBodySchema, req.body);
+    const { proposal } = await proposeDenials(deps.db, currentUser(req), flight.id, body);
+    deps.changed(flight.id, flight.stationId, ['denials']);
+    res.status(201).json(await proposalOf(flight.id, proposal.id));
+  });
+
+  r.post('/denial-proposals/:id/authorize', supervisors, async (req, res) => {
+    const { id } = parse(idParamSchema, req.params, 'params');
+    const body = parse(authorizeDenialsBodySchema, req.body);
+    const { proposal, authorized } = await authorizeDenials(deps.db, currentUser(req), id, body.denialIds);
+    // Authorized passengers are offloaded: the counts and the forecast move with them.
+    if (authorized.length > 0) deps.changed(proposal.flightId, proposal.stationId, ['denials', 'counts', 'forecast']);
+    res.json(await proposalOf(proposal.flightId, proposal.id));
+  });
+
+  r.post('/denial-proposals/:id/change', supervisors, async (req, res) => {
+    const { id } = parse(idParamSchema, req.params, 'params');
+    const body = parse(changeDenialsBodySchema, req.body);
+    const { proposal } = await changeDenials(deps.db, currentUser(req), id, body);
+    deps.changed(proposal.flightId, proposal.stationId, ['denials']);
+    res.json(await proposalOf(proposal.flightId, proposal.id));
+  });
+
+  r.post('/denial-proposals/:id/withdraw', desk, async (req, res) => {
+    const { id } = parse(idParamSchema, req.params, 'params');
+    const { reason } = parse(withdrawDenialsBodySchema, req.body);
+    const { proposal, changed } = await withdrawProposal(deps.db, currentUser(req), id, reason);
+    if (changed) deps.changed(proposal.flightId, proposal.stationId, ['denials']);
+    res.json(await proposalOf(proposal.flightId, proposal.id));
+  });
+
+  r.post('/denials/:id/rebook', desk, async (req, res) => {
+    const { id } = parse(idParamSchema, req.params, 'params');
+    const body = parse(rebookDenialBodySchema, req.body);
+    const { denial, flight, rebooking } = await rebookDenial(deps.db, currentUser(req), id, body);
+    notifyOutbox();
+    deps.changed(flight.id, flight.stationId, ['denials', 'compensations', 'notices']);
+    if (rebooking?.alternateFlightId) deps.changed(rebooking.alternateFlightId, flight.stationId, ['counts']);
+    const proposal = await proposalOf(flight.id, denial.proposalId);
+    res.json({ denial: proposal.denials.find((d) => d.id === denial.id)! });
+  });
+
+  r.get('/denials/:id/statement', desk, async (req, res) => {
+    const { id } = parse(idParamSchema, req.params, 'params');
+    const { passengerId } = parse(statementQuery, req.query, 'query');
+    // Built before the content type is set, so a refusal still answers as JSON.
+    const page = await statementPageFor(deps.db, currentUser(req), id, passengerId);
+    res.type('html').send(page);
+  });
+
+  return r;
+}
