@@ -27,6 +27,8 @@ import { silentPublisher, type Publisher } from './realtime/publisher';
 import { volunteersRouter } from './modules/volunteers/volunteers.routes';
 import { denialsRouter } from './modules/denials/denials.routes';
 import { publicOffersRouter } from './modules/volunteers/public-offers.routes';
+import { createPaymentsRuntime, type PaymentsRuntime } from './modules/payments/payments-runtime';
+import { financeRouter } from './modules/finance/finance.routes';
 
 export interface AppDeps {
   env: Env;
@@ -40,6 +42,8 @@ export interface AppDeps {
   publisher?: Publisher;
   /** Coalesced forecast recomputes; built here when the caller does not bring one. */
   forecast?: ForecastScheduler;
+  /** Compensation payments (provider client, issuer, worker); built from env when absent, its worker not started. */
+  payments?: PaymentsRuntime;
 }
 
 /** Builds the whole HTTP app without listening, so tests run it in-process on port 0. */
@@ -58,8 +62,10 @@ export function createApp(deps: AppDeps) {
     publisher.flightChanged(flightId, stationId, topics);
     if (topics.includes('forecast')) forecast.markDirty(flightId);
   };
+  const payments = deps.payments ?? createPaymentsRuntime({ db: deps.db, env: deps.env, changed });
   // The provider's signed webhooks: the signature covers the raw body, so this comes before any JSON parser and
   // outside the session and CSRF middleware.
+  app.use('/api/payments/webhook', payments.webhookRouter());
   // The passenger's "Offer your seat" page: no session; signed links and booking proof instead.
   app.use('/api/public', publicOffersRouter({ db: deps.db, secret: deps.env.SESSION_SECRET, changed }));
   app.use('/api/integrations', integrationEventsRouter({ db: deps.db, onFlightsChanged: (ids) => ids.forEach((id) => forecast.markDirty(id)) }));
@@ -74,6 +80,8 @@ export function createApp(deps: AppDeps) {
   api.use('/users', usersRouter({ db: deps.db, onUserLockedOut: deps.disconnectUser }));
   api.use(volunteersRouter({ db: deps.db, secret: deps.env.SESSION_SECRET, appBaseUrl: deps.env.APP_BASE_URL, changed }));
   api.use(denialsRouter({ db: deps.db, changed }));
+  api.use(payments.compensationsRouter());
+  api.use('/finance', financeRouter({ db: deps.db, reconciliation: payments.reconciliation }));
   api.use('/stations/:stationId/integration-keys', integrationKeysRouter(deps));
   api.use('/stations/:stationId/manifests', manifestsRouter({ db: deps.db, onFlightsChanged: (ids) => ids.forEach((id) => forecast.markDirty(id)) }));
   api.use('/stations/:stationId/show-up-profile', showUpProfilesRouter({ db: deps.db, onFlightsChanged: (ids) => ids.forEach((id) => forecast.markDirty(id)) }));

@@ -10,6 +10,7 @@ import { socketPublisher } from './realtime/publisher';
 import { createForecastScheduler } from './modules/forecast/forecast-scheduler';
 import { createMailTransport } from './integrations/mail/mail-transport';
 import { createOutboxWorker } from './modules/outbox/outbox-worker';
+import { createPaymentsRuntime } from './modules/payments/payments-runtime';
 
 const env = loadEnv();
 const db = createDataSource(env.DATABASE_URL);
@@ -23,7 +24,10 @@ const mailTransport = createMailTransport(env);
 const outbox = createOutboxWorker(db, mailTransport);
 outbox.start();
 // Its first pass retries every compensation a stopped server left 'issuing', with the keys fixed on each row.
+const payments = createPaymentsRuntime({ db, env, changed: (flightId, stationId, topics) => publisher.flightChanged(flightId, stationId, topics) });
+await payments.start();
 const app = createApp({
+  payments,
   publisher,
   forecast,
   env,
@@ -54,6 +58,7 @@ async function stop(signal: string) {
   });
   // The send in flight finishes and is recorded before the database goes away.
   await outbox.stop();
+  await payments.stop();
   mailTransport.close();
   await session.close();
   await db.destroy();

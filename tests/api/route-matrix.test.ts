@@ -10,6 +10,7 @@ import { ROUTES, routeKey, type RouteCall, type RouteContext, type RouteRow } fr
 import { registeredRoutes } from './route-walk';
 import { denialRouteContext, removeDenialFixtures } from './denials-fixtures';
 import { removeVolunteerRouteFixtures, volunteerRouteContext } from './volunteers-route-context';
+import { paymentsRouteContext, removePaymentsRouteFixtures, startMatrixPaymentsStandIn } from './payments-route-context';
 import { FlightEntity } from '../../server/src/db/entities';
 import { createIntegrationKey } from '../../server/src/modules/integrations/integration-keys.service';
 import { enqueueMessage } from '../../server/src/modules/outbox/outbox.service';
@@ -29,6 +30,8 @@ const failedNotices: Record<'own' | 'other', string[]> = { own: [], other: [] };
 const asRole = {} as Record<Role, Client>;
 
 beforeAll(async () => {
+  // Before the app is built: the payments routes reach a stand-in on loopback, never the real provider.
+  await startMatrixPaymentsStandIn();
   t = await startTestApp();
   const ownStationId = await stationIdByIata(t.db, 'BOS');
   const other = await foreignStation(t.db);
@@ -58,12 +61,14 @@ beforeAll(async () => {
     },
     denials: await denialRouteContext(t.db, otherFlight),
     volunteers: await volunteerRouteContext(t, { ownStationId, otherFlight, requesterUserId: ownUser.id }),
+    payments: await paymentsRouteContext(t.db, { ownStationId, otherFlight }),
   };
   for (const role of ROLES) asRole[role] = await signedIn(t, DEMO[role]);
 });
 afterAll(async () => {
   await removeDenialFixtures(t.db);
   await removeVolunteerRouteFixtures(t.db);
+  await removePaymentsRouteFixtures(t.db);
   await removeRunUsers(t.db);
   await t.close();
 });

@@ -18,6 +18,7 @@ import { DEMO, TEST_PASSWORD } from './helpers';
 import { DEMO_PASSWORD } from './harness';
 import type { DenialRouteContext } from './denials-fixtures';
 import type { VolunteerRouteContext } from './volunteers-route-context';
+import type { PaymentsRouteContext } from './payments-route-context';
 import { DEFAULT_SHOW_UP_PROFILE } from '@shared/schemas/show-up-profile';
 
 export type Method = 'GET' | 'POST' | 'PATCH' | 'PUT' | 'DELETE';
@@ -47,6 +48,8 @@ export interface RouteContext {
   denials: DenialRouteContext;
   /** Rounds, volunteers, approvals and a passenger link for the volunteer routes (tests/api/volunteers-route-context.ts). */
   volunteers: VolunteerRouteContext;
+  /** Compensations in each state the money routes expect, and reconciliation runs (tests/api/payments-route-context.ts). */
+  payments: PaymentsRouteContext;
 }
 
 export interface RouteCall {
@@ -330,6 +333,41 @@ export const ROUTES: readonly RouteRow[] = [
     call: (ctx) => ({ url: `/api/public/offers/${ctx.volunteers.offerToken}/status?passengerToken=${encodeURIComponent(ctx.volunteers.passengerToken)}` }),
     success: 200,
   },
+  // Compensation money: agents issue and record a voucher choice, finance voids and re-issues; nobody else.
+  { method: 'GET', pattern: '/api/flights/:flightId/compensations', access: ['agent'], call: (ctx, scope) => ({ url: `/api/flights/${flightOf(ctx, scope)}/compensations` }), success: 200, otherStation: 404 },
+  { method: 'POST', pattern: '/api/compensations/:id/issue', access: ['agent'], call: (ctx, scope) => ({ url: `/api/compensations/${scope === 'own' ? ctx.payments.issuedId : ctx.payments.other.compensationId}/issue` }), success: 200, otherStation: 404 },
+  { method: 'POST', pattern: '/api/compensations/:id/voucher-offer', access: ['agent'], call: (ctx, scope) => ({ url: `/api/compensations/${scope === 'own' ? ctx.payments.dueId : ctx.payments.other.compensationId}/voucher-offer` }), success: 200, otherStation: 404 },
+  {
+    method: 'POST',
+    pattern: '/api/compensations/:id/voucher-agreement',
+    access: ['agent'],
+    call: (ctx, scope) => ({ url: `/api/compensations/${scope === 'own' ? ctx.payments.offeredId : ctx.payments.other.compensationId}/voucher-agreement`, body: { agreed: true, statement: 'Route matrix: the passenger agreed to the voucher.' } }),
+    success: 200,
+    otherStation: 404,
+  },
+  { method: 'POST', pattern: '/api/compensations/:id/void', access: ['finance'], call: (ctx, scope) => ({ url: `/api/compensations/${scope === 'own' ? ctx.payments.voidableId : ctx.payments.other.compensationId}/void`, body: { reason: 'route matrix check' } }), success: 200, otherStation: 404 },
+  { method: 'POST', pattern: '/api/compensations/:id/reissue', access: ['finance'], call: (ctx, scope) => ({ url: `/api/compensations/${scope === 'own' ? ctx.payments.failedId : ctx.payments.other.compensationId}/reissue`, body: { reason: 'route matrix check' } }), success: 200, otherStation: 404 },
+  // The provider's webhook: no session, a signature instead; an unsigned call is refused with 400.
+  { method: 'POST', pattern: '/api/payments/webhook', access: 'public', call: () => ({ url: '/api/payments/webhook', body: { id: 'evt_unsigned', type: 'issuing_card.created' } }), success: 400 },
+  // Finance's screens: finance only, within its stations.
+  { method: 'GET', pattern: '/api/finance/compensations', access: ['finance'], call: (ctx, scope) => ({ url: `/api/finance/compensations?stationId=${stationOf(ctx, scope)}` }), success: 200, otherStation: 404 },
+  { method: 'GET', pattern: '/api/finance/compensations.csv', access: ['finance'], call: (ctx, scope) => ({ url: `/api/finance/compensations.csv?stationId=${stationOf(ctx, scope)}` }), success: 200, otherStation: 404 },
+  { method: 'POST', pattern: '/api/finance/reconciliations', access: ['finance'], call: (ctx, scope) => ({ url: '/api/finance/reconciliations', body: { stationId: stationOf(ctx, scope) } }), success: 202, otherStation: 404 },
+  { method: 'GET', pattern: '/api/finance/reconciliations', access: ['finance'], call: () => ({ url: '/api/finance/reconciliations' }), success: 200 },
+  { method: 'GET', pattern: '/api/finance/reconciliations/:id', access: ['finance'], call: (ctx, scope) => ({ url: `/api/finance/reconciliations/${scope === 'own' ? ctx.payments.runId : ctx.payments.other.runId}` }), success: 200, otherStation: 404 },
+  {
+    method: 'POST',
+    pattern: '/api/finance/reconciliations/:id/differences/:did/resolve',
+    access: ['finance'],
+    call: (ctx, scope) => {
+      const target = scope === 'own' ? ctx.payments : ctx.payments.other;
+      return { url: `/api/finance/reconciliations/${target.runId}/differences/${target.differenceId}/resolve`, body: { note: 'route matrix check' } };
+    },
+    success: 200,
+    otherStation: 404,
+  },
+  { method: 'GET', pattern: '/api/finance/report', access: ['finance'], call: (ctx, scope) => ({ url: `/api/finance/report?quarter=2026-Q4&stationId=${stationOf(ctx, scope)}` }), success: 200, otherStation: 404 },
+  { method: 'GET', pattern: '/api/finance/report.csv', access: ['finance'], call: (ctx, scope) => ({ url: `/api/finance/report.csv?quarter=2026-Q4&stationId=${stationOf(ctx, scope)}` }), success: 200, otherStation: 404 },
 ];
 
 export const routeKey = (method: string, pattern: string) => `${method.toUpperCase()} ${pattern}`;

@@ -1,9 +1,12 @@
-import { ComingNext, Page } from '../../components/ui/page';
+import { Page } from '../../components/ui/page';
+import { LedgerScreen } from '../../features/finance/components/ledger-screen';
+import { useCurrentStation } from '../use-current-station';
 
 export default function FinanceLedgerPage() {
+  const { stations } = useCurrentStation();
   return (
-    <Page title="Compensation ledger">
-      <ComingNext what="every compensation issued, its state at the payment provider and in the ledger, filters, totals and CSV export." />
+    <Page title="Compensation ledger" subtitle="Every compensation of your stations: what is owed, what the payment provider holds, and what was voided.">
+      <LedgerScreen stations={stations} />
     </Page>
   );
 }

@@ -1,0 +1,21 @@
+import type { LedgerResponse } from '@shared/schemas/finance';
+import { formatMoney } from '../../../lib/format';
+
+const plural = (n: number, word: string) => `${n} ${word}${n === 1 ? '' : 's'}`;
+
+/** One card per currency: amounts in different currencies are never added together. */
+export function LedgerTotals({ totals, total }: { totals: LedgerResponse['totals']; total: number }) {
+  if (!totals.length) return <p className="text-ink-soft">No compensations match these filters.</p>;
+  return (
+    <section aria-label="Totals per currency" className="flex flex-wrap gap-3">
+      {totals.map((t) => (
+        <dl key={t.currency} className="min-w-56 rounded-md border-2 border-line bg-paper px-4 py-3" data-testid={`total-${t.currency}`}>
+          <dt className="text-sm font-bold uppercase tracking-wide text-ink-soft">{t.currency} · {plural(t.count, 'compensation')}</dt>
+          <dd className="text-2xl font-bold">{formatMoney(t.amountMinor, t.currency)}</dd>
+          <dd className="text-sm">Paid {formatMoney(t.paidMinor, t.currency)} · voided {formatMoney(t.voidedMinor, t.currency)}</dd>
+        </dl>
+      ))}
+      <p className="self-end text-sm text-ink-soft">{plural(total, 'row')} in all; owed totals leave voided ones out.</p>
+    </section>
+  );
+}

@@ -1,0 +1,129 @@
+// The period report: one quarter at one station. Denials are read from the denials records when they carry a
+// category; otherwise every involuntary compensation is classified from what the rules engine recorded.
+import Papa from 'papaparse';
+import type { DataSource } from 'typeorm';
+import type { SessionUser } from '@shared/schemas/auth';
+import type { PeriodReport } from '@shared/schemas/finance';
+import { StationEntity } from '../../db/entities';
+import { stationScope, decimalAmount } from './scope';
+import { quarterRange } from './quarter';
+import { categoryFromCompensation, form251Lines, regimeLines, type Form251Category, type ReportItem } from './report-lines';
+
+const TITLES: Record<string, { form: PeriodReport['form']; title: string }> = {
+  'us-dot': { form: 'us-form-251', title: 'Form 251: passengers denied confirmed space (14 CFR 250.10)' },
+  'eu-261': { form: 'eu-261', title: 'Denied boarding under Regulation (EC) 261/2004: counts and sums' },
+  'uk-261': { form: 'uk-261', title: 'Denied boarding under UK Regulation 261: counts and sums' },
+  'ca-appr': { form: 'ca-appr', title: 'Denied boarding under the Air Passenger Protection Regulations: counts and sums' },
+};
+
+interface CompensationFact {
+  id: number;
+  source_kind: string;
+  source_id: number;
+  voluntary: number;
+  amount_minor: number;
+  currency: string;
+  state: string;
+  band: string;
+  rule_ref: string;
+  explanation: string;
+  service_date: string;
+}
+
+let denialsReadable: boolean | null = null;
+
+async function denialsHaveCategories(db: DataSource): Promise<boolean> {
+  if (denialsReadable !== null) return denialsReadable;
+  const [{ n }] = await db.query(
+    `SELECT COUNT(*) AS n FROM information_schema.columns WHERE table_schema = DATABASE() AND table_name = 'denials' AND column_name IN ('category', 'passenger_ids', 'status', 'flight_id', 'station_id')`,
+  );
+  denialsReadable = Number(n) === 5;
+  return denialsReadable;
+}
+
+const toItem = (c: CompensationFact, category: Form251Category | null): ReportItem => ({
+  voluntary: Boolean(c.voluntary), category, band: c.band, amountMinor: c.amount_minor, currency: c.currency,
+  paid: c.state === 'issued' || c.state === 'settled', voided: c.state === 'voided', hasCompensation: true,
+});
+
+async function reportItems(db: DataSource, station: StationEntity, from: string, to: string): Promise<{ items: ReportItem[]; facts: CompensationFact[]; source: PeriodReport['source'] }> {
+  const facts: CompensationFact[] = await db.query(
+    `SELECT c.id, c.source_kind, c.source_id, c.voluntary, c.amount_minor, c.currency, c.state, c.band, c.rule_ref, c.explanation,
+            DATE_FORMAT(f.service_date, '%Y-%m-%d') AS service_date
+       FROM compensations c JOIN flights f ON f.id = c.flight_id
+      WHERE c.station_id = ? AND f.service_date BETWEEN ? AND ?`,
+    [station.id, from, to],
+  );
+  const us = station.regime === 'us-dot';
+  const volunteers = facts.filter((c) => c.voluntary).map((c) => toItem(c, null));
+  if (!(await denialsHaveCategories(db))) {
+    const involuntary = facts.filter((c) => !c.voluntary).map((c) => toItem(c, us ? categoryFromCompensation(c.band, c.rule_ref, c.explanation) : null));
+    return { items: [...volunteers, ...involuntary], facts, source: 'compensations' };
+  }
+  const denials: { id: number; category: Form251Category | null; passenger_ids: string | number[] }[] = await db.query(
+    `SELECT d.id, d.category, d.passenger_ids FROM denials d JOIN flights f ON f.id = d.flight_id
+      WHERE d.station_id = ? AND d.status = 'authorized' AND f.service_date BETWEEN ? AND ?`,
+    [station.id, from, to],
+  );
+  const byDenial = new Map<number, CompensationFact[]>();
+  for (const c of facts) if (!c.voluntary && c.source_kind === 'denial') byDenial.set(c.source_id, [...(byDenial.get(c.source_id) ?? []), c]);
+  const involuntary: ReportItem[] = [];
+  for (const d of denials) {
+    const passengers = typeof d.passenger_ids === 'string' ? (JSON.parse(d.passenger_ids) as number[]) : d.passenger_ids;
+    const comps = byDenial.get(d.id) ?? [];
+    for (const c of comps) involuntary.push(toItem(c, d.category));
+    // A passenger of the denial with no compensation row yet is still a denied passenger.
+    for (let i = comps.length; i < passengers.length; i += 1) {
+      involuntary.push({ voluntary: false, category: d.category, band: '', amountMinor: 0, currency: station.currency, paid: false, voided: false, hasCompensation: false });
+    }
+  }
+  return { items: [...volunteers, ...involuntary], facts, source: 'denials' };
+}
+
+export async function periodReport(db: DataSource, user: SessionUser, quarter: string, stationId: number): Promise<PeriodReport> {
+  stationScope(user, stationId);
+  const station = await db.getRepository(StationEntity).findOneByOrFail({ id: stationId });
+  const { from, to } = quarterRange(quarter);
+  const { items, facts, source } = await reportItems(db, station, from, to);
+  const [{ boarded }] = await db.query(
+    `SELECT COUNT(*) AS boarded FROM passengers p JOIN flights f ON f.id = p.flight_id WHERE f.station_id = ? AND f.service_date BETWEEN ? AND ? AND p.status = 'boarded'`,
+    [station.id, from, to],
+  );
+  const perDay = new Map<string, { date: string; currency: string; voluntaryMinor: number; involuntaryMinor: number }>();
+  for (const c of facts) {
+    if (c.state === 'voided') continue;
+    const key = `${c.service_date} ${c.currency}`;
+    const day = perDay.get(key) ?? { date: c.service_date, currency: c.currency, voluntaryMinor: 0, involuntaryMinor: 0 };
+    if (c.voluntary) day.voluntaryMinor += c.amount_minor;
+    else day.involuntaryMinor += c.amount_minor;
+    perDay.set(key, day);
+  }
+  const kind = TITLES[station.regime] ?? TITLES['eu-261'];
+  const notes = [
+    'Counts are passengers; amounts are in the currency paid. Voided compensations are left out.',
+    'Per-day figures are what is owed or paid, by the date of the flight.',
+    source === 'compensations' ? 'Involuntary denials were classified from the compensation rules recorded for each passenger.' : 'Involuntary denials were counted from the authorized denial records and their categories.',
+  ];
+  return {
+    quarter, from, to,
+    station: { id: station.id, iata: station.iata, name: station.name, regime: station.regime, currency: station.currency },
+    form: kind.form, title: kind.title, source,
+    lines: station.regime === 'us-dot' ? form251Lines(items, Number(boarded)) : regimeLines(items, Number(boarded)),
+    perDay: [...perDay.values()].sort((a, b) => a.date.localeCompare(b.date) || a.currency.localeCompare(b.currency)),
+    notes,
+  };
+}
+
+/** One flat table: the lines (one row per currency where a line has money), then the days. */
+export function reportCsv(report: PeriodReport): string {
+  const rows: (string | number)[][] = [];
+  for (const l of report.lines) {
+    if (!l.amounts?.length) rows.push(['line', l.code, l.label, '', l.count ?? '', '', '', '', l.note ?? '']);
+    for (const a of l.amounts ?? []) rows.push(['line', l.code, l.label, '', l.count ?? '', a.currency, a.amountMinor, decimalAmount(a.amountMinor, a.currency), l.note ?? '']);
+  }
+  for (const d of report.perDay) {
+    rows.push(['day', 'voluntary', 'Compensation to volunteers', d.date, '', d.currency, d.voluntaryMinor, decimalAmount(d.voluntaryMinor, d.currency), '']);
+    rows.push(['day', 'involuntary', 'Compensation for involuntary denials', d.date, '', d.currency, d.involuntaryMinor, decimalAmount(d.involuntaryMinor, d.currency), '']);
+  }
+  return Papa.unparse({ fields: ['section', 'code', 'label', 'date', 'count', 'currency', 'amount_minor', 'amount', 'note'], data: rows }, { escapeFormulae: true, newline: '\r\n' });
+}

@@ -1,0 +1,24 @@
+// Finance sees the stations it belongs to, and only those; a station named outside them is "not found".
+import type { SessionUser } from '@shared/schemas/auth';
+import { minorUnitExponent } from '@shared/compensation/money';
+import { notFound } from '../../http/errors';
+import { canSeeStation } from '../../http/require-role';
+
+export function stationScope(user: SessionUser, stationId: number | undefined): number[] {
+  if (stationId === undefined) return user.stations.map((s) => s.id);
+  if (!canSeeStation(user, stationId)) throw notFound('Station');
+  return [stationId];
+}
+
+/** "600.00" for 60000 USD: the decimal amount as a spreadsheet reads it, with the currency's own minor unit. */
+export function decimalAmount(amountMinor: number, currency: string): string {
+  const exponent = minorUnitExponent(currency);
+  if (exponent === 0) return String(amountMinor);
+  const sign = amountMinor < 0 ? '-' : '';
+  const digits = String(Math.abs(amountMinor)).padStart(exponent + 1, '0');
+  return `${sign}${digits.slice(0, -exponent)}.${digits.slice(-exponent)}`;
+}
+
+export function moneyText(amountMinor: number, currency: string): string {
+  return `${currency} ${decimalAmount(amountMinor, currency)}`;
+}

@@ -1,0 +1,66 @@
+// The compensation money routes. Agents issue what a round or an authorized denial set, and record a voucher
+// choice; finance voids or re-issues. Supervisors and admins do not touch money.
+import { Router, type Request } from 'express';
+import { z } from 'zod';
+import { idParamSchema } from '@shared/schemas/common';
+import { reissueBodySchema, voidBodySchema, voucherAgreementBodySchema } from '@shared/schemas/finance';
+import { currentUser, requireRole } from '../../http/require-role';
+import { parse } from '../../http/validate';
+import { flightForUser } from '../flights/flight-desk.service';
+import { issueCompensation, reissueCompensation, voidCompensation } from './compensation-actions';
+import { compensationRow, compensationRows, presentCompensation } from './compensation-view';
+import type { Issuer } from './issuer';
+import type { PaymentsContext } from './payments-context';
+import { offerVoucher, recordVoucherAgreement, voucherTermsFor } from './voucher.service';
+
+const flightParams = z.object({ flightId: z.coerce.number().int().positive('flightId must be positive') });
+const agent = requireRole('agent');
+const finance = requireRole('finance');
+
+export function compensationsRouter(ctx: PaymentsContext, issuer: Issuer) {
+  const r = Router();
+  const idOf = (req: Request) => parse(idParamSchema, req.params, 'params').id;
+  const answer = async (id: number) => ({ compensation: presentCompensation(await compensationRow(ctx.db, id)) });
+
+  r.get('/flights/:flightId/compensations', agent, async (req, res) => {
+    const flight = await flightForUser(ctx.db, currentUser(req), parse(flightParams, req.params, 'params').flightId);
+    const rows = await compensationRows(ctx.db, 'c.flight_id = ?', [flight.id], 'ORDER BY p.last_name, p.first_name, c.id');
+    const terms = await voucherTermsFor(ctx.db, rows);
+    res.json({ compensations: rows.map((row) => ({ ...presentCompensation(row), voucher: terms.get(row.id)! })) });
+  });
+
+  r.post('/compensations/:id/issue', agent, async (req, res) => {
+    const id = idOf(req);
+    await issueCompensation(ctx, issuer, currentUser(req), id);
+    res.json(await answer(id));
+  });
+
+  r.post('/compensations/:id/voucher-offer', agent, async (req, res) => {
+    const offer = await offerVoucher(ctx.db, currentUser(req), idOf(req));
+    res.json({ offer });
+  });
+
+  r.post('/compensations/:id/voucher-agreement', agent, async (req, res) => {
+    const id = idOf(req);
+    const body = parse(voucherAgreementBodySchema, req.body);
+    const row = await recordVoucherAgreement(ctx.db, currentUser(req), id, body.statement);
+    ctx.changed(row.flightId, row.stationId, ['compensations']);
+    res.json(await answer(id));
+  });
+
+  r.post('/compensations/:id/void', finance, async (req, res) => {
+    const id = idOf(req);
+    const { reason } = parse(voidBodySchema, req.body);
+    await voidCompensation(ctx, currentUser(req), id, reason);
+    res.json(await answer(id));
+  });
+
+  r.post('/compensations/:id/reissue', finance, async (req, res) => {
+    const id = idOf(req);
+    const { reason } = parse(reissueBodySchema, req.body);
+    await reissueCompensation(ctx, issuer, currentUser(req), id, reason);
+    res.json(await answer(id));
+  });
+
+  return r;
+}

@@ -1,0 +1,97 @@
+// Writing what the provider answered: a card issued (from the API answer or a webhook, whichever comes first),
+// a refusal, or the provider's view of a card. All inside one transaction with its audit row and the receipt.
+import type { EntityManager } from 'typeorm';
+import { CompensationEntity, VoucherOfferEntity } from '../../db/entities';
+import type { CardSnapshot } from '../../integrations/payments/issuing-provider';
+import { audit, type AuditEntry } from '../audit/audit.service';
+import { enqueueMessage } from '../outbox/outbox.service';
+import { AWAITING_CARD } from './compensation-states';
+import { compensationRow, passengerNameOf } from './compensation-view';
+import { compensationReceipt } from './payment-notices';
+
+export type Actor = AuditEntry['actor'];
+
+/** What to tell the rest of the app once the transaction committed. */
+export interface Effects {
+  mail: boolean;
+  changed: { flightId: number; stationId: number } | null;
+}
+
+export const NO_EFFECTS: Effects = { mail: false, changed: null };
+
+/** Keeps the provider's last word on a card. A canceled card stays canceled whatever an older answer said. */
+export async function upsertProviderCard(em: EntityManager, card: CardSnapshot, compensationId: number | null): Promise<void> {
+  await em.query(
+    `INSERT INTO provider_cards (card_id, compensation_id, cardholder_id, status, currency, limit_minor, spent_minor, last4, exp_month, exp_year)
+     VALUES (?, ?, ?, ?, ?, ?, 0, ?, ?, ?)
+     ON DUPLICATE KEY UPDATE
+       compensation_id = COALESCE(compensation_id, VALUES(compensation_id)),
+       cardholder_id = COALESCE(VALUES(cardholder_id), cardholder_id),
+       status = IF(status = 'canceled', status, VALUES(status)),
+       currency = VALUES(currency), limit_minor = VALUES(limit_minor),
+       last4 = COALESCE(VALUES(last4), last4), exp_month = COALESCE(VALUES(exp_month), exp_month), exp_year = COALESCE(VALUES(exp_year), exp_year)`,
+    [card.id, compensationId, card.cardholderId, card.status, card.currency, card.limitMinor, card.last4, card.expMonth, card.expYear],
+  );
+}
+
+async function enqueueReceipt(em: EntityManager, compensationId: number, card: CardSnapshot): Promise<boolean> {
+  const row = await compensationRow(em, compensationId);
+  if (!row.contact_email) return false;
+  const offer = row.form === 'voucher' ? await em.findOneBy(VoucherOfferEntity, { compensationId }) : null;
+  const notice = compensationReceipt({
+    passengerName: passengerNameOf(row),
+    flight: `${row.carrier_code} ${row.flight_number}`,
+    serviceDate: row.service_date,
+    stationName: row.station_name,
+    amountMinor: row.amount_minor,
+    currency: row.currency,
+    form: row.form,
+    last4: card.last4,
+    expiry: card.expMonth && card.expYear ? `${String(card.expMonth).padStart(2, '0')}/${card.expYear}` : null,
+    restrictions: offer?.restrictions ?? [],
+    compensationId,
+  });
+  await enqueueMessage(em, {
+    stationId: row.station_id,
+    flightId: row.flight_id,
+    passengerIds: [row.passenger_id],
+    kind: 'compensation-receipt',
+    to: row.contact_email,
+    subject: notice.subject,
+    text: notice.text,
+    html: notice.html,
+    dedupeKey: `compensation-receipt:${compensationId}`,
+  });
+  return true;
+}
+
+/**
+ * The card exists at the provider: 'issued' with its ids, audited, and the receipt queued (once: the outbox's
+ * dedupe key). A row already past 'issuing' keeps its state; it only learns ids it lacked.
+ */
+export async function recordIssued(em: EntityManager, compensationId: number, card: CardSnapshot, actor: Actor): Promise<Effects> {
+  const row = await em.findOne(CompensationEntity, { where: { id: compensationId }, lock: { mode: 'pessimistic_write' } });
+  if (!row) return NO_EFFECTS;
+  await upsertProviderCard(em, card, compensationId);
+  if (!AWAITING_CARD.includes(row.state)) {
+    if (!row.providerCardId) await em.update(CompensationEntity, { id: row.id }, { providerCardId: card.id, providerCardholderId: row.providerCardholderId ?? card.cardholderId });
+    return NO_EFFECTS;
+  }
+  const before = { state: row.state, providerCardId: row.providerCardId, lastError: row.lastError };
+  await em.update(CompensationEntity, { id: row.id }, { state: 'issued', providerCardId: card.id, providerCardholderId: card.cardholderId ?? row.providerCardholderId, lastError: null });
+  await audit(em, {
+    actor, action: 'compensation.issued', entityType: 'compensation', entityId: row.id, stationId: row.stationId,
+    before, after: { state: 'issued', providerCardId: card.id, amountMinor: row.amountMinor, currency: row.currency, form: row.form },
+  });
+  const mail = await enqueueReceipt(em, row.id, card);
+  return { mail, changed: { flightId: row.flightId, stationId: row.stationId } };
+}
+
+/** The provider refused the request itself: 'failed' with its reason, for finance to look at and re-issue. */
+export async function recordRefused(em: EntityManager, compensationId: number, reason: string, actor: Actor): Promise<Effects> {
+  const row = await em.findOne(CompensationEntity, { where: { id: compensationId }, lock: { mode: 'pessimistic_write' } });
+  if (!row || row.state !== 'issuing') return NO_EFFECTS;
+  await em.update(CompensationEntity, { id: row.id }, { state: 'failed', lastError: reason });
+  await audit(em, { actor, action: 'compensation.issue_failed', entityType: 'compensation', entityId: row.id, stationId: row.stationId, before: { state: 'issuing' }, after: { state: 'failed', reason } });
+  return { mail: false, changed: { flightId: row.flightId, stationId: row.stationId } };
+}

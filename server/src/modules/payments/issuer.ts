@@ -1,0 +1,127 @@
+// Issuing one compensation at the provider: a cardholder, then a virtual card whose all_time spending limit is the
+// amount. Every call carries a key derived from the compensation, fixed before the first attempt, so the HTTP
+// route, the worker and a restarted server all send the same keys and the provider issues one card, however
+// often the answer is lost (Stripe docs, "Idempotent requests"; Issuing "Virtual cards" and "Spending controls").
+import { CompensationEntity } from '../../db/entities';
+import { cardholderName } from '../../integrations/payments/cardholder-name';
+import { stationBillingAddress } from '../../integrations/payments/billing-address';
+import type { CardSnapshot } from '../../integrations/payments/issuing-provider';
+import { classifyProviderError } from '../../integrations/payments/provider-errors';
+import { cardKey, cardholderKey } from './compensation-states';
+import { compensationRow, type CompensationRow } from './compensation-view';
+import { recordIssued, recordRefused } from './issuance-record';
+import { applyEffects, WORKER_ACTOR, type PaymentsContext } from './payments-context';
+import { VOUCHER_CATEGORIES } from './voucher-rules';
+
+export interface Issuer {
+  /** One attempt for a row in 'issuing'; a second call while one runs joins it. Never throws. */
+  attempt(compensationId: number): Promise<void>;
+  /** Attempts still running, e.g. for a clean stop. */
+  idle(): Promise<void>;
+}
+
+function cardMetadata(row: CompensationRow): Record<string, string> {
+  return { compensationId: String(row.id), stationId: String(row.station_id), flightId: String(row.flight_id), form: row.form };
+}
+
+export function createIssuer(ctx: PaymentsContext): Issuer {
+  const inFlight = new Map<number, Promise<void>>();
+
+  async function createCard(row: CompensationRow, baseKey: string, cardholderId: string): Promise<CardSnapshot> {
+    return ctx.provider.createCard(
+      {
+        cardholderId,
+        currency: row.currency,
+        amountMinor: row.amount_minor,
+        categories: row.form === 'voucher' ? VOUCHER_CATEGORIES : [],
+        metadata: cardMetadata(row),
+      },
+      cardKey(baseKey),
+    );
+  }
+
+  async function run(compensationId: number): Promise<void> {
+    const entity = await ctx.db.getRepository(CompensationEntity).findOneBy({ id: compensationId });
+    if (!entity || entity.state !== 'issuing' || !entity.idempotencyKey) return;
+    if (!(await startedUnderThisAccount(compensationId))) {
+      ctx.log(`[payments] compensation ${compensationId}: started under another provider account; left for a server configured for it`);
+      return;
+    }
+    const baseKey = entity.idempotencyKey;
+    let step = 'preparing the cardholder';
+    try {
+      const row = await compensationRow(ctx.db, compensationId);
+      let cardholderId = entity.providerCardholderId;
+      let card: CardSnapshot | undefined;
+      if (!cardholderId) {
+        let billing;
+        try {
+          billing = stationBillingAddress({ iata: row.station_iata, name: row.station_name });
+        } catch (error) {
+          // Reference data, not the network: retrying would only fail again.
+          await refuse(compensationId, `${step}: ${(error as Error).message}`);
+          return;
+        }
+        step = 'creating the cardholder';
+        const holder = await ctx.provider.createCardholder(
+          {
+            name: cardholderName(row.first_name ?? '', row.last_name ?? ''),
+            email: row.contact_email,
+            billing,
+            metadata: { compensationId: String(row.id), passengerId: String(row.passenger_id) },
+          },
+          cardholderKey(baseKey),
+        );
+        cardholderId = holder.id;
+        await ctx.db.query(`UPDATE compensations SET provider_cardholder_id = ? WHERE id = ? AND state = 'issuing' AND provider_cardholder_id IS NULL`, [holder.id, compensationId]);
+      } else {
+        // A retry: the card may exist although its answer never arrived, or the key's 24 hours at the provider ran out.
+        step = 'looking for an earlier card';
+        card = (await ctx.provider.cardsOfCardholder(cardholderId)).find((c) => c.compensationId === compensationId && c.status !== 'canceled');
+      }
+      step = 'creating the card';
+      card ??= await createCard(row, baseKey, cardholderId);
+      const issued = card;
+      step = 'recording the card';
+      applyEffects(ctx, await ctx.db.transaction((em) => recordIssued(em, compensationId, issued, WORKER_ACTOR)));
+    } catch (error) {
+      const failure = classifyProviderError(error, step);
+      if (failure.retryable) {
+        await ctx.db
+          .query(`UPDATE compensations SET last_error = ?, updated_at = CURRENT_TIMESTAMP(3) WHERE id = ? AND state = 'issuing'`, [failure.reason, compensationId])
+          .catch((e: unknown) => ctx.log(`[payments] compensation ${compensationId}: could not record "${failure.reason}": ${(e as Error).message}`));
+        return;
+      }
+      await refuse(compensationId, failure.reason);
+    }
+  }
+
+  /** The account on record, claimed for this one when none is (a row moved to 'issuing' by other means). */
+  async function startedUnderThisAccount(compensationId: number): Promise<boolean> {
+    await ctx.db.query('INSERT IGNORE INTO payment_issuances (compensation_id, provider_account, requested_at) VALUES (?, ?, CURRENT_TIMESTAMP(3))', [compensationId, ctx.providerAccount]);
+    const [row]: { provider_account: string }[] = await ctx.db.query('SELECT provider_account FROM payment_issuances WHERE compensation_id = ?', [compensationId]);
+    return row?.provider_account === ctx.providerAccount;
+  }
+
+  async function refuse(compensationId: number, reason: string): Promise<void> {
+    await ctx.db
+      .transaction((em) => recordRefused(em, compensationId, reason, WORKER_ACTOR))
+      .then((effects) => applyEffects(ctx, effects))
+      .catch((e: unknown) => ctx.log(`[payments] compensation ${compensationId}: could not record the refusal: ${(e as Error).message}`));
+  }
+
+  return {
+    attempt(compensationId) {
+      const running = inFlight.get(compensationId);
+      if (running) return running;
+      const attempt = run(compensationId)
+        .catch((error: unknown) => ctx.log(`[payments] compensation ${compensationId}: ${(error as Error).message}`))
+        .finally(() => inFlight.delete(compensationId));
+      inFlight.set(compensationId, attempt);
+      return attempt;
+    },
+    async idle() {
+      await Promise.allSettled([...inFlight.values()]);
+    },
+  };
+}

@@ -1,0 +1,68 @@
+// Assembles the payments module (and finance's reconciliation, which reads the same provider) from configuration:
+// one provider client, one issuer shared by the routes and the worker, so an issuance in flight is never started
+// twice by this process.
+import type Stripe from 'stripe';
+import type { DataSource } from 'typeorm';
+import type { Env } from '../../config/env';
+import { stripeIssuingProvider, type IssuingProvider } from '../../integrations/payments/issuing-provider';
+import { createStripeClient, providerAccountOf } from '../../integrations/payments/stripe-client';
+import { createReconciliationRunner, markInterruptedRuns, type ReconciliationRunner } from '../finance/reconciliation.service';
+import { compensationsRouter } from './compensations.routes';
+import { createIssuer, type Issuer } from './issuer';
+import type { PaymentsContext } from './payments-context';
+import { createPaymentsWorker, type PaymentsWorker, type PaymentsWorkerOptions } from './payments-worker';
+import { paymentsWebhookRouter } from './webhook.routes';
+
+export interface PaymentsRuntimeOptions {
+  db: DataSource;
+  /** The SDK pointed at Stripe or the local stand-in; built from env when absent. */
+  stripe?: Stripe;
+  env: Pick<Env, 'STRIPE_SECRET_KEY' | 'STRIPE_API_URL' | 'STRIPE_WEBHOOK_SECRET'>;
+  changed?: PaymentsContext['changed'];
+  log?: (line: string) => void;
+  worker?: PaymentsWorkerOptions;
+  /** Per-request timeout of the SDK (tests use a short one to exercise timeouts). */
+  stripeTimeoutMs?: number;
+}
+
+export interface PaymentsRuntime {
+  ctx: PaymentsContext;
+  provider: IssuingProvider;
+  issuer: Issuer;
+  worker: PaymentsWorker;
+  reconciliation: ReconciliationRunner;
+  webhookRouter(): ReturnType<typeof paymentsWebhookRouter>;
+  compensationsRouter(): ReturnType<typeof compensationsRouter>;
+  /** Starts the worker (its first pass sweeps every row left 'issuing') and closes runs a stopped process left open. */
+  start(): Promise<void>;
+  stop(): Promise<void>;
+}
+
+export function createPaymentsRuntime(opts: PaymentsRuntimeOptions): PaymentsRuntime {
+  const stripe = opts.stripe ?? createStripeClient({ secretKey: opts.env.STRIPE_SECRET_KEY, apiUrl: opts.env.STRIPE_API_URL, timeoutMs: opts.stripeTimeoutMs });
+  const provider = stripeIssuingProvider(stripe, opts.env.STRIPE_WEBHOOK_SECRET);
+  const log = opts.log ?? ((line: string) => console.warn(line));
+  const providerAccount = providerAccountOf({ apiUrl: opts.env.STRIPE_API_URL, secretKey: opts.env.STRIPE_SECRET_KEY });
+  const ctx: PaymentsContext = { db: opts.db, provider, providerAccount, changed: opts.changed ?? (() => undefined), log };
+  const issuer = createIssuer(ctx);
+  const worker = createPaymentsWorker(ctx, issuer, opts.worker);
+  const reconciliation = createReconciliationRunner({ db: opts.db, provider, log });
+  return {
+    ctx,
+    provider,
+    issuer,
+    worker,
+    reconciliation,
+    webhookRouter: () => paymentsWebhookRouter(ctx),
+    compensationsRouter: () => compensationsRouter(ctx, issuer),
+    async start() {
+      await markInterruptedRuns(opts.db);
+      worker.start();
+    },
+    async stop() {
+      await worker.stop();
+      await issuer.idle();
+      await reconciliation.idle();
+    },
+  };
+}

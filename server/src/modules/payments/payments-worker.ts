@@ -1,0 +1,98 @@
+// Finishes what an interrupted issuance left in 'issuing': a timeout, a 500, a dropped connection, or a server that
+// stopped mid-call. It retries with the keys fixed on the row, so the provider answers with what it already did
+// instead of issuing again. On start it sweeps every 'issuing' row at once: a crash resolves on restart.
+import type { Issuer } from './issuer';
+import type { PaymentsContext } from './payments-context';
+
+export interface PaymentsWorkerOptions {
+  /** Wait between passes when nothing was due. */
+  pollMs?: number;
+  /** A row tried (or changed) more recently than this waits for a later pass. */
+  retryAfterMs?: number;
+  /** Issuances in flight at once. */
+  concurrency?: number;
+  /** Rows taken per pass; a full pass is followed at once by the next. */
+  batchSize?: number;
+}
+
+export interface PaymentsWorker {
+  start(): void;
+  /** Stops polling and waits for the attempts in flight. */
+  stop(): Promise<void>;
+  /** One pass; `all` ignores the retry delay, as the start-up sweep does. Resolves with the rows tried. */
+  runOnce(opts?: { all?: boolean }): Promise<number>;
+}
+
+export function createPaymentsWorker(ctx: PaymentsContext, issuer: Issuer, opts: PaymentsWorkerOptions = {}): PaymentsWorker {
+  const pollMs = opts.pollMs ?? 2_000;
+  const retryAfterMs = opts.retryAfterMs ?? 5_000;
+  const concurrency = Math.max(1, opts.concurrency ?? 8);
+  const batchSize = opts.batchSize ?? 100;
+  let stopped = true;
+  let timer: NodeJS.Timeout | null = null;
+  let running: Promise<number> | null = null;
+  /** Set by stop(): a pass takes no further rows, so stopping waits only for the calls already made. */
+  let stopRequested = false;
+
+  async function pass(all: boolean): Promise<number> {
+    const age = all ? '' : 'AND c.updated_at <= CURRENT_TIMESTAMP(3) - INTERVAL ? MICROSECOND';
+    // Only issuances started under this server's provider account: elsewhere their keys would issue a second card.
+    const rows: { id: number }[] = await ctx.db.query(
+      `SELECT c.id FROM compensations c JOIN payment_issuances pi ON pi.compensation_id = c.id AND pi.provider_account = ?
+        WHERE c.state = 'issuing' ${age} ORDER BY c.updated_at, c.id LIMIT ?`,
+      all ? [ctx.providerAccount, batchSize] : [ctx.providerAccount, retryAfterMs * 1000, batchSize],
+    );
+    const queue = rows.map((r) => r.id);
+    const lane = async () => {
+      for (let id = queue.shift(); id !== undefined; id = queue.shift()) {
+        if (stopRequested) return;
+        await issuer.attempt(id);
+      }
+    };
+    await Promise.all(Array.from({ length: Math.min(concurrency, queue.length) }, lane));
+    return rows.length;
+  }
+
+  function schedule(ms: number, all = false): void {
+    if (stopped) return;
+    if (timer) clearTimeout(timer);
+    timer = setTimeout(() => tick(all), ms);
+    // Never keeps the process alive by itself; the HTTP server or the test does.
+    timer.unref();
+  }
+
+  function tick(all: boolean): void {
+    timer = null;
+    if (stopped || running) return;
+    const current = pass(all).catch((error: unknown) => {
+      ctx.log(`[payments] worker pass failed: ${(error as Error).message}`);
+      return 0;
+    });
+    running = current;
+    void current.then((tried) => {
+      running = null;
+      // After a sweep, keep sweeping until the backlog is gone; then poll.
+      schedule(tried >= batchSize ? 0 : pollMs, all && tried >= batchSize);
+    });
+  }
+
+  return {
+    start() {
+      if (!stopped) return;
+      stopped = false;
+      stopRequested = false;
+      schedule(0, true);
+    },
+    async stop() {
+      stopped = true;
+      stopRequested = true;
+      if (timer) clearTimeout(timer);
+      timer = null;
+      await running;
+      await issuer.idle();
+    },
+    runOnce(options = {}) {
+      return pass(options.all ?? false);
+    },
+  };
+}

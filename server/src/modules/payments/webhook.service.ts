@@ -1,0 +1,118 @@
+// Applying the provider's webhook events. Each event id is stored once (unique index), so a redelivery is
+// acknowledged and ignored; events may also come out of order, so they only ever move a compensation forward
+// (Stripe docs, "Receive webhook events": handle duplicates, do not rely on order).
+import type Stripe from 'stripe';
+import type { EntityManager } from 'typeorm';
+import { CompensationEntity } from '../../db/entities';
+import { snapshotOf, type CardSnapshot } from '../../integrations/payments/issuing-provider';
+import { audit } from '../audit/audit.service';
+import { AWAITING_CARD, isForward } from './compensation-states';
+import { NO_EFFECTS, recordIssued, upsertProviderCard, type Effects } from './issuance-record';
+import { applyEffects, PROVIDER_ACTOR, type PaymentsContext } from './payments-context';
+
+export type WebhookOutcome = { duplicate: true } | { duplicate: false; outcome: string; compensationId: number | null };
+
+interface Applied {
+  outcome: string;
+  compensationId: number | null;
+  effects: Effects;
+}
+
+const ignored = (outcome: string, compensationId: number | null = null): Applied => ({ outcome: `ignored: ${outcome}`, compensationId, effects: NO_EFFECTS });
+const isDuplicateKey = (error: unknown) => (error as { driverError?: { code?: string } })?.driverError?.code === 'ER_DUP_ENTRY';
+
+async function lockCompensation(em: EntityManager, id: number) {
+  return em.findOne(CompensationEntity, { where: { id }, lock: { mode: 'pessimistic_write' } });
+}
+
+async function applyCard(em: EntityManager, card: CardSnapshot): Promise<Applied> {
+  if (card.compensationId === null) return ignored('card without a compensation id');
+  const row = await lockCompensation(em, card.compensationId);
+  if (!row) {
+    await upsertProviderCard(em, card, null);
+    return ignored('no such compensation in the ledger', card.compensationId);
+  }
+  if (row.providerCardId && row.providerCardId !== card.id) {
+    await upsertProviderCard(em, card, null);
+    return ignored('another card than the ledger names', row.id);
+  }
+  if (card.status !== 'canceled') {
+    if (!AWAITING_CARD.includes(row.state)) {
+      await upsertProviderCard(em, card, row.id);
+      return ignored(`already ${row.state}`, row.id);
+    }
+    return { outcome: 'issued', compensationId: row.id, effects: await recordIssued(em, row.id, card, PROVIDER_ACTOR) };
+  }
+  await upsertProviderCard(em, card, row.id);
+  if (!isForward(row.state, 'voided')) return ignored(`already ${row.state}`, row.id);
+  const voidReason = row.voidReason ?? 'Card canceled at the payment provider.';
+  await em.update(CompensationEntity, { id: row.id }, { state: 'voided', voidReason, providerCardId: card.id, providerCardholderId: row.providerCardholderId ?? card.cardholderId });
+  await audit(em, { actor: PROVIDER_ACTOR, action: 'compensation.voided_at_provider', entityType: 'compensation', entityId: row.id, stationId: row.stationId, before: { state: row.state }, after: { state: 'voided', providerCardId: card.id } });
+  return { outcome: 'voided', compensationId: row.id, effects: { mail: false, changed: { flightId: row.flightId, stationId: row.stationId } } };
+}
+
+async function applyTransaction(em: EntityManager, transaction: Stripe.Issuing.Transaction, card: CardSnapshot | null): Promise<Applied> {
+  const cardId = typeof transaction.card === 'string' ? transaction.card : transaction.card.id;
+  if (card) await upsertProviderCard(em, card, card.compensationId);
+  await em.query('UPDATE provider_cards SET spent_minor = spent_minor + ? WHERE card_id = ?', [-transaction.amount, cardId]);
+  const [known]: { compensation_id: number | null }[] = await em.query('SELECT compensation_id FROM provider_cards WHERE card_id = ?', [cardId]);
+  const compensationId = known?.compensation_id ?? card?.compensationId ?? null;
+  if (compensationId === null) return ignored('spend on a card that pays no known compensation');
+  const row = await lockCompensation(em, compensationId);
+  if (!row) return ignored('no such compensation in the ledger', compensationId);
+  let effects = NO_EFFECTS;
+  // The spend may arrive before any news of the card itself: record the card first, receipt included.
+  if (AWAITING_CARD.includes(row.state) && card) effects = await recordIssued(em, row.id, card, PROVIDER_ACTOR);
+  const current = await em.findOneByOrFail(CompensationEntity, { id: row.id });
+  if (!isForward(current.state, 'settled')) return { ...ignored(`already ${current.state}`, row.id), effects };
+  await em.update(CompensationEntity, { id: row.id }, { state: 'settled', providerCardId: current.providerCardId ?? cardId });
+  await audit(em, { actor: PROVIDER_ACTOR, action: 'compensation.settled', entityType: 'compensation', entityId: row.id, stationId: row.stationId, before: { state: current.state }, after: { state: 'settled', spentMinor: -transaction.amount, currency: transaction.currency.toUpperCase(), transactionId: transaction.id } });
+  return { outcome: 'settled', compensationId: row.id, effects: { mail: effects.mail, changed: { flightId: row.flightId, stationId: row.stationId } } };
+}
+
+/** For a spend on a card we have not heard of yet, the card itself says which compensation it pays. */
+async function cardBehind(ctx: PaymentsContext, event: Stripe.Event): Promise<CardSnapshot | null> {
+  if (event.type !== 'issuing_transaction.created') return null;
+  const transaction = event.data.object as Stripe.Issuing.Transaction;
+  const cardId = typeof transaction.card === 'string' ? transaction.card : transaction.card.id;
+  const [known]: { compensation_id: number | null }[] = await ctx.db.query('SELECT compensation_id FROM provider_cards WHERE card_id = ?', [cardId]);
+  if (known?.compensation_id) return null;
+  return ctx.provider.retrieveCard(cardId);
+}
+
+function objectIdOf(event: Stripe.Event): string | null {
+  const id = (event.data.object as { id?: unknown }).id;
+  return typeof id === 'string' ? id.slice(0, 64) : null;
+}
+
+/** Stores and applies one verified event in one transaction; a failure leaves nothing, so the provider's retry applies it. */
+export async function receiveProviderEvent(ctx: PaymentsContext, event: Stripe.Event): Promise<WebhookOutcome> {
+  const seen: { n: number }[] = await ctx.db.query('SELECT 1 AS n FROM provider_events WHERE event_id = ?', [event.id]);
+  if (seen.length) return { duplicate: true };
+  const card = await cardBehind(ctx, event);
+  const result = await ctx.db.transaction(async (em): Promise<Applied | null> => {
+    try {
+      await em.query('INSERT INTO provider_events (event_id, type, object_id, outcome, provider_created) VALUES (?, ?, ?, ?, ?)', [event.id, event.type, objectIdOf(event), 'received', event.created]);
+    } catch (error) {
+      if (isDuplicateKey(error)) return null;
+      throw error;
+    }
+    let applied: Applied;
+    switch (event.type) {
+      case 'issuing_card.created':
+      case 'issuing_card.updated':
+        applied = await applyCard(em, snapshotOf(event.data.object as Stripe.Issuing.Card));
+        break;
+      case 'issuing_transaction.created':
+        applied = await applyTransaction(em, event.data.object as Stripe.Issuing.Transaction, card);
+        break;
+      default:
+        applied = ignored(`type ${event.type} changes nothing in the ledger`);
+    }
+    await em.query('UPDATE provider_events SET outcome = ?, compensation_id = ? WHERE event_id = ?', [applied.outcome.slice(0, 120), applied.compensationId, event.id]);
+    return applied;
+  });
+  if (!result) return { duplicate: true };
+  applyEffects(ctx, result.effects);
+  return { duplicate: false, outcome: result.outcome, compensationId: result.compensationId };
+}

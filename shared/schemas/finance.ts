@@ -1,0 +1,233 @@
+// Compensation payments and finance's screens: the ledger, reconciliation with the payment provider, and the
+// quarterly report. Money is always integer minor units with an ISO 4217 currency.
+import { z } from 'zod';
+import { currencySchema, regimeSchema } from './common';
+
+export const COMPENSATION_STATES = ['due', 'issuing', 'issued', 'settled', 'failed', 'voided'] as const;
+export const compensationStateSchema = z.enum(COMPENSATION_STATES, { error: `state must be one of ${COMPENSATION_STATES.join(', ')}` });
+export type CompensationStateCode = z.infer<typeof compensationStateSchema>;
+
+export const COMPENSATION_FORMS = ['prepaid-card', 'voucher'] as const;
+export const compensationFormSchema = z.enum(COMPENSATION_FORMS);
+
+export const STATE_LABELS: Record<CompensationStateCode, string> = {
+  due: 'Due',
+  issuing: 'Issuing',
+  issued: 'Issued',
+  settled: 'Spent',
+  failed: 'Failed',
+  voided: 'Voided',
+};
+
+const isoDate = (field: string) =>
+  z.string().regex(/^\d{4}-\d{2}-\d{2}$/, `${field} must be a date as YYYY-MM-DD`).refine((s) => {
+    const d = new Date(`${s}T00:00:00Z`);
+    return !Number.isNaN(d.getTime()) && d.toISOString().slice(0, 10) === s;
+  }, `${field} must be a real calendar date`);
+
+const positiveId = (field: string) => z.coerce.number({ error: `${field} must be a number` }).int(`${field} must be a whole number`).positive(`${field} must be positive`);
+const reason = (field: string) => z.string({ error: `${field} is required` }).trim().min(3, `${field} must say why, in at least 3 characters`).max(200, `${field} must be at most 200 characters`);
+
+/** What the provider last reported about the card, kept from its answers and webhooks. */
+export const providerCardSchema = z.object({
+  cardId: z.string(),
+  cardholderId: z.string().nullable(),
+  status: z.string(),
+  limitMinor: z.number().nullable(),
+  spentMinor: z.number(),
+  currency: z.string().nullable(),
+  last4: z.string().nullable(),
+});
+
+export const compensationViewSchema = z.object({
+  id: z.number(),
+  stationId: z.number(),
+  stationIata: z.string(),
+  flightId: z.number(),
+  flight: z.string(),
+  serviceDate: z.string(),
+  passengerId: z.number(),
+  passengerName: z.string(),
+  pnr: z.string(),
+  sourceKind: z.enum(['volunteer', 'denial']),
+  regime: z.string(),
+  voluntary: z.boolean(),
+  band: z.string(),
+  ruleRef: z.string(),
+  form: compensationFormSchema,
+  amountMinor: z.number(),
+  currency: z.string(),
+  state: compensationStateSchema,
+  lastError: z.string().nullable(),
+  voidReason: z.string().nullable(),
+  voucherAgreedAt: z.string().nullable(),
+  createdAt: z.string(),
+  updatedAt: z.string(),
+  provider: providerCardSchema.nullable(),
+});
+export type CompensationView = z.infer<typeof compensationViewSchema>;
+
+// ── The desk: issuing, and a voucher only with the passenger's recorded agreement ──────────────────────────
+
+export const voucherTermsSchema = z.object({
+  /** Whether this compensation may be paid as a travel voucher at all under its regime. */
+  allowed: z.boolean(),
+  rule: z.string(),
+  cashAmountMinor: z.number(),
+  currency: z.string(),
+  restrictions: z.array(z.string()),
+  offeredAt: z.string().nullable(),
+  offerSentTo: z.string().nullable(),
+  agreedAt: z.string().nullable(),
+});
+
+export const deskCompensationSchema = compensationViewSchema.extend({ voucher: voucherTermsSchema });
+export const deskCompensationsResponseSchema = z.object({ compensations: z.array(deskCompensationSchema) });
+export type DeskCompensation = z.infer<typeof deskCompensationSchema>;
+
+export const compensationResponseSchema = z.object({ compensation: compensationViewSchema });
+
+export const voucherOfferResponseSchema = z.object({
+  offer: z.object({ cashAmountMinor: z.number(), currency: z.string(), restrictions: z.array(z.string()), text: z.string(), sentTo: z.string().nullable(), offeredAt: z.string() }),
+});
+
+export const voucherAgreementBodySchema = z.object({
+  agreed: z.literal(true, { error: 'agreed must be true: record an agreement only when the passenger agreed' }),
+  statement: z.string({ error: 'statement is required' }).trim().min(10, 'statement must record what the passenger agreed to, in at least 10 characters').max(1000, 'statement must be at most 1000 characters'),
+});
+
+export const voidBodySchema = z.object({ reason: reason('reason') });
+export const reissueBodySchema = z.object({ reason: reason('reason') });
+
+// ── The ledger ──────────────────────────────────────────────────────────────────────────────────────────────
+
+export const ledgerQuerySchema = z
+  .object({
+    stationId: positiveId('stationId').optional(),
+    from: isoDate('from').optional(),
+    to: isoDate('to').optional(),
+    regime: regimeSchema.optional(),
+    state: compensationStateSchema.optional(),
+    page: z.coerce.number({ error: 'page must be a number' }).int('page must be a whole number').min(1, 'page must be at least 1').max(100_000, 'page must be at most 100000').default(1),
+    pageSize: z.coerce.number({ error: 'pageSize must be a number' }).int('pageSize must be a whole number').min(1, 'pageSize must be at least 1').max(200, 'pageSize must be at most 200').default(50),
+  })
+  .refine((q) => !q.from || !q.to || q.from <= q.to, { message: 'to must not be before from', path: ['to'] });
+export type LedgerQuery = z.infer<typeof ledgerQuerySchema>;
+
+export const currencyTotalSchema = z.object({
+  currency: z.string(),
+  count: z.number(),
+  /** Everything not voided: owed or paid. */
+  amountMinor: z.number(),
+  /** Issued or spent: the money that left. */
+  paidMinor: z.number(),
+  voidedMinor: z.number(),
+});
+
+export const ledgerResponseSchema = z.object({
+  rows: z.array(compensationViewSchema),
+  total: z.number(),
+  page: z.number(),
+  pageSize: z.number(),
+  totals: z.array(currencyTotalSchema),
+});
+export type LedgerResponse = z.infer<typeof ledgerResponseSchema>;
+
+// ── Reconciliation ──────────────────────────────────────────────────────────────────────────────────────────
+
+export const DIFFERENCE_KINDS = [
+  'missing-at-provider',
+  'missing-in-ledger',
+  'amount-differs',
+  'currency-differs',
+  'state-differs',
+  'card-differs',
+  'duplicate-at-provider',
+] as const;
+export type DifferenceKind = (typeof DIFFERENCE_KINDS)[number];
+
+export const DIFFERENCE_LABELS: Record<DifferenceKind, string> = {
+  'missing-at-provider': 'In the ledger, not at the provider',
+  'missing-in-ledger': 'At the provider, not in the ledger',
+  'amount-differs': 'Amount differs',
+  'currency-differs': 'Currency differs',
+  'state-differs': 'State differs',
+  'card-differs': 'Another card than the ledger names',
+  'duplicate-at-provider': 'More than one card for one compensation',
+};
+
+export const startReconciliationBodySchema = z.object({ stationId: positiveId('stationId').optional() });
+export const resolveDifferenceBodySchema = z.object({
+  note: z.string({ error: 'note is required' }).trim().min(3, 'note must say how it was resolved, in at least 3 characters').max(500, 'note must be at most 500 characters'),
+});
+
+export const RUN_STATUSES = ['running', 'completed', 'failed', 'interrupted'] as const;
+
+export const reconciliationRunSchema = z.object({
+  id: z.number(),
+  status: z.enum(RUN_STATUSES),
+  stationIds: z.array(z.number()),
+  stations: z.array(z.string()),
+  startedBy: z.string(),
+  startedAt: z.string(),
+  finishedAt: z.string().nullable(),
+  pagesRead: z.number(),
+  cardsSeen: z.number(),
+  ledgerRows: z.number(),
+  differences: z.number(),
+  unresolved: z.number(),
+  error: z.string().nullable(),
+});
+export type ReconciliationRun = z.infer<typeof reconciliationRunSchema>;
+
+export const reconciliationDifferenceSchema = z.object({
+  id: z.number(),
+  kind: z.enum(DIFFERENCE_KINDS),
+  compensationId: z.number().nullable(),
+  cardId: z.string().nullable(),
+  ledgerValue: z.string().nullable(),
+  providerValue: z.string().nullable(),
+  resolvedAt: z.string().nullable(),
+  resolvedBy: z.string().nullable(),
+  note: z.string().nullable(),
+});
+export type ReconciliationDifference = z.infer<typeof reconciliationDifferenceSchema>;
+
+export const reconciliationRunsResponseSchema = z.object({ runs: z.array(reconciliationRunSchema) });
+export const reconciliationDetailSchema = z.object({ run: reconciliationRunSchema, differences: z.array(reconciliationDifferenceSchema) });
+export const startReconciliationResponseSchema = z.object({ run: reconciliationRunSchema });
+
+// ── The period report ───────────────────────────────────────────────────────────────────────────────────────
+
+export const quarterSchema = z.string({ error: 'quarter is required' }).regex(/^\d{4}-Q[1-4]$/, 'quarter must look like 2026-Q4');
+
+export const reportQuerySchema = z.object({ quarter: quarterSchema, stationId: positiveId('stationId') });
+
+export const amountSchema = z.object({ currency: currencySchema, amountMinor: z.number() });
+
+export const reportLineSchema = z.object({
+  code: z.string(),
+  label: z.string(),
+  /** Passengers; null for a line that is a sum of money only, or that Bumpboard does not track. */
+  count: z.number().nullable(),
+  amounts: z.array(amountSchema).nullable(),
+  note: z.string().nullable(),
+});
+export type ReportLine = z.infer<typeof reportLineSchema>;
+
+export const reportDaySchema = z.object({ date: z.string(), currency: z.string(), voluntaryMinor: z.number(), involuntaryMinor: z.number() });
+
+export const periodReportSchema = z.object({
+  quarter: z.string(),
+  from: z.string(),
+  to: z.string(),
+  station: z.object({ id: z.number(), iata: z.string(), name: z.string(), regime: z.string(), currency: z.string() }),
+  form: z.enum(['us-form-251', 'eu-261', 'uk-261', 'ca-appr']),
+  title: z.string(),
+  /** Where the denial categories came from: the denials records, or the compensations alone. */
+  source: z.enum(['denials', 'compensations']),
+  lines: z.array(reportLineSchema),
+  perDay: z.array(reportDaySchema),
+  notes: z.array(z.string()),
+});
+export type PeriodReport = z.infer<typeof periodReportSchema>;

@@ -1,0 +1,76 @@
+// What the route × role matrix needs for the payments and finance routes: compensations in the state each call
+// expects (one call per route succeeds, so one object each is enough), a reconciliation run with a difference, and
+// the same for another station. A payments stand-in runs in-process for the routes that reach the provider, so the
+// matrix never leaves the loopback interface.
+import type { DataSource } from 'typeorm';
+import { ReconciliationDifferenceEntity, ReconciliationRunEntity, StationEntity, type FlightEntity } from '../../server/src/db/entities';
+import { insertCompensations, removeFlights, seedFlight, startFake, type RunningFake } from './payments-harness';
+
+export interface PaymentsRouteContext {
+  /** Already issued: asking again answers 200 without calling the provider. */
+  issuedId: number;
+  /** Due, open for a voucher offer (repeat offers are allowed). */
+  dueId: number;
+  /** Due, with a voucher offer made: ready for the passenger's agreement. */
+  offeredId: number;
+  voidableId: number;
+  failedId: number;
+  runId: number;
+  differenceId: number;
+  other: { compensationId: number; runId: number; differenceId: number };
+}
+
+let made: { flightIds: number[]; runIds: number[]; compensationIds: number[]; stationId: number; since: Date } = { flightIds: [], runIds: [], compensationIds: [], stationId: 0, since: new Date() };
+let standIn: RunningFake | null = null;
+
+/** Call before the app is built: the app reads STRIPE_API_URL from the environment. */
+export async function startMatrixPaymentsStandIn(): Promise<void> {
+  standIn = await startFake();
+  process.env.STRIPE_API_URL = standIn.url;
+}
+
+async function runWithDifference(db: DataSource, stationId: number, compensationId: number) {
+  const run = await db.getRepository(ReconciliationRunEntity).save({ status: 'completed', stationIds: [stationId], startedByUserId: null, startedByLabel: 'route matrix', finishedAt: new Date(), differencesFound: 1, error: null });
+  const diff = await db.getRepository(ReconciliationDifferenceEntity).save({ runId: run.id, kind: 'amount-differs', compensationId, cardId: null, ledgerValue: 'USD 1.00', providerValue: 'USD 2.00' });
+  made.runIds.push(run.id);
+  return { runId: run.id, differenceId: diff.id };
+}
+
+export async function paymentsRouteContext(db: DataSource, opts: { ownStationId: number; otherFlight: FlightEntity }): Promise<PaymentsRouteContext> {
+  made = { flightIds: [], runIds: [], compensationIds: [], stationId: opts.ownStationId, since: new Date() };
+  const bos = await db.getRepository(StationEntity).findOneByOrFail({ id: opts.ownStationId });
+  const { flight, passengers } = await seedFlight(db, bos, { passengers: 5, serviceDate: '2026-12-01' });
+  made.flightIds.push(flight.id);
+  const states = ['issued', 'due', 'due', 'due', 'failed'] as const;
+  const rows = await insertCompensations(db, flight, passengers, (i) => ({
+    state: states[i],
+    idempotencyKey: states[i] === 'due' ? null : `comp-matrix-${flight.id}-${i}`,
+    providerCardId: states[i] === 'issued' ? `ic_matrix_${flight.id}` : null,
+    lastError: states[i] === 'failed' ? 'route matrix: refused' : null,
+  }));
+  await db.query(
+    'INSERT INTO voucher_offers (compensation_id, cash_amount_minor, currency, restrictions, text, sent_to, offered_by_user_id, offered_at) VALUES (?, ?, ?, ?, ?, NULL, 0, NOW(3))',
+    [rows[2].id, rows[2].amountMinor, rows[2].currency, '[]', 'Route matrix offer'],
+  );
+  const [other] = await insertCompensations(db, opts.otherFlight, [{ id: 0, bookingId: 0 } as never], () => ({ stationId: opts.otherFlight.stationId, currency: 'NOK', regime: 'eu-261' }));
+  made.compensationIds.push(other.id);
+  const own = await runWithDifference(db, bos.id, rows[0].id);
+  const otherRun = await runWithDifference(db, opts.otherFlight.stationId, other.id);
+  return {
+    issuedId: rows[0].id, dueId: rows[1].id, offeredId: rows[2].id, voidableId: rows[3].id, failedId: rows[4].id,
+    runId: own.runId, differenceId: own.differenceId,
+    other: { compensationId: other.id, runId: otherRun.runId, differenceId: otherRun.differenceId },
+  };
+}
+
+export async function removePaymentsRouteFixtures(db: DataSource): Promise<void> {
+  await removeFlights(db, made.flightIds);
+  if (made.compensationIds.length) await db.query('DELETE FROM compensations WHERE id IN (?)', [made.compensationIds]);
+  // The runs made here, and the one the matrix itself started at the own station.
+  await db.query(
+    "DELETE FROM reconciliation_runs WHERE id IN (?) OR (started_by_label = 'finance@bumpboard.test' AND started_at >= ? AND JSON_CONTAINS(station_ids, ?))",
+    [made.runIds.length ? made.runIds : [0], made.since, String(made.stationId)],
+  );
+  await standIn?.stop();
+  standIn = null;
+}

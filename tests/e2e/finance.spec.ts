@@ -1,0 +1,105 @@
+// Finance sees an issued compensation in the ledger (with the card's state at the payment provider), exports the
+// filtered rows as CSV, and runs a reconciliation that comes out clean.
+// Needs: the app at APP_BASE_URL talking to the payments stand-in (STRIPE_API_URL), and DATABASE_URL of the same
+// database: the test writes its own flight on a far-off date with one volunteer's compensation, which an agent
+// issues through the API. At the end finance voids it, so the card can never be spent and both sides still agree.
+import { readFile } from 'node:fs/promises';
+import { expect, request, test, type APIRequestContext } from '@playwright/test';
+import mysql from 'mysql2/promise';
+import Papa from 'papaparse';
+import { DEMO_PASSWORD, shot, signIn } from './helpers';
+
+const BASE_URL = process.env.APP_BASE_URL ?? 'http://127.0.0.1:4700';
+const DATABASE_URL = process.env.DATABASE_URL ?? '';
+const RUN = Date.now() % 1_000_000;
+const SERVICE_DATE = `2033-0${1 + (RUN % 9)}-${String(10 + (RUN % 18)).padStart(2, '0')}`;
+
+let db: mysql.Connection;
+let compensationId: number;
+let flightLabel: string;
+let bosId: number;
+
+async function staff(email: string): Promise<{ api: APIRequestContext; csrf: string }> {
+  const api = await request.newContext({ baseURL: BASE_URL });
+  const session = await (await api.get('/api/auth/session')).json();
+  const res = await api.post('/api/auth/sign-in', { headers: { 'X-CSRF-Token': session.csrfToken }, data: { email, password: DEMO_PASSWORD } });
+  expect(res.ok()).toBe(true);
+  return { api, csrf: (await res.json()).csrfToken };
+}
+
+test.beforeAll(async () => {
+  test.skip(!DATABASE_URL, 'DATABASE_URL is needed to make the test flight');
+  db = await mysql.createConnection(DATABASE_URL.replace(/^mariadb:/, 'mysql:'));
+  const [[bos]] = await db.query<mysql.RowDataPacket[]>("SELECT id FROM stations WHERE iata = 'BOS'");
+  bosId = bos.id;
+  const number = String(7000 + (RUN % 1000));
+  flightLabel = `ZZ ${number}`;
+  const departure = new Date(`${SERVICE_DATE}T14:00:00Z`);
+  const [flight] = await db.execute<mysql.ResultSetHeader>(
+    `INSERT INTO flights (station_id, carrier_code, flight_number, service_date, origin, destination, scheduled_departure, scheduled_arrival, aircraft_type, seats_by_cabin, gate, state)
+     VALUES (?, 'ZZ', ?, ?, 'BOS', 'ORD', ?, ?, '320', '{"Y":150}', 'B4', 'departed')`,
+    [bos.id, number, SERVICE_DATE, departure, new Date(departure.getTime() + 3 * 3_600_000)],
+  );
+  const [booking] = await db.execute<mysql.ResultSetHeader>(`INSERT INTO bookings (flight_id, pnr, contact_email, travels_together, status) VALUES (?, ?, ?, 1, 'active')`, [flight.insertId, `F${RUN}`.slice(0, 8), `finance-e2e-${RUN}@example.test`]);
+  const [passenger] = await db.execute<mysql.ResultSetHeader>(
+    `INSERT INTO passengers (booking_id, flight_id, pnr_sequence, first_name, last_name, cabin, fare_minor, fare_currency, fare_type, ssr_codes, is_child, status)
+     VALUES (?, ?, 1, 'Marta', 'Ledgerwood', 'Y', 31000, 'USD', 'standard', '[]', 0, 'boarded')`,
+    [booking.insertId, flight.insertId],
+  );
+  const [comp] = await db.execute<mysql.ResultSetHeader>(
+    `INSERT INTO compensations (station_id, flight_id, booking_id, passenger_id, source_kind, source_id, regime, voluntary, amount_minor, currency, band, rule_ref, explanation, state)
+     VALUES (?, ?, ?, ?, 'volunteer', ?, 'us-dot', 1, 45000, 'USD', 'posted offer', 'agreed with the volunteer', 'Volunteered (end-to-end test).', 'due')`,
+    [bos.id, flight.insertId, booking.insertId, passenger.insertId, 1_900_000_000 + RUN],
+  );
+  compensationId = comp.insertId;
+
+  // The agent issues it at the desk's API: a prepaid card at the payment provider.
+  const agent = await staff('agent@bumpboard.test');
+  const issued = await agent.api.post(`/api/compensations/${compensationId}/issue`, { headers: { 'X-CSRF-Token': agent.csrf } });
+  expect(issued.ok()).toBe(true);
+  expect((await issued.json()).compensation.state).toBe('issued');
+});
+
+test.afterAll(async () => {
+  if (!db) return;
+  if (compensationId) {
+    const finance = await staff('finance@bumpboard.test');
+    await finance.api.post(`/api/compensations/${compensationId}/void`, { headers: { 'X-CSRF-Token': finance.csrf }, data: { reason: 'End-to-end test compensation' } });
+  }
+  await db.end();
+});
+
+test('finance sees the issued compensation, exports exactly the filtered rows, and reconciles clean', async ({ page }) => {
+  await signIn(page, 'finance@bumpboard.test');
+  await page.getByRole('link', { name: 'Compensation ledger' }).click();
+  await expect(page.getByRole('heading', { name: 'Compensation ledger' })).toBeVisible();
+  await page.getByLabel('Flights from').fill(SERVICE_DATE);
+  await page.getByLabel('Flights to').fill(SERVICE_DATE);
+  const row = page.getByRole('row', { name: /Marta Ledgerwood/ });
+  await expect(row).toBeVisible();
+  await expect(row).toContainText(flightLabel);
+  await expect(row).toContainText('$450.00');
+  await expect(row).toContainText('Active card');
+  await expect(row).toContainText('Issued');
+  await expect(page.getByTestId('total-USD')).toContainText('$450.00');
+  await expect(page.getByRole('note')).toContainText('Caution');
+  await shot(page, 'finance-ledger');
+
+  const [download] = await Promise.all([page.waitForEvent('download'), page.getByRole('link', { name: 'Export CSV of these rows' }).click()]);
+  const csv = Papa.parse<Record<string, string>>(await readFile((await download.path())!, 'utf8'), { header: true, skipEmptyLines: true });
+  expect(csv.data.map((r) => r.compensation_id)).toEqual([String(compensationId)]);
+  expect(csv.data[0]).toMatchObject({ passenger: 'Marta Ledgerwood', amount: '450.00', currency: 'USD', ledger_state: 'issued', provider_status: 'active' });
+
+  await page.getByRole('link', { name: 'Reconciliation' }).click();
+  await page.getByLabel('Stations').selectOption(String(bosId));
+  await page.getByRole('button', { name: 'Start reconciliation' }).click();
+  await expect(page.getByTestId('run-status')).toContainText('Completed', { timeout: 30_000 });
+  await expect(page.getByText('No differences: the ledger and the provider agree.')).toBeVisible();
+  await shot(page, 'finance-reconciliation');
+
+  await page.getByRole('link', { name: 'Period report' }).click();
+  await expect(page.getByRole('heading', { name: 'Period report' })).toBeVisible();
+  await expect(page.getByText(/Form 251: passengers denied confirmed space/)).toBeVisible();
+  await expect(page.getByTestId('report-day-chart').or(page.getByText(/No compensation in/)).first()).toBeVisible();
+  await shot(page, 'finance-report');
+});
