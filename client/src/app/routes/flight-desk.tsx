@@ -3,10 +3,16 @@ import { Page } from '../../components/ui/page';
 import { FlightDesk } from '../../features/flight-desk/components/flight-desk';
 import { VolunteerRoundsPanel } from '../../features/volunteer-rounds/components/volunteer-rounds-panel';
 import { DeniedBoardingPanel } from '../../features/denials/components/denied-boarding-panel';
+import { CompensationsPanel } from '../../features/desk-compensations/components/compensations-panel';
+import { useQuery } from '@tanstack/react-query';
+import { sessionQueryOptions } from '../../lib/session';
 
 export default function FlightDeskPage() {
   const { flightId } = useParams();
   const id = Number(flightId);
+  // Only agents handle compensation money; the API refuses everyone else, so nobody else gets the panel.
+  const { data: session } = useQuery(sessionQueryOptions());
+  const isAgent = session?.user?.role === 'agent';
   if (!Number.isInteger(id) || id <= 0) {
     return (
       <Page title="Flight desk">
@@ -23,6 +29,7 @@ export default function FlightDeskPage() {
         <VolunteerRoundsPanel flightId={id} station={d.station} forecast={d.forecast} flightLabel={`${d.flight.carrierCode} ${d.flight.flightNumber} to ${d.flight.destination}`} />
       )}
       deniedBoarding={(d) => <DeniedBoardingPanel flightId={id} timeZone={d.station.timeZone} />}
+      compensations={isAgent ? () => <CompensationsPanel flightId={id} /> : undefined}
     />
   );
 }

@@ -19,10 +19,20 @@ import { ShockControl } from './shock-control';
 
 /**
  * The gate agent's main screen for one flight, kept live by the flight's change notices. `volunteerRounds` draws the
- * rounds panel from the loaded desk, `deniedBoarding` the denied-boarding panel: the route composes them, so this
+ * rounds panel from the loaded desk, `deniedBoarding` the denied-boarding panel, `compensations` the money owed: the route composes them, so this
  * feature needs no other feature.
  */
-export function FlightDesk({ flightId, volunteerRounds, deniedBoarding }: { flightId: number; volunteerRounds?: (desk: FlightDeskData) => ReactNode; deniedBoarding?: (desk: FlightDeskData) => ReactNode }) {
+export function FlightDesk({
+  flightId,
+  volunteerRounds,
+  deniedBoarding,
+  compensations,
+}: {
+  flightId: number;
+  volunteerRounds?: (desk: FlightDeskData) => ReactNode;
+  deniedBoarding?: (desk: FlightDeskData) => ReactNode;
+  compensations?: (desk: FlightDeskData) => ReactNode;
+}) {
   const desk = useQuery(flightDeskQueryOptions(flightId));
   const passengers = useQuery(deskPassengersQueryOptions(flightId));
   const history = useQuery(forecastHistoryQueryOptions(flightId));
@@ -65,6 +75,7 @@ export function FlightDesk({ flightId, volunteerRounds, deniedBoarding }: { flig
       </div>
       {volunteerRounds?.(d)}
       {deniedBoarding ? deniedBoarding(d) : <ComingNext what="Denied-boarding review arrives in the next release." />}
+      {compensations?.(d)}
       {passengers.error ? (
         <p role="alert" className="font-bold text-alert">
           The passenger list could not be loaded: {passengers.error.message}

@@ -1,0 +1,76 @@
+import type { DeskCompensation } from '@shared/schemas/finance';
+import { Button } from '../../../components/ui/button';
+import { formatMoney } from '../../../lib/format';
+import { useIssueCompensation } from '../api/compensations';
+import { FORM_LABELS, kindLabel, STATE_LOOK, TONE_CLASS, voucherStep } from '../model/words';
+import { Problem } from './problem';
+import { VoucherPath } from './voucher-path';
+
+/** One passenger's compensation: who, why, how much, in what form, where it stands, and the press that pays it. */
+export function CompensationCard({ flightId, compensation: c }: { flightId: number; compensation: DeskCompensation }) {
+  const issue = useIssueCompensation(flightId);
+  const look = STATE_LOOK[c.state];
+  const amount = formatMoney(c.amountMinor, c.currency);
+  const step = voucherStep(c);
+
+  return (
+    <article data-testid="compensation-row" data-state={c.state} data-pnr={c.pnr} aria-label={`Compensation for ${c.passengerName}`} className="rounded-lg border-2 border-line p-4">
+      <header className="flex flex-wrap items-start justify-between gap-3">
+        <div>
+          <h3 className="text-xl font-bold">
+            {c.passengerName} <span className="font-normal text-ink-soft">· booking {c.pnr}</span>
+          </h3>
+          <p className="text-lg">{kindLabel(c)}</p>
+        </div>
+        <div className="text-right">
+          <p className="text-3xl font-bold" data-testid="compensation-amount">
+            {amount}
+          </p>
+          <p data-testid="compensation-state" className={`mt-1 inline-block rounded-md border-2 px-3 py-1 text-lg font-bold ${TONE_CLASS[look.tone]}`}>
+            <span aria-hidden>{look.icon} </span>
+            {look.text}
+          </p>
+        </div>
+      </header>
+      <dl className="mt-3 grid gap-x-6 gap-y-1 text-lg sm:grid-cols-[max-content_1fr]">
+        <dt className="font-bold">Basis</dt>
+        <dd>
+          {c.band} — {c.ruleRef}
+        </dd>
+        <dt className="font-bold">Why</dt>
+        <dd>{c.voluntary ? 'The volunteer agreed this amount in exchange for the seat.' : 'Set by the station’s regulation for an involuntary denial of boarding.'}</dd>
+        <dt className="font-bold">Form</dt>
+        <dd>{FORM_LABELS[c.form]}</dd>
+        <dt className="font-bold">Status</dt>
+        <dd>{look.detail}</dd>
+        {c.lastError && (
+          <>
+            <dt className="font-bold text-alert">Provider said</dt>
+            <dd className="text-alert">{c.lastError}</dd>
+          </>
+        )}
+        {c.voidReason && (
+          <>
+            <dt className="font-bold">Void reason</dt>
+            <dd>{c.voidReason}</dd>
+          </>
+        )}
+        {c.provider?.last4 && (
+          <>
+            <dt className="font-bold">Card</dt>
+            <dd>ending {c.provider.last4}</dd>
+          </>
+        )}
+      </dl>
+      {c.state === 'due' && (
+        <div className="mt-4">
+          <Button onClick={() => issue.mutate(c.id)} disabled={issue.isPending} className="text-lg">
+            {issue.isPending ? 'Issuing…' : `Issue ${amount} as ${c.form === 'voucher' ? 'a travel voucher' : 'a prepaid card'}`}
+          </Button>
+          <Problem error={issue.error} />
+        </div>
+      )}
+      {step !== 'none' && <VoucherPath flightId={flightId} compensation={c} step={step} />}
+    </article>
+  );
+}
