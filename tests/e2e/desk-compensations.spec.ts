@@ -2,31 +2,11 @@
 // Needs: the app at APP_BASE_URL talking to the payments stand-in (STRIPE_API_URL). The test makes its own
 // compensation on the demo flight ZZ 105 (BOS) through the API: a posted round, one checked-in solo volunteer,
 // accepted. Rounds left open are closed first, and ours is closed at the end.
-import { expect, request, test, type APIRequestContext } from '@playwright/test';
-import { DEMO_PASSWORD, SCREENSHOTS, shot, signIn } from './helpers';
+import { expect, test } from '@playwright/test';
+import { SCREENSHOTS, shot, signIn, staffApi, type Staff } from './helpers';
 
-const BASE_URL = process.env.APP_BASE_URL ?? 'http://127.0.0.1:4700';
 const FLIGHT = { carrier: 'ZZ', number: '105', label: 'ZZ 105' };
 
-interface Staff {
-  api: APIRequestContext;
-  post: (path: string, data?: unknown) => Promise<{ status: number; body: unknown }>;
-}
-
-async function staffApi(email: string): Promise<Staff> {
-  const api = await request.newContext({ baseURL: BASE_URL });
-  const session = await (await api.get('/api/auth/session')).json();
-  const signedIn = await api.post('/api/auth/sign-in', { headers: { 'X-CSRF-Token': session.csrfToken }, data: { email, password: DEMO_PASSWORD } });
-  expect(signedIn.ok()).toBe(true);
-  const csrf: string = (await signedIn.json()).csrfToken;
-  return {
-    api,
-    post: async (path, data = {}) => {
-      const res = await api.post(`/api${path}`, { headers: { 'X-CSRF-Token': csrf }, data });
-      return { status: res.status(), body: await res.json().catch(() => null) };
-    },
-  };
-}
 
 interface Rounds { rounds: { id: number; status: string; volunteers: { bookingId: number }[] }[]; policy: { ladderMinor: number[]; currency: string } }
 

@@ -1,4 +1,4 @@
-import { expect, type Page } from '@playwright/test';
+import { expect, request, type APIRequestContext, type Page } from '@playwright/test';
 
 export const DEMO_PASSWORD = 'bumpboard-demo-2026';
 export const SCREENSHOTS = 'test-results/screenshots';
@@ -13,4 +13,29 @@ export async function signIn(page: Page, email: string, password = DEMO_PASSWORD
 
 export async function shot(page: Page, name: string) {
   await page.screenshot({ path: `${SCREENSHOTS}/${name}.png`, fullPage: true });
+}
+
+/** A staff member's API session for setting a scene (signed in, with the CSRF token on every POST). */
+export interface Staff {
+  api: APIRequestContext;
+  csrf: string;
+  post: (path: string, data?: unknown) => Promise<{ status: number; body: unknown }>;
+  dispose: () => Promise<void>;
+}
+
+export async function staffApi(email: string): Promise<Staff> {
+  const api = await request.newContext({ baseURL: process.env.APP_BASE_URL ?? 'http://127.0.0.1:4700' });
+  const session = await (await api.get('/api/auth/session')).json();
+  const signedIn = await api.post('/api/auth/sign-in', { headers: { 'X-CSRF-Token': session.csrfToken }, data: { email, password: DEMO_PASSWORD } });
+  expect(signedIn.ok()).toBe(true);
+  const csrf: string = (await signedIn.json()).csrfToken;
+  return {
+    api,
+    csrf,
+    post: async (path, data = {}) => {
+      const res = await api.post(`/api${path}`, { headers: { 'X-CSRF-Token': csrf }, data });
+      return { status: res.status(), body: await res.json().catch(() => null) };
+    },
+    dispose: () => api.dispose(),
+  };
 }

@@ -1,5 +1,5 @@
-import { expect, request, test, type APIRequestContext, type Browser, type Page } from '@playwright/test';
-import { DEMO_PASSWORD, SCREENSHOTS, shot, signIn } from './helpers';
+import { expect, request, test, type Browser, type Page } from '@playwright/test';
+import { SCREENSHOTS, shot, signIn, staffApi, type Staff } from './helpers';
 
 const BASE_URL = process.env.APP_BASE_URL ?? 'http://127.0.0.1:4700';
 /** The demo's oversold flight at BOS (165 booked on 150 seats). */
@@ -7,29 +7,6 @@ const FLIGHT = { carrier: 'ZZ', number: '105', label: 'ZZ 105' };
 /** A phone held by a passenger at the gate. */
 const PHONE = { viewport: { width: 390, height: 844 }, deviceScaleFactor: 2, isMobile: true, hasTouch: true };
 
-interface Staff {
-  api: APIRequestContext;
-  csrf: string;
-  post: (path: string, data?: unknown) => Promise<{ status: number; body: unknown }>;
-  dispose: () => Promise<void>;
-}
-
-async function staffApi(email: string): Promise<Staff> {
-  const api = await request.newContext({ baseURL: BASE_URL });
-  const session = await (await api.get('/api/auth/session')).json();
-  const signedIn = await api.post('/api/auth/sign-in', { headers: { 'X-CSRF-Token': session.csrfToken }, data: { email, password: DEMO_PASSWORD } });
-  expect(signedIn.ok()).toBe(true);
-  const csrf: string = (await signedIn.json()).csrfToken;
-  return {
-    api,
-    csrf,
-    post: async (path, data = {}) => {
-      const res = await api.post(`/api${path}`, { headers: { 'X-CSRF-Token': csrf }, data });
-      return { status: res.status(), body: await res.json().catch(() => null) };
-    },
-    dispose: () => api.dispose(),
-  };
-}
 
 /** As the client writes amounts: en-US currency format of minor units (BOS works in USD, two decimals). */
 const moneyText = (minor: number, currency: string) => new Intl.NumberFormat('en-US', { style: 'currency', currency }).format(minor / 100);
