@@ -55,19 +55,24 @@ describe('sign-in', () => {
     expect(res.body.user.email).toBe(DEMO.supervisor);
   });
 
-  it('issues a new session id at sign-in, so a planted pre-sign-in cookie is worthless (session fixation)', async () => {
-    const c = new Client(t.app);
-    const pre = await c.agent.get('/api/auth/session').expect(200);
-    const preCookie = sessionCookie(pre);
-    expect(preCookie).toBeDefined();
-    const res = await c.agent.post('/api/auth/sign-in').set('X-CSRF-Token', pre.body.csrfToken).send({ email: DEMO.finance, password: DEMO_PASSWORD });
-    expect(res.status).toBe(200);
+  // OWASP ASVS 5.0 V7.2.4 (from memory): a new session token is issued at authentication.
+  it('issues a new session id at sign-in, so a planted session cookie is worthless (session fixation)', async () => {
+    // Nothing is stored before sign-in, so the only session id an attacker can plant is one of their own.
+    const attacker = await signedIn(t, DEMO.agent);
+    const planted = await attacker.get('/api/auth/session').expect(200);
+    const plantedCookie = cookiePair(sessionCookie(planted) ?? '');
+    expect(plantedCookie).not.toBe('');
 
-    expect(sessionIdFrom(res)).not.toBe(sessionIdFrom(pre));
-    expect(await storedSessions(sessionIdFrom(pre))).toBe(0);
-    const replay = await request(t.app).get('/api/stations').set('Cookie', cookiePair(preCookie ?? ''));
-    expect(replay.status).toBe(401);
-    await c.get('/api/stations').expect(200);
+    const victim = new Client(t.app);
+    const pre = await victim.agent.get('/api/auth/session').set('Cookie', plantedCookie).expect(200);
+    const res = await victim.agent.post('/api/auth/sign-in').set('Cookie', [plantedCookie, ...((pre.headers['set-cookie'] as unknown as string[] | undefined) ?? []).map(cookiePair)].join('; ')).set('X-CSRF-Token', pre.body.csrfToken).send({ email: DEMO.finance, password: DEMO_PASSWORD });
+    expect(res.status, JSON.stringify(res.body)).toBe(200);
+
+    expect(sessionIdFrom(res)).not.toBe(sessionIdFrom(planted));
+    // The planted id still belongs to the attacker, never to the finance user who signed in on top of it.
+    const replay = await request(t.app).get('/api/auth/session').set('Cookie', plantedCookie);
+    expect(replay.body.user?.email).not.toBe(DEMO.finance);
+    expect(await storedSessions(sessionIdFrom(res))).toBe(1);
   });
 
   it('sets the session cookie HttpOnly and SameSite=Lax, expiring after the 30-minute idle limit', async () => {
