@@ -99,6 +99,7 @@ describe('failed sign-in', () => {
   });
 });
 
+// OWASP ASVS 5.0 V7.4.1 (sign-out ends the session on the server), number from memory.
 describe('sign-out', () => {
   it('ends the session on the server: the next protected call is 401 and the old cookie is worthless', async () => {
     const c = await signedIn(t, DEMO.supervisor);
@@ -119,6 +120,7 @@ describe('sign-out', () => {
   });
 });
 
+// OWASP ASVS 5.0 V3.5.1 (cross-site request forgery defences), number from memory.
 describe('CSRF synchronizer token', () => {
   const credentials = { email: DEMO.agent, password: DEMO_PASSWORD };
 
@@ -166,6 +168,7 @@ describe('CSRF synchronizer token', () => {
   });
 });
 
+// OWASP ASVS 5.0 V7.4.2 (a disabled account's sessions end at once), number from memory.
 describe('deactivation', () => {
   it("ends every live session of the user at once and refuses their next sign-in like a wrong password", async () => {
     const user = await insertUser(t.db, { label: 'deactivated', role: 'agent', stationIds: [bosId] });
