@@ -5,7 +5,7 @@ import path from 'node:path';
 import { existsSync } from 'node:fs';
 import type { DataSource } from 'typeorm';
 import type { Env } from './config/env';
-import { csrfSynchronisedProtection } from './http/csrf';
+import { createCsrf } from './http/csrf';
 import { errorHandler } from './http/error-handler';
 import { notFound } from './http/errors';
 import type { SessionSetup } from './http/session';
@@ -36,8 +36,10 @@ export interface AppDeps {
   session: SessionSetup;
   throttle: SignInThrottle;
   demo: boolean;
-  /** Called when a user must lose every live connection at once (sign-out, deactivation). */
+  /** Called when a user must lose every live connection at once (sign-out, deactivation, a new password). */
   disconnectUser?: (userId: number) => void;
+  /** Called when a user's stations or role changed: live connections drop what the user may no longer watch. */
+  userAccessChanged?: (userId: number) => void;
   /** Tells live consoles what changed; silent in tests that do not watch sockets. */
   publisher?: Publisher;
   /** Coalesced forecast recomputes; built here when the caller does not bring one. */
@@ -49,7 +51,9 @@ export interface AppDeps {
 /** Builds the whole HTTP app without listening, so tests run it in-process on port 0. */
 export function createApp(deps: AppDeps) {
   const app = express();
-  app.set('trust proxy', 'loopback');
+  // Which proxies may name the client's address is configuration (default none): the sign-in throttle and the logs use
+  // req.ip, and trusting X-Forwarded-For from anyone would let a client choose the address it is throttled as.
+  app.set('trust proxy', deps.env.TRUST_PROXY);
   app.disable('x-powered-by');
   app.use(helmet({ contentSecurityPolicy: { directives: { 'upgrade-insecure-requests': null, 'img-src': ["'self'", 'data:'] } } }));
 
@@ -71,13 +75,14 @@ export function createApp(deps: AppDeps) {
   app.use('/api/integrations', integrationEventsRouter({ db: deps.db, onFlightsChanged: (ids) => ids.forEach((id) => forecast.markDirty(id)) }));
 
   configurePassport(deps.db);
+  const csrf = createCsrf(deps.env);
   const api = Router();
   api.use(express.json({ limit: '1mb' }));
   api.use(deps.session.middleware, deps.session.enforceAbsoluteTimeout);
   api.use(passport.session());
-  api.use(csrfSynchronisedProtection);
-  api.use('/auth', authRouter({ db: deps.db, throttle: deps.throttle, demo: deps.demo, onSignOut: deps.disconnectUser }));
-  api.use('/users', usersRouter({ db: deps.db, onUserLockedOut: deps.disconnectUser }));
+  api.use(csrf.protection);
+  api.use('/auth', authRouter({ db: deps.db, throttle: deps.throttle, csrf, cookieName: deps.session.cookieName, demo: deps.demo, onSignOut: deps.disconnectUser }));
+  api.use('/users', usersRouter({ db: deps.db, throttle: deps.throttle, onUserSignedOut: deps.disconnectUser, onUserAccessChanged: deps.userAccessChanged }));
   api.use(volunteersRouter({ db: deps.db, secret: deps.env.SESSION_SECRET, appBaseUrl: deps.env.APP_BASE_URL, changed }));
   api.use(denialsRouter({ db: deps.db, changed }));
   api.use(payments.compensationsRouter());

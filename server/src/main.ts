@@ -5,7 +5,7 @@ import { createDataSource } from './db/data-source';
 import { createApp } from './app';
 import { createSessionSetup } from './http/session';
 import { createSignInThrottle } from './modules/auth/throttle';
-import { createSocketServer, disconnectUserSockets, type AppIo } from './realtime/socket-server';
+import { createSocketServer, disconnectUserSockets, refreshUserSockets, type AppIo } from './realtime/socket-server';
 import { socketPublisher } from './realtime/publisher';
 import { createForecastScheduler } from './modules/forecast/forecast-scheduler';
 import { createMailTransport } from './integrations/mail/mail-transport';
@@ -33,9 +33,13 @@ const app = createApp({
   env,
   db,
   session,
-  throttle: createSignInThrottle(),
+  // Counts kept in MariaDB: a restart or a second server process does not hand a guesser a fresh allowance.
+  throttle: createSignInThrottle({ mysql: { pool: session.pool.pool, dbName: session.dbName } }),
   demo: env.NODE_ENV !== 'production',
   disconnectUser: (id) => ioRef.io && disconnectUserSockets(ioRef.io, id),
+  userAccessChanged: (id) => {
+    if (ioRef.io) refreshUserSockets(ioRef.io, db, id).catch((err: unknown) => console.error(`[server] could not refresh the sockets of user ${id}: ${String(err)}`));
+  },
 });
 const http = createServer(app);
 ioRef.io = createSocketServer(http, { db, sessionMiddleware: session.middleware });

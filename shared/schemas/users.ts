@@ -11,6 +11,8 @@ export const createUserBodySchema = z.object({
   role: roleSchema,
   stationIds: z.array(z.number().int().positive()).min(1, 'stationIds must name at least one station'),
   password: passwordSchema,
+  /** Only a carrier-wide admin may grant it, and only to an admin. */
+  carrierWide: z.boolean({ error: 'carrierWide must be true or false' }).optional(),
 });
 export type CreateUserBody = z.infer<typeof createUserBodySchema>;
 
@@ -21,6 +23,7 @@ export const updateUserBodySchema = z
     stationIds: z.array(z.number().int().positive()).min(1, 'stationIds must name at least one station'),
     active: z.boolean({ error: 'active must be true or false' }),
     password: passwordSchema,
+    carrierWide: z.boolean({ error: 'carrierWide must be true or false' }),
   })
   .partial()
   .refine((v) => Object.keys(v).length > 0, 'the body must change at least one field');
@@ -32,8 +35,15 @@ export const userSchema = z.object({
   displayName: z.string(),
   role: roleSchema,
   active: z.boolean(),
+  /** For a station admin, only the stations the two of them share. */
   stations: z.array(stationRefSchema),
+  /** How many of the user's stations lie outside the viewer's scope (their names are not shown). */
+  otherStations: z.number().int(),
+  carrierWide: z.boolean(),
+  /** Whether the viewer may change this user: every station of the user lies within the viewer's scope. */
+  manageable: z.boolean(),
   createdAt: z.string(),
 });
 export type User = z.infer<typeof userSchema>;
-export const userListSchema = z.object({ users: z.array(userSchema) });
+export const userListSchema = z.object({ users: z.array(userSchema), viewer: z.object({ carrierWide: z.boolean() }) });
+export type UserList = z.infer<typeof userListSchema>;

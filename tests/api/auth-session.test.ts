@@ -30,6 +30,7 @@ async function storedExpiryMs(sessionId: string): Promise<number | undefined> {
   return rows[0] ? Number(rows[0].expires) * 1000 : undefined;
 }
 
+// OWASP ASVS 5.0 V7.3.1 (inactivity timeout enforced on the server), number from memory.
 describe('idle timeout', () => {
   it('stores the idle deadline with the session on the server', async () => {
     const { sessionId } = await signedInSession(DEMO.agent);
@@ -56,6 +57,7 @@ describe('idle timeout', () => {
   });
 });
 
+// OWASP ASVS 5.0 V7.3.2 (absolute maximum session lifetime), number from memory.
 describe('absolute timeout', () => {
   async function signedInAgo(ms: number) {
     const s = await signedInSession(DEMO.finance);
@@ -86,6 +88,7 @@ describe('absolute timeout', () => {
   });
 });
 
+// OWASP ASVS 5.0 V3.4 (browser security headers), number from memory.
 describe('hardening headers (helmet)', () => {
   it.each([
     ['a public answer', '/api/auth/session', 200],

@@ -55,19 +55,24 @@ describe('sign-in', () => {
     expect(res.body.user.email).toBe(DEMO.supervisor);
   });
 
-  it('issues a new session id at sign-in, so a planted pre-sign-in cookie is worthless (session fixation)', async () => {
-    const c = new Client(t.app);
-    const pre = await c.agent.get('/api/auth/session').expect(200);
-    const preCookie = sessionCookie(pre);
-    expect(preCookie).toBeDefined();
-    const res = await c.agent.post('/api/auth/sign-in').set('X-CSRF-Token', pre.body.csrfToken).send({ email: DEMO.finance, password: DEMO_PASSWORD });
-    expect(res.status).toBe(200);
+  // OWASP ASVS 5.0 V7.2.4 (from memory): a new session token is issued at authentication.
+  it('issues a new session id at sign-in, so a planted session cookie is worthless (session fixation)', async () => {
+    // Nothing is stored before sign-in, so the only session id an attacker can plant is one of their own.
+    const attacker = await signedIn(t, DEMO.agent);
+    const planted = await attacker.get('/api/auth/session').expect(200);
+    const plantedCookie = cookiePair(sessionCookie(planted) ?? '');
+    expect(plantedCookie).not.toBe('');
 
-    expect(sessionIdFrom(res)).not.toBe(sessionIdFrom(pre));
-    expect(await storedSessions(sessionIdFrom(pre))).toBe(0);
-    const replay = await request(t.app).get('/api/stations').set('Cookie', cookiePair(preCookie ?? ''));
-    expect(replay.status).toBe(401);
-    await c.get('/api/stations').expect(200);
+    const victim = new Client(t.app);
+    const pre = await victim.agent.get('/api/auth/session').set('Cookie', plantedCookie).expect(200);
+    const res = await victim.agent.post('/api/auth/sign-in').set('Cookie', [plantedCookie, ...((pre.headers['set-cookie'] as unknown as string[] | undefined) ?? []).map(cookiePair)].join('; ')).set('X-CSRF-Token', pre.body.csrfToken).send({ email: DEMO.finance, password: DEMO_PASSWORD });
+    expect(res.status, JSON.stringify(res.body)).toBe(200);
+
+    expect(sessionIdFrom(res)).not.toBe(sessionIdFrom(planted));
+    // The planted id still belongs to the attacker, never to the finance user who signed in on top of it.
+    const replay = await request(t.app).get('/api/auth/session').set('Cookie', plantedCookie);
+    expect(replay.body.user?.email).not.toBe(DEMO.finance);
+    expect(await storedSessions(sessionIdFrom(res))).toBe(1);
   });
 
   it('sets the session cookie HttpOnly and SameSite=Lax, expiring after the 30-minute idle limit', async () => {
@@ -94,6 +99,7 @@ describe('failed sign-in', () => {
   });
 });
 
+// OWASP ASVS 5.0 V7.4.1 (sign-out ends the session on the server), number from memory.
 describe('sign-out', () => {
   it('ends the session on the server: the next protected call is 401 and the old cookie is worthless', async () => {
     const c = await signedIn(t, DEMO.supervisor);
@@ -114,6 +120,7 @@ describe('sign-out', () => {
   });
 });
 
+// OWASP ASVS 5.0 V3.5.1 (cross-site request forgery defences), number from memory.
 describe('CSRF synchronizer token', () => {
   const credentials = { email: DEMO.agent, password: DEMO_PASSWORD };
 
@@ -161,6 +168,7 @@ describe('CSRF synchronizer token', () => {
   });
 });
 
+// OWASP ASVS 5.0 V7.4.2 (a disabled account's sessions end at once), number from memory.
 describe('deactivation', () => {
   it("ends every live session of the user at once and refuses their next sign-in like a wrong password", async () => {
     const user = await insertUser(t.db, { label: 'deactivated', role: 'agent', stationIds: [bosId] });

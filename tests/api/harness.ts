@@ -9,6 +9,7 @@ import { createDataSource } from '../../server/src/db/data-source';
 import { createApp } from '../../server/src/app';
 import { createSessionSetup } from '../../server/src/http/session';
 import { createSignInThrottle, type SignInThrottle } from '../../server/src/modules/auth/throttle';
+import { createSocketServer, disconnectUserSockets, refreshUserSockets, type AppIo } from '../../server/src/realtime/socket-server';
 
 export const DEMO_PASSWORD = 'bumpboard-demo-2026';
 
@@ -17,16 +18,36 @@ export interface TestApp {
   db: DataSource;
   http: Server;
   baseUrl: string;
+  /** The socket server, when asked for: wired like the real one to sign-out, deactivation and access changes. */
+  io?: AppIo;
   close(): Promise<void>;
 }
 
-export async function startTestApp(opts: { throttle?: SignInThrottle } = {}): Promise<TestApp> {
-  const env = loadEnv({ ...process.env, NODE_ENV: 'test', SESSION_SECRET: process.env.SESSION_SECRET ?? 'test-secret-test-secret-test-secret-42', STATIC_DIR: 'no-static-in-api-tests' });
+export interface TestAppOptions {
+  throttle?: SignInThrottle;
+  /** Environment overrides, e.g. TRUST_PROXY or NODE_ENV. */
+  env?: Record<string, string>;
+  sockets?: boolean;
+}
+
+export async function startTestApp(opts: TestAppOptions = {}): Promise<TestApp> {
+  // The API tests stand for clients at many addresses behind one loopback proxy, unless a test says otherwise.
+  const env = loadEnv({ ...process.env, NODE_ENV: 'test', TRUST_PROXY: 'loopback', SESSION_SECRET: process.env.SESSION_SECRET ?? 'test-secret-test-secret-test-secret-42', STATIC_DIR: 'no-static-in-api-tests', ...opts.env });
   const db = createDataSource(env.DATABASE_URL);
   await db.initialize();
   const session = createSessionSetup(env);
-  const app = createApp({ env, db, session, throttle: opts.throttle ?? createSignInThrottle({ perAccount: 1000, perAddress: 10_000 }), demo: true });
+  const ioRef: { io?: AppIo } = {};
+  const app = createApp({
+    env,
+    db,
+    session,
+    throttle: opts.throttle ?? createSignInThrottle({ perAccount: 1000, perAddress: 10_000 }),
+    demo: true,
+    disconnectUser: (id) => ioRef.io && disconnectUserSockets(ioRef.io, id),
+    userAccessChanged: (id) => void (ioRef.io && refreshUserSockets(ioRef.io, db, id)),
+  });
   const http = createServer(app);
+  if (opts.sockets) ioRef.io = createSocketServer(http, { db, sessionMiddleware: session.middleware });
   await new Promise<void>((r) => http.listen(0, '127.0.0.1', r));
   const baseUrl = `http://127.0.0.1:${(http.address() as AddressInfo).port}`;
   return {
@@ -34,7 +55,9 @@ export async function startTestApp(opts: { throttle?: SignInThrottle } = {}): Pr
     db,
     http,
     baseUrl,
+    io: ioRef.io,
     async close() {
+      if (ioRef.io) await ioRef.io.close();
       await new Promise((r) => http.close(r));
       await session.close();
       await db.destroy();

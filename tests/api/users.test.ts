@@ -149,11 +149,16 @@ describe('changing a user', () => {
     expect(stored.stations.map((s: { iata: string }) => s.iata)).toEqual(['BOS']);
   });
 
-  it('keeps the stations the admin does not hold when it sets the user’s stations', async () => {
+  // OWASP ASVS 5.0 V8.2.2 (from memory): data-specific access; a station admin manages only users wholly inside their stations.
+  it('refuses to change a user who also holds a station the admin does not, changing nothing', async () => {
     const user = await insertUser(t.db, { label: 'shared', role: 'agent', stationIds: [station.BOS, station.YUL] });
     const res = await admin.patch(`/api/users/${user.id}`, { stationIds: [station.FCO] });
-    expect(res.status).toBe(200);
-    expect(res.body.stations.map((s: { iata: string }) => s.iata)).toEqual(['FCO', 'YUL']);
+    expect(res.status).toBe(403);
+    expect(res.body.error).toBe('forbidden');
+    const list = await admin.get('/api/users').expect(200);
+    const shown = list.body.users.find((u: { id: number }) => u.id === user.id);
+    expect(shown).toMatchObject({ manageable: false, otherStations: 1 });
+    expect(shown.stations.map((s: { iata: string }) => s.iata)).toEqual(['BOS']);
   });
 
   it.each([

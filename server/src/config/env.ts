@@ -1,28 +1,59 @@
 // The only place the server reads its environment: parsed once, failing fast with one clear line.
+import { isIP } from 'node:net';
 import { z } from 'zod';
 
-const envSchema = z.object({
-  NODE_ENV: z.enum(['development', 'test', 'production']).default('development'),
-  PORT: z.coerce.number().int().min(0).max(65535).default(4600),
-  HOST: z.string().default('127.0.0.1'),
-  DATABASE_URL: z.string().regex(/^(mariadb|mysql):\/\//, 'DATABASE_URL must start with mariadb:// or mysql://'),
-  SESSION_SECRET: z.string().min(32, 'SESSION_SECRET must be at least 32 characters'),
-  APP_BASE_URL: z.url().default('http://127.0.0.1:4600'),
-  SESSION_IDLE_MINUTES: z.coerce.number().int().positive().default(30),
-  SESSION_ABSOLUTE_HOURS: z.coerce.number().int().positive().default(12),
-  SMTP_HOST: z.string().default('127.0.0.1'),
-  SMTP_PORT: z.coerce.number().int().positive().default(4625),
-  SMTP_SECURE: z.enum(['true', 'false']).default('false').transform((v) => v === 'true'),
-  MAIL_FROM: z.string().default('Bumpboard <no-reply@bumpboard.test>'),
-  STRIPE_SECRET_KEY: z.string().default('sk_test_local'),
-  /** Empty means the real Stripe API; otherwise e.g. http://127.0.0.1:4602 for the local stand-in. */
-  STRIPE_API_URL: z.string().default(''),
-  STRIPE_WEBHOOK_SECRET: z.string().default('whsec_local_development_secret'),
-  STATIC_DIR: z.string().default('dist/client'),
-  LOG_REQUESTS: z.enum(['true', 'false']).default('false').transform((v) => v === 'true'),
-});
+/** Well-known values that must never protect a production deployment: the built-in defaults and the test harness's. */
+const DEV_DEFAULTS = { STRIPE_SECRET_KEY: 'sk_test_local', STRIPE_WEBHOOK_SECRET: 'whsec_local_development_secret' } as const;
+const KNOWN_NON_SECRETS = new Set(['test-secret-test-secret-test-secret-42', 'sk_test_local', 'sk_test_local_stand_in', 'whsec_local_development_secret']);
+const PROXY_NAMES = new Set(['loopback', 'linklocal', 'uniquelocal']);
 
-export type Env = z.infer<typeof envSchema>;
+/**
+ * Which proxies may tell us the client's address (X-Forwarded-For). Default none: the address is the socket's peer.
+ * A hop count ("1"), or a comma list of addresses, CIDR ranges and Express's names loopback, linklocal, uniquelocal.
+ */
+const trustProxySchema = z
+  .string()
+  .default('')
+  .transform((v) => v.trim())
+  .refine((v) => v === '' || /^\d+$/.test(v) || v.split(',').every((p) => PROXY_NAMES.has(p.trim()) || isIP(p.trim().split('/')[0]) !== 0), {
+    message: 'TRUST_PROXY must be empty, a hop count, or a comma list of addresses, CIDR ranges, loopback, linklocal, uniquelocal',
+  })
+  .transform((v): false | number | string[] => (v === '' ? false : /^\d+$/.test(v) ? Number(v) : v.split(',').map((p) => p.trim())));
+
+const envSchema = z
+  .object({
+    NODE_ENV: z.enum(['development', 'test', 'production']).default('development'),
+    PORT: z.coerce.number().int().min(0).max(65535).default(4600),
+    HOST: z.string().default('127.0.0.1'),
+    DATABASE_URL: z.string().regex(/^(mariadb|mysql):\/\//, 'DATABASE_URL must start with mariadb:// or mysql://'),
+    SESSION_SECRET: z.string().min(32, 'SESSION_SECRET must be at least 32 characters'),
+    APP_BASE_URL: z.url().default('http://127.0.0.1:4600'),
+    SESSION_IDLE_MINUTES: z.coerce.number().int().positive().default(30),
+    SESSION_ABSOLUTE_HOURS: z.coerce.number().int().positive().default(12),
+    TRUST_PROXY: trustProxySchema,
+    SMTP_HOST: z.string().default('127.0.0.1'),
+    SMTP_PORT: z.coerce.number().int().positive().default(4625),
+    SMTP_SECURE: z.enum(['true', 'false']).default('false').transform((v) => v === 'true'),
+    MAIL_FROM: z.string().default('Bumpboard <no-reply@bumpboard.test>'),
+    STRIPE_SECRET_KEY: z.string().min(1).optional(),
+    /** Empty means the real Stripe API; otherwise e.g. http://127.0.0.1:4602 for the local stand-in. */
+    STRIPE_API_URL: z.string().default(''),
+    STRIPE_WEBHOOK_SECRET: z.string().min(1).optional(),
+    STATIC_DIR: z.string().default('dist/client'),
+    LOG_REQUESTS: z.enum(['true', 'false']).default('false').transform((v) => v === 'true'),
+  })
+  .superRefine((v, ctx) => {
+    if (v.NODE_ENV !== 'production') return;
+    // In production every secret comes from the environment, and none may be a value published in this repository.
+    for (const name of ['SESSION_SECRET', 'STRIPE_SECRET_KEY', 'STRIPE_WEBHOOK_SECRET'] as const) {
+      const value = v[name];
+      if (value === undefined) ctx.addIssue({ code: 'custom', path: [name], message: `${name} must be set in the environment in production` });
+      else if (KNOWN_NON_SECRETS.has(value)) ctx.addIssue({ code: 'custom', path: [name], message: `${name} is a development or test value and may not be used in production` });
+    }
+  })
+  .transform((v) => ({ ...v, STRIPE_SECRET_KEY: v.STRIPE_SECRET_KEY ?? DEV_DEFAULTS.STRIPE_SECRET_KEY, STRIPE_WEBHOOK_SECRET: v.STRIPE_WEBHOOK_SECRET ?? DEV_DEFAULTS.STRIPE_WEBHOOK_SECRET }));
+
+export type Env = z.output<typeof envSchema>;
 
 export function loadEnv(source: NodeJS.ProcessEnv = process.env): Env {
   const parsed = envSchema.safeParse(source);

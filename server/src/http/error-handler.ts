@@ -1,30 +1,52 @@
 import type { ErrorRequestHandler } from 'express';
-import { HttpError } from './errors';
+import { HttpError, RetryLaterError } from './errors';
 
-/** Registered last: the only place a failure becomes a response. Never leaks a stack trace. */
+interface Known {
+  error: string;
+  message: string;
+  field?: string;
+  rule?: string;
+}
+
+// Failures raised by middleware we do not own (body-parser, its decompression, csrf-sync) answered in our own words:
+// their text names library internals and goes to the log only.
+const BY_TYPE: Record<string, Known> = {
+  'entity.parse.failed': { error: 'malformed_json', message: 'The request body is not valid JSON.', field: 'body', rule: 'must be valid JSON' },
+  'entity.too.large': { error: 'body_too_large', message: 'The request body is larger than this route accepts.', field: 'body', rule: 'must not exceed the size limit' },
+  'encoding.unsupported': { error: 'unsupported_encoding', message: 'The request body is compressed in a way this server does not accept.', field: 'Content-Encoding', rule: 'must be identity, gzip or deflate' },
+  'charset.unsupported': { error: 'unsupported_charset', message: 'The request body is in a character set this server does not accept.', field: 'Content-Type', rule: 'charset must be utf-8' },
+  'request.aborted': { error: 'request_aborted', message: 'The request ended before its body was complete.', field: 'body', rule: 'must arrive complete' },
+  'request.size.invalid': { error: 'body_length_mismatch', message: 'The request body is not as long as its Content-Length says.', field: 'Content-Length', rule: 'must match the body' },
+  'parameters.too.many': { error: 'too_many_parameters', message: 'The request body has too many parameters.', field: 'body', rule: 'must not exceed the parameter limit' },
+};
+const CORRUPT_BODY: Known = { error: 'malformed_body', message: 'The request body could not be read (a damaged compressed stream, for example).', field: 'body', rule: 'must be readable as sent' };
+const GENERIC_4XX: Known = { error: 'invalid_request', message: 'The request could not be accepted as sent.' };
+
+function known(err: { type?: unknown; code?: unknown; errno?: unknown }): Known {
+  if (typeof err.type === 'string' && BY_TYPE[err.type]) return BY_TYPE[err.type];
+  // zlib's failures (Z_DATA_ERROR, Z_BUF_ERROR …) while inflating a body that claimed to be compressed.
+  if (typeof err.code === 'string' && err.code.startsWith('Z_')) return CORRUPT_BODY;
+  return GENERIC_4XX;
+}
+
+/** Registered last: the only place a failure becomes a response. Every body is ours; never a stack or a library's text. */
 export function errorHandler(log: (msg: string) => void = console.error): ErrorRequestHandler {
-  return (err, _req, res, _next) => {
+  return (err, req, res, _next) => {
     if (err instanceof HttpError) {
+      if (err.cause !== undefined) log(`[server] ${req.method} ${req.path} ${err.status} ${err.code}: ${String((err.cause as Error)?.message ?? err.cause)}`);
+      if (err instanceof RetryLaterError) res.set('Retry-After', String(err.retryAfterSeconds));
       res.status(err.status).json({ error: err.code, message: err.message, ...(err.details ? { details: err.details } : {}) });
       return;
     }
-    // Failures raised by middleware we do not own (body parser, csrf-sync, multer) carry a status of their own.
     const status = typeof err?.status === 'number' ? err.status : typeof err?.statusCode === 'number' ? err.statusCode : 500;
     if (status === 403 && err?.code === 'EBADCSRFTOKEN') {
       res.status(403).json({ error: 'csrf_token_invalid', message: 'The form was stale or not from this app. Reload the page and try again.' });
       return;
     }
     if (status >= 400 && status < 500) {
-      // Body-parser failures name the body as the field, like every other 400, so clients read one shape.
-      if (err?.type === 'entity.parse.failed') {
-        res.status(status).json({ error: 'malformed_json', message: 'The request body is not valid JSON.', details: [{ field: 'body', rule: 'must be valid JSON' }] });
-        return;
-      }
-      if (err?.type === 'entity.too.large') {
-        res.status(status).json({ error: 'body_too_large', message: 'The request body is larger than this route accepts.', details: [{ field: 'body', rule: 'must not exceed the size limit' }] });
-        return;
-      }
-      res.status(status).json({ error: 'invalid_request', message: String(err?.message ?? 'Bad request') });
+      const k = known(err ?? {});
+      if (k === GENERIC_4XX || k === CORRUPT_BODY) log(`[server] ${req.method} ${req.path} ${status} ${k.error}: ${String(err?.message ?? err)}`);
+      res.status(status).json({ error: k.error, message: k.message, ...(k.field ? { details: [{ field: k.field, rule: k.rule }] } : {}) });
       return;
     }
     log(`[server] unexpected error: ${err?.stack ?? err}`);

@@ -1,5 +1,6 @@
 // socket.io shares the sign-in session: a handshake without a signed-in user is refused, and a user joins only the
-// rooms of flights at their own stations.
+// rooms of flights at their own stations. Each watch request checks the user as stored now, not as they were when
+// the socket opened, and a change of stations or role makes open sockets leave what the user may no longer watch.
 import type { Server as HttpServer } from 'node:http';
 import type { RequestHandler } from 'express';
 import passport from 'passport';
@@ -8,9 +9,17 @@ import type { DataSource } from 'typeorm';
 import { SOCKET_EVENTS, flightRoom, stationRoom, type ClientToServerEvents, type ServerToClientEvents } from '@shared/events';
 import { FlightEntity } from '../db/entities';
 import { canSeeStation } from '../http/require-role';
+import { loadActiveSessionUser } from '../modules/auth/session-user';
 
-type AppSocket = Socket<ClientToServerEvents, ServerToClientEvents>;
-export type AppIo = Server<ClientToServerEvents, ServerToClientEvents>;
+interface SocketData {
+  userId: number;
+  /** The station behind each flight room joined, so a change of stations knows which flight rooms to leave. */
+  flightStations: Record<number, number>;
+}
+type AppSocket = Socket<ClientToServerEvents, ServerToClientEvents, Record<string, never>, SocketData>;
+export type AppIo = Server<ClientToServerEvents, ServerToClientEvents, Record<string, never>, SocketData>;
+
+const userRoom = (userId: number) => `user:${userId}`;
 
 function onlyForHandshake(middleware: RequestHandler) {
   return (req: { _query?: Record<string, string> } & Parameters<RequestHandler>[0], res: Parameters<RequestHandler>[1], next: (err?: unknown) => void) => {
@@ -27,22 +36,34 @@ export function createSocketServer(http: HttpServer, deps: { db: DataSource; ses
   io.use((socket, next) => {
     const user = (socket.request as unknown as { user?: Express.User }).user;
     if (!user) return next(new Error('not_signed_in'));
-    socket.data.user = user;
+    socket.data.userId = user.id;
+    socket.data.flightStations = {};
     next();
   });
 
   io.on('connection', (socket: AppSocket) => {
-    const user = socket.data.user as Express.User;
-    socket.join(`user:${user.id}`);
-    socket.on(SOCKET_EVENTS.watchStation, (stationId, ack) => {
-      const ok = typeof stationId === 'number' && canSeeStation(user, stationId);
+    const userId = socket.data.userId;
+    socket.join(userRoom(userId));
+    // The user as stored now: a station taken away a moment ago is refused, and a deactivated user is let go.
+    const currentUser = async () => {
+      const user = await loadActiveSessionUser(deps.db, userId);
+      if (!user) socket.disconnect(true);
+      return user;
+    };
+    socket.on(SOCKET_EVENTS.watchStation, async (stationId, ack) => {
+      const user = await currentUser();
+      const ok = Boolean(user && typeof stationId === 'number' && canSeeStation(user, stationId));
       if (ok) socket.join(stationRoom(stationId));
       ack?.({ ok });
     });
     socket.on(SOCKET_EVENTS.watchFlight, async (flightId, ack) => {
-      const flight = typeof flightId === 'number' ? await deps.db.getRepository(FlightEntity).findOneBy({ id: flightId }) : null;
-      const ok = Boolean(flight && canSeeStation(user, flight.stationId));
-      if (ok) socket.join(flightRoom(flightId));
+      const user = await currentUser();
+      const flight = user && typeof flightId === 'number' ? await deps.db.getRepository(FlightEntity).findOneBy({ id: flightId }) : null;
+      const ok = Boolean(user && flight && canSeeStation(user, flight.stationId));
+      if (ok && flight) {
+        socket.data.flightStations[flight.id] = flight.stationId;
+        socket.join(flightRoom(flight.id));
+      }
       ack?.({ ok });
     });
     socket.on(SOCKET_EVENTS.unwatchFlight, (flightId) => {
@@ -53,5 +74,23 @@ export function createSocketServer(http: HttpServer, deps: { db: DataSource; ses
 }
 
 export function disconnectUserSockets(io: AppIo, userId: number) {
-  io.in(`user:${userId}`).disconnectSockets(true);
+  io.in(userRoom(userId)).disconnectSockets(true);
+}
+
+/**
+ * After a user's stations or role changed: every open socket of theirs leaves the station and flight rooms the
+ * stored user may no longer watch, at once; a user no longer active is disconnected.
+ */
+export async function refreshUserSockets(io: AppIo, db: DataSource, userId: number): Promise<void> {
+  const user = await loadActiveSessionUser(db, userId);
+  if (!user) return disconnectUserSockets(io, userId);
+  for (const socket of await io.in(userRoom(userId)).fetchSockets()) {
+    for (const room of socket.rooms) {
+      const station = /^station:(\d+)$/.exec(room);
+      const flight = /^flight:(\d+)$/.exec(room);
+      const stationId = station ? Number(station[1]) : flight ? socket.data.flightStations?.[Number(flight[1])] : undefined;
+      // A flight room whose station is unknown is left too: better a console that asks again than one that overhears.
+      if ((station || flight) && (stationId === undefined || !canSeeStation(user, stationId))) socket.leave(room);
+    }
+  }
 }

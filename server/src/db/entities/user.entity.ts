@@ -22,6 +22,10 @@ export class UserEntity {
   @Column({ type: 'boolean', default: true })
   active!: boolean;
 
+  /** An admin who manages every user of the carrier; without it an admin manages only users wholly inside their stations. */
+  @Column({ type: 'boolean', name: 'carrier_wide', default: false })
+  carrierWide!: boolean;
+
   @ManyToMany(() => StationEntity)
   @JoinTable({ name: 'user_stations', joinColumn: { name: 'user_id' }, inverseJoinColumn: { name: 'station_id' } })
   stations!: Relation<StationEntity[]>;

@@ -1,11 +1,11 @@
-import { Router } from 'express';
+import { Router, type Request, type Response } from 'express';
 import passport from 'passport';
 import { Strategy as LocalStrategy } from 'passport-local';
 import type { DataSource } from 'typeorm';
 import { signInBodySchema, type SessionResponse } from '@shared/schemas/auth';
 import { parse } from '../../http/validate';
 import { HttpError } from '../../http/errors';
-import { generateToken } from '../../http/csrf';
+import type { Csrf } from '../../http/csrf';
 import type { SignInThrottle } from './throttle';
 import { authenticate } from './auth.service';
 import { loadActiveSessionUser } from './session-user';
@@ -22,23 +22,33 @@ export function configurePassport(db: DataSource) {
   });
 }
 
-export function authRouter(deps: { db: DataSource; throttle: SignInThrottle; demo: boolean; onSignOut?: (userId: number) => void }) {
+export interface AuthRouterDeps {
+  db: DataSource;
+  throttle: SignInThrottle;
+  csrf: Csrf;
+  cookieName: string;
+  demo: boolean;
+  onSignOut?: (userId: number) => void;
+}
+
+export function authRouter(deps: AuthRouterDeps) {
   const r = Router();
 
-  const sessionResponse = (req: Parameters<typeof generateToken>[0], overwrite = false): SessionResponse => ({
+  const sessionResponse = (req: Request, res: Response, overwrite = false): SessionResponse => ({
     user: req.user ?? null,
-    csrfToken: generateToken(req, overwrite),
+    csrfToken: deps.csrf.issueToken(req, res, overwrite),
     demo: deps.demo,
   });
 
-  // Public: tells the client who is signed in and hands out the CSRF token (which starts a session).
+  // Public: tells the client who is signed in and hands out the CSRF token (stores no session before sign-in).
   r.get('/session', (req, res) => {
-    res.json(sessionResponse(req));
+    res.json(sessionResponse(req, res));
   });
 
-  // Public, CSRF-protected like every POST; throttled per account and per address.
+  // Public, CSRF-protected like every POST; throttled per account-and-address and per address.
   r.post('/sign-in', async (req, res, next) => {
     const body = parse(signInBodySchema, req.body);
+    // req.ip honours only the proxies the configuration trusts, so a forged X-Forwarded-For cannot pick the address.
     const ip = req.ip ?? 'unknown';
     await deps.throttle.check(body.email, ip);
     req.body = body;
@@ -56,7 +66,8 @@ export function authRouter(deps: { db: DataSource; throttle: SignInThrottle; dem
       req.logIn(user, (loginErr) => {
         if (loginErr) return next(loginErr);
         req.session.signedInAt = Date.now();
-        deps.throttle.recordSuccess(body.email).then(() => res.json(sessionResponse(req, true)), next);
+        deps.csrf.forgetAnonymous(res);
+        deps.throttle.recordSuccess(body.email, ip).then(() => res.json(sessionResponse(req, res, true)), next);
       });
     })(req, res, next);
   });
@@ -68,7 +79,7 @@ export function authRouter(deps: { db: DataSource; throttle: SignInThrottle; dem
       req.session.destroy((destroyErr) => {
         if (destroyErr) return next(destroyErr);
         if (userId) deps.onSignOut?.(userId);
-        res.clearCookie('bumpboard.sid');
+        res.clearCookie(deps.cookieName, { path: '/' });
         res.status(204).end();
       });
     });

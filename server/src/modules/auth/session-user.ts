@@ -12,8 +12,11 @@ export function presentSessionUser(u: UserEntity): SessionUser {
   };
 }
 
-/** Reloaded on every request so a role change or deactivation takes effect at once. */
+/**
+ * Reloaded on every request so a role change or deactivation takes effect at once. `find`, not `findOne`: with a
+ * relation joined, findOne's implied LIMIT 1 makes TypeORM read the user twice (first the distinct ids, then the rows).
+ */
 export async function loadActiveSessionUser(db: DataSource, id: number): Promise<SessionUser | null> {
-  const u = await db.getRepository(UserEntity).findOne({ where: { id }, relations: { stations: true } });
+  const [u] = await db.getRepository(UserEntity).find({ where: { id }, relations: { stations: true } });
   return u && u.active ? presentSessionUser(u) : null;
 }

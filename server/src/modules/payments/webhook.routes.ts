@@ -16,7 +16,9 @@ export function paymentsWebhookRouter(ctx: PaymentsContext) {
       event = ctx.provider.verifyWebhook(raw, req.get('stripe-signature'));
     } catch (error) {
       // Unsigned, wrongly signed or older than the tolerance: refused, and nothing about it is stored.
-      throw badRequest(`Stripe-Signature: ${(error as Error).message}`, [{ field: 'Stripe-Signature', rule: 'must be a valid signature of this body, made within the last 300 seconds' }]);
+      // The library's own sentence goes to the log only (as the error's cause); the client reads our rule.
+      const rule = 'must be a valid signature of this body, made within the last 300 seconds';
+      throw badRequest(`Stripe-Signature: ${rule}`, [{ field: 'Stripe-Signature', rule }], error);
     }
     const result = await receiveProviderEvent(ctx, event);
     res.json(result.duplicate ? { received: true, duplicate: true } : { received: true, outcome: result.outcome });

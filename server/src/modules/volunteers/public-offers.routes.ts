@@ -1,6 +1,7 @@
 // "Offer your seat": the passenger's page, reached from a signed link or QR code at the gate, with no sign-in.
 // The link names the flight; the passenger proves their booking with its reference and a last name (throttled, and
 // the same answer whichever part is wrong), then offers their seat or names the least they would accept.
+import { createHash } from 'node:crypto';
 import express, { Router } from 'express';
 import { RateLimiterMemory } from 'rate-limiter-flexible';
 import type { DataSource } from 'typeorm';
@@ -19,9 +20,12 @@ const notMatched = () => new HttpError(404, 'booking_not_matched', 'We could not
 export function publicOffersRouter(deps: { db: DataSource; secret: string; changed: (flightId: number, stationId: number, topics: string[]) => void; identifyLimit?: number }) {
   const r = Router();
   r.use(express.json({ limit: '16kb' }));
-  // OWASP Authentication Cheat Sheet (from memory): throttle guessing of booking references, here per client
-  // address on each flight link; only failed attempts count.
-  const limiter = new RateLimiterMemory({ keyPrefix: 'identify', points: deps.identifyLimit ?? 6, duration: 15 * 60 });
+  // OWASP Authentication Cheat Sheet (from memory): throttle guessing of booking references; only failures count.
+  // Counted per link and per round, never per address: a whole airport often shares one address, and one guesser
+  // behind it must not lock every passenger out. The link is shared by the flight's passengers, so the allowance is
+  // generous, and a new round starts a new count.
+  const limiter = new RateLimiterMemory({ keyPrefix: 'identify', points: deps.identifyLimit ?? 30, duration: 15 * 60 });
+  const throttleKey = (token: string, roundId: number | undefined) => `${createHash('sha256').update(token).digest('base64url')}:${roundId ?? 'none'}`;
 
   async function flightOf(token: string) {
     const claim = readFlightToken(deps.secret, token);
@@ -53,9 +57,9 @@ export function publicOffersRouter(deps: { db: DataSource; secret: string; chang
 
   r.post('/offers/:token/identify', async (req, res) => {
     const { flight, exp } = await flightOf(req.params.token);
-    const key = `${req.ip}:${flight.id}`;
+    const key = throttleKey(req.params.token, (await openRound(flight.id))?.id);
     const seen = await limiter.get(key);
-    if (seen && seen.remainingPoints <= 0) throw tooManyRequests('Too many attempts. Please ask the gate agent for help.');
+    if (seen && seen.remainingPoints <= 0) throw tooManyRequests('Too many attempts on this link. Please ask the gate agent for help.');
     const body = parse(identifyBodySchema, req.body);
     // One query whichever part is wrong, so neither the answer nor its timing tells a guesser which part was right.
     const party = (await deps.db.getRepository(PassengerEntity).find({ where: { flightId: flight.id, booking: { pnr: body.pnr, status: 'active' } } }))

@@ -9,9 +9,11 @@ import { TextField } from '../../../components/ui/text-field';
 import { useCreateUser, useUpdateUser } from '../api/users';
 
 /** Creates a user, or edits one; validation uses the same schema the server applies, and nothing typed is lost on error. */
-export function UserForm({ user, onDone }: { user: User | null; onDone: () => void }) {
+export function UserForm({ user, carrierWideViewer, onDone }: { user: User | null; carrierWideViewer: boolean; onDone: () => void }) {
   const { data: session } = useQuery(sessionQueryOptions());
-  const myStations = session?.user?.stations ?? [];
+  // The stations one may grant: one's own, and for a carrier-wide admin also those the user already holds.
+  const myStations = [...(session?.user?.stations ?? []), ...(user?.stations ?? [])].filter((s, i, all) => all.findIndex((x) => x.id === s.id) === i);
+  const [carrierWide, setCarrierWide] = useState(user?.carrierWide ?? false);
   const [email, setEmail] = useState(user?.email ?? '');
   const [displayName, setDisplayName] = useState(user?.displayName ?? '');
   const [role, setRole] = useState<Role>(user?.role ?? 'agent');
@@ -25,8 +27,8 @@ export function UserForm({ user, onDone }: { user: User | null; onDone: () => vo
   async function submit(e: FormEvent) {
     e.preventDefault();
     const body = user
-      ? updateUserBodySchema.safeParse({ displayName, role, stationIds, ...(password ? { password } : {}) })
-      : createUserBodySchema.safeParse({ email, displayName, role, stationIds, password });
+      ? updateUserBodySchema.safeParse({ displayName, role, stationIds, ...(password ? { password } : {}), ...(carrierWideViewer ? { carrierWide: role === 'admin' && carrierWide } : {}) })
+      : createUserBodySchema.safeParse({ email, displayName, role, stationIds, password, ...(carrierWideViewer ? { carrierWide: role === 'admin' && carrierWide } : {}) });
     if (!body.success) {
       setErrors(Object.fromEntries(body.error.issues.map((i) => [String(i.path[0] ?? 'form'), i.message])));
       return;
@@ -73,6 +75,13 @@ export function UserForm({ user, onDone }: { user: User | null; onDone: () => vo
         </div>
         {errors.stationIds && <p className="mt-1 font-bold text-alert">{errors.stationIds}</p>}
       </fieldset>
+      {carrierWideViewer && role === 'admin' && (
+        <label className="flex items-center gap-2">
+          <input type="checkbox" className="h-5 w-5" checked={carrierWide} onChange={(e) => setCarrierWide(e.target.checked)} />
+          Carrier-wide admin: manages every user, at every station
+        </label>
+      )}
+      {errors.carrierWide && <p className="font-bold text-alert">{errors.carrierWide}</p>}
       {errors.form && <p role="alert" className="font-bold text-alert">{errors.form}</p>}
       <div className="flex gap-2">
         <Button type="submit" disabled={pending}>
