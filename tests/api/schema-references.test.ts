@@ -2,7 +2,7 @@
 // volunteer, denial or compensation is refused, and the migration that adds the keys reports orphans it finds and
 // changes nothing rather than deleting them.
 // Outside sources: MariaDB documentation "Foreign Keys" (RESTRICT and NO ACTION refuse the parent delete at once;
-// error 1451 ER_ROW_IS_REFERENCED_2) and "Generated Columns" (a PERSISTENT column may be a foreign key), from memory.
+// error 1451 ER_ROW_IS_REFERENCED_2) and "information_schema.REFERENTIAL_CONSTRAINTS", from memory.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { DataSource } from 'typeorm';
 import { migrations } from '../../server/src/db/migrations';
@@ -19,7 +19,7 @@ import { addBooking, makeFlight } from './volunteers-fixtures';
 const NOT_REFERENCES: Record<string, string> = {
   'audit_log.actor_user_id': 'the append-only log keeps the actor by value, with the label beside it',
   'audit_log.station_id': 'the append-only log keeps the station by value',
-  'compensations.source_id': 'a volunteer or a denial by source_kind; keyed through source_volunteer_id and source_denial_id',
+  'compensations.source_id': 'a volunteer or a denial by source_kind; the passenger, booking and flight keys hold the row',
   // The provider's word, kept even when it names no ledger row: that is exactly what reconciliation must report.
   'provider_cards.compensation_id': 'mirrors the card metadata at the payment provider',
   'provider_events.compensation_id': 'mirrors the event received from the payment provider',
@@ -89,12 +89,11 @@ describe('deletes that would orphan operational or money rows are refused', () =
     );
     await expect(t.db.query('DELETE FROM flights WHERE id = ?', [flight.id])).rejects.toThrow(/foreign key constraint fails/);
     await expect(t.db.query('DELETE FROM passengers WHERE id = ?', [passengers[0].id])).rejects.toThrow(/foreign key constraint fails/);
-    await expect(t.db.query('DELETE FROM volunteers WHERE id = ?', [volunteer.insertId])).rejects.toThrow(/foreign key constraint fails/);
     await expect(t.db.query('DELETE FROM volunteer_rounds WHERE id = ?', [round.insertId])).rejects.toThrow(/foreign key constraint fails/);
-    // A compensation cannot name a volunteer that does not exist.
+    // A compensation cannot name a passenger that does not exist.
     await expect(t.db.query(
       `INSERT INTO compensations (station_id, flight_id, booking_id, passenger_id, source_kind, source_id, regime, voluntary, amount_minor, currency, explanation)
-       VALUES (?, ?, ?, ?, 'volunteer', 2147483000, 'us-dot', 1, 20000, 'USD', 'schema test')`, [bos, flight.id, booking.id, passengers[0].id],
+       VALUES (?, ?, ?, 2147483000, 'volunteer', ?, 'us-dot', 1, 20000, 'USD', 'schema test')`, [bos, flight.id, booking.id, volunteer.insertId],
     )).rejects.toThrow(/foreign key constraint fails/);
     const [{ n }] = await t.db.query('SELECT COUNT(*) AS n FROM compensations WHERE id = ?', [comp.insertId]);
     expect(Number(n)).toBe(1);
@@ -142,7 +141,7 @@ describe('the migration that adds the keys', () => {
       expect(message).toContain('volunteer_rounds.flight_id → flights: 1 row(s), e.g. 41 → flights 9001');
       expect(message).toContain('volunteer_rounds.opened_by_user_id → users: 1 row(s), e.g. 41 → users 77');
       expect(message).toContain('compensations.passenger_id → passengers: 1 row(s), e.g. 52 → passengers 9003');
-      expect(message).toContain('compensations.source_denial_id → denials: 1 row(s), e.g. 52 → denials 9004');
+      expect(message).toContain('compensations.flight_id → flights: 1 row(s), e.g. 52 → flights 9001');
       const [{ n }] = await db.query('SELECT (SELECT COUNT(*) FROM compensations) + (SELECT COUNT(*) FROM volunteer_rounds) AS n');
       expect(Number(n)).toBe(2);
       const [{ n: keys }] = await db.query(`SELECT COUNT(*) AS n FROM information_schema.REFERENTIAL_CONSTRAINTS WHERE CONSTRAINT_SCHEMA = DATABASE() AND CONSTRAINT_NAME LIKE 'fk\\_volunteer%'`);

@@ -69,10 +69,8 @@ export const REFERENCES: Reference[] = [
   r('compensations', 'flight_id', 'flights'),
   r('compensations', 'booking_id', 'bookings'),
   r('compensations', 'passenger_id', 'passengers'),
-  // `source_id` names a volunteer or a denial by `source_kind`; the two stored columns below split it so each can
-  // carry its own key (added by the same migration).
-  r('compensations', 'source_volunteer_id', 'volunteers'),
-  r('compensations', 'source_denial_id', 'denials'),
+  // `source_id` names a volunteer or a denial by `source_kind`, so it cannot be one key; the passenger, booking and
+  // flight keys above hold the compensation to its chain.
   r('payment_issuances', 'compensation_id', 'compensations'),
   r('voucher_offers', 'compensation_id', 'compensations'),
   r('voucher_offers', 'offered_by_user_id', 'users'),
@@ -83,11 +81,6 @@ export const REFERENCES: Reference[] = [
 ];
 
 
-/** The stored halves of `compensations.source_id`, one per `source_kind`, so each can carry its own key. */
-const SOURCE_COLUMNS = [
-  { column: 'source_volunteer_id', kind: 'volunteer' },
-  { column: 'source_denial_id', kind: 'denial' },
-];
 
 const name = (ref: Reference) => `fk_${ref.table}_${ref.column}`.slice(0, 64);
 
@@ -159,9 +152,8 @@ export class ForeignKeys1796290000000 implements MigrationInterface {
   name = 'ForeignKeys1796290000000';
 
   public async up(q: QueryRunner): Promise<void> {
-    const orphans = await findOrphansIncludingSources(q);
+    const orphans = await findOrphans(q);
     if (orphans.length) throw new Error(describeOrphans(orphans));
-    await addSourceColumns(q);
     for (const ref of REFERENCES) {
       // A table another change renamed or dropped is that change's to key; the schema test names what is left bare.
       if (!(await columnExists(q, ref.table, ref.column))) continue;
@@ -179,34 +171,9 @@ export class ForeignKeys1796290000000 implements MigrationInterface {
       const existing = await existingKey(q, ref);
       if (existing?.name === name(ref)) await q.query(`ALTER TABLE \`${ref.table}\` DROP FOREIGN KEY \`${existing.name}\``);
     }
-    for (const s of SOURCE_COLUMNS) {
-      if (await columnExists(q, 'compensations', s.column)) await q.query(`ALTER TABLE \`compensations\` DROP COLUMN \`${s.column}\``);
-    }
     // The one earlier key this migration replaced, as the outbox migration made it.
     if (!(await existingKey(q, { table: 'outbox_messages', column: 'flight_id', parent: 'flights', onDelete: 'CASCADE' }))) {
       await q.query('ALTER TABLE `outbox_messages` ADD CONSTRAINT `fk_outbox_flight` FOREIGN KEY (`flight_id`) REFERENCES `flights`(`id`) ON DELETE CASCADE ON UPDATE NO ACTION');
     }
-  }
-}
-
-/** Before the split columns exist, their orphans are compensations whose source row is gone. */
-async function findOrphansIncludingSources(q: QueryRunner): Promise<Orphans[]> {
-  const found = await findOrphans(q);
-  if (await columnExists(q, 'compensations', 'source_volunteer_id')) return found;
-  for (const s of SOURCE_COLUMNS) {
-    const parent = s.kind === 'volunteer' ? 'volunteers' : 'denials';
-    const rows: { id: number; source_id: number }[] = await q.query(
-      `SELECT c.id, c.source_id FROM compensations c LEFT JOIN \`${parent}\` p ON p.id = c.source_id WHERE c.source_kind = ? AND p.id IS NULL`,
-      [s.kind],
-    );
-    if (rows.length) found.push({ ref: { table: 'compensations', column: s.column, parent, onDelete: 'RESTRICT' }, count: rows.length, sample: rows.slice(0, 10).map((x) => `${x.id} → ${parent} ${x.source_id}`) });
-  }
-  return found;
-}
-
-async function addSourceColumns(q: QueryRunner): Promise<void> {
-  for (const s of SOURCE_COLUMNS) {
-    if (await columnExists(q, 'compensations', s.column)) continue;
-    await q.query(`ALTER TABLE \`compensations\` ADD \`${s.column}\` int AS (IF(\`source_kind\` = '${s.kind}', \`source_id\`, NULL)) PERSISTENT`);
   }
 }
