@@ -9,6 +9,7 @@ import { createDataSource } from '../../server/src/db/data-source';
 import { createApp } from '../../server/src/app';
 import { createSessionSetup } from '../../server/src/http/session';
 import { createSignInThrottle, type SignInThrottle } from '../../server/src/modules/auth/throttle';
+import { createForecastScheduler, type ForecastScheduler } from '../../server/src/modules/forecast/forecast-scheduler';
 
 export const DEMO_PASSWORD = 'bumpboard-demo-2026';
 
@@ -17,6 +18,8 @@ export interface TestApp {
   db: DataSource;
   http: Server;
   baseUrl: string;
+  /** The app's forecast scheduler: `await t.forecast.flush()` waits for the recomputes a change queued. */
+  forecast: ForecastScheduler;
   close(): Promise<void>;
 }
 
@@ -25,7 +28,8 @@ export async function startTestApp(opts: { throttle?: SignInThrottle } = {}): Pr
   const db = createDataSource(env.DATABASE_URL);
   await db.initialize();
   const session = createSessionSetup(env);
-  const app = createApp({ env, db, session, throttle: opts.throttle ?? createSignInThrottle({ perAccount: 1000, perAddress: 10_000 }), demo: true });
+  const forecast = createForecastScheduler(db, () => undefined);
+  const app = createApp({ env, db, session, forecast, throttle: opts.throttle ?? createSignInThrottle({ perAccount: 1000, perAddress: 10_000 }), demo: true });
   const http = createServer(app);
   await new Promise<void>((r) => http.listen(0, '127.0.0.1', r));
   const baseUrl = `http://127.0.0.1:${(http.address() as AddressInfo).port}`;
@@ -34,7 +38,10 @@ export async function startTestApp(opts: { throttle?: SignInThrottle } = {}): Pr
     db,
     http,
     baseUrl,
+    forecast,
     async close() {
+      await forecast.flush();
+      forecast.stop();
       await new Promise((r) => http.close(r));
       await session.close();
       await db.destroy();

@@ -6,6 +6,7 @@ import { createDataSource } from '../../server/src/db/data-source';
 
 export interface ScratchDatabase {
   db: DataSource;
+  url: string;
   drop(): Promise<void>;
 }
 
@@ -19,6 +20,7 @@ export async function scratchDatabase(shared: DataSource, label: string): Promis
   await db.initialize();
   return {
     db,
+    url: url.toString(),
     async drop() {
       if (db.isInitialized) await db.destroy();
       await shared.query(`DROP DATABASE IF EXISTS \`${name}\``);
