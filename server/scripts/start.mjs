@@ -5,8 +5,10 @@ import { buildClientIfStale } from './lib/client-build.mjs';
 import { migrateAndLoadDemo, serviceEnv, startDatabase, startServices } from './lib/stack.mjs';
 import { startChild, stopChildren } from './lib/processes.mjs';
 import { say } from './lib/log.mjs';
+import { demoDataIn, productionEnvProblems } from './lib/production.mjs';
 
 const dev = process.argv.includes('--dev');
+const production = process.env.NODE_ENV === 'production';
 const startedAt = Date.now();
 const local = '.local';
 const appPort = Number(process.env.PORT ?? 4600);
@@ -26,16 +28,38 @@ async function stop(code = 0) {
 process.on('SIGINT', () => void stop(0));
 process.on('SIGTERM', () => void stop(0));
 
+/**
+ * Production runs on what the operator gives it and nothing this repository makes up: refuse before anything starts
+ * when a secret is missing or shipped, or when the database has ever held the demo.
+ */
+async function refuseUnsafeProduction() {
+  const problems = productionEnvProblems(process.env);
+  if (!problems.length) {
+    const demo = await demoDataIn(process.env.DATABASE_URL);
+    if (demo.length) problems.push(`the database holds demo data (${demo.join(', ')}); use a database that never had the demo loaded`);
+  }
+  if (!problems.length) return;
+  console.error(`[start] refused to start with NODE_ENV=production:\n${problems.map((p) => `  - ${p}`).join('\n')}`);
+  process.exit(1);
+}
+
 try {
   ensureDependencies();
+  if (production) {
+    if (dev) throw new Error('npm run dev is for development; run npm start with NODE_ENV=production');
+    await refuseUnsafeProduction();
+  }
   db = await startDatabase({ local, dbPort: ports.db });
-  migrateAndLoadDemo(db.url, { local });
+  migrateAndLoadDemo(db.url, { local, demo: !production });
   if (!dev) buildClientIfStale();
-  const env = serviceEnv({ local, ports, databaseUrl: db.url });
-  await startServices(env, { dev });
+  // In production every secret and address comes from the environment; the stand-ins and the simulator stay off.
+  const env = production ? { ...process.env, PORT: String(appPort), SIMULATOR: 'off' } : serviceEnv({ local, ports, databaseUrl: db.url });
+  await startServices(env, { dev, standIns: !production });
   if (dev) startChild('vite', 'node_modules/.bin/vite', ['--strictPort'], { env: { BUMPBOARD_API_URL: `http://127.0.0.1:${ports.app}` } });
   const appUrl = dev ? 'http://127.0.0.1:5173' : `http://127.0.0.1:${ports.app}`;
-  console.log(`
+  if (production) {
+    console.log(`\n  Bumpboard is running in production on port ${appPort} (ready in ${((Date.now() - startedAt) / 1000).toFixed(1)} s). Ctrl-C stops it.\n`);
+  } else console.log(`
   Bumpboard is running (ready in ${((Date.now() - startedAt) / 1000).toFixed(1)} s)
     App                 ${appUrl}
     Mail catcher        http://127.0.0.1:${ports.mail}   (SMTP on 127.0.0.1:${ports.smtp})

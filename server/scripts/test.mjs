@@ -1,7 +1,9 @@
 // `npm test`: a separate test instance (own data folder and ports, so it runs beside `npm start`), then lint,
 // type-check, unit tests, API tests against the real MariaDB, and end-to-end tests in Debian's Chromium.
 // Every step runs; the summary is the last thing printed; the exit code is non-zero if any step failed.
-import { existsSync, rmSync } from 'node:fs';
+import { existsSync, mkdirSync, rmSync } from 'node:fs';
+import { resolve } from 'node:path';
+import { countResults, summaryLine } from './lib/test-results.mjs';
 import { ensureDependencies } from './lib/deps.mjs';
 import { aptInstall } from './lib/mariadb.mjs';
 import { buildClientIfStale } from './lib/client-build.mjs';
@@ -15,8 +17,12 @@ const base = Number(process.env.TEST_PORT ?? 4700);
 const ports = { app: base, mail: base + 1, payments: base + 2, smtp: base + 25, db: base + 10 };
 const results = [];
 let db;
+// Each test runner writes its JSON report here; the last line of the run adds them all up.
+const reports = resolve(local, 'reports');
+const report = (name) => resolve(reports, `${name}.json`);
+const vitestJson = (name) => ['--reporter=default', '--reporter=json', `--outputFile.json=${report(name)}`];
 
-async function step(name, fn) {
+async function step(name, fn, reportName) {
   const t0 = Date.now();
   say('test', `── ${name}`);
   let ok = false;
@@ -25,7 +31,7 @@ async function step(name, fn) {
   } catch (err) {
     console.error(`[test] ${name}: ${err instanceof Error ? err.message : err}`);
   }
-  results.push({ name, ok, seconds: (Date.now() - t0) / 1000 });
+  results.push({ name, ok, seconds: (Date.now() - t0) / 1000, report: reportName && report(reportName) });
   return ok;
 }
 
@@ -39,6 +45,8 @@ function ensureChromium() {
 async function main() {
   const setupOk = await step('set-up (dependencies, test database, migrations, demo)', async () => {
     ensureDependencies();
+    rmSync(reports, { recursive: true, force: true });
+    mkdirSync(reports, { recursive: true });
     db = await startDatabase({ local, dbPort: ports.db });
     if (!process.env.DATABASE_URL) db.resetDatabase();
     rmSync(`${local}/mail-fake`, { recursive: true, force: true });
@@ -47,10 +55,10 @@ async function main() {
   });
   await step('lint (ESLint)', () => run('node_modules/.bin/eslint', ['--config', 'tests/lint/eslint.config.js', '.']) === 0);
   await step('type-check (tsc)', () => run('node_modules/.bin/tsc', ['-p', 'tsconfig.json', '--noEmit']) === 0);
-  await step('unit tests (vitest)', () => run('node_modules/.bin/vitest', ['run', '--project', 'unit', '--project', 'client']) === 0);
+  await step('unit tests (vitest)', () => run('node_modules/.bin/vitest', ['run', '--project', 'unit', '--project', 'client', ...vitestJson('unit')]) === 0, 'unit');
   if (!setupOk) return;
   const env = { ...serviceEnv({ local, ports, databaseUrl: db.url }), NODE_ENV: 'test', SIMULATOR: 'off' };
-  await step('API tests against MariaDB (vitest)', () => run('node_modules/.bin/vitest', ['run', '--project', 'api'], env) === 0);
+  await step('API tests against MariaDB (vitest)', () => run('node_modules/.bin/vitest', ['run', '--project', 'api', ...vitestJson('api')], env) === 0, 'api');
   await step('end-to-end tests in Chromium (Playwright)', async () => {
     ensureChromium();
     buildClientIfStale();
@@ -58,8 +66,8 @@ async function main() {
     if (!process.env.DATABASE_URL) db.resetDatabase();
     migrateAndLoadDemo(db.url, { local });
     await startServices(env, { quiet: !process.env.VERBOSE });
-    return run('node_modules/.bin/playwright', ['test', '--config', 'tests/e2e/playwright.config.ts'], env) === 0;
-  });
+    return run('node_modules/.bin/playwright', ['test', '--config', 'tests/e2e/playwright.config.ts'], { ...env, E2E_JSON_REPORT: report('e2e') }) === 0;
+  }, 'e2e');
 }
 
 try {
@@ -70,7 +78,9 @@ try {
   const width = Math.max(...results.map((r) => r.name.length));
   console.log('\n  Bumpboard test summary');
   for (const r of results) console.log(`    ${r.ok ? 'PASS' : 'FAIL'}  ${r.name.padEnd(width)}  ${r.seconds.toFixed(1)} s`);
-  const failed = results.filter((r) => !r.ok).length;
-  console.log(failed ? `\n  ${failed} step(s) failed.\n` : '\n  All steps passed.\n');
-  process.exitCode = failed ? 1 : 0;
+  const failedSteps = results.filter((r) => !r.ok).length;
+  // The one plain line: every test of every runner, from their JSON reports; a step that failed without a report
+  // of its own (lint, type-check, set-up, a runner that crashed) counts as one failure, so a red run never reads 0.
+  console.log(`\n${summaryLine(results.map((r) => countResults(r)))}`);
+  process.exitCode = failedSteps ? 1 : 0;
 }

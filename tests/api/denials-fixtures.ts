@@ -198,8 +198,9 @@ export async function denialRouteContext(db: DataSource, otherFlight: FlightEnti
     decidedByUserId: null, decidedAt: null, reason: 'route matrix fixture at another station',
   });
   foreignProposals.push(otherProposal.id);
+  const [otherParty] = await addSingles(db, otherFlight, 1);
   const otherDenial = await db.getRepository(DenialEntity).save({
-    proposalId: otherProposal.id, flightId: otherFlight.id, stationId: otherFlight.stationId, bookingId: 0, passengerIds: [], position: 1, reasons: [],
+    proposalId: otherProposal.id, flightId: otherFlight.id, stationId: otherFlight.stationId, bookingId: otherParty.booking.id, passengerIds: otherParty.passengers.map((p) => p.id), position: 1, reasons: [],
     status: 'authorized', selectedByUserId: agent.id, authorizedByUserId: supervisor.id, authorizedAt: new Date(), changeReason: null, category: null,
     compensation: null, statementMessageIds: null,
   });

@@ -32,10 +32,15 @@ async function flightWith(station: StationEntity, serviceDate: string, over: ((i
 
 /** A denial record as the denials module leaves it once the compensation is fixed: authorized, with its category. */
 async function denial(flight: FlightEntity, passengerIds: number[], bookingId: number, category: string) {
+  const proposal = await app.db.query(
+    `INSERT INTO denial_proposals (flight_id, station_id, status, seats_needed, proposed_by_user_id, proposed_by_label, reason)
+     VALUES (?, ?, 'authorized', 1, ?, 'finance test', 'finance test')`,
+    [flight.id, flight.stationId, user.id],
+  );
   const result = await app.db.query(
     `INSERT INTO denials (proposal_id, flight_id, station_id, booking_id, passenger_ids, position, reasons, status, selected_by_user_id, category)
-     VALUES (0, ?, ?, ?, ?, 1, '[]', 'authorized', ?, ?)`,
-    [flight.id, flight.stationId, bookingId, JSON.stringify(passengerIds), user.id, category],
+     VALUES (?, ?, ?, ?, ?, 1, '[]', 'authorized', ?, ?)`,
+    [proposal.insertId, flight.id, flight.stationId, bookingId, JSON.stringify(passengerIds), user.id, category],
   );
   return result.insertId as number;
 }
@@ -47,6 +52,7 @@ beforeAll(async () => {
   eu = await paymentsTestStation(app.db, 'BLQ', { regime: 'eu-261', currency: 'EUR', timeZone: 'Europe/Rome' });
   const stale: { id: number }[] = await app.db.query('SELECT id FROM flights WHERE station_id IN (?)', [[us.id, eu.id]]);
   await app.db.query('DELETE FROM denials WHERE station_id IN (?)', [[us.id, eu.id]]);
+  await app.db.query('DELETE FROM denial_proposals WHERE station_id IN (?)', [[us.id, eu.id]]);
   await removeFlights(app.db, stale.map((f) => f.id));
   user = await insertUser(app.db, { label: 'finance-ledger', role: 'finance', stationIds: [us.id, eu.id] });
   finance = new Client(app.app);
@@ -90,6 +96,7 @@ beforeAll(async () => {
 
 afterAll(async () => {
   await app.db.query('DELETE FROM denials WHERE station_id IN (?)', [[us.id, eu.id]]);
+  await app.db.query('DELETE FROM denial_proposals WHERE station_id IN (?)', [[us.id, eu.id]]);
   await removeFlights(app.db, flightIds);
   await removeRunUsers(app.db);
   await app.close();

@@ -9,6 +9,7 @@ import { createDataSource } from '../../server/src/db/data-source';
 import { createApp } from '../../server/src/app';
 import { createSessionSetup } from '../../server/src/http/session';
 import { createSignInThrottle, type SignInThrottle } from '../../server/src/modules/auth/throttle';
+import { createForecastScheduler, type ForecastScheduler } from '../../server/src/modules/forecast/forecast-scheduler';
 import { createSocketServer, disconnectUserSockets, refreshUserSockets, type AppIo } from '../../server/src/realtime/socket-server';
 
 export const DEMO_PASSWORD = 'bumpboard-demo-2026';
@@ -20,6 +21,8 @@ export interface TestApp {
   baseUrl: string;
   /** The socket server, when asked for: wired like the real one to sign-out, deactivation and access changes. */
   io?: AppIo;
+  /** The app's forecast scheduler: `await t.forecast.flush()` waits for the recomputes a change queued. */
+  forecast: ForecastScheduler;
   close(): Promise<void>;
 }
 
@@ -37,10 +40,12 @@ export async function startTestApp(opts: TestAppOptions = {}): Promise<TestApp> 
   await db.initialize();
   const session = createSessionSetup(env);
   const ioRef: { io?: AppIo } = {};
+  const forecast = createForecastScheduler(db, () => undefined);
   const app = createApp({
     env,
     db,
     session,
+    forecast,
     throttle: opts.throttle ?? createSignInThrottle({ perAccount: 1000, perAddress: 10_000 }),
     demo: true,
     disconnectUser: (id) => ioRef.io && disconnectUserSockets(ioRef.io, id),
@@ -56,7 +61,10 @@ export async function startTestApp(opts: TestAppOptions = {}): Promise<TestApp> 
     http,
     baseUrl,
     io: ioRef.io,
+    forecast,
     async close() {
+      await forecast.flush();
+      forecast.stop();
       if (ioRef.io) await ioRef.io.close();
       await new Promise((r) => http.close(r));
       await session.close();

@@ -66,9 +66,21 @@ export async function insertUser(db: DataSource, opts: { label: string; role: Ro
   return repo.save(user);
 }
 
-/** Removes the users this run created (their station links cascade); audit rows stay, as the log is append-only. */
+/**
+ * Removes the users this run created (their station links cascade). A user who did something that is on record
+ * (opened a round, created a key) stays, deactivated: the foreign keys keep every record's author, as in production,
+ * where users are deactivated and never deleted. Audit rows stay too, as the log is append-only.
+ */
 export async function removeRunUsers(db: DataSource): Promise<void> {
-  await db.query(`DELETE FROM users WHERE email LIKE ?`, [`%-${RUN_ID}-%`]);
+  const users: { id: number }[] = await db.query(`SELECT id FROM users WHERE email LIKE ?`, [`%-${RUN_ID}-%`]);
+  for (const { id } of users) {
+    try {
+      await db.query('DELETE FROM users WHERE id = ?', [id]);
+    } catch (err) {
+      if ((err as { driverError?: { code?: string } }).driverError?.code !== 'ER_ROW_IS_REFERENCED_2') throw err;
+      await db.query('UPDATE users SET active = 0 WHERE id = ?', [id]);
+    }
+  }
 }
 
 export function sessionCookie(res: Response): string | undefined {

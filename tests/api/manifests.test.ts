@@ -3,7 +3,7 @@
 // Outside sources, from memory: RFC 4180 (CSV: header line, quoted cells, CR LF line ends); OWASP File Upload Cheat
 // Sheet (limit the size, allow only the expected type, check authorization before reading the file); RFC 9110
 // §15.5.2/§15.5.4/§15.5.5 (401 without credentials, 403 for a role that may not, 404 for what the caller may not see).
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { In } from 'typeorm';
 import { MANIFEST_COLUMNS, manifestImportResultSchema, manifestPreviewSchema, manifestRejectedSchema } from '@shared/schemas/manifest';
 import { AuditLogEntity, BookingEntity, FlightEntity, FlightForecastEntity, PassengerEntity, StationEntity } from '../../server/src/db/entities';
@@ -63,12 +63,11 @@ const send = (c: Client, what: 'preview' | 'import', content: string, name = 'ma
 const passengersOf = (flightId: number) => t.db.getRepository(PassengerEntity).find({ where: { flightId }, order: { id: 'ASC' } });
 
 async function waitForForecast(flightId: number, after: number): Promise<FlightForecastEntity> {
-  for (let i = 0; i < 50; i++) {
+  return vi.waitFor(async () => {
     const row = await t.db.getRepository(FlightForecastEntity).findOneBy({ flightId });
-    if (row && row.computedAt.getTime() >= after) return row;
-    await new Promise((r) => setTimeout(r, 100));
-  }
-  throw new Error(`flight ${flightId} was not recomputed within 5 s`);
+    if (!row || row.computedAt.getTime() < after) throw new Error(`flight ${flightId} was not recomputed within 5 s`);
+    return row;
+  }, { timeout: 5_000, interval: 100 });
 }
 
 beforeAll(async () => {

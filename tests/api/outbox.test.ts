@@ -7,7 +7,7 @@
 import { mkdtempSync, rmSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { outboxListSchema } from '@shared/schemas/volunteers';
 import { createMailFake, type MailFake } from '../../mail-fake/src/app';
 import { AuditLogEntity, FlightEntity, OutboxMessageEntity } from '../../server/src/db/entities';
@@ -106,12 +106,9 @@ const row = (id: string) => t.db.getRepository(OutboxMessageEntity).findOneByOrF
 
 /** Bounded, so a broken worker fails the test instead of hanging it. */
 async function waitFor(check: () => Promise<boolean>, timeoutMs: number, what: string): Promise<void> {
-  const deadline = Date.now() + timeoutMs;
-  while (Date.now() < deadline) {
-    if (await check()) return;
-    await new Promise((resolve) => setTimeout(resolve, 100));
-  }
-  throw new Error(`${what}: not within ${timeoutMs} ms`);
+  await vi.waitFor(async () => {
+    if (!(await check())) throw new Error(`${what}: not within ${timeoutMs} ms`);
+  }, { timeout: timeoutMs, interval: 100 });
 }
 
 /**
@@ -330,18 +327,23 @@ describe('several workers', () => {
     const [first, second] = [await enqueueCommitted(flightId), await enqueueCommitted(flightId)];
     const real = transport();
     let started!: () => void;
+    let release!: () => void;
     const sending = new Promise<void>((resolve) => (started = resolve));
+    // The send finishes only once stop() has been asked for: stop() must wait for it, whatever the timing.
+    const released = new Promise<void>((resolve) => (release = resolve));
     const slow: MailTransport = {
       sendMail: async (mail) => {
         started();
-        await new Promise((resolve) => setTimeout(resolve, 700));
+        await released;
         return real.sendMail(mail);
       },
       close: () => real.close(),
     };
     const w = worker(flightId, { batchSize: 2 }, slow);
     await sending;
-    await w.stop();
+    const stopping = w.stop();
+    release();
+    await stopping;
     const [a, b] = [await row(first), await row(second)];
     const [sent, handedBack] = a.status === 'sent' ? [a, b] : [b, a];
     expect(sent.status).toBe('sent');

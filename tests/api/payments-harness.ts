@@ -5,6 +5,7 @@ import { randomBytes } from 'node:crypto';
 import { createServer, type Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import { In, type DataSource } from 'typeorm';
+import { vi } from 'vitest';
 import { createPaymentsFake, type PaymentsFake, type PaymentsFakeOptions } from '../../payments-fake/src/app';
 import { loadEnv } from '../../server/src/config/env';
 import { createDataSource } from '../../server/src/db/data-source';
@@ -200,12 +201,9 @@ export async function removeFlights(db: DataSource, flightIds: number[]): Promis
 
 /** Waits until the condition holds; bounded, so a broken run fails instead of hanging. */
 export async function until(what: string, condition: () => Promise<boolean> | boolean, timeoutMs = 60_000, everyMs = 100): Promise<void> {
-  const deadline = Date.now() + timeoutMs;
-  for (;;) {
-    if (await condition()) return;
-    if (Date.now() > deadline) throw new Error(`timed out after ${timeoutMs} ms waiting for ${what}`);
-    await new Promise((r) => setTimeout(r, everyMs));
-  }
+  await vi.waitFor(async () => {
+    if (!(await condition())) throw new Error(`timed out after ${timeoutMs} ms waiting for ${what}`);
+  }, { timeout: timeoutMs, interval: everyMs });
 }
 
 /** The fake has sent (or given up on) every webhook it queued. */

@@ -3,6 +3,7 @@
 // the same for another station. A payments stand-in runs in-process for the routes that reach the provider, so the
 // matrix never leaves the loopback interface.
 import type { DataSource } from 'typeorm';
+import { addSingles } from './denials-fixtures';
 import { ReconciliationDifferenceEntity, ReconciliationRunEntity, StationEntity, type FlightEntity } from '../../server/src/db/entities';
 import { insertCompensations, removeFlights, seedFlight, startFake, type RunningFake } from './payments-harness';
 
@@ -49,10 +50,13 @@ export async function paymentsRouteContext(db: DataSource, opts: { ownStationId:
     lastError: states[i] === 'failed' ? 'route matrix: refused' : null,
   }));
   await db.query(
-    'INSERT INTO voucher_offers (compensation_id, cash_amount_minor, currency, restrictions, text, sent_to, offered_by_user_id, offered_at) VALUES (?, ?, ?, ?, ?, NULL, 0, NOW(3))',
+    `INSERT INTO voucher_offers (compensation_id, cash_amount_minor, currency, restrictions, text, sent_to, offered_by_user_id, offered_at)
+     VALUES (?, ?, ?, ?, ?, NULL, (SELECT id FROM users WHERE email = 'agent@bumpboard.test'), NOW(3))`,
     [rows[2].id, rows[2].amountMinor, rows[2].currency, '[]', 'Route matrix offer'],
   );
-  const [other] = await insertCompensations(db, opts.otherFlight, [{ id: 0, bookingId: 0 } as never], () => ({ stationId: opts.otherFlight.stationId, currency: 'NOK', regime: 'eu-261' }));
+  // A real passenger on the other station's flight: the keys refuse a compensation for nobody.
+  const [otherParty] = await addSingles(db, opts.otherFlight, 1);
+  const [other] = await insertCompensations(db, opts.otherFlight, otherParty.passengers, () => ({ stationId: opts.otherFlight.stationId, currency: 'NOK', regime: 'eu-261' }));
   made.compensationIds.push(other.id);
   const own = await runWithDifference(db, bos.id, rows[0].id);
   const otherRun = await runWithDifference(db, opts.otherFlight.stationId, other.id);

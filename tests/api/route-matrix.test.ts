@@ -67,7 +67,7 @@ beforeAll(async () => {
 });
 afterAll(async () => {
   await removeDenialFixtures(t.db);
-  await removeVolunteerRouteFixtures(t.db);
+  await removeVolunteerRouteFixtures(t.db, () => t.forecast.flush());
   await removePaymentsRouteFixtures(t.db);
   await removeRunUsers(t.db);
   await t.close();

@@ -3,7 +3,7 @@
 // Runs on a station of its own, so no demo station's odds move. Outside sources, from memory: OWASP Logging Cheat
 // Sheet (record who changed what, before and after); RFC 9110 §15.5.4/§15.5.5 (403 for a role that may not, 404 for
 // what the caller may not see).
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { In } from 'typeorm';
 import { DEFAULT_SHOW_UP_PROFILE, type ShowUpProfile } from '@shared/schemas/show-up-profile';
 import { AuditLogEntity, BookingEntity, FlightEntity, FlightForecastEntity, PassengerEntity, ShowUpProfileEntity, StationEntity } from '../../server/src/db/entities';
@@ -103,12 +103,11 @@ describe('reading and writing', () => {
     const pOversaleAfter = async (profile: ShowUpProfile) => {
       const previous = (await t.db.getRepository(FlightForecastEntity).findOneBy({ flightId: f.id }))?.computedAt.getTime() ?? 0;
       await as.admin.put(url(station.id), profile).expect(200);
-      for (let i = 0; i < 50; i++) {
+      return vi.waitFor(async () => {
         const row = await t.db.getRepository(FlightForecastEntity).findOneBy({ flightId: f.id });
-        if (row && row.computedAt.getTime() > previous) return row.pOversale;
-        await new Promise((r) => setTimeout(r, 100));
-      }
-      throw new Error('the flight was not recomputed within 5 s');
+        if (!row || row.computedAt.getTime() <= previous) throw new Error('the flight was not recomputed within 5 s');
+        return row.pOversale;
+      }, { timeout: 5_000, interval: 100 });
     };
     // Two people for one seat, neither checked in, check-in still open (G = 0.5 two hours out on this curve).
     // P(show | not checked in) = q(1 - G) / (1 - qG) (Bayes): q = 1 gives 1, so both show and one has no seat;

@@ -83,8 +83,8 @@ export async function outboxByKey(db: DataSource, dedupeKey: string): Promise<Ou
   return db.getRepository(OutboxMessageEntity).findBy({ dedupeKey });
 }
 
-/** Waits out the coalesced forecast recompute an accept triggers (150 ms), so cleanup removes its rows too. */
-export const settle = () => new Promise((r) => setTimeout(r, 400));
+/** Waits for the coalesced forecast recomputes the test's changes queued, so cleanup removes their rows too. */
+export const settle = (t: { forecast: { flush(): Promise<void> } }) => t.forecast.flush();
 
 /**
  * Everything hanging off the given flights: outbox rows, voucher offers, compensations, seat holds, volunteers, approvals, rounds,

@@ -38,7 +38,7 @@ beforeAll(async () => {
 });
 
 afterAll(async () => {
-  await settle();
+  await settle(t);
   await removeFlights(t.db, flightIds);
   await t.close();
 });

@@ -127,10 +127,10 @@ export async function volunteerRouteContext(t: TestApp, o: { ownStationId: numbe
 }
 
 /** Removes what volunteerRouteContext made; the matrix's foreign flight itself stays for later runs. */
-export async function removeVolunteerRouteFixtures(db: DataSource): Promise<void> {
+export async function removeVolunteerRouteFixtures(db: DataSource, flushForecasts: () => Promise<void>): Promise<void> {
   if (!made) return;
-  // The accepts queue a forecast recompute (150 ms); let it land before its rows are removed.
-  await new Promise((r) => setTimeout(r, 400));
+  // The accepts queue a forecast recompute; let it land before its rows are removed.
+  await flushForecasts();
   await removeFlights(db, made.flightIds);
   await db.getRepository(OfferApprovalEntity).delete({ roundId: made.otherRoundId });
   await db.getRepository(VolunteerEntity).delete({ id: In([made.otherVolunteerId]) });

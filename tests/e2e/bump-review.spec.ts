@@ -2,11 +2,10 @@
 // bump review and rebooks the passenger, and the passenger's written statement arrives in the mail catcher.
 // Needs: the app at APP_BASE_URL with its outbox worker sending to the catcher at MAIL_FAKE_URL, and DATABASE_URL of
 // the same database (the test writes its own flight, 8xxx on a far-off date, and removes it afterwards).
-import { expect, request, test, type Browser, type Page } from '@playwright/test';
+import { expect, test, type Browser, type Page } from '@playwright/test';
 import mysql from 'mysql2/promise';
-import { SCREENSHOTS, shot, signIn } from './helpers';
+import { SCREENSHOTS, mailFromCatcher, shot, signIn } from './helpers';
 
-const MAIL_FAKE_URL = process.env.MAIL_FAKE_URL ?? 'http://127.0.0.1:4601';
 const DATABASE_URL = process.env.DATABASE_URL ?? '';
 const RUN = `${Date.now().toString(36)}${Math.random().toString(36).slice(2, 6)}`;
 
@@ -90,21 +89,9 @@ async function signedInPage(browser: Browser, email: string): Promise<Page> {
   return page;
 }
 
-/** Polls the catcher's JSON API (bounded: 30 tries, 1 s apart) for the statement mailed to `to`. */
-async function statementMail(to: string) {
-  const catcher = await request.newContext({ baseURL: MAIL_FAKE_URL });
-  try {
-    for (let attempt = 0; attempt < 30; attempt++) {
-      const res = await catcher.get(`/api/messages?to=${encodeURIComponent(to)}&subject=${encodeURIComponent('Denied boarding')}`);
-      expect(res.ok()).toBe(true);
-      const body = await res.json();
-      if (body.count > 0) return body.messages[0] as { subject: string; text: string; to: string[] };
-      await new Promise((r) => setTimeout(r, 1_000));
-    }
-    throw new Error(`no written statement reached ${to} at ${MAIL_FAKE_URL} within 30 s`);
-  } finally {
-    await catcher.dispose();
-  }
+/** The written statement mailed to `to`, once the catcher has it. */
+function statementMail(to: string) {
+  return mailFromCatcher(`to=${encodeURIComponent(to)}&subject=${encodeURIComponent('Denied boarding')}`, (messages) => messages[0], `the written statement to ${to}`);
 }
 
 test('an agent proposes, a supervisor authorizes in another browser, and the statement reaches the passenger', async ({ browser }) => {

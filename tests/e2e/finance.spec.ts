@@ -7,11 +7,10 @@ import { readFile } from 'node:fs/promises';
 import { expect, request, test, type APIRequestContext } from '@playwright/test';
 import mysql from 'mysql2/promise';
 import Papa from 'papaparse';
-import { DEMO_PASSWORD, shot, signIn } from './helpers';
+import { DEMO_PASSWORD, mailFromCatcher, shot, signIn } from './helpers';
 
 const BASE_URL = process.env.APP_BASE_URL ?? 'http://127.0.0.1:4700';
 const DATABASE_URL = process.env.DATABASE_URL ?? '';
-const MAIL_FAKE_URL = process.env.MAIL_FAKE_URL ?? 'http://127.0.0.1:4701';
 const RUN = Date.now() % 1_000_000;
 const SERVICE_DATE = `2033-0${1 + (RUN % 9)}-${String(10 + (RUN % 18)).padStart(2, '0')}`;
 
@@ -106,20 +105,8 @@ test('finance sees the issued compensation, exports exactly the filtered rows, a
 });
 
 test('the passenger’s receipt for the issued compensation arrives in the mail catcher, once', async () => {
-  const catcher = await request.newContext({ baseURL: MAIL_FAKE_URL });
-  try {
-    const to = `finance-e2e-${RUN}@example.test`;
-    let messages: { subject: string; text: string }[] = [];
-    // Bounded: the outbox worker polls every half second; 30 tries a second apart is ample.
-    for (let attempt = 0; attempt < 30 && messages.length === 0; attempt++) {
-      const res = await catcher.get(`/api/messages?to=${encodeURIComponent(to)}`);
-      expect(res.ok()).toBe(true);
-      messages = ((await res.json()) as { messages: { subject: string; text: string }[] }).messages;
-      if (!messages.length) await new Promise((r) => setTimeout(r, 1_000));
-    }
-    expect(messages).toHaveLength(1);
-    expect(messages[0].text).toContain('450.00');
-  } finally {
-    await catcher.dispose();
-  }
+  const to = `finance-e2e-${RUN}@example.test`;
+  const messages = await mailFromCatcher(`to=${encodeURIComponent(to)}`, (m) => (m.length ? m : undefined), `the receipt to ${to}`);
+  expect(messages).toHaveLength(1);
+  expect(messages[0].text).toContain('450.00');
 });

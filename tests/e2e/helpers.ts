@@ -39,3 +39,32 @@ export async function staffApi(email: string): Promise<Staff> {
     dispose: () => api.dispose(),
   };
 }
+
+// The test instance's catcher (npm test sets MAIL_FAKE_URL; 4701 is its default port).
+export const MAIL_FAKE_URL = process.env.MAIL_FAKE_URL ?? 'http://127.0.0.1:4701';
+
+export interface CaughtMail {
+  subject: string;
+  text: string;
+  to: string[];
+}
+
+/**
+ * Polls the mail catcher's JSON API (`/api/messages?<query>`) until `pick` finds what the test waits for, within
+ * 30 s (the outbox worker polls every half second); returns it.
+ */
+export async function mailFromCatcher<T>(query: string, pick: (messages: CaughtMail[]) => T | undefined, what: string): Promise<T> {
+  const catcher = await request.newContext({ baseURL: MAIL_FAKE_URL });
+  let found: T | undefined;
+  try {
+    await expect.poll(async () => {
+      const res = await catcher.get(`/api/messages?${query}`);
+      expect(res.ok()).toBe(true);
+      found = pick(((await res.json()) as { messages: CaughtMail[] }).messages);
+      return found !== undefined;
+    }, { message: `${what} did not reach the mail catcher at ${MAIL_FAKE_URL}`, timeout: 30_000, intervals: [250, 500, 1_000] }).toBe(true);
+    return found as T;
+  } finally {
+    await catcher.dispose();
+  }
+}

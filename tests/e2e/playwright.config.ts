@@ -6,7 +6,8 @@ export default defineConfig({
   outputDir: '../../test-results/e2e',
   timeout: 60_000,
   workers: 1,
-  reporter: [['list']],
+  // The JSON report feeds the one summary line of `npm test` (server/scripts/test.mjs).
+  reporter: process.env.E2E_JSON_REPORT ? [['list'], ['json', { outputFile: process.env.E2E_JSON_REPORT }]] : [['list']],
   use: {
     baseURL: process.env.APP_BASE_URL ?? 'http://127.0.0.1:4700',
     viewport: { width: 1366, height: 900 },

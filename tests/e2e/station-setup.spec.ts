@@ -174,13 +174,16 @@ test('an admin creates and revokes a key, edits the show-up profile, and imports
     await manifests.getByLabel(/^Manifest file/).setInputFiles(manifestFile('manifest-fixed.csv', flight, '18950'));
     await expect(manifests.getByText('✓ no problems found.')).toBeVisible();
     await expect(manifests.getByRole('table', { name: 'Flights in the file' })).toContainText(`ZZ ${flight.number}`);
+    let releaseImport!: () => void;
+    const importHeld = new Promise<void>((resolve) => (releaseImport = resolve));
     await page.route('**/manifests/import', async (route) => {
-      await new Promise((r) => setTimeout(r, 1500));
+      await importHeld;
       await route.continue();
     });
     await manifests.getByRole('button', { name: 'Import 3 passengers' }).click();
     await expect(manifests.getByRole('progressbar', { name: 'Importing the manifest' })).toBeVisible();
     await shot(page, 'station-setup-manifest-importing');
+    releaseImport();
     const result = manifests.getByRole('status', { name: 'Import result' });
     await expect(result).toContainText('Imported 3 passenger rows for 1 flight.');
     await expect(result.getByRole('row', { name: new RegExp(`ZZ ${flight.number}`) })).toContainText('2 / 0 / 0');

@@ -1,5 +1,5 @@
-import { expect, request, test, type Browser, type Page } from '@playwright/test';
-import { SCREENSHOTS, shot, signIn, staffApi, type Staff } from './helpers';
+import { expect, test, type Browser, type Page } from '@playwright/test';
+import { SCREENSHOTS, mailFromCatcher, shot, signIn, staffApi, type Staff } from './helpers';
 
 const BASE_URL = process.env.APP_BASE_URL ?? 'http://127.0.0.1:4700';
 /** The demo's oversold flight at BOS (165 booked on 150 seats). */
@@ -248,22 +248,8 @@ test('the station’s volunteer policy editor checks each field with the shared 
   await form.screenshot({ path: `${SCREENSHOTS}/volunteer-policy-editor-errors.png` });
 });
 
-const MAIL_FAKE_URL = process.env.MAIL_FAKE_URL ?? 'http://127.0.0.1:4601';
 
-/** Polls the mail catcher's JSON API (bounded: 30 tries, 1 s apart) for a message whose subject holds both texts. */
-async function mailWithSubject(part: string, start: string) {
-  const catcher = await request.newContext({ baseURL: MAIL_FAKE_URL });
-  try {
-    for (let attempt = 0; attempt < 30; attempt++) {
-      const res = await catcher.get(`/api/messages?subject=${encodeURIComponent(part)}`);
-      expect(res.ok()).toBe(true);
-      const body = (await res.json()) as { messages: { subject: string; text: string }[] };
-      const found = body.messages.find((m) => m.subject.startsWith(start));
-      if (found) return found;
-      await new Promise((r) => setTimeout(r, 1_000));
-    }
-    throw new Error(`no message "${start} … ${part}" reached ${MAIL_FAKE_URL} within 30 s`);
-  } finally {
-    await catcher.dispose();
-  }
+/** The message whose subject starts with `start` and holds `part`, once the catcher has it. */
+function mailWithSubject(part: string, start: string) {
+  return mailFromCatcher(`subject=${encodeURIComponent(part)}`, (messages) => messages.find((m) => m.subject.startsWith(start)), `a message "${start} … ${part}"`);
 }

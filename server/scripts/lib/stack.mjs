@@ -49,13 +49,15 @@ export function serviceEnv({ local, ports, databaseUrl }) {
   };
 }
 
-export async function startServices(env, { dev = false, quiet = false } = {}) {
-  startChild('mail', TSX, ['mail-fake/src/main.ts'], { env, quiet });
-  if (existsSync('payments-fake/src/main.ts')) startChild('payments', TSX, ['payments-fake/src/main.ts'], { env, quiet });
+export async function startServices(env, { dev = false, quiet = false, standIns = true } = {}) {
+  if (standIns) {
+    startChild('mail', TSX, ['mail-fake/src/main.ts'], { env, quiet });
+    if (existsSync('payments-fake/src/main.ts')) startChild('payments', TSX, ['payments-fake/src/main.ts'], { env, quiet });
+  }
   const serverArgs = dev ? ['watch', '--clear-screen=false', 'server/src/main.ts'] : ['server/src/main.ts'];
   startChild('server', TSX, serverArgs, { env, quiet });
   await waitForHttp(`http://127.0.0.1:${env.PORT}/api/health`);
-  await waitForHttp(`http://127.0.0.1:${env.MAIL_FAKE_HTTP_PORT}/api/health`);
+  if (standIns) await waitForHttp(`http://127.0.0.1:${env.MAIL_FAKE_HTTP_PORT}/api/health`);
   // The demo simulator plays check-ins through the feed API; SIMULATOR=off leaves the demo still.
   if ((env.SIMULATOR ?? process.env.SIMULATOR ?? 'on') !== 'off' && existsSync(env.DEMO_KEYS_FILE)) {
     startChild('simulator', TSX, ['server/src/demo/simulator.ts'], { env, quiet });

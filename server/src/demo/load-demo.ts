@@ -5,6 +5,7 @@ import { hashPassword } from '../modules/auth/password';
 import { audit } from '../modules/audit/audit.service';
 import { localDate } from '../time/zone';
 import { createIntegrationKey } from '../modules/integrations/integration-keys.service';
+import { deleteInDependencyOrder, flightsHeldByMoney } from './delete-in-order';
 import { demoManifest } from './manifest';
 import { seededRandom } from './random';
 import { DEMO_CARRIER, DEMO_PASSWORD, DEMO_STATIONS, DEMO_USERS, type DemoFlight, type DemoStation } from './scenario';
@@ -19,11 +20,14 @@ function stateAt(departsIn: number): FlightState {
 
 async function insertFlight(em: EntityManager, station: StationEntity, demo: DemoStation, f: DemoFlight, now: Date, seed: number) {
   const departure = new Date(Math.round((now.getTime() + f.departsIn * MINUTE) / (5 * MINUTE)) * 5 * MINUTE);
+  const serviceDate = localDate(departure, station.timeZone);
+  // A flight kept for its money rows may hold this number and day already; it stays as it is.
+  if (await em.existsBy(FlightEntity, { carrierCode: DEMO_CARRIER.code, flightNumber: f.number, serviceDate, origin: station.iata })) return;
   const flight = await em.save(em.create(FlightEntity, {
     stationId: station.id,
     carrierCode: DEMO_CARRIER.code,
     flightNumber: f.number,
-    serviceDate: localDate(departure, station.timeZone),
+    serviceDate,
     origin: station.iata,
     destination: f.destination,
     scheduledDeparture: departure,
@@ -91,14 +95,19 @@ export async function createDemoFeedKeys(db: DataSource): Promise<Record<string,
   return keys;
 }
 
-/** A demo left from another day has nothing moving: replace its flights with a fresh morning. */
+/**
+ * A demo left from another day has nothing moving: replace its flights with a fresh morning. Everything hanging off
+ * an old flight goes first, in the order the foreign keys demand; flights a compensation stands on stay with their
+ * whole chain, since money rows are never deleted.
+ */
 export async function refreshDemoFlights(db: DataSource, now = new Date()) {
   await db.transaction(async (em) => {
-    // Figures and trails of the old flights go with them (they hang off flights without foreign keys).
-    for (const table of ['flight_forecasts', 'forecast_snapshots', 'flight_events', 'flights']) await em.query(`DELETE FROM ${table}`);
+    const held = new Set(await flightsHeldByMoney(em));
+    const old = (await em.find(FlightEntity, { select: { id: true } })).map((f) => f.id).filter((id) => !held.has(id));
+    const deleted = await deleteInDependencyOrder(em, 'flights', old);
     const stations = await em.find(StationEntity);
     await insertFlights(em, stations, now);
-    await audit(em, { actor: { label: 'demo loader' }, action: 'demo.refreshed', entityType: 'demo', entityId: 'scenario', after: { at: now.toISOString() } });
+    await audit(em, { actor: { label: 'demo loader' }, action: 'demo.refreshed', entityType: 'demo', entityId: 'scenario', after: { at: now.toISOString(), deleted, keptForMoney: [...held] } });
   });
 }
 

@@ -43,6 +43,11 @@ export function errorHandler(log: (msg: string) => void = console.error): ErrorR
       res.status(403).json({ error: 'csrf_token_invalid', message: 'The form was stale or not from this app. Reload the page and try again.' });
       return;
     }
+    if (err instanceof URIError) {
+      // The router could not percent-decode a path parameter; its sentence quotes the raw input, so ours replaces it.
+      res.status(400).json({ error: 'malformed_url', message: 'A part of the address is not validly percent-encoded.', details: [{ field: 'path', rule: 'must be validly percent-encoded' }] });
+      return;
+    }
     if (status >= 400 && status < 500) {
       const k = known(err ?? {});
       if (k === GENERIC_4XX || k === CORRUPT_BODY) log(`[server] ${req.method} ${req.path} ${status} ${k.error}: ${String(err?.message ?? err)}`);

@@ -1,13 +1,26 @@
 // Listed by hand: a glob of .ts files does not load inside vitest. Append new migrations at the end.
 import { Initial1796151413508 } from './1796151413508-Initial';
 import { SessionsAndAuditGuard1796151413600 } from './1796151413600-SessionsAndAuditGuard';
-import { LiveFlightDesk1796152035497 } from './1796152035497-LiveFlightDesk';
-import { VolunteerRounds1796152709441 } from './1796152709441-VolunteerRounds';
 import { SavedPlans1796151413700 } from './1796151413700-SavedPlans';
+import { LiveFlightDesk1796152035497 } from './1796152035497-LiveFlightDesk';
 import { Outbox1796152300000 } from './1796152300000-Outbox';
+import { VolunteerRounds1796152709441 } from './1796152709441-VolunteerRounds';
 import { Compensations1796153183331 } from './1796153183331-Compensations';
-import { Payments1796153500000 } from './1796153500000-Payments';
 import { Denials1796153400000 } from './1796153400000-Denials';
+import { Payments1796153500000 } from './1796153500000-Payments';
 import { AdminScopeAndSignInThrottle1796210000000 } from './1796210000000-AdminScopeAndSignInThrottle';
+import { ForeignKeys1796290000000 } from './1796290000000-ForeignKeys';
 
-export const migrations = [Initial1796151413508, SessionsAndAuditGuard1796151413600, LiveFlightDesk1796152035497, SavedPlans1796151413700, VolunteerRounds1796152709441, Outbox1796152300000, Compensations1796153183331, Denials1796153400000, Payments1796153500000, AdminScopeAndSignInThrottle1796210000000];
+export const migrations = [
+  Initial1796151413508,
+  SessionsAndAuditGuard1796151413600,
+  SavedPlans1796151413700,
+  LiveFlightDesk1796152035497,
+  Outbox1796152300000,
+  VolunteerRounds1796152709441,
+  Compensations1796153183331,
+  Denials1796153400000,
+  Payments1796153500000,
+  AdminScopeAndSignInThrottle1796210000000,
+  ForeignKeys1796290000000,
+];
