@@ -9,5 +9,6 @@ import { Compensations1796153183331 } from './1796153183331-Compensations';
 import { Payments1796153500000 } from './1796153500000-Payments';
 import { Denials1796153400000 } from './1796153400000-Denials';
 import { AmountApprovals1796220000000 } from './1796220000000-AmountApprovals';
+import { CompensationAmountCleared1796220100000 } from './1796220100000-CompensationAmountCleared';
 
-export const migrations = [Initial1796151413508, SessionsAndAuditGuard1796151413600, LiveFlightDesk1796152035497, SavedPlans1796151413700, VolunteerRounds1796152709441, Outbox1796152300000, Compensations1796153183331, Denials1796153400000, Payments1796153500000, AmountApprovals1796220000000];
+export const migrations = [Initial1796151413508, SessionsAndAuditGuard1796151413600, LiveFlightDesk1796152035497, SavedPlans1796151413700, VolunteerRounds1796152709441, Outbox1796152300000, Compensations1796153183331, Denials1796153400000, Payments1796153500000, AmountApprovals1796220000000, CompensationAmountCleared1796220100000];

@@ -5,7 +5,7 @@ import type { EntityManager } from 'typeorm';
 import type { SessionUser } from '@shared/schemas/auth';
 import { limitForRole, withinLimit, type ApprovalKind } from '@shared/schemas/approvals';
 import type { VolunteerPolicy } from '@shared/schemas/volunteers';
-import { OfferApprovalEntity } from '../../db/entities';
+import { OfferApprovalEntity, type CompensationEntity } from '../../db/entities';
 import { conflict } from '../../http/errors';
 import { audit } from '../audit/audit.service';
 import { policyFor } from '../volunteers/policy.service';
@@ -53,4 +53,13 @@ export async function gateAmount(em: EntityManager, user: SessionUser, req: Amou
     after: { kind: req.kind, amountMinor: req.amountMinor, currency: req.currency, limitMinor: limit, roundId: approval.roundId, subjectId: approval.subjectId, flightId: req.flightId },
   });
   return { approved: false, approval };
+}
+
+/**
+ * The issue path's check: an amount cleared when it was fixed (the rule's, a gated offer, an approval) is issued by
+ * any agent; one that was never cleared (recorded before the gate, or typed by hand) is gated like any other amount.
+ */
+export async function gateIssue(em: EntityManager, user: SessionUser, row: Pick<CompensationEntity, 'id' | 'stationId' | 'flightId' | 'amountMinor' | 'currency' | 'amountClearedBy'>): Promise<GateAnswer> {
+  if (row.amountClearedBy) return { approved: true, approval: null };
+  return gateAmount(em, user, { kind: 'issue', stationId: row.stationId, flightId: row.flightId, subjectId: row.id, amountMinor: row.amountMinor, currency: row.currency });
 }

@@ -40,8 +40,10 @@ async function acceptInTransaction(em: EntityManager, user: SessionUser, roundId
   if (round.kind === 'sealed') {
     const gate = await gateAmount(em, user, { kind: 'sealed-accept', stationId: round.stationId, flightId: round.flightId, roundId: round.id, subjectId: v.id, amountMinor: agreed, currency: round.currency });
     if (!gate.approved) return { round, volunteer: v, approvalRequested: true };
+    await completeAccept(em, user, user.id, round, v, { agreed, accepted, commonPrice, clearedBy: gate.approval ? `approval ${gate.approval.id}` : `limit of user ${user.id}` }, enqueue);
+    return { round, volunteer: v, approvalRequested: false };
   }
-  await completeAccept(em, user, user.id, round, v, { agreed, accepted, commonPrice }, enqueue);
+  await completeAccept(em, user, user.id, round, v, { agreed, accepted, commonPrice, clearedBy: `offer of round ${round.id}` }, enqueue);
   return { round, volunteer: v, approvalRequested: false };
 }
 
@@ -65,9 +67,9 @@ async function prepareAccept(em: EntityManager, round: VolunteerRoundEntity, vol
   return { v, agreed, accepted, commonPrice: round.kind === 'sealed' && policy.sealedBidPricing === 'common-price' };
 }
 
-interface Price { agreed: number; accepted: VolunteerEntity[]; commonPrice: boolean }
+interface Price { agreed: number; accepted: VolunteerEntity[]; commonPrice: boolean; clearedBy: string }
 
-async function completeAccept(em: EntityManager, actor: SessionUser, acceptedBy: number, round: VolunteerRoundEntity, v: VolunteerEntity, { agreed, accepted, commonPrice }: Price, enqueue: Enqueue) {
+async function completeAccept(em: EntityManager, actor: SessionUser, acceptedBy: number, round: VolunteerRoundEntity, v: VolunteerEntity, { agreed, accepted, commonPrice, clearedBy }: Price, enqueue: Enqueue) {
   if (commonPrice) await liftEarlierVolunteers(em, round, agreed, 'common-price rule', enqueue, accepted);
   Object.assign(v, { status: 'accepted', agreedMinor: agreed, acceptedByUserId: acceptedBy, acceptedAt: new Date() });
   await em.save(v);
@@ -78,6 +80,7 @@ async function completeAccept(em: EntityManager, actor: SessionUser, acceptedBy:
       regime: station.regime, voluntary: true, amountMinor: agreed, currency: round.currency,
       band: round.kind === 'posted' ? 'posted offer' : 'sealed bid', ruleRef: 'agreed with the volunteer',
       explanation: `Volunteered in a ${round.kind === 'posted' ? 'posted-offer' : 'sealed-bid'} round at the agreed amount per seat. Volunteers agree their own benefits.`,
+      amountClearedBy: clearedBy,
     });
   }
   const notice = await enqueueConfirmation(em, round, v, enqueue);
@@ -91,7 +94,7 @@ async function completeAccept(em: EntityManager, actor: SessionUser, acceptedBy:
 export async function acceptApproved(em: EntityManager, decider: SessionUser, round: VolunteerRoundEntity, approval: OfferApprovalEntity, enqueue: Enqueue = enqueueMessage) {
   const { v, agreed, accepted, commonPrice } = await prepareAccept(em, round, approval.subjectId!);
   if (agreed !== approval.offerMinor) throw conflict('amount_changed', `Accepting this bid now fixes ${agreed} minor units, not the ${approval.offerMinor} asked for; decline this request and ask again.`);
-  await completeAccept(em, decider, approval.requestedByUserId, round, v, { agreed, accepted, commonPrice }, enqueue);
+  await completeAccept(em, decider, approval.requestedByUserId, round, v, { agreed, accepted, commonPrice, clearedBy: `approval ${approval.id}` }, enqueue);
 }
 
 export async function declineVolunteer(db: DataSource, user: SessionUser, roundId: number, volunteerId: number) {
