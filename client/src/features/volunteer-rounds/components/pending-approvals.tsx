@@ -3,6 +3,7 @@ import { useQuery } from '@tanstack/react-query';
 import { Link } from 'react-router-dom';
 import { APPROVAL_KIND_WORDS, type PendingApproval } from '@shared/schemas/approvals';
 import { Button } from '../../../components/ui/button';
+import { Caution } from '../../../components/ui/page';
 import { formatMoney, formatTime } from '../../../lib/format';
 import { approvalsQueryOptions, useDecideApproval } from '../api/rounds';
 import { useApprovalsLive } from '../api/use-live';
@@ -27,11 +28,16 @@ export function PendingApprovals({ stationId, timeZone }: { stationId: number; t
           <span aria-hidden>● </span>No amount waits for your approval.
         </p>
       ) : (
-        <ul className="space-y-3">
-          {list.map((a) => (
-            <ApprovalRow key={a.id} a={a} timeZone={timeZone} />
-          ))}
-        </ul>
+        <>
+          <ul className="space-y-3">
+            {list.map((a) => (
+              <ApprovalRow key={a.id} a={a} timeZone={timeZone} />
+            ))}
+          </ul>
+          <div className="mt-3">
+            <Caution>Approving fixes what a passenger is paid under the station’s policy. The applicable regulation, the contract of carriage and the carrier’s compliance staff decide what is owed.</Caution>
+          </div>
+        </>
       )}
     </section>
   );
