@@ -142,6 +142,17 @@ describe('a sealed-bid accept above the agent’s limit', () => {
     expect(comp).toMatchObject({ amountMinor: 90_000, state: 'due', amountClearedBy: `approval ${listed.id}` });
   });
 
+  it('closes the waiting request when the agent declines the volunteer instead', async () => {
+    const { flight, passengerIds } = await flightWith(1);
+    const { body: { id: roundId } } = await users.agent.client.post(`/api/flights/${flight.id}/rounds`, { kind: 'sealed', volunteersNeeded: 1 }).expect(201);
+    const { body: { id: volunteerId } } = await users.agent.client.post(`/api/rounds/${roundId}/volunteers`, { passengerIds, askMinor: 80_000 }).expect(201);
+    await users.agent.client.post(`/api/rounds/${roundId}/volunteers/${volunteerId}/accept`).expect(202);
+    await users.agent.client.post(`/api/rounds/${roundId}/volunteers/${volunteerId}/decline`).expect(200);
+    const request = await t.db.getRepository(OfferApprovalEntity).findOneByOrFail({ kind: 'sealed-accept', subjectId: volunteerId });
+    expect(request).toMatchObject({ status: 'rejected', reason: 'the volunteer was declined' });
+    expect((await queue()).map((a) => a.id)).not.toContain(request.id);
+  });
+
   it('lets an ask within the limit through at once', async () => {
     const { flight, passengerIds } = await flightWith(1);
     const { body: { id: roundId } } = await users.agent.client.post(`/api/flights/${flight.id}/rounds`, { kind: 'sealed', volunteersNeeded: 1 }).expect(201);

@@ -1,6 +1,6 @@
 import type { DataSource, EntityManager } from 'typeorm';
 import type { SessionUser } from '@shared/schemas/auth';
-import { StationEntity, VolunteerEntity, type OfferApprovalEntity, type VolunteerRoundEntity } from '../../db/entities';
+import { OfferApprovalEntity, StationEntity, VolunteerEntity, type VolunteerRoundEntity } from '../../db/entities';
 import { recordCompensationDue } from '../compensations/compensation-due';
 import { gateAmount } from '../approvals/approval-gate';
 import { assertNotDeparted } from '../flights/departure-guard';
@@ -97,6 +97,11 @@ export async function acceptApproved(em: EntityManager, decider: SessionUser, ro
   await completeAccept(em, decider, approval.requestedByUserId, round, v, { agreed, accepted, commonPrice, clearedBy: `approval ${approval.id}` }, enqueue);
 }
 
+/** A sealed bid that waited for a supervisor no longer can be accepted as asked: its request is closed, with why. */
+export async function dropWaitingAccept(em: EntityManager, volunteerId: number, reason: string) {
+  await em.update(OfferApprovalEntity, { kind: 'sealed-accept', subjectId: volunteerId, status: 'pending' }, { status: 'rejected', reason, decidedAt: new Date() });
+}
+
 export async function declineVolunteer(db: DataSource, user: SessionUser, roundId: number, volunteerId: number) {
   return db.transaction(async (em) => {
     const round = await roundForUser(em, user, roundId, true);
@@ -105,6 +110,7 @@ export async function declineVolunteer(db: DataSource, user: SessionUser, roundI
     if (v.status !== 'offered') throw conflict('already_decided', `This volunteer is already ${v.status}.`);
     v.status = 'declined';
     await em.save(v);
+    await dropWaitingAccept(em, v.id, 'the volunteer was declined');
     await audit(em, { actor: user, action: 'volunteer.declined', entityType: 'volunteer', entityId: v.id, stationId: round.stationId, before: { status: 'offered' }, after: { status: 'declined' } });
     return { round, volunteer: v };
   });

@@ -117,6 +117,8 @@ export async function addVolunteer(em: EntityManager, round: VolunteerRoundEntit
   const existing = await em.findOne(VolunteerEntity, { where: { roundId: round.id, bookingId }, lock: { mode: 'pessimistic_write' } });
   if (existing && existing.status !== 'offered' && existing.status !== 'withdrawn') throw conflict('already_decided', 'This booking’s offer was already decided in this round.');
   const v = existing ?? em.create(VolunteerEntity, { roundId: round.id, flightId: round.flightId, bookingId, source, agreedMinor: null, acceptedByUserId: null, acceptedAt: null });
+  // A changed offer is a new offer: a supervisor's decision waiting on the old ask no longer applies to it.
+  if (existing) await em.update(OfferApprovalEntity, { kind: 'sealed-accept', subjectId: existing.id, status: 'pending' }, { status: 'rejected', reason: 'the volunteer changed their offer', decidedAt: new Date() });
   Object.assign(v, { passengerIds: chosen, askMinor: round.kind === 'sealed' ? askMinor : null, status: 'offered' });
   await em.save(v);
   await audit(em, { actor, action: existing ? 'volunteer.offer_updated' : 'volunteer.offered', entityType: 'volunteer', entityId: v.id, stationId: round.stationId, after: { bookingId, passengerIds: chosen, askMinor: v.askMinor, source } });
