@@ -25,6 +25,7 @@ import { noticesRouter } from './modules/outbox/outbox.routes';
 import { createForecastScheduler, type ForecastScheduler } from './modules/forecast/forecast-scheduler';
 import { silentPublisher, type Publisher } from './realtime/publisher';
 import { volunteersRouter } from './modules/volunteers/volunteers.routes';
+import { approvalsRouter } from './modules/approvals/approvals.routes';
 import { denialsRouter } from './modules/denials/denials.routes';
 import { publicOffersRouter } from './modules/volunteers/public-offers.routes';
 import { createPaymentsRuntime, type PaymentsRuntime } from './modules/payments/payments-runtime';
@@ -84,6 +85,7 @@ export function createApp(deps: AppDeps) {
   api.use('/auth', authRouter({ db: deps.db, throttle: deps.throttle, csrf, cookieName: deps.session.cookieName, demo: deps.demo, onSignOut: deps.disconnectUser }));
   api.use('/users', usersRouter({ db: deps.db, throttle: deps.throttle, onUserSignedOut: deps.disconnectUser, onUserAccessChanged: deps.userAccessChanged }));
   api.use(volunteersRouter({ db: deps.db, secret: deps.env.SESSION_SECRET, appBaseUrl: deps.env.APP_BASE_URL, changed }));
+  api.use(approvalsRouter({ db: deps.db, changed }));
   api.use(denialsRouter({ db: deps.db, changed }));
   api.use(payments.compensationsRouter());
   api.use('/finance', financeRouter({ db: deps.db, reconciliation: payments.reconciliation }));

@@ -3,12 +3,21 @@ import { currencySchema } from './common';
 
 const minor = (field: string) => z.number({ error: `${field} must be a number` }).int(`${field} must be whole minor units`).nonnegative(`${field} must not be negative`);
 
+export const RAISE_POLICIES = ['lift-to-new-offer', 'keep-agreed'] as const;
+
 /** What the station lets agents offer: the ladder of posted amounts and the most an agent may offer alone. */
 export const volunteerPolicySchema = z.object({
   currency: currencySchema,
   ladderMinor: z.array(minor('ladderMinor[]')).min(1, 'ladderMinor needs at least one step').max(12, 'ladderMinor may have at most 12 steps')
     .refine((l) => l.every((x, i) => i === 0 || x > l[i - 1]), 'ladderMinor must rise at every step'),
   agentLimitMinor: minor('agentLimitMinor'),
+  /** The most a supervisor may fix alone; null: no limit of their own (another supervisor is never needed). */
+  supervisorLimitMinor: minor('supervisorLimitMinor').nullable().default(null),
+  /**
+   * When a posted offer rises during a round, volunteers already accepted at a lower amount either get the new
+   * amount (the default: no one is worse off for saying yes early) or keep what they agreed.
+   */
+  raisePolicy: z.enum(RAISE_POLICIES, { error: 'raisePolicy must be lift-to-new-offer or keep-agreed' }).default('lift-to-new-offer'),
   /** Sealed bids: pay each volunteer their own ask, or every accepted volunteer the highest accepted ask. */
   sealedBidPricing: z.enum(['own-ask', 'common-price'], { error: 'sealedBidPricing must be own-ask or common-price' }),
   extras: z.array(z.string().trim().min(1).max(60)).max(6, 'at most 6 extras'),
@@ -26,7 +35,6 @@ export const openRoundBodySchema = z.object({
 }).refine((b) => b.kind === 'sealed' || b.offerMinor !== undefined, { message: 'offerMinor is required for a posted offer', path: ['offerMinor'] });
 
 export const raiseOfferBodySchema = z.object({ offerMinor: minor('offerMinor') });
-export const decideApprovalBodySchema = z.object({ approve: z.boolean({ error: 'approve must be true or false' }), reason: z.string().trim().max(200).default('') });
 
 export const addVolunteerBodySchema = z.object({
   passengerIds: z.array(z.number().int().positive()).min(1, 'passengerIds must name at least one passenger').max(9),
@@ -57,6 +65,8 @@ export const volunteerSchema = z.object({
   agreedMinor: z.number().nullable(),
   acceptedAt: z.string().nullable(),
   rebooking: z.object({ flight: z.string(), departure: z.string(), arrival: z.string(), plannedArrivalDelayMinutes: z.number() }).nullable(),
+  /** A sealed bid above the accepting agent's limit, waiting for a supervisor. */
+  pendingApproval: z.object({ id: z.number(), offerMinor: z.number(), requestedBy: z.string(), requestedAt: z.string() }).nullable(),
   createdAt: z.string(),
 });
 export type Volunteer = z.infer<typeof volunteerSchema>;
@@ -71,7 +81,7 @@ export const roundSchema = z.object({
   extras: z.array(z.string()),
   volunteersNeeded: z.number(),
   accepted: z.number(),
-  pendingApproval: z.object({ id: z.number(), offerMinor: z.number(), requestedBy: z.string(), requestedAt: z.string() }).nullable(),
+  pendingApproval: z.object({ id: z.number(), kind: z.enum(['opening-offer', 'raise']), offerMinor: z.number(), requestedBy: z.string(), requestedAt: z.string() }).nullable(),
   openedBy: z.string(),
   openedAt: z.string(),
   closedAt: z.string().nullable(),
@@ -83,14 +93,12 @@ export const roundListSchema = z.object({ rounds: z.array(roundSchema), policy: 
 export const alternateFlightSchema = z.object({ id: z.number(), label: z.string(), departure: z.string(), arrival: z.string(), freeSeats: z.number(), plannedArrivalDelayMinutes: z.number() });
 export const alternateListSchema = z.object({ alternates: z.array(alternateFlightSchema) });
 
-export const pendingApprovalSchema = z.object({ id: z.number(), roundId: z.number(), flightId: z.number(), flight: z.string(), offerMinor: z.number(), currency: z.string(), requestedBy: z.string(), requestedAt: z.string() });
-export const pendingApprovalListSchema = z.object({ approvals: z.array(pendingApprovalSchema) });
 
 // The passenger's page ("Offer your seat"): no sign-in; a signed link names the flight, never a passenger.
 export const publicOfferSchema = z.object({
   flight: z.object({ label: z.string(), destination: z.string(), departure: z.string(), timeZone: z.string() }),
   round: z.object({ kind: z.enum(ROUND_KINDS), offerMinor: z.number().nullable(), currency: z.string(), extras: z.array(z.string()) }).nullable(),
-  disclosure: z.object({ mayBeDeniedInvoluntarily: z.boolean(), involuntaryRule: z.string(), cashAlternative: z.string(), voucherRestrictions: z.array(z.string()) }),
+  disclosure: z.object({ mayBeDeniedInvoluntarily: z.boolean(), involuntaryRule: z.string(), cashAlternative: z.string(), voucherRestrictions: z.array(z.string()), ifTheOfferRises: z.string() }),
 });
 export const identifyBodySchema = z.object({
   pnr: z.string().trim().toUpperCase().regex(/^[A-Z0-9]{5,8}$/, 'booking reference must be 5-8 letters or digits'),

@@ -165,7 +165,7 @@ export async function seedFlight(db: DataSource, station: StationEntity, opts: {
 
 let sourceSequence = 0;
 
-/** Compensation rows as a round or a denial would leave them ('due'), one per passenger given. */
+/** Compensation rows as a round or a denial would leave them ('due', the amount cleared by a gated offer), one per passenger given. */
 export async function insertCompensations(
   db: DataSource,
   flight: FlightEntity,
@@ -179,7 +179,7 @@ export async function insertCompensations(
     stationId: flight.stationId, flightId: flight.id, bookingId: p.bookingId, passengerId: p.id, sourceKind: 'volunteer', sourceId: base - i,
     regime: 'us-dot', voluntary: true, amountMinor: 40_000 + (i % 7) * 5_000, currency: 'USD', band: 'volunteer', ruleRef: 'agreed with the volunteer',
     explanation: 'Volunteered (API test).', form: 'prepaid-card', voucherAgreedAt: null, state: 'due', idempotencyKey: null,
-    providerCardholderId: null, providerCardId: null, lastError: null, voidReason: null, ...over(i),
+    providerCardholderId: null, providerCardId: null, lastError: null, voidReason: null, amountClearedBy: 'offer of round (API test)', ...over(i),
   }));
   return repo.save(rows, { chunk: 200 });
 }

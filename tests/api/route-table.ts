@@ -303,11 +303,11 @@ export const ROUTES: readonly RouteRow[] = [
     success: 200,
     otherStation: 404,
   },
-  { method: 'GET', pattern: '/api/approvals', access: ['supervisor', 'admin'], call: () => ({ url: '/api/approvals' }), success: 200 },
+  { method: 'GET', pattern: '/api/approvals', access: ['supervisor', 'admin'], call: (ctx, scope) => ({ url: `/api/approvals?stationId=${stationOf(ctx, scope)}` }), success: 200, otherStation: 404 },
   {
     method: 'POST',
     pattern: '/api/approvals/:id',
-    access: ['supervisor', 'admin'],
+    access: ['supervisor'],
     call: (ctx, scope) => ({ url: `/api/approvals/${scope === 'own' ? ctx.volunteers.nextApproval() : ctx.volunteers.other.approvalId}`, body: { approve: false, reason: 'route matrix check' } }),
     success: 200,
     otherStation: 404,

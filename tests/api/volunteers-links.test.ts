@@ -5,7 +5,7 @@
 // Authentication Cheat Sheet (generic failure messages that do not say which part was wrong; throttling of
 // repeated failures), both from memory.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { VolunteerEntity, type FlightEntity } from '../../server/src/db/entities';
+import { FlightEntity, VolunteerEntity } from '../../server/src/db/entities';
 import { signedIn, startTestApp, type Client, type TestApp } from './harness';
 import { DEMO, stationIdByIata } from './helpers';
 import { addBooking, makeFlight, removeFlights, tokenOf, type Booked } from './volunteers-fixtures';
@@ -29,12 +29,14 @@ beforeAll(async () => {
   agent = await signedIn(t, DEMO.agent);
   const bos = await stationIdByIata(t.db, 'BOS');
   flight = await makeFlight(t.db, { stationId: bos, origin: 'BOS', destination: 'HYA' });
-  // Left two hours ago: its link expired half an hour after departure.
-  pastFlight = await makeFlight(t.db, { stationId: bos, origin: 'BOS', destination: 'HYA', departure: new Date(Date.now() - 2 * 3_600_000) });
+  pastFlight = await makeFlight(t.db, { stationId: bos, origin: 'BOS', destination: 'HYA' });
   flightIds.push(flight.id, pastFlight.id);
   party = await addBooking(t.db, flight, [['Ines', 'Linkwood'], ['Jo', 'Linkwood']]);
   await addBooking(t.db, pastFlight, [['Kit', 'Late']]);
+  // Its round was opened before it left (no round opens on a departed flight); then it left two hours ago, so its
+  // link expired half an hour after departure.
   for (const f of [flight, pastFlight]) await agent.post(`/api/flights/${f.id}/rounds`, { kind: 'sealed', volunteersNeeded: 2 }).expect(201);
+  await t.db.getRepository(FlightEntity).update({ id: pastFlight.id }, { scheduledDeparture: new Date(Date.now() - 2 * 3_600_000) });
   token = tokenOf((await agent.get(`/api/flights/${flight.id}/rounds`).expect(200)).body.bidLink);
   pastToken = tokenOf((await agent.get(`/api/flights/${pastFlight.id}/rounds`).expect(200)).body.bidLink);
 });

@@ -48,8 +48,8 @@ describe('a posted-offer round', () => {
   let roundId: number;
   let approvalId: number;
 
-  it('refuses an agent who opens above the agent limit, naming the field', async () => {
-    const res = await agent.post(`/api/flights/${flight.id}/rounds`, { kind: 'posted', offerMinor: limit + 1, volunteersNeeded: 2 });
+  it('refuses an opening offer that is not a whole number of minor units, naming the field', async () => {
+    const res = await agent.post(`/api/flights/${flight.id}/rounds`, { kind: 'posted', offerMinor: 100.5, volunteersNeeded: 2 });
     expect(res.status).toBe(400);
     expect(res.body.details[0].field).toBe('offerMinor');
   });
@@ -93,11 +93,11 @@ describe('a posted-offer round', () => {
     expect(second.body.error).toBe('approval_pending');
   });
 
-  it('lists the approval to supervisors and admins, never to an agent', async () => {
-    const listed = (await supervisor.get('/api/approvals').expect(200)).body.approvals;
-    expect(listed).toContainEqual(expect.objectContaining({ id: approvalId, roundId, flightId: flight.id, offerMinor: limit + 10_000, currency: 'USD', requestedBy: DEMO.agent }));
-    expect((await admin.get('/api/approvals').expect(200)).body.approvals.map((a: { id: number }) => a.id)).toContain(approvalId);
-    expect((await agent.get('/api/approvals')).status).toBe(403);
+  it('lists the approval to supervisors and admins of the station, never to an agent', async () => {
+    const listed = (await supervisor.get(`/api/approvals?stationId=${flight.stationId}`).expect(200)).body.approvals;
+    expect(listed).toContainEqual(expect.objectContaining({ id: approvalId, kind: 'raise', roundId, flightId: flight.id, offerMinor: limit + 10_000, currency: 'USD', limitMinor: limit, requestedBy: DEMO.agent }));
+    expect((await admin.get(`/api/approvals?stationId=${flight.stationId}`).expect(200)).body.approvals.map((a: { id: number }) => a.id)).toContain(approvalId);
+    expect((await agent.get(`/api/approvals?stationId=${flight.stationId}`)).status).toBe(403);
   });
 
   it('does not let an agent approve (403), and the offer stays put', async () => {
@@ -112,7 +112,7 @@ describe('a posted-offer round', () => {
     const [round] = await rounds();
     expect(round.offerMinor).toBe(limit + 10_000);
     expect(round.pendingApproval).toBeNull();
-    const again = await supervisor.post(`/api/approvals/${approvalId}`, { approve: false });
+    const again = await supervisor.post(`/api/approvals/${approvalId}`, { approve: false, reason: 'changed my mind' });
     expect(again.status).toBe(409);
     expect(again.body.error).toBe('approval_decided');
   });
@@ -125,8 +125,9 @@ describe('a posted-offer round', () => {
     const res = await supervisor.post(`/api/approvals/${own.id}`, { approve: true });
     expect(res.status).toBe(403);
     expect((await rounds())[0].offerMinor).toBe(limit + 10_000);
-    const rejected = await admin.post(`/api/approvals/${own.id}`, { approve: false, reason: 'too high' }).expect(200);
-    expect(rejected.body.offerMinor).toBe(limit + 10_000);
+    // Deciding is a supervisor's act: an admin may look at the queue but not decide it.
+    expect((await admin.post(`/api/approvals/${own.id}`, { approve: false, reason: 'too high' })).status).toBe(403);
+    await t.db.getRepository(OfferApprovalEntity).update({ id: own.id }, { status: 'rejected', reason: 'test cleanup' });
   });
 
   it('applies a supervisor’s own raise above the agent limit without an approval', async () => {
@@ -171,14 +172,15 @@ describe('a posted-offer round', () => {
     expect(steps).toEqual(expect.arrayContaining([
       ['round.opened', DEMO.agent],
       ['round.offer_raised', DEMO.agent],
-      ['round.offer_approval_requested', DEMO.agent],
-      ['round.offer_approved', DEMO.supervisor],
+      ['round.offer_set', DEMO.agent],
+      ['round.offer_raised', DEMO.agent],
       ['round.offer_raised', DEMO.supervisor],
       ['round.closed', DEMO.agent],
+      ['approval.requested', DEMO.agent],
+      ['approval.approved', DEMO.supervisor],
     ]));
-    const requested = rows.find((r) => r.action === 'round.offer_approval_requested')!;
-    expect(requested.before).toEqual({ offerMinor: limit });
-    expect(requested.after).toMatchObject({ offerMinor: limit + 10_000, approvalId });
+    const requested = rows.find((r) => r.action === 'approval.requested')!;
+    expect(requested.after).toMatchObject({ kind: 'raise', amountMinor: limit + 10_000, limitMinor: limit, roundId });
     const mine = (await t.db.getRepository(VolunteerEntity).findBy({ roundId })).map((v) => String(v.id));
     const volunteerRows = await t.db.getRepository(AuditLogEntity).findBy({ entityType: 'volunteer', entityId: In(mine) });
     expect(volunteerRows.map((r) => [r.action, r.actorLabel])).toEqual(expect.arrayContaining([['volunteer.offered', DEMO.agent], ['volunteer.accepted', DEMO.agent], ['volunteer.declined', DEMO.agent]]));

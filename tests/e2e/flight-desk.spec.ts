@@ -81,7 +81,7 @@ const liveIndicator = (page: Page) => page.getByRole('status').filter({ hasText:
 
 test('the flight desk shows counts and odds, and both move live as check-ins arrive from the feed', async ({ page }) => {
   await signIn(page, 'agent@bumpboard.test');
-  await expect(page).toHaveURL(/\/departures$/);
+  await expect(page).toHaveURL(/\/departures(\?station=[A-Z]{3})?$/);
   const flightId = await openDeskFromDepartures(page);
 
   await expect(page.getByRole('main').getByText(/^BOS\W+to ORD$/)).toBeVisible();
@@ -199,7 +199,7 @@ test('a supervisor can set a weather day on the odds, with a reason; an agent se
 
 test('the departures board updates live when check-ins arrive', async ({ page }) => {
   await signIn(page, 'agent@bumpboard.test');
-  await expect(page).toHaveURL(/\/departures$/);
+  await expect(page).toHaveURL(/\/departures(\?station=[A-Z]{3})?$/);
   await expect(liveIndicator(page)).toBeVisible();
   const link = page.getByRole('link', { name: FLIGHT.label });
   const flightId = Number(/\/flights\/(\d+)$/.exec((await link.getAttribute('href')) ?? '')?.[1]);

@@ -34,7 +34,7 @@ async function closeOpenRounds(staff: Staff, flightId: number) {
 async function soloTraveller(staff: Staff, flightId: number, rounds: Rounds) {
   const { passengers } = await (await staff.api.get(`/api/flights/${flightId}/passengers`)).json();
   const volunteered = new Set(rounds.rounds.flatMap((r) => r.volunteers.map((v) => v.bookingId)));
-  const solo = (passengers as { bookingId: number; partySize: number; status: string; pnr: string; firstName: string; lastName: string }[])
+  const solo = (passengers as { id: number; bookingId: number; partySize: number; status: string; pnr: string; firstName: string; lastName: string }[])
     .filter((p) => p.partySize === 1 && p.status === 'checked-in' && !volunteered.has(p.bookingId));
   expect(solo.length, 'the demo flight still has checked-in solo travellers who have not volunteered').toBeGreaterThan(0);
   return solo[Math.floor(Math.random() * solo.length)];
@@ -203,27 +203,68 @@ test('an agent’s raise above the limit waits for a supervisor, who approves it
   const supervisor = await supervisorContext.newPage();
   try {
     await signIn(supervisor, 'supervisor@bumpboard.test');
-    await expect(supervisor).toHaveURL(/\/day$/);
+    await expect(supervisor).toHaveURL(/\/day(\?station=[A-Z]{3})?$/);
     const queue = supervisor.getByTestId('pending-approvals');
     await expect(queue).toBeVisible();
 
     await signIn(page, 'agent@bumpboard.test');
     await openDesk(page, flightId);
     await page.getByRole('button', { name: `Raise to ${money(above!)} (needs a supervisor)` }).click();
-    await expect(page.getByTestId('pending-approval')).toContainText(`Waiting for a supervisor to approve ${money(above!)}`);
+    await expect(page.getByTestId('pending-approval')).toContainText(`Awaiting approval: a supervisor must approve ${money(above!)}`, { timeout: 15_000 });
     await shot(page, 'volunteer-round-waiting-approval');
 
     const row = queue.getByTestId('approval-row').filter({ hasText: FLIGHT.label }).filter({ hasText: money(above!) });
     await expect(row).toBeVisible({ timeout: 15_000 });
     await shot(supervisor, 'station-day-pending-approval');
     await row.getByRole('button', { name: 'Reject' }).click();
-    await expect(row.getByText('reason must say why the offer is refused (at least 3 characters)')).toBeVisible();
+    await expect(row.getByText('reason must say why the amount is refused (at least 3 characters)')).toBeVisible();
     await row.getByLabel('Reason (needed to reject)').fill('e2e: approved after the count');
     await row.getByRole('button', { name: `Approve ${money(above!)}` }).click();
     await expect(row).toHaveCount(0);
 
     await expect(page.getByTestId('current-offer')).toHaveText(money(above!), { timeout: 15_000 });
     await expect(page.getByTestId('pending-approval')).toHaveCount(0);
+  } finally {
+    await closeOpenRounds(agent, flightId);
+    await supervisorContext.close();
+    await agent.dispose();
+  }
+});
+
+test('a sealed bid above the agent’s limit shows "awaiting approval" at the desk until a supervisor approves it live', async ({ page, browser }) => {
+  const agent = await staffApi('agent@bumpboard.test');
+  const flightId = await demoFlightId(agent);
+  const before = await closeOpenRounds(agent, flightId);
+  const { policy } = before;
+  const money = (minor: number) => moneyText(minor, policy.currency);
+  const ask = policy.agentLimitMinor + 30_000;
+  const opened = await agent.post(`/flights/${flightId}/rounds`, { kind: 'sealed', extras: [], volunteersNeeded: 1 });
+  expect(opened.status).toBe(201);
+  const roundId = (opened.body as { id: number }).id;
+  const traveller = await soloTraveller(agent, flightId, before);
+  expect((await agent.post(`/rounds/${roundId}/volunteers`, { passengerIds: [traveller.id], askMinor: ask })).status).toBe(201);
+  const supervisorContext = await browser.newContext({ baseURL: BASE_URL });
+  const supervisor = await supervisorContext.newPage();
+  try {
+    await signIn(page, 'agent@bumpboard.test');
+    await openDesk(page, flightId);
+    const row = page.getByTestId('volunteer-row').filter({ hasText: traveller.pnr });
+    await row.getByRole('button', { name: `Accept at ${money(ask)}` }).click();
+    await expect(row.getByTestId('volunteer-awaiting-approval')).toContainText(`Awaiting approval: a supervisor must approve accepting at ${money(ask)}`, { timeout: 15_000 });
+    await shot(page, 'volunteer-round-sealed-awaiting-approval');
+
+    await signIn(supervisor, 'supervisor@bumpboard.test');
+    const queued = supervisor.getByTestId('approval-row').filter({ hasText: traveller.pnr });
+    await expect(queued).toContainText(`Accept a volunteer’s sealed bid of ${money(ask)}`, { timeout: 15_000 });
+    await shot(supervisor, 'station-day-sealed-bid-approval');
+    await queued.getByRole('button', { name: `Approve ${money(ask)}` }).click();
+    await expect(queued).toHaveCount(0);
+
+    // The agent's desk follows without a reload: the volunteer is accepted at the approved amount.
+    await expect(row.getByTestId('volunteer-awaiting-approval')).toHaveCount(0, { timeout: 15_000 });
+    await expect(row).toContainText(`Agreed ${money(ask)} per seat.`, { timeout: 15_000 });
+    await expect(row).toContainText('Accepted');
+    await shot(page, 'volunteer-round-sealed-approved');
   } finally {
     await closeOpenRounds(agent, flightId);
     await supervisorContext.close();

@@ -5,7 +5,7 @@ import { ROLE_LABELS } from '@shared/schemas/common';
 import { sessionQueryOptions, useSignOut } from '../../lib/session';
 import { onUnauthenticated } from '../../lib/api-client';
 import { NAV_ITEMS } from '../role-homes';
-import { useCurrentStation } from '../use-current-station';
+import { STATION_PARAM, useCurrentStation } from '../use-current-station';
 import { useQueryClient } from '@tanstack/react-query';
 
 export function AppShell() {
@@ -15,7 +15,13 @@ export function AppShell() {
   const navigate = useNavigate();
   const location = useLocation();
   const qc = useQueryClient();
-  const { station, stations, choose } = useCurrentStation();
+  const { station, stations, choose, inUrl } = useCurrentStation();
+
+  // The station belongs in the URL: a page opened without one (or with one the user does not belong to) gets the
+  // working station written in, so the picker, the page and a copied link all name the same station.
+  useEffect(() => {
+    if (user && station && !inUrl && !location.pathname.startsWith('/sign-in')) choose(station.id, true);
+  }, [user, station, inUrl, choose, location.pathname]);
 
   // A session that expires mid-work sends the user to sign in, remembering the page to come back to.
   useEffect(
@@ -41,7 +47,7 @@ export function AppShell() {
           {user && (
             <nav aria-label="Main" className="flex flex-wrap gap-1">
               {NAV_ITEMS.filter((i) => i.roles.includes(user.role)).map((i) => (
-                <NavLink key={i.to} to={i.to} className={({ isActive }) => `rounded px-3 py-2 font-bold ${isActive ? 'bg-white text-harbour' : 'hover:bg-white/15'}`}>
+                <NavLink key={i.to} to={station ? `${i.to}?${STATION_PARAM}=${station.iata}` : i.to} className={({ isActive }) => `rounded px-3 py-2 font-bold ${isActive ? 'bg-white text-harbour' : 'hover:bg-white/15'}`}>
                   {i.label}
                 </NavLink>
               ))}
@@ -52,7 +58,7 @@ export function AppShell() {
               {stations.length > 1 ? (
                 <label className="flex items-center gap-2">
                   <span className="text-sm">Station</span>
-                  <select className="rounded bg-white px-2 py-1 font-bold text-harbour" value={station?.id ?? ''} onChange={(e) => choose(Number(e.target.value))}>
+                  <select data-testid="station-picker" className="rounded bg-white px-2 py-1 font-bold text-harbour" value={station?.id ?? ''} onChange={(e) => choose(Number(e.target.value))}>
                     {stations.map((s) => (
                       <option key={s.id} value={s.id}>
                         {s.iata} · {s.name}

@@ -79,6 +79,14 @@ export class CompensationEntity {
   @Column({ type: 'varchar', length: 200, name: 'void_reason', nullable: true })
   voidReason!: string | null;
 
+  /**
+   * How the amount was cleared against someone's limit: 'rule' (a denial's amount, from the regime), 'offer of round
+   * N' (a posted offer, gated when it was set), 'limit of user N' or 'approval N'. Null: not cleared; issuing it above
+   * the issuer's limit waits for a supervisor.
+   */
+  @Column({ type: 'varchar', length: 40, name: 'amount_cleared_by', nullable: true })
+  amountClearedBy!: string | null;
+
   @CreateDateColumn({ type: 'datetime', precision: 3, default: () => 'CURRENT_TIMESTAMP(3)', name: 'created_at' })
   createdAt!: Date;
 

@@ -26,6 +26,13 @@ export class StationEntity {
   @Column({ type: 'int', name: 'risk_tolerance_bp', default: 500 })
   riskToleranceBp!: number;
 
+  /**
+   * Minutes after the scheduled departure after which the flight counts as gone even if no one marked it departed
+   * (a station setting; 10 by default, matching the clock that moves states along).
+   */
+  @Column({ type: 'int', name: 'departure_grace_minutes', default: 10 })
+  departureGraceMinutes!: number;
+
   @CreateDateColumn({ type: 'datetime', precision: 3, default: () => 'CURRENT_TIMESTAMP(3)', name: 'created_at' })
   createdAt!: Date;
 }

@@ -1,5 +1,6 @@
 import { Column, CreateDateColumn, Entity, Index, PrimaryColumn, PrimaryGeneratedColumn, UpdateDateColumn } from 'typeorm';
 import type { VolunteerPolicy } from '@shared/schemas/volunteers';
+import type { ApprovalKind } from '@shared/schemas/approvals';
 
 /** A station's volunteer policy (offer ladder, agent limit, bid pricing), validated by the shared schema. */
 @Entity({ name: 'volunteer_policies' })
@@ -58,20 +59,40 @@ export class VolunteerRoundEntity {
   closedAt!: Date | null;
 }
 
-/** An offer above the agent's limit waits here for a supervisor. */
+/**
+ * An amount above the requesting user's limit waits here for a supervisor of the station. The table kept its first
+ * name (offer approvals); it now holds every kind. subjectId names the volunteer, compensation or denial the amount
+ * belongs to; roundId the round for offers and sealed accepts.
+ */
 @Entity({ name: 'offer_approvals' })
 export class OfferApprovalEntity {
   @PrimaryGeneratedColumn({ type: 'int' })
   id!: number;
 
-  @Column({ type: 'int', name: 'round_id' })
-  roundId!: number;
+  @Column({ type: 'varchar', length: 24, default: 'raise' })
+  kind!: ApprovalKind;
+
+  @Column({ type: 'int', name: 'round_id', nullable: true })
+  roundId!: number | null;
 
   @Column({ type: 'int', name: 'station_id' })
   stationId!: number;
 
+  @Column({ type: 'int', name: 'flight_id', nullable: true })
+  flightId!: number | null;
+
+  @Column({ type: 'int', name: 'subject_id', nullable: true })
+  subjectId!: number | null;
+
   @Column({ type: 'int', name: 'offer_minor' })
   offerMinor!: number;
+
+  @Column({ type: 'char', length: 3, nullable: true })
+  currency!: string | null;
+
+  /** The requester's limit when asking, so the queue can say by how much the amount is above it. */
+  @Column({ type: 'int', name: 'limit_minor', nullable: true })
+  limitMinor!: number | null;
 
   @Column({ type: 'varchar', length: 12, default: 'pending' })
   status!: 'pending' | 'approved' | 'rejected';
@@ -87,6 +108,9 @@ export class OfferApprovalEntity {
 
   @Column({ type: 'int', name: 'decided_by_user_id', nullable: true })
   decidedByUserId!: number | null;
+
+  @Column({ type: 'datetime', precision: 3, name: 'decided_at', nullable: true })
+  decidedAt!: Date | null;
 
   @Column({ type: 'varchar', length: 200, default: '' })
   reason!: string;

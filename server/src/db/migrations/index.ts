@@ -9,6 +9,8 @@ import { Compensations1796153183331 } from './1796153183331-Compensations';
 import { Denials1796153400000 } from './1796153400000-Denials';
 import { Payments1796153500000 } from './1796153500000-Payments';
 import { AdminScopeAndSignInThrottle1796210000000 } from './1796210000000-AdminScopeAndSignInThrottle';
+import { AmountApprovals1796220000000 } from './1796220000000-AmountApprovals';
+import { CompensationAmountCleared1796220100000 } from './1796220100000-CompensationAmountCleared';
 import { ForeignKeys1796290000000 } from './1796290000000-ForeignKeys';
 
 export const migrations = [
@@ -22,5 +24,7 @@ export const migrations = [
   Denials1796153400000,
   Payments1796153500000,
   AdminScopeAndSignInThrottle1796210000000,
+  AmountApprovals1796220000000,
+  CompensationAmountCleared1796220100000,
   ForeignKeys1796290000000,
 ];

@@ -18,6 +18,8 @@ export interface CompensationFact {
   band: string;
   ruleRef: string;
   explanation: string;
+  /** How the amount was cleared against a limit; a denial's amount is the rule's (its authorization is a supervisor's). */
+  amountClearedBy?: string | null;
 }
 
 /**
@@ -31,6 +33,7 @@ export async function recordCompensationDue(em: EntityManager, fact: Compensatio
   if (existing) return existing;
   return em.save(em.create(CompensationEntity, {
     ...fact,
+    amountClearedBy: fact.amountClearedBy ?? (fact.sourceKind === 'denial' ? 'rule' : null),
     form: 'prepaid-card',
     voucherAgreedAt: null,
     state: 'due',

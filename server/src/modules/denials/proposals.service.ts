@@ -8,6 +8,7 @@ import { badRequest, conflict, forbidden, notFound } from '../../http/errors';
 import { canSeeStation } from '../../http/require-role';
 import { audit } from '../audit/audit.service';
 import { rankFlight } from './candidates.service';
+import { assertNotDeparted } from '../flights/departure-guard';
 
 const WAITING = ['proposed', 'changed'] as const;
 
@@ -26,6 +27,7 @@ const unitSummary = (d: DenialEntity) => ({ denialId: d.id, bookingId: d.booking
 export async function proposeDenials(db: DataSource, user: SessionUser, flightId: number, body: ProposeDenialsBody) {
   return db.transaction(async (em) => {
     const flight = await lockFlight(em, flightId);
+    await assertNotDeparted(em, flight, 'proposing a new denial of boarding');
     const waiting = await em.findOneBy(DenialProposalEntity, { flightId, status: In([...WAITING]) });
     if (waiting) throw conflict('proposal_waiting', `Proposal ${waiting.id} on this flight still waits for a supervisor. Change or withdraw it instead of proposing again.`);
     const ranking = await rankFlight(em, flight);

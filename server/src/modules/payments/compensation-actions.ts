@@ -8,6 +8,7 @@ import { canSeeStation } from '../../http/require-role';
 import type { CardSnapshot } from '../../integrations/payments/issuing-provider';
 import { classifyProviderError } from '../../integrations/payments/provider-errors';
 import { audit } from '../audit/audit.service';
+import { gateIssue } from '../approvals/approval-gate';
 import { baseKeyFor, reissueKeyFor, voidKey } from './compensation-states';
 import { upsertProviderCard } from './issuance-record';
 import type { Issuer } from './issuer';
@@ -49,12 +50,18 @@ export async function issueCompensation(ctx: PaymentsContext, issuer: Issuer, us
     if (row.state !== 'due') return row.state === 'issuing';
     if (row.amountMinor <= 0) throw conflict('nothing_to_pay', 'This compensation is for no money; there is nothing to issue.');
     if (row.form === 'voucher' && !row.voucherAgreedAt) throw conflict('voucher_not_agreed', 'A voucher needs the passenger’s recorded agreement first.');
+    if (!(await gateIssue(em, user, row)).approved) return { awaiting: row };
     const key = row.idempotencyKey ?? baseKeyFor(row.id);
     await em.update(CompensationEntity, { id: row.id }, { state: 'issuing', idempotencyKey: key });
     await rememberAccount(em, ctx, row.id);
     await audit(em, { actor: user, action: 'compensation.issue_requested', entityType: 'compensation', entityId: row.id, stationId: row.stationId, before: { state: 'due' }, after: { state: 'issuing', idempotencyKey: key, amountMinor: row.amountMinor, currency: row.currency, form: row.form } });
     return true;
   });
+  if (typeof started === 'object') {
+    // The request is stored (and listed on the station's day); nothing is paid until a supervisor approves it.
+    ctx.changed(started.awaiting.flightId, started.awaiting.stationId, ['approvals', 'compensations']);
+    throw conflict('awaiting_approval', 'This amount is above your limit: it now waits for a supervisor of the station to approve it. Issue it again once approved.');
+  }
   if (started) await waitBriefly(issuer.attempt(id));
 }
 

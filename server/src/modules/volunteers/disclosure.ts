@@ -29,5 +29,8 @@ export function volunteerDisclosure(regime: RegimeCode, policy: VolunteerPolicy,
     involuntaryRule: INVOLUNTARY_RULE[regime],
     cashAlternative: CASH_ALTERNATIVE[regime],
     voucherRestrictions: policy.voucherRestrictions,
+    ifTheOfferRises: policy.raisePolicy === 'lift-to-new-offer'
+      ? 'If the gate raises the offer after you have accepted, you get the higher amount too.'
+      : 'If the gate raises the offer after you have accepted, you keep the amount you agreed.',
   };
 }

@@ -11,6 +11,8 @@ export function defaultPolicy(currency: string): VolunteerPolicy {
     currency,
     ladderMinor: [20_000, 40_000, 60_000, 80_000, 100_000],
     agentLimitMinor: 60_000,
+    supervisorLimitMinor: null,
+    raisePolicy: 'lift-to-new-offer',
     sealedBidPricing: 'own-ask',
     extras: ['Meal voucher', 'Lounge access until the new flight'],
     voucherRestrictions: [

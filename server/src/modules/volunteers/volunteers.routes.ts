@@ -2,7 +2,7 @@ import { Router, type Request } from 'express';
 import { z } from 'zod';
 import type { DataSource } from 'typeorm';
 import { idParamSchema } from '@shared/schemas/common';
-import { addVolunteerBodySchema, decideApprovalBodySchema, openRoundBodySchema, raiseOfferBodySchema, rebookBodySchema, volunteerPolicySchema } from '@shared/schemas/volunteers';
+import { addVolunteerBodySchema, openRoundBodySchema, raiseOfferBodySchema, rebookBodySchema, volunteerPolicySchema } from '@shared/schemas/volunteers';
 import { PassengerEntity, StationEntity, VolunteerPolicyEntity } from '../../db/entities';
 import { badRequest, notFound } from '../../http/errors';
 import { canSeeStation, currentUser, requireRole } from '../../http/require-role';
@@ -15,7 +15,7 @@ import { flightToken } from './bid-link';
 import { policyFor } from './policy.service';
 import { alternatesFor, rebookVolunteer } from './rebooking.service';
 import { presentRounds } from './rounds.presenter';
-import { addVolunteer, closeRound, decideApproval, openRound, raiseOffer, roundForUser } from './rounds.service';
+import { addVolunteer, closeRound, openRound, raiseOffer, roundForUser } from './rounds.service';
 
 export interface VolunteerDeps {
   db: DataSource;
@@ -43,9 +43,9 @@ export function volunteersRouter(deps: VolunteerDeps) {
   r.post('/flights/:flightId/rounds', desk, async (req, res) => {
     const flight = await flightOf(req);
     const body = parse(openRoundBodySchema, req.body);
-    const round = await openRound(deps.db, currentUser(req), flight, body);
-    deps.changed(flight.id, flight.stationId, ['rounds']);
-    res.status(201).json({ id: round.id });
+    const { round, approvalRequested } = await openRound(deps.db, currentUser(req), flight, body);
+    deps.changed(flight.id, flight.stationId, approvalRequested ? ['rounds', 'approvals'] : ['rounds']);
+    res.status(201).json({ id: round.id, approvalRequested });
   });
 
   r.get('/flights/:flightId/alternates', desk, async (req, res) => {
@@ -56,6 +56,8 @@ export function volunteersRouter(deps: VolunteerDeps) {
     const { id } = parse(idParamSchema, req.params, 'params');
     const { offerMinor } = parse(raiseOfferBodySchema, req.body);
     const { round, approvalRequested } = await raiseOffer(deps.db, currentUser(req), id, offerMinor);
+    // Earlier volunteers lifted to the new offer are told in writing.
+    if (!approvalRequested) notifyOutbox();
     deps.changed(round.flightId, round.stationId, approvalRequested ? ['rounds', 'approvals'] : ['rounds']);
     res.json({ approvalRequested });
   });
@@ -82,7 +84,12 @@ export function volunteersRouter(deps: VolunteerDeps) {
 
   r.post('/rounds/:id/volunteers/:volunteerId/accept', desk, async (req, res) => {
     const { id, volunteerId } = parse(volunteerParams, req.params, 'params');
-    const { round } = await acceptVolunteer(deps.db, currentUser(req), id, volunteerId);
+    const { round, approvalRequested } = await acceptVolunteer(deps.db, currentUser(req), id, volunteerId);
+    if (approvalRequested) {
+      deps.changed(round.flightId, round.stationId, ['rounds', 'approvals']);
+      res.status(202).json({ status: 'awaiting-approval' });
+      return;
+    }
     notifyOutbox();
     deps.changed(round.flightId, round.stationId, ['rounds', 'forecast', 'notices']);
     res.json({ status: 'accepted' });
@@ -103,28 +110,6 @@ export function volunteersRouter(deps: VolunteerDeps) {
     deps.changed(round.flightId, round.stationId, ['rounds', 'notices']);
     if (rebooking.alternateFlightId) deps.changed(rebooking.alternateFlightId, round.stationId, ['counts']);
     res.json({ plannedArrivalDelayMinutes: rebooking.plannedArrivalDelayMinutes, label: rebooking.label });
-  });
-
-  r.get('/approvals', requireRole('supervisor', 'admin'), async (req, res) => {
-    const user = currentUser(req);
-    const rows = await deps.db.query(
-      `SELECT a.id, a.round_id, a.offer_minor, a.requested_by_label, a.requested_at, r.flight_id, r.currency, f.carrier_code, f.flight_number, a.station_id
-         FROM offer_approvals a JOIN volunteer_rounds r ON r.id = a.round_id JOIN flights f ON f.id = r.flight_id
-        WHERE a.status = 'pending' ORDER BY a.requested_at`,
-    ) as { id: number; round_id: number; offer_minor: number; requested_by_label: string; requested_at: Date; flight_id: number; currency: string; carrier_code: string; flight_number: string; station_id: number }[];
-    res.json({
-      approvals: rows.filter((a) => canSeeStation(user, a.station_id)).map((a) => ({
-        id: a.id, roundId: a.round_id, flightId: a.flight_id, flight: `${a.carrier_code} ${a.flight_number}`, offerMinor: a.offer_minor, currency: a.currency, requestedBy: a.requested_by_label, requestedAt: new Date(a.requested_at).toISOString(),
-      })),
-    });
-  });
-
-  r.post('/approvals/:id', requireRole('supervisor', 'admin'), async (req, res) => {
-    const { id } = parse(idParamSchema, req.params, 'params');
-    const body = parse(decideApprovalBodySchema, req.body);
-    const round = await decideApproval(deps.db, currentUser(req), id, body.approve, body.reason);
-    deps.changed(round.flightId, round.stationId, ['rounds', 'approvals']);
-    res.json({ offerMinor: round.offerMinor });
   });
 
   r.get('/stations/:stationId/volunteer-policy', desk, async (req, res) => {

@@ -22,6 +22,10 @@ export function BeforeYouDecide({ disclosure }: { disclosure: Disclosure }) {
           <strong>Cash: </strong>
           {disclosure.cashAlternative}
         </li>
+        <li>
+          <strong>If the offer rises: </strong>
+          {disclosure.ifTheOfferRises}
+        </li>
       </ul>
       {disclosure.voucherRestrictions.length > 0 && (
         <details className="mt-3 text-xl">

@@ -8,7 +8,7 @@ import { OfferYourSeat } from './offer-your-seat';
 const OFFER = {
   flight: { label: 'ZZ 105', destination: 'ORD', departure: '2026-12-01T20:45:00.000Z', timeZone: 'America/New_York' },
   round: { kind: 'posted', offerMinor: 40_000, currency: 'USD', extras: ['Meal voucher'] },
-  disclosure: { mayBeDeniedInvoluntarily: true, involuntaryRule: 'US rules owe you 200 % of your fare.', cashAlternative: 'Paid in cash.', voucherRestrictions: ['Valid 12 months.'] },
+  disclosure: { mayBeDeniedInvoluntarily: true, involuntaryRule: 'US rules owe you 200 % of your fare.', cashAlternative: 'Paid in cash.', voucherRestrictions: ['Valid 12 months.'], ifTheOfferRises: 'You get the higher amount too.' },
 };
 const NOT_MATCHED = { error: 'booking_not_matched', message: 'We could not find that booking on this flight. Check the booking reference and the last name as printed on your boarding pass.' };
 

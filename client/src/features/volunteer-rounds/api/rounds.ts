@@ -2,9 +2,10 @@ import { queryOptions, useMutation, useQueryClient } from '@tanstack/react-query
 import { z } from 'zod';
 import { deskPassengersSchema } from '@shared/schemas/flight-desk';
 import {
-  alternateListSchema, pendingApprovalListSchema, publicOfferSchema, roundListSchema, volunteerPolicySchema,
+  alternateListSchema, publicOfferSchema, roundListSchema, volunteerPolicySchema,
   type addVolunteerBodySchema, type openRoundBodySchema, type rebookBodySchema, type VolunteerPolicy,
 } from '@shared/schemas/volunteers';
+import { pendingApprovalListSchema } from '@shared/schemas/approvals';
 import { api, apiRequest } from '../../../lib/api-client';
 
 /** One key tree per flight, so a change notice about rounds invalidates only what this panel shows. */
@@ -17,6 +18,7 @@ export const volunteerKeys = {
   disclosure: (token: string) => [...volunteerKeys.all, 'disclosure', token] as const,
   qr: (link: string) => [...volunteerKeys.all, 'qr', link] as const,
   approvals: () => [...volunteerKeys.all, 'approvals'] as const,
+  stationApprovals: (stationId: number) => [...volunteerKeys.approvals(), stationId] as const,
   policy: (stationId: number) => [...volunteerKeys.all, 'policy', stationId] as const,
 };
 
@@ -44,8 +46,9 @@ export const disclosureQueryOptions = (token: string) =>
     staleTime: 60_000,
   });
 
-export const approvalsQueryOptions = () =>
-  queryOptions({ queryKey: volunteerKeys.approvals(), queryFn: () => api.get('/approvals', pendingApprovalListSchema), refetchInterval: SAFETY_REFETCH_MS });
+/** One station's queue: the station comes from the page (and so from the URL), never from "all my stations". */
+export const approvalsQueryOptions = (stationId: number) =>
+  queryOptions({ queryKey: volunteerKeys.stationApprovals(stationId), queryFn: () => api.get(`/approvals?stationId=${stationId}`, pendingApprovalListSchema), refetchInterval: SAFETY_REFETCH_MS });
 
 export const policyQueryOptions = (stationId: number) =>
   queryOptions({ queryKey: volunteerKeys.policy(stationId), queryFn: () => api.get(`/stations/${stationId}/volunteer-policy`, volunteerPolicySchema) });
@@ -79,8 +82,8 @@ export const useRebook = (flightId: number) =>
 export function useDecideApproval() {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (v: { approvalId: number; flightId: number; approve: boolean; reason: string }) => api.post(`/approvals/${v.approvalId}`, null, { approve: v.approve, reason: v.reason }),
-    onSettled: (_d, _e, v) => Promise.all([qc.invalidateQueries({ queryKey: volunteerKeys.approvals() }), qc.invalidateQueries({ queryKey: volunteerKeys.flight(v.flightId) })]),
+    mutationFn: (v: { approvalId: number; flightId: number | null; approve: boolean; reason: string }) => api.post(`/approvals/${v.approvalId}`, null, { approve: v.approve, reason: v.reason }),
+    onSettled: (_d, _e, v) => Promise.all([qc.invalidateQueries({ queryKey: volunteerKeys.approvals() }), v.flightId !== null && qc.invalidateQueries({ queryKey: volunteerKeys.flight(v.flightId) })]),
   });
 }
 

@@ -19,7 +19,7 @@ const ROUND: Round = {
 };
 const VOLUNTEER: Volunteer = {
   id: 5, bookingId: 10, pnr: 'K7Q2XM', names: ['Ada Okafor'], passengerIds: [1], askMinor: 30_000, source: 'agent', status: 'accepted',
-  agreedMinor: 30_000, acceptedAt: null, rebooking: null, createdAt: '2026-12-01T19:05:00.000Z',
+  agreedMinor: 30_000, acceptedAt: null, rebooking: null, pendingApproval: null, createdAt: '2026-12-01T19:05:00.000Z',
 };
 
 const posts: { path: string; body: unknown }[] = [];

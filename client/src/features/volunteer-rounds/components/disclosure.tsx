@@ -27,6 +27,10 @@ export function Disclosure({ token }: { token: string }) {
             <strong>Cash alternative: </strong>
             {d.data.cashAlternative}
           </p>
+          <p>
+            <strong>If the offer rises: </strong>
+            {d.data.ifTheOfferRises}
+          </p>
           {d.data.voucherRestrictions.length > 0 && (
             <div>
               <strong>Voucher restrictions:</strong>

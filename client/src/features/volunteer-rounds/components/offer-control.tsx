@@ -4,7 +4,8 @@ import { Button } from '../../../components/ui/button';
 import { formatMoney, formatTime } from '../../../lib/format';
 import { useRaiseOffer } from '../api/rounds';
 import { parseMoney } from '../model/money';
-import { needsSupervisor, nextLadderStep } from '../model/round-words';
+import { limitForRole } from '@shared/schemas/approvals';
+import { limitWords, needsSupervisor, nextLadderStep } from '../model/round-words';
 import { Problem } from './problem';
 
 const PRICING_WORDS: Record<VolunteerPolicy['sealedBidPricing'], string> = {
@@ -24,7 +25,7 @@ export function OfferControl({ round, policy, role, flightId, timeZone }: { roun
       <div className="rounded-lg border-2 border-line p-4">
         <p className="text-2xl font-bold">Sealed bids</p>
         <p className="text-lg">Volunteers name the least they would accept. Accept the lowest asks first: they are listed lowest first.</p>
-        <p className="mt-1 text-ink-soft">{PRICING_WORDS[policy.sealedBidPricing]} Asks above {money(policy.agentLimitMinor)} are above the agent limit.</p>
+        <p className="mt-1 text-ink-soft">{PRICING_WORDS[policy.sealedBidPricing]} {limitWords(limitForRole(role, policy), money)}</p>
         <Extras extras={round.extras} />
       </div>
     );
@@ -51,7 +52,8 @@ export function OfferControl({ round, policy, role, flightId, timeZone }: { roun
       <Extras extras={round.extras} />
       {pending && (
         <p role="status" className="mt-3 rounded-md border-l-4 border-watch bg-watch-soft px-3 py-2 text-lg font-bold" data-testid="pending-approval">
-          <span aria-hidden>◆ </span>Waiting for a supervisor to approve {money(pending.offerMinor)} (asked by {pending.requestedBy} at {formatTime(pending.requestedAt, timeZone)}). The offer stays at {money(round.offerMinor ?? 0)} until then.
+          <span aria-hidden>◆ </span>Awaiting approval: a supervisor must approve {money(pending.offerMinor)} (asked by {pending.requestedBy} at {formatTime(pending.requestedAt, timeZone)}).{' '}
+          {round.offerMinor === null ? 'No one can be accepted until an offer stands.' : `The offer stays at ${money(round.offerMinor)} until then.`}
         </p>
       )}
       <div className="mt-4 flex flex-wrap items-end gap-3">
@@ -79,7 +81,7 @@ export function OfferControl({ round, policy, role, flightId, timeZone }: { roun
       </div>
       {customError && <p className="mt-1 font-bold text-alert">{customError}</p>}
       {raise.data?.approvalRequested && !pending && <p role="status" className="mt-2 font-bold">Sent to a supervisor for approval.</p>}
-      <p className="mt-2 text-sm text-ink-soft">You may offer up to {money(policy.agentLimitMinor)} alone{role === 'agent' ? '; above that a supervisor approves' : ''}.</p>
+      <p className="mt-2 text-sm text-ink-soft">{limitWords(limitForRole(role, policy), money)}</p>
       <Problem error={raise.error} />
     </div>
   );

@@ -3,7 +3,8 @@ import type { VolunteerPolicy } from '@shared/schemas/volunteers';
 import { Button } from '../../../components/ui/button';
 import { formatMoney } from '../../../lib/format';
 import { useOpenRound } from '../api/rounds';
-import { needsSupervisor } from '../model/round-words';
+import { limitForRole } from '@shared/schemas/approvals';
+import { limitWords, needsSupervisor } from '../model/round-words';
 import { Problem } from './problem';
 
 type Kind = 'posted' | 'sealed';
@@ -54,13 +55,13 @@ export function OpenRoundForm({ flightId, policy, role, volunteerTarget }: { fli
             <label htmlFor={`${id}-offer`} className="mb-1 block font-bold">First offer</label>
             <select id={`${id}-offer`} aria-describedby={`${id}-offer-hint`} className="w-full rounded-md border-2 border-line bg-card px-3 py-2 text-lg" value={offerMinor} onChange={(e) => setOfferMinor(Number(e.target.value))}>
               {policy.ladderMinor.map((step) => (
-                <option key={step} value={step} disabled={needsSupervisor(step, policy, role)}>
+                <option key={step} value={step}>
                   {money(step)}
-                  {needsSupervisor(step, policy, role) ? ' — above your limit: open lower and raise' : ''}
+                  {needsSupervisor(step, policy, role) ? ' — above your limit: waits for a supervisor' : ''}
                 </option>
               ))}
             </select>
-            <p id={`${id}-offer-hint`} className="mt-1 text-sm text-ink-soft">The station’s ladder; you may offer up to {money(policy.agentLimitMinor)} without a supervisor.</p>
+            <p id={`${id}-offer-hint`} className="mt-1 text-sm text-ink-soft">The station’s ladder. {limitWords(limitForRole(role, policy), money)}</p>
           </div>
         )}
         <div>

@@ -1,38 +1,43 @@
 import { useState } from 'react';
 import { useQuery } from '@tanstack/react-query';
 import { Link } from 'react-router-dom';
-import type { z } from 'zod';
-import type { pendingApprovalSchema } from '@shared/schemas/volunteers';
+import { APPROVAL_KIND_WORDS, type PendingApproval } from '@shared/schemas/approvals';
 import { Button } from '../../../components/ui/button';
+import { Caution } from '../../../components/ui/page';
 import { formatMoney, formatTime } from '../../../lib/format';
 import { approvalsQueryOptions, useDecideApproval } from '../api/rounds';
 import { useApprovalsLive } from '../api/use-live';
 import { Problem } from './problem';
 
-type Approval = z.infer<typeof pendingApprovalSchema>;
+type Approval = PendingApproval;
 
-/** A supervisor's queue of offers above the agent's limit, kept live by the station's change notices. */
+/** A supervisor's queue of amounts above someone's limit at this station, kept live by the station's change notices. */
 export function PendingApprovals({ stationId, timeZone }: { stationId: number; timeZone: string }) {
-  const approvals = useQuery(approvalsQueryOptions());
+  const approvals = useQuery(approvalsQueryOptions(stationId));
   useApprovalsLive(stationId);
   if (approvals.isPending) return <p className="text-lg text-ink-soft">Loading what waits for you…</p>;
   if (approvals.error) return <p role="alert" className="font-bold text-alert">The approvals could not be loaded: {approvals.error.message}</p>;
   const list = approvals.data.approvals;
   return (
-    <section aria-label="Offers waiting for your approval" data-testid="pending-approvals">
+    <section aria-label="Amounts waiting for your approval" data-testid="pending-approvals">
       <h3 className="mb-2 text-xl font-bold">
-        Offers above the agent’s limit {list.length > 0 && <span className="rounded-full bg-signal px-3 py-0.5 text-ink">{list.length}</span>}
+        Amounts above someone’s limit {list.length > 0 && <span className="rounded-full bg-signal px-3 py-0.5 text-ink">{list.length}</span>}
       </h3>
       {list.length === 0 ? (
         <p className="rounded-md border-2 border-calm bg-calm-soft px-4 py-3 text-lg font-bold text-calm">
-          <span aria-hidden>● </span>No offer waits for your approval.
+          <span aria-hidden>● </span>No amount waits for your approval.
         </p>
       ) : (
-        <ul className="space-y-3">
-          {list.map((a) => (
-            <ApprovalRow key={a.id} a={a} timeZone={timeZone} />
-          ))}
-        </ul>
+        <>
+          <ul className="space-y-3">
+            {list.map((a) => (
+              <ApprovalRow key={a.id} a={a} timeZone={timeZone} />
+            ))}
+          </ul>
+          <div className="mt-3">
+            <Caution>Approving fixes what a passenger is paid under the station’s policy. The applicable regulation, the contract of carriage and the carrier’s compliance staff decide what is owed.</Caution>
+          </div>
+        </>
       )}
     </section>
   );
@@ -44,7 +49,7 @@ function ApprovalRow({ a, timeZone }: { a: Approval; timeZone: string }) {
   const [reasonError, setReasonError] = useState<string | null>(null);
   const send = (approve: boolean) => {
     // A refusal tells the agent why; an approval may go without a word.
-    if (!approve && reason.trim().length < 3) return setReasonError('reason must say why the offer is refused (at least 3 characters)');
+    if (!approve && reason.trim().length < 3) return setReasonError('reason must say why the amount is refused (at least 3 characters)');
     setReasonError(null);
     decide.mutate({ approvalId: a.id, flightId: a.flightId, approve, reason: reason.trim() });
   };
@@ -52,11 +57,13 @@ function ApprovalRow({ a, timeZone }: { a: Approval; timeZone: string }) {
     <li className="rounded-lg border-2 border-watch p-3" data-testid="approval-row">
       <div className="flex flex-wrap items-baseline justify-between gap-3">
         <p className="text-xl">
-          <Link to={`/flights/${a.flightId}`} className="font-bold text-harbour underline">{a.flight}</Link>: raise the offer to{' '}
-          <strong className="text-3xl tabular-nums">{formatMoney(a.offerMinor, a.currency)}</strong>
+          {a.flightId !== null && <><Link to={`/flights/${a.flightId}`} className="font-bold text-harbour underline">{a.flight}</Link>: </>}
+          {APPROVAL_KIND_WORDS[a.kind]} <strong className="text-3xl tabular-nums">{formatMoney(a.offerMinor, a.currency)}</strong>
+          {a.subject && <span className="block text-lg">for {a.subject}</span>}
         </p>
         <p className="text-ink-soft">
           asked by {a.requestedBy} at {formatTime(a.requestedAt, timeZone)}
+          {a.limitMinor !== null && <span className="block">their limit: {formatMoney(a.limitMinor, a.currency)}</span>}
         </p>
       </div>
       <div className="mt-3 flex flex-wrap items-end gap-2">

@@ -59,9 +59,15 @@ function VolunteerRow({ v, round, flightId, timeZone }: { v: Volunteer; round: R
           {look.word}
         </span>
       </div>
-      {v.status === 'offered' && (
+      {v.status === 'offered' && v.pendingApproval && (
+        <p role="status" className="mt-3 rounded-md border-l-4 border-watch bg-watch-soft px-3 py-2 text-lg font-bold" data-testid="volunteer-awaiting-approval">
+          <span aria-hidden>◆ </span>Awaiting approval: a supervisor must approve accepting at {money(v.pendingApproval.offerMinor)} (asked by {v.pendingApproval.requestedBy} at{' '}
+          {formatTime(v.pendingApproval.requestedAt, timeZone)}). The volunteer is accepted as soon as it is approved.
+        </p>
+      )}
+      {v.status === 'offered' && !v.pendingApproval && (
         <div className="mt-3 flex flex-wrap items-center gap-2">
-          <Button disabled={decide.isPending || !fits} onClick={() => decide.mutate({ roundId: round.id, volunteerId: v.id, accept: true })}>
+          <Button disabled={decide.isPending || !fits || (round.kind === 'posted' && round.offerMinor === null)} onClick={() => decide.mutate({ roundId: round.id, volunteerId: v.id, accept: true })}>
             Accept{price !== null ? ` at ${money(price)}` : ''}
             {seats > 1 ? ' a seat' : ''}
           </Button>

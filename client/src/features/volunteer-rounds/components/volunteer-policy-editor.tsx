@@ -76,8 +76,26 @@ function PolicyForm({ stationId, loaded }: { stationId: number; loaded: Voluntee
           <TextField label="Currency" value={draft.currency} onChange={(v) => change({ currency: v.toUpperCase() })} maxLength={3} error={errors.currency} hint="ISO 4217 code, e.g. USD, EUR, CAD." />
           <TextField
             label={`Agent limit (${draft.currency})`} inputMode="decimal" autoComplete="off" value={draft.agentLimit} error={errors.agentLimit}
-            onChange={(v) => change({ agentLimit: v })} hint="An agent offers up to this alone; a higher offer waits for a supervisor."
+            onChange={(v) => change({ agentLimit: v })} hint="Agents and admins set amounts up to this alone; a higher amount waits for a supervisor."
           />
+          <TextField
+            label={`Supervisor limit (${draft.currency})`} inputMode="decimal" autoComplete="off" value={draft.supervisorLimit} error={errors.supervisorLimit}
+            onChange={(v) => change({ supervisorLimit: v })} hint="Leave blank for no limit; above it, another supervisor approves."
+          />
+          <fieldset>
+            <legend className="mb-1 font-bold">When the offer is raised</legend>
+            {(
+              [
+                ['lift-to-new-offer', 'Volunteers accepted earlier get the new amount'],
+                ['keep-agreed', 'Volunteers accepted earlier keep what they agreed'],
+              ] as const
+            ).map(([value, label]) => (
+              <label key={value} className="flex items-center gap-2 text-lg">
+                <input type="radio" name={`raise-${stationId}`} className="h-5 w-5" checked={draft.raisePolicy === value} onChange={() => change({ raisePolicy: value })} />
+                {label}
+              </label>
+            ))}
+          </fieldset>
           <fieldset>
             <legend className="mb-1 font-bold">Sealed-bid pricing</legend>
             {(

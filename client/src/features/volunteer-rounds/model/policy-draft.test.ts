@@ -7,6 +7,8 @@ const POLICY: VolunteerPolicy = {
   currency: 'USD',
   ladderMinor: [20_000, 40_000, 60_000],
   agentLimitMinor: 40_000,
+  supervisorLimitMinor: null,
+  raisePolicy: 'lift-to-new-offer',
   sealedBidPricing: 'own-ask',
   extras: ['Meal voucher'],
   voucherRestrictions: ['Valid for 12 months.', 'Not transferable.'],

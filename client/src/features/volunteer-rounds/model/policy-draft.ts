@@ -7,6 +7,9 @@ export interface PolicyDraft {
   currency: string;
   ladder: string[];
   agentLimit: string;
+  /** Blank: supervisors have no limit of their own. */
+  supervisorLimit: string;
+  raisePolicy: VolunteerPolicy['raisePolicy'];
   sealedBidPricing: VolunteerPolicy['sealedBidPricing'];
   extras: string;
   voucherRestrictions: string;
@@ -20,6 +23,8 @@ export function draftFromPolicy(p: VolunteerPolicy): PolicyDraft {
     currency: p.currency,
     ladder: p.ladderMinor.map((m) => moneyInput(m, p.currency)),
     agentLimit: moneyInput(p.agentLimitMinor, p.currency),
+    supervisorLimit: p.supervisorLimitMinor === null ? '' : moneyInput(p.supervisorLimitMinor, p.currency),
+    raisePolicy: p.raisePolicy,
     sealedBidPricing: p.sealedBidPricing,
     extras: p.extras.join('\n'),
     voucherRestrictions: p.voucherRestrictions.join('\n'),
@@ -32,6 +37,7 @@ function fieldOf(path: readonly PropertyKey[]) {
   const [head, index] = path;
   if (head === 'ladderMinor') return index !== undefined && /^\d+$/.test(String(index)) ? `ladder.${String(index)}` : 'ladder';
   if (head === 'agentLimitMinor') return 'agentLimit';
+  if (head === 'supervisorLimitMinor') return 'supervisorLimit';
   return String(head ?? 'form');
 }
 
@@ -61,6 +67,8 @@ export function checkPolicyDraft(d: PolicyDraft): { ok: true; policy: VolunteerP
     currency,
     ladderMinor: d.ladder.map((s, i) => money(s, `ladder.${i}`)),
     agentLimitMinor: money(d.agentLimit, 'agentLimit'),
+    supervisorLimitMinor: d.supervisorLimit.trim() === '' ? null : money(d.supervisorLimit, 'supervisorLimit'),
+    raisePolicy: d.raisePolicy,
     sealedBidPricing: d.sealedBidPricing,
     extras: lines(d.extras),
     voucherRestrictions: lines(d.voucherRestrictions),
@@ -78,7 +86,7 @@ export function checkPolicyDraft(d: PolicyDraft): { ok: true; policy: VolunteerP
     const unreadableLadder = !currencyKnown || Object.keys(errors).some((f) => f.startsWith('ladder.'));
     for (const issue of parsed.error.issues) {
       const field = fieldOf(issue.path);
-      if ((field.startsWith('ladder') && unreadableLadder) || (field === 'agentLimit' && !currencyKnown)) continue;
+      if ((field.startsWith('ladder') && unreadableLadder) || (field.endsWith('Limit') && !currencyKnown)) continue;
       errors[field] ??= issue.message;
     }
   }

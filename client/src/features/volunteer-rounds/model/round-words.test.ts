@@ -14,10 +14,13 @@ describe('round words', () => {
   });
 
   it('asks for a supervisor only when an agent goes above the limit', () => {
-    expect(needsSupervisor(60_000, { agentLimitMinor: 60_000 }, 'agent')).toBe(false);
-    expect(needsSupervisor(80_000, { agentLimitMinor: 60_000 }, 'agent')).toBe(true);
-    expect(needsSupervisor(80_000, { agentLimitMinor: 60_000 }, 'supervisor')).toBe(false);
-    expect(needsSupervisor(80_000, { agentLimitMinor: 60_000 }, 'admin')).toBe(false);
+    const limits = { agentLimitMinor: 60_000, supervisorLimitMinor: null };
+    expect(needsSupervisor(60_000, limits, 'agent')).toBe(false);
+    expect(needsSupervisor(80_000, limits, 'agent')).toBe(true);
+    expect(needsSupervisor(80_000, limits, 'supervisor')).toBe(false);
+    // Admins administer; they are no money authority and have the agent limit.
+    expect(needsSupervisor(80_000, limits, 'admin')).toBe(true);
+    expect(needsSupervisor(150_000, { ...limits, supervisorLimitMinor: 100_000 }, 'supervisor')).toBe(true);
   });
 
   it('says the progress in words', () => {

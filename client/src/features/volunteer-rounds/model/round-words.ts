@@ -1,14 +1,15 @@
 // The few figures an agent reads off a round at a glance, in words.
 import type { Round, VolunteerPolicy } from '@shared/schemas/volunteers';
+import { limitForRole, withinLimit } from '@shared/schemas/approvals';
 
 /** The next posted amount on the station's ladder above the current offer, or null at the top. */
 export function nextLadderStep(ladderMinor: readonly number[], currentMinor: number | null) {
   return ladderMinor.find((step) => step > (currentMinor ?? -1)) ?? null;
 }
 
-/** An agent may offer up to the limit alone; above it a supervisor approves. Supervisors and admins decide alone. */
-export function needsSupervisor(amountMinor: number, policy: Pick<VolunteerPolicy, 'agentLimitMinor'>, role: string | undefined) {
-  return role === 'agent' && amountMinor > policy.agentLimitMinor;
+/** Above the user's own limit (the same rule the server's approval gate applies), a supervisor approves. */
+export function needsSupervisor(amountMinor: number, policy: Pick<VolunteerPolicy, 'agentLimitMinor' | 'supervisorLimitMinor'>, role: string | undefined) {
+  return !withinLimit(limitForRole(role, policy), amountMinor);
 }
 
 export function seatsFoundWords(round: Pick<Round, 'accepted' | 'volunteersNeeded'>) {
@@ -33,4 +34,9 @@ export function delayWords(minutes: number) {
 export function bidLinkToken(bidLink: string) {
   const at = bidLink.lastIndexOf('/offer/');
   return at < 0 ? null : bidLink.slice(at + '/offer/'.length) || null;
+}
+
+/** The user's own limit in words, for the hints beside every amount they can set. */
+export function limitWords(limitMinor: number | null, money: (m: number) => string) {
+  return limitMinor === null ? 'You may set any amount alone.' : `You may set up to ${money(limitMinor)} alone; above that, a supervisor of the station approves first.`;
 }
