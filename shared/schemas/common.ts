@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { minorAmountSchema } from './money';
 
 export const ROLES = ['agent', 'supervisor', 'finance', 'admin'] as const;
 export const roleSchema = z.enum(ROLES, { error: 'role must be one of agent, supervisor, finance, admin' });
@@ -29,7 +30,7 @@ export const currencySchema = z.string().regex(/^[A-Z]{3}$/, 'must be a three-le
 
 /** Money travels as integer minor units with its currency, from the form to the ledger. */
 export const moneySchema = z.object({
-  amountMinor: z.number().int('amountMinor must be a whole number of minor units').nonnegative('amountMinor must not be negative'),
+  amountMinor: minorAmountSchema('amountMinor'),
   currency: currencySchema,
 });
 export type Money = z.infer<typeof moneySchema>;

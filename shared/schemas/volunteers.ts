@@ -1,7 +1,8 @@
 import { z } from 'zod';
 import { currencySchema } from './common';
+import { minorAmountSchema } from './money';
 
-const minor = (field: string) => z.number({ error: `${field} must be a number` }).int(`${field} must be whole minor units`).nonnegative(`${field} must not be negative`);
+const minor = minorAmountSchema;
 
 /** What the station lets agents offer: the ladder of posted amounts and the most an agent may offer alone. */
 export const volunteerPolicySchema = z.object({
