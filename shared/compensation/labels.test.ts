@@ -3,6 +3,14 @@ import { compensationDue } from './index';
 import { bandLabel, regimeLabel } from './labels';
 
 describe('words in place of codes', () => {
+  it('tells EU volunteers what Art. 4(1) gives them: Art. 8 assistance, not Art. 9 care', () => {
+    // Reg. (EC) 261/2004 Art. 4(1): volunteers "shall be assisted in accordance with Article 8"; Art. 9 is for Art. 4(3).
+    const [note] = compensationDue({ regime: 'eu-261', deniedOn: '2025-03-01', voluntary: true, plannedArrivalDelayMinutes: null }).notes;
+    expect(note).toContain('Art. 4(1)');
+    expect(note).toContain('Art. 8');
+    expect(note).not.toContain('Art. 9');
+  });
+
   it('names each regime', () => {
     expect(regimeLabel('eu-261')).toBe('EU Regulation 261/2004');
     expect(regimeLabel('us-dot')).toBe('US rule 14 CFR Part 250');
@@ -40,8 +48,12 @@ describe('words in place of codes', () => {
     for (const input of inputs) {
       let band: string;
       try {
-        band = compensationDue({ deniedOn: '2025-03-01', ...input } as Parameters<typeof compensationDue>[0]).band;
-      } catch {
+        const result = compensationDue({ deniedOn: '2025-03-01', ...input } as Parameters<typeof compensationDue>[0]);
+        band = result.band;
+        // Provenance notes belong in tests and source comments, never in what a screen or a mail shows.
+        expect(JSON.stringify(result), band).not.toMatch(/from memory|not verified|secondary sources|\(derived\)/i);
+      } catch (err) {
+        if (err instanceof Error && err.name === 'AssertionError') throw err;
         continue; // An input this engine version asks more of is checked by its own tests.
       }
       seen.add(band);
