@@ -26,6 +26,8 @@ import { createForecastScheduler, type ForecastScheduler } from './modules/forec
 import { silentPublisher, type Publisher } from './realtime/publisher';
 import { volunteersRouter } from './modules/volunteers/volunteers.routes';
 import { denialsRouter } from './modules/denials/denials.routes';
+import { configureCarrierName } from './modules/denials/statement';
+import { carrierNameFrom } from './config/carrier';
 import { publicOffersRouter } from './modules/volunteers/public-offers.routes';
 import { createPaymentsRuntime, type PaymentsRuntime } from './modules/payments/payments-runtime';
 import { financeRouter } from './modules/finance/finance.routes';
@@ -48,6 +50,7 @@ export interface AppDeps {
 
 /** Builds the whole HTTP app without listening, so tests run it in-process on port 0. */
 export function createApp(deps: AppDeps) {
+  configureCarrierName(carrierNameFrom(deps.env, deps.demo));
   const app = express();
   app.set('trust proxy', 'loopback');
   app.disable('x-powered-by');
