@@ -62,5 +62,7 @@ describe('words in place of codes', () => {
       expect(label, band).not.toMatch(/not recognised|\b(us|eu|uk|ca)-/);
     }
     expect(seen.size, [...seen].join(', ')).toBeGreaterThanOrEqual(8);
+    // Bands the volunteer rounds and the denial service store beside the engine's own.
+    for (const band of ['posted offer', 'sealed bid', 'not-computed']) expect(bandLabel(band)).not.toMatch(/not recognised/);
   });
 });

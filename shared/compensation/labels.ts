@@ -46,6 +46,10 @@ export function bandLabel(band: string, on: string = today()): string {
     case 'exempt': return 'No compensation: an exception of the rules applies';
     case 'out-of-scope': return 'Outside these rules';
     case 'volunteer': return 'Volunteer: the amount agreed with the passenger';
+    // Stored by the volunteer rounds and by a denial whose rules could not be applied.
+    case 'posted offer': return 'Volunteer: the posted offer, accepted';
+    case 'sealed bid': return 'Volunteer: their sealed bid, accepted';
+    case 'not-computed': return 'Not computed: the rules could not be applied, check the case';
   }
   const eu = /^(eu|uk)-([abc])$/.exec(band);
   if (eu) {
