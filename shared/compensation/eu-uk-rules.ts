@@ -23,7 +23,8 @@ export const EU_STYLE_AMOUNTS: Readonly<Record<EuStyleRegime, readonly EuStyleAm
       bandAMinor: 25_000,
       bandBMinor: 40_000,
       bandCMinor: 60_000,
-      source: 'Reg. (EC) 261/2004 Art. 7(1); in force from 17 Feb 2005 (Art. 19, from memory)',
+      // In-force date (Art. 19) from memory.
+      source: 'Reg. (EC) 261/2004 Art. 7(1); in force from 17 Feb 2005 (Art. 19)',
     },
   ],
   'uk-261': [
@@ -34,7 +35,8 @@ export const EU_STYLE_AMOUNTS: Readonly<Record<EuStyleRegime, readonly EuStyleAm
       bandAMinor: 22_000,
       bandBMinor: 35_000,
       bandCMinor: 52_000,
-      source: 'Retained Reg. 261/2004 Art. 7(1) as amended by SI 2019/278 (amounts seen only in secondary sources; start date from memory)',
+      // Amounts seen only in secondary sources; start date from memory.
+      source: 'Retained Reg. 261/2004 Art. 7(1) as amended by SI 2019/278',
     },
   ],
 };

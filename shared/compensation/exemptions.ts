@@ -59,12 +59,12 @@ export const EXEMPTIONS: Readonly<Record<Regime, readonly ExemptionRule[]>> = {
     {
       code: 'ca-outside-carrier-control',
       summary: "denial of boarding due to a situation outside the carrier's control",
-      ruleRef: 'SOR/2019-150 s. 10 (from memory)',
+      ruleRef: 'SOR/2019-150 s. 10', // section number from memory
     },
     {
       code: 'ca-required-for-safety',
       summary: "within the carrier's control but required for safety purposes",
-      ruleRef: 'SOR/2019-150 s. 11 (from memory)',
+      ruleRef: 'SOR/2019-150 s. 11', // section number from memory
     },
   ],
 };

@@ -31,7 +31,8 @@ const VOLUNTEER_RULE: Record<Regime, string> = {
   'us-dot': '14 CFR 250.2b',
   'eu-261': 'Reg. (EC) 261/2004 Art. 4(1)',
   'uk-261': 'Retained Reg. 261/2004 (UK) Art. 4(1)',
-  'ca-appr': 'SOR/2019-150 (volunteer provisions; section not verified)',
+  // The section of the volunteer provisions is not verified, so none is cited.
+  'ca-appr': 'SOR/2019-150, volunteers before any denial of boarding',
 };
 
 export function compensationDue(input: CompensationInput): CompensationResult {
@@ -73,7 +74,9 @@ function volunteerResult(regime: Regime, deniedOn: string, exemption: string | u
   const rows = regime === 'us-dot' ? US_DBC_CAPS : regime === 'ca-appr' ? APPR_DENIED_BOARDING_AMOUNTS : EU_STYLE_AMOUNTS[regime];
   const row = rowInForce<{ effectiveFrom: string; source: string }>(rows, deniedOn, regime);
   const notes = regime === 'eu-261' || regime === 'uk-261'
-    ? ['Volunteers are still owed re-routing or reimbursement (Art. 8) and, on re-routing, care (Art. 9) (Art. 4(1)).']
+    // Art. 4(1): volunteers "shall be assisted in accordance with Article 8"; Art. 9 care is owed to those denied
+    // against their will (Art. 4(3)), not to volunteers.
+    ? ['Volunteers are owed the benefits they agreed and, under Art. 4(1), assistance in accordance with Art. 8: reimbursement or re-routing.']
     : [];
   return {
     amountMinor: 0,

@@ -1,4 +1,5 @@
 // Money is always integer minor units with an ISO 4217 code; these helpers validate and print it.
+import { currencyExponent } from '../money';
 
 export interface Money {
   amountMinor: number;
@@ -7,14 +8,9 @@ export interface Money {
 
 const CURRENCY_FORMAT = /^[A-Z]{3}$/;
 
-// Exponents that differ from the usual 2 (ISO 4217 list, common practice subset).
-const MINOR_UNIT_EXPONENT: Record<string, number> = {
-  JPY: 0, KRW: 0, ISK: 0, CLP: 0, VND: 0, XOF: 0, XAF: 0, XPF: 0, UGX: 0, PYG: 0, RWF: 0,
-  BHD: 3, KWD: 3, OMR: 3, JOD: 3, TND: 3, LYD: 3, IQD: 3,
-};
-
+/** Decimals of the currency's minor unit: the one shared money module decides (Intl, held against ISO 4217). */
 export function minorUnitExponent(currency: string): number {
-  return MINOR_UNIT_EXPONENT[currency] ?? 2;
+  return currencyExponent(currency);
 }
 
 export function assertCurrency(field: string, currency: unknown): asserts currency is string {

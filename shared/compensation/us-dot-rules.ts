@@ -15,13 +15,15 @@ export const US_DBC_CAPS: readonly UsCapRow[] = [
     effectiveFrom: '2011-08-23',
     domestic200CapMinor: 65_000,
     domestic400CapMinor: 130_000,
-    source: '76 FR 23110 (25 Apr 2011), effective 23 Aug 2011 (from memory; "in effect since August 2011" per 80 FR 30144)',
+    // Effective day from memory; "in effect since August 2011" per 80 FR 30144.
+    source: '76 FR 23110 (25 Apr 2011), effective 23 Aug 2011',
   },
   {
     effectiveFrom: '2015-08-01',
     domestic200CapMinor: 67_500,
     domestic400CapMinor: 135_000,
-    source: '80 FR 30144 (27 May 2015); amounts checked, effective day not verified ("in effect since August 2015", RIN 2105-AE61)',
+    // Amounts checked; effective day not verified ("in effect since August 2015", RIN 2105-AE61).
+    source: '80 FR 30144 (27 May 2015), in effect from August 2015',
   },
   {
     effectiveFrom: '2021-04-13',

@@ -1,4 +1,6 @@
 import { z } from 'zod';
+import { minorAmountSchema } from './money';
+import { REGIME_NAMES } from '../compensation/labels';
 
 export const ROLES = ['agent', 'supervisor', 'finance', 'admin'] as const;
 export const roleSchema = z.enum(ROLES, { error: 'role must be one of agent, supervisor, finance, admin' });
@@ -15,12 +17,8 @@ export const REGIMES = ['us-dot', 'eu-261', 'uk-261', 'ca-appr'] as const;
 export const regimeSchema = z.enum(REGIMES, { error: 'regime must be one of us-dot, eu-261, uk-261, ca-appr' });
 export type RegimeCode = z.infer<typeof regimeSchema>;
 
-export const REGIME_LABELS: Record<RegimeCode, string> = {
-  'us-dot': 'United States, 14 CFR Part 250',
-  'eu-261': 'European Union, Regulation (EC) 261/2004',
-  'uk-261': 'United Kingdom, retained Regulation 261',
-  'ca-appr': 'Canada, Air Passenger Protection Regulations',
-};
+/** What people read for each regime code; the one labels module of shared/compensation decides the words. */
+export const REGIME_LABELS: Readonly<Record<RegimeCode, string>> = REGIME_NAMES;
 
 export const idParamSchema = z.object({ id: z.coerce.number({ error: 'id must be a number' }).int('id must be a whole number').positive('id must be positive') });
 
@@ -29,7 +27,7 @@ export const currencySchema = z.string().regex(/^[A-Z]{3}$/, 'must be a three-le
 
 /** Money travels as integer minor units with its currency, from the form to the ledger. */
 export const moneySchema = z.object({
-  amountMinor: z.number().int('amountMinor must be a whole number of minor units').nonnegative('amountMinor must not be negative'),
+  amountMinor: minorAmountSchema('amountMinor'),
   currency: currencySchema,
 });
 export type Money = z.infer<typeof moneySchema>;

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { minorAmountSchema } from './money';
 
 const flightRef = z.object({
   carrier: z.string().regex(/^[A-Z0-9]{2,3}$/, 'carrier must be a 2-3 character airline designator'),
@@ -20,7 +21,7 @@ export const bookingPassengerSchema = z.object({
   firstName: z.string().trim().min(1, 'firstName is required').max(60),
   lastName: z.string().trim().min(1, 'lastName is required').max(60),
   cabin: z.string().regex(/^[A-Z]$/, 'cabin must be one capital letter'),
-  fareMinor: z.number().int('fareMinor must be whole minor units').nonnegative('fareMinor must not be negative'),
+  fareMinor: minorAmountSchema('fareMinor'),
   fareCurrency: z.string().regex(/^[A-Z]{3}$/, 'fareCurrency must be an ISO 4217 code'),
   fareType: z.string().max(16).default('standard'),
   ssrCodes: z.array(z.string().regex(/^[A-Z]{4}$/, 'each SSR code must be four capital letters')).default([]),

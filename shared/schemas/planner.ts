@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import type { BookingLimitOptions } from '../forecast/types';
+import { minorAmountSchema } from './money';
 
 /** Largest cabin the planner accepts, and the booking search bound the forecast engine uses by default. */
 export const PLANNER_MAX_CAPACITY = 1000;
@@ -12,11 +13,7 @@ function numberField(field: string) {
   });
 }
 
-function wholeAmountMinor(field: string) {
-  return numberField(field)
-    .int({ error: `${field} must be a whole number of minor units (e.g. cents)` })
-    .min(0, { error: `${field} must not be negative` });
-}
+const wholeAmountMinor = minorAmountSchema;
 
 /** Inputs of the booking-limit planner; money in integer minor units of `currency`. */
 export const plannerInputSchema = z

@@ -1,7 +1,8 @@
 import { z } from 'zod';
 import { currencySchema } from './common';
+import { minorAmountSchema } from './money';
 
-const minor = (field: string) => z.number({ error: `${field} must be a number` }).int(`${field} must be whole minor units`).nonnegative(`${field} must not be negative`);
+const minor = minorAmountSchema;
 
 export const RAISE_POLICIES = ['lift-to-new-offer', 'keep-agreed'] as const;
 

@@ -86,8 +86,8 @@ describe('us-dot (14 CFR 250.5)', () => {
     const c = await authorizedCase('BOS', 'ORD', [{ first: 'Stella', last: 'Statement', fareMinor: 30_000 }], { currency: 'USD', alternateLaterBy: 180 });
     await agent.post(`/api/denials/${c.denialId}/rebook`, { alternateFlightId: c.alternate!.id }).expect(200);
     const [mail] = await statementMessages(c.flight.id);
-    // 14 CFR 250.9(b) (from memory): compensation, volunteers and boarding priorities, exceptions, amounts, payment, options.
-    for (const heading of ['Compensation for denied boarding', 'Volunteers and boarding priorities', 'Exceptions: when no compensation is due', 'Amount of compensation', 'Method of payment', 'Your options', 'Caution']) {
+    // 14 CFR 250.9(b): the prescribed text's sections, then the passenger's own case and the caution.
+    for (const heading of ['Compensation for Denied Boarding', 'Volunteers and Boarding Priorities', 'Compensation for Involuntary Denied Boarding', 'Amount of Denied Boarding Compensation', 'Method of Payment', "Passenger's Options", 'Your case', 'Caution']) {
       expect(mail.text).toContain(`\n${heading}\n`);
     }
     // 400% of USD 300.00 = USD 1,200.00 (250.5(a)(3), 3 h late, under the USD 2,150 cap).
@@ -97,7 +97,7 @@ describe('us-dot (14 CFR 250.5)', () => {
     expect(mail.dedupe_key).toBe(`denial-statement:${c.denialId}:${c.passengerIds[0]}`);
     const page = await agent.get(`/api/denials/${c.denialId}/statement`).expect(200).expect('Content-Type', /text\/html/);
     expect(page.text).toContain('@media print');
-    expect(page.text).toContain('<h2>Exceptions: when no compensation is due</h2>');
+    expect(page.text).toContain('<h2>Compensation for Involuntary Denied Boarding</h2>');
     const audit = await t.db.query(`SELECT action FROM audit_log WHERE entity_type = 'denial' AND entity_id = ? ORDER BY id`, [String(c.denialId)]);
     expect(audit.map((r: { action: string }) => r.action)).toEqual(['denial.authorized', 'denial.rebooked', 'denial.compensation_fixed', 'denial.statements_queued']);
   });
@@ -120,7 +120,8 @@ describe('eu-261 (Reg. (EC) 261/2004 Art. 7)', () => {
     // Art. 16(1): the body of the Member State of departure, Italy for FCO (ENAC, from memory).
     expect(mail.text).toContain('ENAC');
     const flags = res.body.denial.compensation.reviewFlags.join(' ');
-    expect(flags).toContain('from memory');
+    expect(flags).toContain('confirm its contact details with the regulator');
+    expect(`${flags} ${mail.text}`).not.toMatch(/from memory/i);
   });
 });
 

@@ -136,7 +136,7 @@ test('an agent proposes, a supervisor authorizes in another browser, and the sta
 
   const mail = await statementMail(fixture.lastEmail);
   expect(mail.subject).toMatch(new RegExp(`^Denied boarding on Larkfield Air \\(demo carrier\\) flight ${fixture.label} of `));
-  expect(mail.text).toContain('Volunteers and boarding priorities');
+  expect(mail.text).toContain('Volunteers and Boarding Priorities');
   expect(mail.text).toContain('Your compensation: USD 996.00.');
   await expect(proposal.getByText(/: sent \(/)).toBeVisible({ timeout: 15_000 });
   await shot(supervisor, 'bump-review-5-statement-sent');
@@ -144,7 +144,7 @@ test('an agent proposes, a supervisor authorizes in another browser, and the sta
 
   const [printable] = await Promise.all([supervisor.context().waitForEvent('page'), proposal.getByRole('link', { name: 'Print the statement' }).click()]);
   await printable.waitForLoadState();
-  await expect(printable.getByRole('heading', { level: 2, name: 'Exceptions: when no compensation is due' })).toBeVisible();
+  await expect(printable.getByRole('heading', { level: 2, name: 'Compensation for Involuntary Denied Boarding' })).toBeVisible();
   await shot(printable, 'bump-review-6-printable-statement');
 });
 

@@ -284,7 +284,7 @@ test('the station’s volunteer policy editor checks each field with the shared 
   await form.getByLabel(/^Agent limit/).fill('lots');
   await form.getByRole('button', { name: 'Save the volunteer policy' }).click();
   await expect(form.getByText('must be above step 1')).toBeVisible();
-  await expect(form.getByText('must be an amount such as 600 or 600.50')).toBeVisible();
+  await expect(form.getByText('must be a number, such as 1,234.50')).toBeVisible();
   await expect(form.getByRole('alert').filter({ hasText: 'Nothing was saved.' })).toBeVisible();
   await form.screenshot({ path: `${SCREENSHOTS}/volunteer-policy-editor-errors.png` });
 });

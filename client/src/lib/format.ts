@@ -1,9 +1,6 @@
 // Formatting happens only at the edge: money from integer minor units, times in the station's named zone.
-
-export function formatMoney(amountMinor: number, currency: string, locale = 'en-US') {
-  const digits = new Intl.NumberFormat(locale, { style: 'currency', currency }).resolvedOptions().maximumFractionDigits ?? 2;
-  return new Intl.NumberFormat(locale, { style: 'currency', currency }).format(amountMinor / 10 ** digits);
-}
+// Money is formatted by the shared money module in the person's locale (lib/money.ts); re-exported for callers here.
+export { formatMoney } from './money';
 
 export function formatTime(iso: string, timeZone: string) {
   return new Intl.DateTimeFormat('en-GB', { timeZone, hour: '2-digit', minute: '2-digit', hourCycle: 'h23' }).format(new Date(iso));

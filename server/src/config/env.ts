@@ -35,6 +35,8 @@ const envSchema = z
     SMTP_PORT: z.coerce.number().int().positive().default(4625),
     SMTP_SECURE: z.enum(['true', 'false']).default('false').transform((v) => v === 'true'),
     MAIL_FROM: z.string().default('Bumpboard <no-reply@bumpboard.test>'),
+    /** The operating carrier named in written statements; the demo installation falls back to its invented carrier. */
+    CARRIER_NAME: z.string().trim().min(1, 'CARRIER_NAME must not be empty').max(80, 'CARRIER_NAME must be at most 80 characters').optional(),
     STRIPE_SECRET_KEY: z.string().min(1).optional(),
     /** Empty means the real Stripe API; otherwise e.g. http://127.0.0.1:4602 for the local stand-in. */
     STRIPE_API_URL: z.string().default(''),

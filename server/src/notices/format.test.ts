@@ -12,6 +12,8 @@ describe('formatMoneyMinor', () => {
     expect(formatMoneyMinor('amount', { amountMinor: 12_000, currency: 'JPY' })).toBe(`JPY${NBSP}12,000`);
     expect(formatMoneyMinor('amount', { amountMinor: 1_234, currency: 'KWD' })).toBe(`KWD${NBSP}1.234`);
     expect(formatMoneyMinor('amount', { amountMinor: 5, currency: 'CAD' })).toBe(`CAD${NBSP}0.05`);
+    // Derived: 2^53 - 1 cents printed exactly (division by 100 in floating point is not exact this far out).
+    expect(formatMoneyMinor('amount', { amountMinor: 9_007_199_254_740_991, currency: 'USD' })).toBe(`USD${NBSP}90,071,992,547,409.91`);
   });
 
   it('refuses amounts that are not whole minor units, and malformed currency codes, naming the field', () => {

@@ -1,5 +1,6 @@
 // Formatting for notices: money from integer minor units, instants in a named zone, HTML escaping.
 import { assertMoney, minorUnitExponent } from '@shared/compensation/money';
+import { minorToDecimalString } from '@shared/money';
 
 /** Notices are written in English; one locale keeps the wording and number format the same on every server. */
 export const NOTICE_LOCALE = 'en-GB';
@@ -24,7 +25,8 @@ export function formatMoneyMinor(field: string, money: { amountMinor: number; cu
     currencyDisplay: 'code',
     minimumFractionDigits: exponent,
     maximumFractionDigits: exponent,
-  }).format(money.amountMinor / 10 ** exponent);
+    // A decimal string is formatted exactly; dividing by 10^exponent in floating point is not.
+  }).format(minorToDecimalString(money.amountMinor, exponent) as Intl.StringNumericLiteral);
 }
 
 export function assertTimeZone(field: string, timeZone: string): void {

@@ -1,5 +1,4 @@
-// Required content: 14 CFR 250.9 (from memory: compensation, volunteers and boarding priorities,
-// exceptions, amounts, method of payment, passenger options); Reg. 261/2004 Art. 14(2) (Art. 7, 8, 9 and
+// Required content: 14 CFR 250.9(b), the prescribed text (first paragraphs checked against the published rule); Reg. 261/2004 Art. 14(2) (Art. 7, 8, 9 and
 // the enforcement body); SOR/2019-150 (amounts, 48 h payment, top-up, recourse, from memory).
 import { describe, expect, it } from 'vitest';
 import { compensationDue } from '../index';
@@ -42,45 +41,70 @@ const euInput: StatementInput = {
 const headings = (input: StatementInput) => writtenStatement(input).sections.map((section) => section.heading);
 const bodyOf = (input: StatementInput, heading: string) => writtenStatement(input).sections.find((section) => section.heading === heading)?.body ?? '';
 
-describe('us-dot statement: the content 14 CFR 250.9 requires', () => {
-  it('has every required section and ends with the caution', () => {
+describe('us-dot statement: the text 14 CFR 250.9(b) prescribes', () => {
+  it('gives the prescribed sections first, then the passenger\'s case, and ends with the caution', () => {
     expect(headings(usInput)).toEqual([
-      'Compensation for denied boarding',
+      'Compensation for Denied Boarding',
+      'Volunteers and Boarding Priorities',
+      'Compensation for Involuntary Denied Boarding',
+      'Amount of Denied Boarding Compensation',
+      'Method of Payment',
+      "Passenger's Options",
       'Your case',
-      'Volunteers and boarding priorities',
-      'Exceptions: when no compensation is due',
-      'Amount of compensation',
+      'Your compensation',
       'Alternate transportation',
-      'Method of payment',
-      'Your options',
       CAUTION_HEADING,
     ]);
   });
 
-  it('inserts the carrier boarding priorities (§250.9 "volunteers and boarding priorities")', () => {
-    const body = bodyOf(usInput, 'Volunteers and boarding priorities');
+  it('reads as the rule prescribes, with the carrier named where the rule says "(name of air carrier)"', () => {
+    // 14 CFR 250.9(b), first paragraph, as published (laws9.com/cfr/text/14/250/9; law.lawstack.com/cfr/14/250.9).
+    expect(bodyOf(usInput, 'Compensation for Denied Boarding')).toBe(
+      "If you have been denied a reserved seat on Example Air, you are probably entitled to monetary compensation. This notice explains the airline's obligation and the passenger's rights in the case of an oversold flight, in accordance with regulations of the U.S. Department of Transportation.",
+    );
+    // Second paragraph, same source, up to the space the carrier fills with its boarding priority rules.
+    expect(bodyOf(usInput, 'Volunteers and Boarding Priorities')).toMatch(
+      /^If a flight is oversold \(more passengers hold confirmed reservations than there are seats available\), no one may be denied boarding against his or her will until airline personnel first ask for volunteers who will give up their reservation willingly, in exchange for a payment of the airline's choosing\. If there are not enough volunteers, other passengers may be denied boarding involuntarily in accordance with the following boarding priority of Example Air:\n/,
+    );
+    expect(bodyOf(usInput, "Passenger's Options")).toContain('Acceptance of the compensation may relieve Example Air from any further liability');
+  });
+
+  it('inserts the carrier\'s boarding priority rules in the space the rule leaves for them', () => {
+    const body = bodyOf(usInput, 'Volunteers and Boarding Priorities');
     expect(body).toContain('- 1. Check-in time');
     expect(body).toContain('- 2. Fare paid');
   });
 
-  it('states the caps in force (89 FR 84815: $1,075 / $2,150) and the passenger amount', () => {
-    const body = bodyOf(usInput, 'Amount of compensation');
-    expect(body).toContain('USD 1,075.00');
-    expect(body).toContain('USD 2,150.00');
-    expect(body).toContain('Your compensation: USD 1,200.00');
+  it('states the caps in force (89 FR 84815: $1,075 / $2,150) from the rules table, and the passenger amount', () => {
+    const body = bodyOf(usInput, 'Amount of Denied Boarding Compensation');
+    expect(body).toContain('with a maximum of $1,075,');
+    expect(body).toContain('with a maximum of $2,150,');
+    expect(body).toContain('less than four hours');
+    // 86 FR 2534: $775 / $1,550 for a denial before 22 Jan 2025.
+    const earlier = { ...usInput, compensation: compensationDue({ regime: 'us-dot', deniedOn: '2024-06-01', oneWayFare: { amountMinor: 30_000, currency: 'USD' }, plannedArrivalDelayMinutes: 180, aircraftSeats: 150 }) };
+    expect(bodyOf(earlier, 'Amount of Denied Boarding Compensation')).toContain('with a maximum of $1,550,');
+    expect(bodyOf(usInput, 'Your compensation')).toContain('Your compensation: USD 1,200.00');
   });
 
-  it('lists the §250.6 exceptions, cash or cheque, and the options', () => {
-    expect(bodyOf(usInput, 'Exceptions: when no compensation is due')).toContain('60 seats or fewer');
-    expect(bodyOf(usInput, 'Method of payment')).toContain('cash or by cheque');
-    expect(bodyOf(usInput, 'Your options')).toContain('court');
+  it('lists the exceptions, cash or check, and the options', () => {
+    expect(bodyOf(usInput, 'Compensation for Involuntary Denied Boarding')).toContain('60 or fewer seats');
+    expect(bodyOf(usInput, 'Method of Payment')).toContain('a payment by cash or check');
+    expect(bodyOf(usInput, "Passenger's Options")).toContain('court of law');
   });
 
   it('a voucher must be worth at least the cash amount (§250.5(c)), and the cash amount is stated', () => {
     expect(() => writtenStatement({ ...usInput, voucherOffer: { valueMinor: 100_000, currency: 'USD' } })).toThrow(/^voucherOffer\.valueMinor:/);
-    const body = bodyOf({ ...usInput, voucherOffer: { valueMinor: 150_000, currency: 'USD', restrictions: 'valid 1 year' } }, 'Method of payment');
+    const body = bodyOf({ ...usInput, voucherOffer: { valueMinor: 150_000, currency: 'USD', restrictions: 'valid 1 year' } }, 'Your compensation');
     expect(body).toContain('USD 1,500.00');
     expect(body).toContain('You may refuse it and receive USD 1,200.00');
+  });
+});
+
+describe('no provenance notes in what passengers read', () => {
+  it('no statement of any regime says "from memory", "not verified" or "secondary sources"', () => {
+    for (const input of [usInput, euInput]) {
+      expect(statementText(writtenStatement(input))).not.toMatch(/from memory|not verified|secondary sources|\(derived\)/i);
+    }
   });
 });
 
@@ -145,7 +169,7 @@ describe('renderers', () => {
   it('text has the subject, each heading underlined, and the caution last', () => {
     const text = statementText(writtenStatement(usInput));
     expect(text.startsWith('Denied boarding on Example Air flight XX100')).toBe(true);
-    expect(text).toContain('Your options\n------------');
+    expect(text).toContain("Passenger's Options\n-------------------");
     expect(text.trimEnd().endsWith("the carrier's compliance staff decide what is owed.")).toBe(true);
   });
 

@@ -28,14 +28,14 @@ export interface EnforcementChoice {
 }
 
 export function enforcementBodyFor(regime: RegimeCode, originIata: string): EnforcementChoice {
-  if (regime === 'us-dot') return { body: US_BODY, reviewFlag: `Complaints contact (${US_BODY.name}, ${US_BODY.website}) is from memory: confirm it before relying on the statement.` };
+  if (regime === 'us-dot') return { body: US_BODY, reviewFlag: `Complaints contact (${US_BODY.name}, ${US_BODY.website}) is built in: confirm it with the regulator before relying on the statement.` };
   if (regime === 'uk-261' || regime === 'ca-appr') {
-    return { body: undefined, reviewFlag: 'Enforcement body named in the statement is the built-in default (from memory): confirm its contact details.' };
+    return { body: undefined, reviewFlag: 'Enforcement body named in the statement is the built-in default: confirm its contact details with the regulator.' };
   }
   const country = findAirport(originIata)?.country ?? 'unknown country';
   const known = EU_BODIES[country];
   if (known) {
-    return { body: known, reviewFlag: `Enforcement body for ${country} (${known.name}, ${known.website}) is from memory: confirm its contact details before relying on the statement.` };
+    return { body: known, reviewFlag: `Enforcement body for ${country} (${known.name}, ${known.website}) is built in: confirm its contact details with the regulator before relying on the statement.` };
   }
   return {
     body: { name: `The national enforcement body for air passenger rights in ${country}`, website: 'europa.eu (Your Europe: air passenger rights, national enforcement bodies)' },

@@ -3,15 +3,24 @@ import { statementHtml, statementText, writtenStatement, type WrittenStatement }
 import type { PriorityRule } from '@shared/denial';
 import type { PassengerCompensation } from '@shared/schemas/denials';
 import type { RegimeCode } from '@shared/schemas/common';
-import { DEMO_CARRIER } from '../../demo/scenario';
 import type { FlightEntity, PassengerEntity, RebookingEntity, StationEntity } from '../../db/entities';
 import { escapeHtml, formatLocalDateTime } from '../../notices';
 import { findAirport } from '../../reference/airports';
 import { asCompensationResult } from './compensation';
 import { enforcementBodyFor } from './enforcement-bodies';
 
-/** The operating carrier named in every statement; one carrier per installation. */
-export const CARRIER_NAME = DEMO_CARRIER.name;
+// The operating carrier named in every statement: one carrier per installation, set once from configuration when
+// the app is created (createApp), so the statement services need no extra wiring through every caller.
+let carrierName: string | null = null;
+
+export function configureCarrierName(name: string): void {
+  carrierName = name;
+}
+
+function configuredCarrierName(): string {
+  if (carrierName === null) throw new Error('Configuration error: CARRIER_NAME: the operating carrier named in written statements is not set');
+  return carrierName;
+}
 
 export interface StatementFacts {
   station: StationEntity;
@@ -31,7 +40,7 @@ export function statementFor(facts: StatementFacts): WrittenStatement {
   const regime = station.regime as RegimeCode;
   return writtenStatement({
     regime,
-    carrierName: CARRIER_NAME,
+    carrierName: configuredCarrierName(),
     station: `${station.name} (${station.iata})`,
     passenger: { name: `${facts.passenger.firstName} ${facts.passenger.lastName}`, pnr: facts.pnr },
     flight: {

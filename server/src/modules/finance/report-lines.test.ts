@@ -66,15 +66,18 @@ describe('categoryFromCompensation (14 CFR 250.5 bands and 250.6 exceptions)', (
 describe('regimeLines', () => {
   it('counts volunteers and denials, and splits the owed amounts by band', () => {
     const lines = byCode(regimeLines([
-      item({ category: null, band: 'eu-medium', amountMinor: 40_000, currency: 'EUR' }),
-      item({ category: null, band: 'eu-long', amountMinor: 60_000, currency: 'EUR', paid: false }),
+      item({ category: null, band: 'eu-b', amountMinor: 40_000, currency: 'EUR' }),
+      item({ category: null, band: 'eu-c', amountMinor: 60_000, currency: 'EUR', paid: false }),
       item({ category: null, band: 'exempt', amountMinor: 0, currency: 'EUR', paid: false }),
       item({ voluntary: true, category: null, band: 'volunteer', amountMinor: 30_000, currency: 'EUR' }),
     ], 0));
     expect(lines.D1.count).toBe(3);
     expect(lines.D2.count).toBe(2);
     expect(lines.D3.count).toBe(1);
-    expect(lines['D2:eu-long'].amounts).toEqual([{ currency: 'EUR', amountMinor: 60_000 }]);
+    // Reg. (EC) 261/2004 Art. 7(1)(c): EUR 600 for the longest band; people read the band, not its code.
+    expect(lines['D2.2'].amounts).toEqual([{ currency: 'EUR', amountMinor: 60_000 }]);
+    expect(lines['D2.2'].label).toBe('owed compensation: EUR 600.00 for longer flights');
+    expect(Object.keys(lines).join(' ')).not.toMatch(/eu-/);
     expect(lines.D5.amounts).toEqual([{ currency: 'EUR', amountMinor: 40_000 }]);
     expect(lines.D6.amounts).toEqual([{ currency: 'EUR', amountMinor: 60_000 }]);
     expect(lines.V2.amounts).toEqual([{ currency: 'EUR', amountMinor: 30_000 }]);

@@ -1,6 +1,7 @@
 // The quarterly report's lines, from one record per passenger. For US stations these are BTS Form 251, "Report of
 // Passengers Denied Confirmed Space", which 14 CFR 250.10 requires each quarter; for EU, UK and Canadian stations
 // Bumpboard's own equivalent counts and sums (those regimes prescribe no such form).
+import { bandLabel } from '@shared/compensation/labels';
 import type { ReportLine } from '@shared/schemas/finance';
 
 export type Form251Category = '1a' | '1b' | '2a' | '2b' | '2c';
@@ -87,7 +88,8 @@ export function regimeLines(items: readonly ReportItem[], totalBoardings: number
     line('V2', 'Compensation paid to volunteers', null, sumByCurrency(paid(volunteers))),
     line('D1', 'Passengers denied boarding against their will', involuntary.length, null, pending ? `${pending} of them have no compensation worked out yet.` : null),
     line('D2', 'of whom owed compensation', owed.length),
-    ...bands.map((band) => line(`D2:${band}`, `owed compensation in band ${band}`, owed.filter((i) => i.band === band).length, sumByCurrency(owed.filter((i) => i.band === band)))),
+    // Numbered sub-lines: the engine's band codes are not for people to read.
+    ...bands.map((band, i) => line(`D2.${i + 1}`, `owed compensation: ${bandLabel(band)}`, owed.filter((i) => i.band === band).length, sumByCurrency(owed.filter((i) => i.band === band)))),
     line('D3', 'of whom owed no compensation (an exemption, or outside the rules)', owedNothing.length),
     line('D4', 'Passengers denied boarding who received compensation', paid(owed).length),
     line('D5', 'Compensation paid to passengers denied boarding', null, sumByCurrency(paid(owed))),

@@ -1,5 +1,6 @@
 import { useQuery } from '@tanstack/react-query';
 import { Link } from 'react-router-dom';
+import { regimeLabel } from '@shared/compensation/labels';
 import { Caution, Page, Panel } from '../../../components/ui/page';
 import { ApiRequestError } from '../../../lib/api-client';
 import { formatTime, zoneLabel } from '../../../lib/format';
@@ -38,7 +39,7 @@ export function BumpReview({ flightId }: { flightId: number }) {
   return (
     <Page
       title={`Bump review · ${c.flight.label} to ${c.flight.destination}`}
-      subtitle={`Departs ${formatTime(c.flight.scheduledDeparture, tz)} from ${c.flight.origin}. Times in ${zoneLabel(tz)}. Rules of ${c.regime}.`}
+      subtitle={`Departs ${formatTime(c.flight.scheduledDeparture, tz)} from ${c.flight.origin}. Times in ${zoneLabel(tz)}. Rules of ${regimeLabel(c.regime)}.`}
       actions={
         <Link to={`/flights/${flightId}`} className="font-bold text-harbour underline no-print">
           <span aria-hidden>← </span>Flight desk

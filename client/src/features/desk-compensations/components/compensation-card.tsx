@@ -1,3 +1,4 @@
+import { bandLabel } from '@shared/compensation/labels';
 import type { DeskCompensation } from '@shared/schemas/finance';
 import { Button } from '../../../components/ui/button';
 import { formatMoney } from '../../../lib/format';
@@ -35,7 +36,7 @@ export function CompensationCard({ flightId, compensation: c }: { flightId: numb
       <dl className="mt-3 grid gap-x-6 gap-y-1 text-lg sm:grid-cols-[max-content_1fr]">
         <dt className="font-bold">Basis</dt>
         <dd>
-          {c.band} — {c.ruleRef}
+          {bandLabel(c.band, c.serviceDate)} ({c.ruleRef})
         </dd>
         <dt className="font-bold">Why</dt>
         <dd>{c.voluntary ? 'The volunteer agreed this amount in exchange for the seat.' : 'Set by the station’s regulation for an involuntary denial of boarding.'}</dd>

@@ -1,4 +1,5 @@
 import { useState } from 'react';
+import { regimeLabel } from '@shared/compensation/labels';
 import { STATE_LABELS, type CompensationView } from '@shared/schemas/finance';
 import { Button } from '../../../components/ui/button';
 import { formatMoney } from '../../../lib/format';
@@ -25,7 +26,7 @@ function Row({ c }: { c: CompensationView }) {
         <td className="p-2 font-bold">{c.stationIata}</td>
         <td className="p-2">{c.flight}<br /><span className="text-sm text-ink-soft">{c.serviceDate}</span></td>
         <td className="p-2">{c.passengerName}<br /><span className="text-sm text-ink-soft">{c.pnr}</span></td>
-        <td className="p-2">{c.regime}<br /><span className="text-sm text-ink-soft">{c.voluntary ? 'Volunteer' : 'Involuntary'}</span></td>
+        <td className="p-2">{regimeLabel(c.regime)}<br /><span className="text-sm text-ink-soft">{c.voluntary ? 'Volunteer' : 'Involuntary'}</span></td>
         <td className="p-2">{c.form === 'voucher' ? 'Travel voucher' : 'Prepaid card'}</td>
         <td className="p-2 text-right font-bold tabular-nums">{formatMoney(c.amountMinor, c.currency)}</td>
         <td className="p-2">{providerStateText(c)}</td>

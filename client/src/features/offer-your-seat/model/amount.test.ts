@@ -1,6 +1,8 @@
-import { describe, expect, it } from 'vitest';
+import { afterEach, describe, expect, it, vi } from 'vitest';
 import { readAmount } from './amount';
 import { laterWords } from './words';
+
+afterEach(() => vi.unstubAllGlobals());
 
 describe('what a passenger types as their ask', () => {
   it('reads plain amounts into minor units', () => {
@@ -9,11 +11,19 @@ describe('what a passenger types as their ask', () => {
     expect(readAmount('$ 1,250.5', 'CAD')).toEqual({ ok: true, minor: 125_050 });
   });
 
+  it('never reads a decimal comma as a thousands mark: "275,50" is refused in English, 275.50 in French', () => {
+    // CLDR: en-US groups with ",", fr-CA writes decimals with ",".
+    expect(readAmount('275,50', 'CAD')).toMatchObject({ ok: false, reason: expect.stringMatching(/^Your amount is ambiguous/) });
+    vi.stubGlobal('navigator', { language: 'fr-CA', languages: ['fr-CA'] });
+    expect(readAmount('275,50', 'CAD')).toEqual({ ok: true, minor: 27_550 });
+    expect(readAmount('1 250,50 $', 'CAD')).toEqual({ ok: true, minor: 125_050 });
+  });
+
   it('answers in plain words', () => {
-    expect(readAmount('', 'USD')).toEqual({ ok: false, reason: 'Please enter an amount.' });
-    expect(readAmount('lots', 'USD')).toEqual({ ok: false, reason: 'Please enter an amount in numbers, like 450.' });
-    expect(readAmount('0', 'USD')).toEqual({ ok: false, reason: 'Please enter an amount above zero.' });
-    expect(readAmount('4.505', 'USD')).toEqual({ ok: false, reason: 'Please use at most 2 digits after the point.' });
+    expect(readAmount('', 'USD')).toEqual({ ok: false, reason: 'Your amount is required.' });
+    expect(readAmount('lots', 'USD')).toEqual({ ok: false, reason: 'Your amount must be a number, such as 1,234.50.' });
+    expect(readAmount('0', 'USD')).toEqual({ ok: false, reason: 'Your amount must be above zero.' });
+    expect(readAmount('4.505', 'USD')).toEqual({ ok: false, reason: 'Your amount has at most 2 decimals in USD.' });
   });
 
   it('spells a later arrival out', () => {

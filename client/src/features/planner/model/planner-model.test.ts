@@ -1,4 +1,4 @@
-import { describe, expect, it } from 'vitest';
+import { describe, expect, it, vi } from 'vitest';
 import { computePlan } from './curve';
 import { buildDenialCost, EMPTY_COST_HELPER } from './denial-cost';
 import { minorToText, parseMoneyText } from './money-text';
@@ -20,11 +20,16 @@ describe('money typed in major units', () => {
   });
 
   it('says how many decimals the currency has when there are too many', () => {
-    expect(parseMoneyText('1.005', 'USD', 'Revenue')).toEqual({ ok: false, message: 'Revenue must have at most 2 decimals in USD' });
+    expect(parseMoneyText('1.005', 'USD', 'Revenue')).toEqual({ ok: false, message: 'Revenue has at most 2 decimals in USD' });
   });
 
-  it('refuses a European decimal comma rather than reading it as thousands', () => {
-    expect(parseMoneyText('189,50', 'EUR', 'Revenue')).toEqual({ ok: false, message: 'Revenue must be an amount such as 189.00' });
+  it('refuses a decimal comma in an English browser rather than reading it as thousands, and reads it in German', () => {
+    // CLDR: en-US groups thousands with ",", de-DE writes decimals with ",".
+    expect(parseMoneyText('189,50', 'EUR', 'Revenue')).toMatchObject({ ok: false, message: expect.stringMatching(/^Revenue is ambiguous: in en-US/) });
+    vi.stubGlobal('navigator', { language: 'de-DE', languages: ['de-DE'] });
+    expect(parseMoneyText('189,50', 'EUR', 'Revenue')).toEqual({ ok: true, minor: 18_950 });
+    expect(minorToText(18_900, 'EUR')).toBe('189,00');
+    vi.unstubAllGlobals();
   });
 
   it('gives back text the field accepts', () => {

@@ -1,9 +1,12 @@
-import { describe, expect, it } from 'vitest';
+import { afterEach, describe, expect, it, vi } from 'vitest';
 import { minorDigits, moneyInput, parseMoney } from './money';
+
+afterEach(() => vi.unstubAllGlobals());
+const inGerman = () => vi.stubGlobal('navigator', { language: 'de-DE', languages: ['de-DE'] });
 
 describe('money typed by people', () => {
   it('knows each currency’s decimals', () => {
-    // ISO 4217 minor units (from memory): USD 2, EUR 2, CAD 2, JPY 0, KWD 3.
+    // ISO 4217 list one minor units (from memory): USD 2, EUR 2, CAD 2, JPY 0, KWD 3.
     expect([minorDigits('USD'), minorDigits('EUR'), minorDigits('CAD'), minorDigits('JPY'), minorDigits('KWD')]).toEqual([2, 2, 2, 0, 3]);
   });
 
@@ -18,6 +21,15 @@ describe('money typed by people', () => {
     expect(parseMoney('€250', 'EUR')).toEqual({ ok: true, minor: 25_000 });
   });
 
+  it('reads "275,50" as 275.50 in a German browser, and refuses it in an American one instead of reading 27,550', () => {
+    // CLDR separators: de-DE decimal ",", group "."; en-US decimal ".", group ",".
+    expect(parseMoney('275,50', 'USD')).toMatchObject({ ok: false, rule: expect.stringMatching(/^is ambiguous/) });
+    inGerman();
+    expect(parseMoney('275,50', 'EUR')).toEqual({ ok: true, minor: 27_550 });
+    expect(parseMoney('275.50', 'EUR')).toMatchObject({ ok: false, rule: expect.stringMatching(/^is ambiguous: in de-DE/) });
+    expect(moneyInput(27_550, 'EUR')).toBe('275,50');
+  });
+
   it('does not round: 0.29 stays 29 cents, where 0.29 * 100 in floating point is 28.999…', () => {
     // IEEE 754 double arithmetic (derived): 0.29 * 100 === 28.999999999999996.
     expect(0.29 * 100).not.toBe(29);
@@ -25,11 +37,11 @@ describe('money typed by people', () => {
   });
 
   it('names the rule an amount breaks', () => {
-    expect(parseMoney('', 'USD')).toEqual({ ok: false, rule: 'enter an amount' });
-    expect(parseMoney('six hundred', 'USD')).toEqual({ ok: false, rule: 'must be an amount such as 600 or 600.50' });
-    expect(parseMoney('-5', 'USD')).toEqual({ ok: false, rule: 'must be an amount such as 600 or 600.50' });
-    expect(parseMoney('1.234', 'USD')).toEqual({ ok: false, rule: 'at most 2 decimals' });
-    expect(parseMoney('10.5', 'JPY')).toEqual({ ok: false, rule: 'JPY has no decimals' });
+    expect(parseMoney('', 'USD')).toEqual({ ok: false, rule: 'is required' });
+    expect(parseMoney('six hundred', 'USD')).toEqual({ ok: false, rule: 'must be a number, such as 1,234.50' });
+    expect(parseMoney('-5', 'USD')).toEqual({ ok: false, rule: 'must not be negative' });
+    expect(parseMoney('1.234', 'USD')).toEqual({ ok: false, rule: 'has at most 2 decimals in USD' });
+    expect(parseMoney('10.5', 'JPY')).toEqual({ ok: false, rule: 'must be a whole amount: JPY has no decimals' });
   });
 
   it('writes amounts back as they would be typed', () => {

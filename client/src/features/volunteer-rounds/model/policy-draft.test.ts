@@ -34,9 +34,21 @@ describe('the volunteer policy draft', () => {
     const r = checkPolicyDraft(d);
     expect(r.ok).toBe(false);
     if (r.ok) return;
-    expect(r.errors['ladder.1']).toBe('must be an amount such as 600 or 600.50');
-    expect(r.errors.agentLimit).toBe('enter an amount');
+    expect(r.errors['ladder.1']).toBe('must be a number, such as 1,234.50');
+    expect(r.errors.agentLimit).toBe('is required');
     expect(r.errors.extras).toBe('at most 6 extras');
+  });
+
+  it('refuses a step typed with a decimal comma in an en-US browser instead of reading it as thousands', () => {
+    // CLDR en-US: "," separates thousands, so "275,50" has a group of two digits and could be read two ways.
+    const r = checkPolicyDraft({ ...draftFromPolicy(POLICY), ladder: ['200', '275,50'] });
+    expect(!r.ok && r.errors['ladder.1']).toMatch(/^is ambiguous: in en-US "," separates groups of three digits/);
+  });
+
+  it('refuses a currency whose decimals Intl and ISO 4217 disagree on, on the currency field', () => {
+    // ISO 4217 list one gives HUF 2 decimals (from memory); this runtime's CLDR data shows 0.
+    const r = checkPolicyDraft({ ...draftFromPolicy(POLICY), currency: 'HUF' });
+    expect(!r.ok && r.errors.currency).toMatch(/HUF cannot be used for amounts/);
   });
 
   it('marks each step that does not rise above the one before, and an empty ladder', () => {

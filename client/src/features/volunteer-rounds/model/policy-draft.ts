@@ -1,6 +1,7 @@
 // The volunteer policy as the admin edits it (amounts as typed, lists one item per line) and back, checked with the
 // same schema the server validates with, so each problem is shown beside its own field.
 import { volunteerPolicySchema, type VolunteerPolicy } from '@shared/schemas/volunteers';
+import { currencyProblem } from '../../../lib/money';
 import { moneyInput, parseMoney } from './money';
 
 export interface PolicyDraft {
@@ -57,6 +58,11 @@ export function checkPolicyDraft(d: PolicyDraft): { ok: true; policy: VolunteerP
     currencyKnown = false;
   }
   if (!currencyKnown) errors.currency = 'must be a three-letter ISO 4217 currency code';
+  const unusable = currencyKnown ? currencyProblem(currency) : null;
+  if (unusable !== null) {
+    errors.currency = unusable;
+    currencyKnown = false;
+  }
   const money = (text: string, field: string) => {
     if (!currencyKnown) return 0;
     const r = parseMoney(text, currency);
