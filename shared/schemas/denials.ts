@@ -29,15 +29,31 @@ export const stationPriorityRulesSchema = z.object({
 export type StationPriorityRules = z.infer<typeof stationPriorityRulesSchema>;
 
 export const PROTECTION_CODES = [
-  'unaccompanied-minor', 'disability-or-companion', 'family-with-child', 'already-denied-on-ticket', 'boarded', 'volunteered', 'kept-with-party',
+  'unaccompanied-minor', 'disability-or-companion', 'family-with-child', 'travelling-with-family', 'already-denied-on-ticket', 'boarded', 'volunteered',
+  'kept-with-party', 'not-checked-in', 'checked-in-late',
 ] as const;
+
+export const PRIORITY_GROUPS = ['unaccompanied-minor', 'disability-or-companion', 'family', 'already-denied-on-ticket'] as const;
+
+/** One cabin's seats against the people present and eligible for them now. */
+export const cabinCountsSchema = z.object({
+  cabin: z.string(),
+  seats: z.number(),
+  /** Checked in by the deadline or boarded, not counting accepted volunteers or anyone offloaded. */
+  occupying: z.number(),
+  acceptedVolunteerSeats: z.number(),
+  seatsShort: z.number(),
+  waitingProposalSeats: z.number(),
+  seatsShortAfterProposals: z.number(),
+});
+export type CabinCounts = z.infer<typeof cabinCountsSchema>;
 
 export const denialCountsSchema = z.object({
   seats: z.number(),
   checkedIn: z.number(),
   boarded: z.number(),
   acceptedVolunteerSeats: z.number(),
-  /** Checked in or boarded, not counting accepted volunteers: the people who need a seat now. */
+  /** Checked in by the deadline or boarded, not counting accepted volunteers: the people who need a seat now. */
   occupying: z.number(),
   seatsShort: z.number(),
   /** Seats already covered by denials waiting for a supervisor. */
@@ -45,6 +61,10 @@ export const denialCountsSchema = z.object({
   seatsShortAfterProposals: z.number(),
   /** The forecast's expected shows, when computed. */
   expectedShows: z.number().nullable(),
+  /** Check-in deadline (scheduled departure minus the station's check-in close); later is a no-show. */
+  checkInDeadline: z.string(),
+  /** A shortfall is per cabin: seats in one cabin do not take passengers of another. */
+  byCabin: z.array(cabinCountsSchema),
 });
 export type DenialCounts = z.infer<typeof denialCountsSchema>;
 
@@ -56,6 +76,10 @@ export const denialCandidateSchema = z.object({
   passengerIds: z.array(z.number()),
   names: z.array(z.string()),
   seatsFreed: z.number(),
+  /** Cabins of the unit's members: a proposal takes candidates of the cabin that is short. */
+  cabins: z.array(z.string()),
+  /** A priority group ranked after everyone else (Canada's and the EU's rules), or null. */
+  priorityGroup: z.enum(PRIORITY_GROUPS).nullable(),
   reasons: z.array(z.string()),
   /** Set when this unit is already in a waiting or authorized denial. */
   selection: z.object({ denialId: z.number(), proposalId: z.number(), status: z.enum(['proposed', 'authorized']) }).nullable(),
@@ -84,6 +108,8 @@ export type DenialCandidates = z.infer<typeof denialCandidatesSchema>;
 
 export const proposeDenialsBodySchema = z.object({
   seatsNeeded: z.number({ error: 'seatsNeeded must be a number' }).int('seatsNeeded must be a whole number').min(1, 'seatsNeeded must be at least 1').max(60, 'seatsNeeded must be at most 60'),
+  /** The cabin that is short; may be left out when only one cabin is short. */
+  cabin: z.string({ error: 'cabin must be a cabin letter' }).regex(/^[A-Z]$/, 'cabin must be one capital letter, e.g. Y').optional(),
   reason: reasonText('the seats are needed'),
 });
 export type ProposeDenialsBody = z.infer<typeof proposeDenialsBodySchema>;

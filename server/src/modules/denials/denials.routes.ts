@@ -77,7 +77,8 @@ export function denialsRouter(deps: DenialDeps) {
     res.status(201).json(await proposalOf(flight.id, proposal.id));
   });
 
-  r.post('/denial-proposals/:id/authorize', supervisors, async (req, res) => {
+  // Authorizing an involuntary denial is a supervisor's act; an admin manages the station but does not authorize.
+  r.post('/denial-proposals/:id/authorize', requireRole('supervisor'), async (req, res) => {
     const { id } = parse(idParamSchema, req.params, 'params');
     const body = parse(authorizeDenialsBodySchema, req.body);
     const { proposal, authorized } = await authorizeDenials(deps.db, currentUser(req), id, body.denialIds);
