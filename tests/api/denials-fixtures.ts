@@ -169,9 +169,10 @@ function pool<T>(items: T[], what: string): () => T {
 export async function denialRouteContext(db: DataSource, otherFlight: FlightEntity, poolSize = 7): Promise<DenialRouteContext> {
   const [agent, supervisor] = await Promise.all([sessionUserOf(db, 'agent@bumpboard.test'), sessionUserOf(db, 'supervisor@bumpboard.test')]);
   const body = { seatsNeeded: 1, reason: 'route matrix fixture' };
+  // One seat and two passengers present: one short, so a proposal has a real shortfall to cover.
   const singleFlight = async () => {
-    const flight = await createFlight(db, { station: 'BOS', destination: 'ORD', seats: 150 });
-    await addSingles(db, flight, 1);
+    const flight = await createFlight(db, { station: 'BOS', destination: 'ORD', seats: 1 });
+    await addSingles(db, flight, 2);
     return flight;
   };
   const proposeFlights: number[] = [];
@@ -185,8 +186,8 @@ export async function denialRouteContext(db: DataSource, otherFlight: FlightEnti
   const authorizeProposalId = (await proposeDenials(db, agent, (await singleFlight()).id, body)).proposal.id;
   const withdrawProposalId = (await proposeDenials(db, agent, (await singleFlight()).id, body)).proposal.id;
 
-  const rebookFlight = await createFlight(db, { station: 'BOS', destination: 'ORD', seats: 150 });
-  await addSingles(db, rebookFlight, poolSize + 1);
+  const rebookFlight = await createFlight(db, { station: 'BOS', destination: 'ORD', seats: 1 });
+  await addSingles(db, rebookFlight, poolSize + 2);
   const { proposal } = await proposeDenials(db, agent, rebookFlight.id, { seatsNeeded: poolSize + 1, reason: 'route matrix fixture' });
   await authorizeDenials(db, supervisor, proposal.id, undefined);
   const rebookDenials = (await db.getRepository(DenialEntity).findBy({ proposalId: proposal.id })).map((d) => d.id);

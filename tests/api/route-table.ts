@@ -213,7 +213,7 @@ export const ROUTES: readonly RouteRow[] = [
   {
     method: 'POST',
     pattern: '/api/denial-proposals/:id/authorize',
-    access: ['supervisor', 'admin'],
+    access: ['supervisor'],
     call: (ctx, scope) => ({ url: `/api/denial-proposals/${scope === 'own' ? ctx.denials.authorizeProposalId : ctx.denials.other.proposalId}/authorize`, body: {} }),
     success: 200,
     otherStation: 404,
