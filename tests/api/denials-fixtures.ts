@@ -27,6 +27,8 @@ export interface FlightSpec {
   station: string;
   destination: string;
   seats?: number;
+  /** Seats per cabin; overrides seats (which is all economy). */
+  cabins?: Record<string, number>;
   blockMinutes?: number;
   /** Minutes after the first flight of the same test: for later alternates on the same route and day. */
   laterBy?: number;
@@ -44,7 +46,7 @@ export async function createFlight(db: DataSource, spec: FlightSpec): Promise<Fl
       const flight = await db.getRepository(FlightEntity).save(db.getRepository(FlightEntity).create({
         stationId: station.id, carrierCode: 'ZZ', flightNumber: number, serviceDate: departure.toISOString().slice(0, 10), origin: spec.station,
         destination: spec.destination, scheduledDeparture: departure, scheduledArrival: new Date(departure.getTime() + block * 60_000),
-        aircraftType: '320', seatsByCabin: { Y: spec.seats ?? 4 }, gate: 'T1', state: 'check-in-open', shock: null,
+        aircraftType: '320', seatsByCabin: spec.cabins ?? { Y: spec.seats ?? 4 }, gate: 'T1', state: 'check-in-open', shock: null,
       }));
       created.push(flight.id);
       return flight;
@@ -66,6 +68,7 @@ export interface PassengerSpec {
   ssr?: string[];
   tier?: string | null;
   isChild?: boolean;
+  cabin?: string;
 }
 
 let pnrCounter = 0;
@@ -96,7 +99,7 @@ export async function addBooking(
     const status = p.status ?? 'checked-in';
     const checkedIn = status === 'checked-in' || status === 'boarded' ? new Date(flight.scheduledDeparture.getTime() - (p.checkedInBefore ?? 60) * 60_000) : null;
     return db.getRepository(PassengerEntity).create({
-      bookingId: booking.id, flightId: flight.id, pnrSequence: i + 1, firstName: p.first, lastName: p.last, cabin: 'Y',
+      bookingId: booking.id, flightId: flight.id, pnrSequence: i + 1, firstName: p.first, lastName: p.last, cabin: p.cabin ?? 'Y',
       fareMinor: p.fareMinor ?? 20_000, fareCurrency: p.fareCurrency ?? 'USD', fareType: 'standard', ssrCodes: p.ssr ?? [], frequentFlyerTier: p.tier ?? null,
       isChild: p.isChild ?? false, inboundFlight: null, inboundScheduledArrival: null, inboundEstimatedArrival: null, seat: null, status,
       checkedInAt: checkedIn, boardedAt: status === 'boarded' ? new Date(flight.scheduledDeparture.getTime() - 20 * 60_000) : null, statusChangedAt: checkedIn,
