@@ -33,6 +33,7 @@ export function BumpReview({ flightId }: { flightId: number }) {
   const user = session?.user ?? null;
   const tz = user?.stations.find((s) => s.id === c.flight.stationId)?.timeZone ?? 'UTC';
   const decides = user?.role === 'supervisor' || user?.role === 'admin';
+  const authorizes = user?.role === 'supervisor';
   const list = proposals.data?.proposals ?? [];
 
   return (
@@ -57,7 +58,7 @@ export function BumpReview({ flightId }: { flightId: number }) {
           {list.length === 0 && !proposals.isPending && <p className="text-ink-soft">Nothing proposed yet. Agents propose from the flight desk.</p>}
           <div className="space-y-6">
             {list.map((p) => (
-              <ProposalReview key={p.id} proposal={p} flightId={flightId} timeZone={tz} userId={user?.id ?? null} decides={decides} candidates={c.candidates} />
+              <ProposalReview key={p.id} proposal={p} flightId={flightId} timeZone={tz} userId={user?.id ?? null} decides={decides} authorizes={authorizes} candidates={c.candidates} />
             ))}
           </div>
         </Panel>
@@ -66,7 +67,7 @@ export function BumpReview({ flightId }: { flightId: number }) {
             <CandidateRanking candidates={c.candidates} />
           </Panel>
           <div className="space-y-4">
-            <Panel title="Never selected (protected)">
+            <Panel title="Never selected: not present, boarded, volunteers or protected">
               <ExcludedList excluded={c.excluded} />
             </Panel>
             <Panel title="The station’s boarding priorities">
