@@ -253,3 +253,44 @@ export const waitingProposalListSchema = z.object({ proposals: z.array(waitingPr
 export type WaitingProposal = z.infer<typeof waitingProposalSchema>;
 
 export const rebookDenialResultSchema = z.object({ denial: denialSchema });
+
+/**
+ * Refusing carriage for safety, security, health or the passenger's conduct is not a denial of boarding: no
+ * compensation, not on the denied-boarding report (SOR/2019-150 s.1(3), as we read it; 14 CFR 250.7 names the same
+ * grounds; Regulation 261/2004 Art. 2(j) excludes reasonable grounds such as health, safety or security).
+ */
+export const REFUSAL_GROUNDS = ['safety', 'security', 'health', 'conduct'] as const;
+
+const passengerIdList = z
+  .array(id('passengerIds[]'), { error: 'passengerIds must list the passengers' })
+  .min(1, 'passengerIds must name at least one passenger')
+  .max(9, 'passengerIds may name at most 9 passengers (one booking)');
+
+export const recordRefusalBodySchema = z.object({
+  passengerIds: passengerIdList,
+  ground: z.enum(REFUSAL_GROUNDS, { error: 'ground must be one of safety, security, health, conduct' }),
+  reason: reasonText('carriage is refused'),
+});
+export type RecordRefusalBody = z.infer<typeof recordRefusalBodySchema>;
+
+export const boardingRefusalSchema = z.object({
+  id: z.number(),
+  flightId: z.number(),
+  pnr: z.string(),
+  passengerIds: z.array(z.number()),
+  names: z.array(z.string()),
+  ground: z.enum(REFUSAL_GROUNDS),
+  reason: z.string(),
+  refusedBy: z.string(),
+  refusedAt: z.string(),
+});
+export type BoardingRefusal = z.infer<typeof boardingRefusalSchema>;
+export const boardingRefusalListSchema = z.object({ refusals: z.array(boardingRefusalSchema) });
+
+/** A supervisor's correction: a denial that happened but was not recorded at the time. */
+export const recordDenialAfterBodySchema = z.object({
+  passengerIds: passengerIdList,
+  occurredAt: z.iso.datetime({ offset: true, error: 'occurredAt must be a date and time with its offset, e.g. 2025-01-21T18:40:00-05:00' }),
+  reason: reasonText('the denial is recorded after the fact'),
+});
+export type RecordDenialAfterBody = z.infer<typeof recordDenialAfterBodySchema>;

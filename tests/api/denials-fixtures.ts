@@ -33,11 +33,13 @@ export interface FlightSpec {
   /** Minutes after the first flight of the same test: for later alternates on the same route and day. */
   laterBy?: number;
   after?: FlightEntity;
+  /** A fixed departure (e.g. a flight that already left), instead of a random far-future day. */
+  departure?: Date;
 }
 
 export async function createFlight(db: DataSource, spec: FlightSpec): Promise<FlightEntity> {
   const station = await db.getRepository(StationEntity).findOneByOrFail({ iata: spec.station });
-  const departure = spec.after ? new Date(spec.after.scheduledDeparture.getTime() + (spec.laterBy ?? 120) * 60_000) : farDate();
+  const departure = spec.departure ?? (spec.after ? new Date(spec.after.scheduledDeparture.getTime() + (spec.laterBy ?? 120) * 60_000) : farDate());
   const block = spec.blockMinutes ?? 150;
   for (let attempt = 0; attempt < 20; attempt++) {
     sequence += 1;
@@ -131,6 +133,7 @@ export async function removeDenialFixtures(db: DataSource): Promise<void> {
   await db.query('DELETE FROM outbox_messages WHERE flight_id IN (?)', [ids]);
   await db.query('DELETE FROM compensations WHERE flight_id IN (?)', [ids]);
   await db.query('DELETE FROM rebookings WHERE original_flight_id IN (?) OR alternate_flight_id IN (?)', [ids, ids]);
+  await db.query('DELETE FROM boarding_refusals WHERE flight_id IN (?)', [ids]);
   await db.query('DELETE FROM denials WHERE flight_id IN (?)', [ids]);
   await db.query('DELETE FROM denial_proposals WHERE flight_id IN (?)', [ids]);
   await db.query('DELETE FROM volunteers WHERE flight_id IN (?)', [ids]);
@@ -158,6 +161,10 @@ export interface DenialRouteContext {
   statementDenialId: number;
   /** A proposal and a denial at the station no demo user belongs to. */
   other: { proposalId: number; denialId: number };
+  /** A passenger still on the flight, for a refusal of carriage. */
+  nextRefusal(): { flightId: number; passengerId: number };
+  /** A passenger of a flight that left two hours ago, checked in on time, for a denial recorded after the fact. */
+  nextRecorded(): { flightId: number; passengerId: number; occurredAt: string };
 }
 
 function pool<T>(items: T[], what: string): () => T {
@@ -207,8 +214,16 @@ export async function denialRouteContext(db: DataSource, otherFlight: FlightEnti
     status: 'authorized', selectedByUserId: agent.id, authorizedByUserId: supervisor.id, authorizedAt: new Date(), changeReason: null, category: null,
     compensation: null, statementMessageIds: null,
   });
+  const refusalFlight = await createFlight(db, { station: 'BOS', destination: 'ORD', seats: 150 });
+  const refusals = (await addSingles(db, refusalFlight, poolSize)).map((b) => ({ flightId: refusalFlight.id, passengerId: b.passengers[0].id }));
+  const left = new Date(Date.now() - 2 * 3_600_000);
+  const recordedFlight = await createFlight(db, { station: 'BOS', destination: 'ORD', seats: 150, departure: left });
+  const occurredAt = new Date(left.getTime() - 10 * 60_000).toISOString();
+  const recorded = (await addSingles(db, recordedFlight, poolSize)).map((b) => ({ flightId: recordedFlight.id, passengerId: b.passengers[0].id, occurredAt }));
   const rules = await priorityRulesFor(db, rebookFlight.stationId);
   return {
+    nextRefusal: pool(refusals, 'passengers to refuse'),
+    nextRecorded: pool(recorded, 'passengers to record a denial for'),
     ownRules: { rules: rules.rules, tierOrder: rules.tierOrder },
     nextProposeFlight: pool(proposeFlights, 'flights to propose on'),
     nextChangeProposal: pool(changeProposals, 'proposals to change'),
