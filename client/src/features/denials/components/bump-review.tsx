@@ -7,6 +7,7 @@ import { sessionQueryOptions } from '../../../lib/session';
 import { denialCandidatesQueryOptions, denialProposalsQueryOptions } from '../api/denials';
 import { useFlightDenialsLive } from '../api/use-denials-live';
 import { CandidateRanking, ExcludedList } from './candidate-ranking';
+import { peopleOf, RecordedDenialForm, RefusalForm, RefusalList } from './other-outcomes';
 import { ProposalReview } from './proposal-review';
 
 /**
@@ -62,6 +63,19 @@ export function BumpReview({ flightId }: { flightId: number }) {
             ))}
           </div>
         </Panel>
+        <div className="grid gap-4 xl:grid-cols-2">
+          <Panel title="Refusals of carriage (not a denial)">
+            <div className="space-y-4">
+              <RefusalList flightId={flightId} timeZone={tz} />
+              {(user?.role === 'agent' || authorizes) && <RefusalForm flightId={flightId} people={peopleOf(c)} />}
+            </div>
+          </Panel>
+          {authorizes && (
+            <Panel title="Record a denial after the fact">
+              <RecordedDenialForm flightId={flightId} people={peopleOf(c)} timeZone={tz} />
+            </Panel>
+          )}
+        </div>
         <div className="grid gap-4 xl:grid-cols-[3fr_2fr]">
           <Panel title="Ranking: who would be selected, in order">
             <CandidateRanking candidates={c.candidates} />
