@@ -1,6 +1,7 @@
 export { rankDenialCandidates } from './rank';
 export { describeRules } from './describe';
 export { CHILD_SSR, DISABILITY_SSR, UNACCOMPANIED_MINOR_SSR } from './protections';
+export { GROUP_POLICY, GROUP_WORDS, policyFor, type GroupPolicy, type PriorityGroup } from './priority-groups';
 export {
   parsePriorityRules,
   priorityRuleSchema,

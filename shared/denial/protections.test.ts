@@ -122,3 +122,70 @@ describe('never selected (each excluded with a stated reason)', () => {
     expect(result.excluded[0].reason).not.toContain('CFR');
   });
 });
+
+// Canada: SOR/2019-150 s.15 sets an order of priority for who is kept on board when volunteers are too few:
+// (a) unaccompanied minor, (b) person with a disability and their support person, (c) passenger travelling with
+// family members, (d) passenger already denied boarding on the same ticket (text from memory; the order, not an
+// exclusion, is what the provision sets). EU: Regulation 261/2004 Art. 11(1) gives priority to persons with reduced
+// mobility, their companions and unaccompanied children (from memory).
+describe('priority groups are an order, not an exclusion, where the rule says so', () => {
+  const ca: DenialContext = { ...context, regime: 'ca-appr', currency: 'CAD', stationTimeZone: 'America/Toronto' };
+  const eu: DenialContext = { ...context, regime: 'eu-261' };
+  const ids = (result: ReturnType<typeof rankDenialCandidates>) => result.candidates.map((c) => c.unitId);
+
+  it('Canada: everyone outside the groups first, then (d), (c), (b) and the unaccompanied minor last', () => {
+    const result = rankDenialCandidates([
+      passenger('um', { ssrCodes: ['UMNR'], checkedInAt: '2025-03-01T06:59:00Z' }),
+      passenger('needs', { partyId: 'D', ssrCodes: ['WCHR'] }),
+      passenger('support', { partyId: 'D' }),
+      passenger('mum', { partyId: 'F', name: 'Ana Moreau', familyName: 'Moreau' }),
+      passenger('dad', { partyId: 'F', name: 'Luc Moreau', familyName: 'Moreau' }),
+      passenger('again', { alreadyDeniedOnTicket: true, checkedInAt: '2025-03-01T06:58:00Z' }),
+      passenger('plain', { checkedInAt: '2025-03-01T05:00:00Z' }),
+    ], RULES, ca);
+    expect(ids(result)).toEqual(['plain', 'again', 'F', 'D', 'um']);
+    expect(result.excluded).toEqual([]);
+    expect(result.candidates.map((c) => c.priorityGroup)).toEqual([null, 'already-denied-on-ticket', 'family', 'disability-or-companion', 'unaccompanied-minor']);
+    expect(result.candidates[2].reasons[1]).toContain('SOR/2019-150 s.15');
+  });
+
+  it('Canada: family means any family member, adults included; the US carrier policy needs a child', () => {
+    const adults = [
+      passenger('a1', { partyId: 'AD', name: 'Ines Roy', familyName: 'Roy' }),
+      passenger('a2', { partyId: 'AD', name: 'Paul Roy', familyName: 'Roy' }),
+      passenger('solo'),
+    ];
+    const canada = rankDenialCandidates(adults, RULES, ca);
+    expect(canada.candidates.find((c) => c.unitId === 'AD')?.priorityGroup).toBe('family');
+    expect(canada.candidates.at(-1)?.unitId).toBe('AD');
+    const us = rankDenialCandidates(adults, RULES, context);
+    expect(us.candidates.find((c) => c.unitId === 'AD')?.priorityGroup).toBeNull();
+  });
+
+  it('Canada: unrelated travellers in one booking are not a family', () => {
+    const result = rankDenialCandidates([
+      passenger('c1', { partyId: 'CO', name: 'Ines Roy', familyName: 'Roy' }),
+      passenger('c2', { partyId: 'CO', name: 'Paul Tremblay', familyName: 'Tremblay' }),
+    ], RULES, ca);
+    expect(result.candidates[0].priorityGroup).toBeNull();
+  });
+
+  it('EU: reduced mobility and unaccompanied children are ranked last, not left out', () => {
+    const result = rankDenialCandidates([
+      passenger('um', { ssrCodes: ['UMNR'] }),
+      passenger('prm', { ssrCodes: ['WCHC'], checkedInAt: '2025-03-01T06:59:00Z' }),
+      passenger('control'),
+    ], RULES, eu);
+    expect(ids(result)).toEqual(['control', 'prm', 'um']);
+    expect(result.candidates[1].reasons[1]).toContain('Art. 11(1)');
+  });
+
+  it('boarded passengers and volunteers stay out under every regime', () => {
+    const result = rankDenialCandidates([
+      passenger('onboard', { boardedAt: '2025-03-01T06:55:00Z', ssrCodes: ['UMNR'] }),
+      passenger('vol', { volunteered: true }),
+      passenger('control'),
+    ], RULES, ca);
+    expect(ids(result)).toEqual(['control']);
+  });
+});

@@ -54,10 +54,43 @@ describe('ordering by the carrier rules', () => {
     expect(first.reasons[1]).toBe('rule 1, check-in time: checked in 07:42, later than 118 others');
   });
 
-  it('a passenger not checked in counts as the latest check-in', () => {
+});
+
+// Only a passenger who presented on time can be denied boarding; one who did not check in by the deadline is a
+// no-show (14 CFR 250.6(a) and Form 251 line 2(c); Regulation 261/2004 Art. 3(2)(a) "presented themselves for
+// check-in ... as stipulated").
+describe('only passengers who are present', () => {
+  const deadline = { ...context, checkInDeadline: '2025-03-01T12:30:00Z' };
+
+  it('a passenger not checked in is never ranked, whatever the rules say about check-in time', () => {
     const result = rankDenialCandidates([passenger({ id: 'in' }), passenger({ id: 'out', checkedInAt: null })], CHECK_IN_THEN_FARE, context);
-    expect(order(result)).toEqual(['out', 'in']);
-    expect(result.candidates[0].reasons[1]).toContain('not checked in');
+    expect(order(result)).toEqual(['in']);
+    expect(result.excluded).toEqual([expect.objectContaining({ passengerId: 'out', protection: 'not-checked-in' })]);
+  });
+
+  it('after the deadline a missing check-in is a no-show; before it, simply not present yet', () => {
+    const after = rankDenialCandidates([passenger({ id: 'gone', checkedInAt: null })], CHECK_IN_THEN_FARE, { ...deadline, now: '2025-03-01T12:31:00Z' });
+    expect(after.excluded[0].reason).toMatch(/not checked in by the deadline \(check-in closed at 07:30\): a no-show/);
+    const before = rankDenialCandidates([passenger({ id: 'later', checkedInAt: null })], CHECK_IN_THEN_FARE, { ...deadline, now: '2025-03-01T11:00:00Z' });
+    expect(before.excluded[0].reason).toMatch(/not checked in yet/);
+  });
+
+  it('a check-in after the deadline is not a presentation on time: set aside, not ranked', () => {
+    const result = rankDenialCandidates([
+      passenger({ id: 'ontime', checkedInAt: '2025-03-01T12:30:00Z' }),
+      passenger({ id: 'late', checkedInAt: '2025-03-01T12:31:00Z' }),
+    ], CHECK_IN_THEN_FARE, deadline);
+    expect(order(result)).toEqual(['ontime']);
+    expect(result.excluded[0]).toMatchObject({ passengerId: 'late', protection: 'checked-in-late' });
+  });
+
+  it('a party member who is not there leaves the present members ranked as their own unit', () => {
+    const result = rankDenialCandidates([
+      passenger({ id: 'here', partyId: 'P2' }),
+      passenger({ id: 'away', partyId: 'P2', checkedInAt: null }),
+    ], CHECK_IN_THEN_FARE, deadline);
+    expect(result.candidates[0]).toMatchObject({ passengerIds: ['here'], seatsFreed: 1 });
+    expect(result.candidates[0].reasons[0]).toContain('party of 2 booked, 1 present on this flight');
   });
 
   it('the second rule decides when the first ties: lowest fare first', () => {
@@ -140,7 +173,7 @@ describe('parties', () => {
 
   it('notes members booked but not on this flight, and refuses a party larger than its partySize', () => {
     const result = rankDenialCandidates([passenger({ id: 'b1', partyId: 'B', partySize: 3 }), passenger({ id: 'b2', partyId: 'B', partySize: 3 })], CHECK_IN_THEN_FARE, context);
-    expect(result.candidates[0].reasons[0]).toContain('party of 3 booked, 2 on this flight');
+    expect(result.candidates[0].reasons[0]).toContain('party of 3 booked, 2 present on this flight');
     expect(() => rankDenialCandidates([passenger({ id: 'c1', partyId: 'C', partySize: 1 }), passenger({ id: 'c2', partyId: 'C' })], CHECK_IN_THEN_FARE, context)).toThrow(/partySize/);
   });
 });

@@ -1,3 +1,4 @@
+import type { PriorityGroup } from './priority-groups';
 import type { Regime } from '../compensation/types';
 
 export interface DenialPassenger {
@@ -10,6 +11,8 @@ export interface DenialPassenger {
   /** True when the party chose to travel separately; all listed members must agree. */
   partySplitAgreed?: boolean;
   name: string;
+  /** Family name, to tell relatives in one booking; the last word of name when left out. */
+  familyName?: string;
   /** ISO 8601 date-time with offset, or null when not checked in. */
   checkedInAt: string | null;
   /** Boarding pass scanned and accepted at the gate (ISO date-time), or null. */
@@ -39,12 +42,22 @@ export interface DenialContext {
   regime?: Regime;
   /** Further SSR codes the carrier treats as disability or medical assistance. */
   extraDisabilitySsrCodes?: string[];
+  /**
+   * Check-in deadline (ISO date-time with offset). A passenger not checked in by then is not present: a no-show,
+   * never a denied passenger. Without it, anyone checked in counts as present.
+   */
+  checkInDeadline?: string;
+  /** The moment of the ranking (ISO), to say whether a missing check-in is already a no-show. */
+  now?: string;
 }
 
 export type ProtectionCode =
   | 'unaccompanied-minor'
   | 'disability-or-companion'
   | 'family-with-child'
+  | 'travelling-with-family'
+  | 'not-checked-in'
+  | 'checked-in-late'
   | 'already-denied-on-ticket'
   | 'boarded'
   | 'volunteered'
@@ -68,6 +81,8 @@ export interface RankedCandidate {
   passengerIds: string[];
   names: string[];
   seatsFreed: number;
+  /** Set when the unit is in a priority group ranked after everyone else (selected-last policies). */
+  priorityGroup: PriorityGroup | null;
   reasons: string[];
 }
 

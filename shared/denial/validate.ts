@@ -15,6 +15,8 @@ export interface CheckedContext {
   currency: string;
   timeZone: string;
   childAgeUnder: number;
+  checkInDeadlineMs: number | null;
+  nowMs: number | null;
   context: DenialContext;
 }
 
@@ -38,7 +40,9 @@ export function checkContext(context: DenialContext): CheckedContext {
     throw new RangeError(`context.childAgeUnder: expected a whole age from 1 to 18, got ${childAgeUnder}`);
   }
   const tierRank = new Map(context.tierOrder.map((tier, index) => [tier, index + 1]));
-  return { tierRank, tierOrder: context.tierOrder, currency: context.currency, timeZone, childAgeUnder, context };
+  const checkInDeadlineMs = context.checkInDeadline === undefined ? null : parseIsoDateTime('context.checkInDeadline', context.checkInDeadline);
+  const nowMs = context.now === undefined ? null : parseIsoDateTime('context.now', context.now);
+  return { tierRank, tierOrder: context.tierOrder, currency: context.currency, timeZone, childAgeUnder, checkInDeadlineMs, nowMs, context };
 }
 
 export function checkPassengers(passengers: DenialPassenger[], context: CheckedContext, needsSeatFlag: boolean): CheckedPassenger[] {
@@ -50,6 +54,7 @@ export function checkPassengers(passengers: DenialPassenger[], context: CheckedC
     for (const name of ['id', 'pnr', 'partyId', 'name'] as const) {
       if (typeof passenger[name] !== 'string' || passenger[name] === '') throw new RangeError(`${field(name)}: expected a non-empty string`);
     }
+    if (passenger.familyName !== undefined && typeof passenger.familyName !== 'string') throw new RangeError(`${field('familyName')}: expected a string`);
     if (ids.has(passenger.id)) throw new RangeError(`${field('id')}: ${passenger.id} appears twice`);
     ids.add(passenger.id);
     assertMinorAmount(field('fareMinor'), passenger.fareMinor);

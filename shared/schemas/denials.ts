@@ -29,15 +29,31 @@ export const stationPriorityRulesSchema = z.object({
 export type StationPriorityRules = z.infer<typeof stationPriorityRulesSchema>;
 
 export const PROTECTION_CODES = [
-  'unaccompanied-minor', 'disability-or-companion', 'family-with-child', 'already-denied-on-ticket', 'boarded', 'volunteered', 'kept-with-party',
+  'unaccompanied-minor', 'disability-or-companion', 'family-with-child', 'travelling-with-family', 'already-denied-on-ticket', 'boarded', 'volunteered',
+  'kept-with-party', 'not-checked-in', 'checked-in-late',
 ] as const;
+
+export const PRIORITY_GROUPS = ['unaccompanied-minor', 'disability-or-companion', 'family', 'already-denied-on-ticket'] as const;
+
+/** One cabin's seats against the people present and eligible for them now. */
+export const cabinCountsSchema = z.object({
+  cabin: z.string(),
+  seats: z.number(),
+  /** Checked in by the deadline or boarded, not counting accepted volunteers or anyone offloaded. */
+  occupying: z.number(),
+  acceptedVolunteerSeats: z.number(),
+  seatsShort: z.number(),
+  waitingProposalSeats: z.number(),
+  seatsShortAfterProposals: z.number(),
+});
+export type CabinCounts = z.infer<typeof cabinCountsSchema>;
 
 export const denialCountsSchema = z.object({
   seats: z.number(),
   checkedIn: z.number(),
   boarded: z.number(),
   acceptedVolunteerSeats: z.number(),
-  /** Checked in or boarded, not counting accepted volunteers: the people who need a seat now. */
+  /** Checked in by the deadline or boarded, not counting accepted volunteers: the people who need a seat now. */
   occupying: z.number(),
   seatsShort: z.number(),
   /** Seats already covered by denials waiting for a supervisor. */
@@ -45,6 +61,10 @@ export const denialCountsSchema = z.object({
   seatsShortAfterProposals: z.number(),
   /** The forecast's expected shows, when computed. */
   expectedShows: z.number().nullable(),
+  /** Check-in deadline (scheduled departure minus the station's check-in close); later is a no-show. */
+  checkInDeadline: z.string(),
+  /** A shortfall is per cabin: seats in one cabin do not take passengers of another. */
+  byCabin: z.array(cabinCountsSchema),
 });
 export type DenialCounts = z.infer<typeof denialCountsSchema>;
 
@@ -56,6 +76,10 @@ export const denialCandidateSchema = z.object({
   passengerIds: z.array(z.number()),
   names: z.array(z.string()),
   seatsFreed: z.number(),
+  /** Cabins of the unit's members: a proposal takes candidates of the cabin that is short. */
+  cabins: z.array(z.string()),
+  /** A priority group ranked after everyone else (Canada's and the EU's rules), or null. */
+  priorityGroup: z.enum(PRIORITY_GROUPS).nullable(),
   reasons: z.array(z.string()),
   /** Set when this unit is already in a waiting or authorized denial. */
   selection: z.object({ denialId: z.number(), proposalId: z.number(), status: z.enum(['proposed', 'authorized']) }).nullable(),
@@ -84,6 +108,8 @@ export type DenialCandidates = z.infer<typeof denialCandidatesSchema>;
 
 export const proposeDenialsBodySchema = z.object({
   seatsNeeded: z.number({ error: 'seatsNeeded must be a number' }).int('seatsNeeded must be a whole number').min(1, 'seatsNeeded must be at least 1').max(60, 'seatsNeeded must be at most 60'),
+  /** The cabin that is short; may be left out when only one cabin is short. */
+  cabin: z.string({ error: 'cabin must be a cabin letter' }).regex(/^[A-Z]$/, 'cabin must be one capital letter, e.g. Y').optional(),
   reason: reasonText('the seats are needed'),
 });
 export type ProposeDenialsBody = z.infer<typeof proposeDenialsBodySchema>;
@@ -227,3 +253,44 @@ export const waitingProposalListSchema = z.object({ proposals: z.array(waitingPr
 export type WaitingProposal = z.infer<typeof waitingProposalSchema>;
 
 export const rebookDenialResultSchema = z.object({ denial: denialSchema });
+
+/**
+ * Refusing carriage for safety, security, health or the passenger's conduct is not a denial of boarding: no
+ * compensation, not on the denied-boarding report (SOR/2019-150 s.1(3), as we read it; 14 CFR 250.7 names the same
+ * grounds; Regulation 261/2004 Art. 2(j) excludes reasonable grounds such as health, safety or security).
+ */
+export const REFUSAL_GROUNDS = ['safety', 'security', 'health', 'conduct'] as const;
+
+const passengerIdList = z
+  .array(id('passengerIds[]'), { error: 'passengerIds must list the passengers' })
+  .min(1, 'passengerIds must name at least one passenger')
+  .max(9, 'passengerIds may name at most 9 passengers (one booking)');
+
+export const recordRefusalBodySchema = z.object({
+  passengerIds: passengerIdList,
+  ground: z.enum(REFUSAL_GROUNDS, { error: 'ground must be one of safety, security, health, conduct' }),
+  reason: reasonText('carriage is refused'),
+});
+export type RecordRefusalBody = z.infer<typeof recordRefusalBodySchema>;
+
+export const boardingRefusalSchema = z.object({
+  id: z.number(),
+  flightId: z.number(),
+  pnr: z.string(),
+  passengerIds: z.array(z.number()),
+  names: z.array(z.string()),
+  ground: z.enum(REFUSAL_GROUNDS),
+  reason: z.string(),
+  refusedBy: z.string(),
+  refusedAt: z.string(),
+});
+export type BoardingRefusal = z.infer<typeof boardingRefusalSchema>;
+export const boardingRefusalListSchema = z.object({ refusals: z.array(boardingRefusalSchema) });
+
+/** A supervisor's correction: a denial that happened but was not recorded at the time. */
+export const recordDenialAfterBodySchema = z.object({
+  passengerIds: passengerIdList,
+  occurredAt: z.iso.datetime({ offset: true, error: 'occurredAt must be a date and time with its offset, e.g. 2025-01-21T18:40:00-05:00' }),
+  reason: reasonText('the denial is recorded after the fact'),
+});
+export type RecordDenialAfterBody = z.infer<typeof recordDenialAfterBodySchema>;

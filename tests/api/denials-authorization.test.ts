@@ -3,8 +3,8 @@
 // from memory); RFC 9110 §15.5.4 (403 when the credentials are not enough).
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { FlightEntity } from '../../server/src/db/entities';
-import { signedIn, startTestApp, type Client, type TestApp } from './harness';
-import { DEMO } from './helpers';
+import { Client, signedIn, startTestApp, type TestApp } from './harness';
+import { DEMO, TEST_PASSWORD, insertUser, removeRunUsers } from './helpers';
 import { addBooking, addSingles, createFlight, removeDenialFixtures } from './denials-fixtures';
 
 let t: TestApp;
@@ -12,13 +12,20 @@ let agent: Client;
 let supervisor: Client;
 let finance: Client;
 let admin: Client;
+/** A second supervisor of the station: nobody authorizes their own proposal, so two are needed. */
+let second: Client;
 
 beforeAll(async () => {
   t = await startTestApp();
   [agent, supervisor, finance, admin] = await Promise.all([DEMO.agent, DEMO.supervisor, DEMO.finance, DEMO.admin].map((e) => signedIn(t, e)));
+  const [bos] = await t.db.query(`SELECT id FROM stations WHERE iata = 'BOS'`);
+  const user = await insertUser(t.db, { label: 'second-supervisor', role: 'supervisor', stationIds: [bos.id] });
+  second = new Client(t.app);
+  expect((await second.signIn(user.email, TEST_PASSWORD)).status).toBe(200);
 });
 afterAll(async () => {
   await removeDenialFixtures(t.db);
+  await removeRunUsers(t.db);
   await t.close();
 });
 
@@ -64,11 +71,14 @@ describe('proposing denials', () => {
 });
 
 describe('authorizing', () => {
-  it('only a supervisor or admin authorizes: the agent and finance get 403', async () => {
+  it('only a supervisor authorizes: the agent, finance and an admin without the supervisor role get 403', async () => {
     const flight = await flightWithSingles(3);
     const p = (await agent.post(`/api/flights/${flight.id}/denial-proposals`, { seatsNeeded: 1, reason: 'one short' }).expect(201)).body;
     expect((await agent.post(`/api/denial-proposals/${p.id}/authorize`).expect(403)).body.error).toBe('forbidden');
     expect((await finance.post(`/api/denial-proposals/${p.id}/authorize`).expect(403)).body.error).toBe('forbidden');
+    expect((await admin.post(`/api/denial-proposals/${p.id}/authorize`).expect(403)).body.error).toBe('forbidden');
+    expect((await admin.post(`/api/denial-proposals/${p.id}/authorize`, { denialIds: [p.denials[0].id] }).expect(403)).body.error).toBe('forbidden');
+    expect((await t.db.query('SELECT status FROM denials WHERE id = ?', [p.denials[0].id]))[0].status).toBe('proposed');
     const ok = await supervisor.post(`/api/denial-proposals/${p.id}/authorize`).expect(200);
     expect(ok.body.status).toBe('authorized');
     expect(ok.body.denials[0]).toMatchObject({ status: 'authorized', authorizedBy: 'Sam Okafor (demo supervisor)' });
@@ -82,12 +92,12 @@ describe('authorizing', () => {
     expect((await auditRows('denial_proposal.authorized', p.id)).length).toBe(1);
   });
 
-  it('never the proposing user: a supervisor who proposed gets 403 with a clear message; another (the admin) may', async () => {
+  it('never the proposing user: a supervisor who proposed gets 403 with a clear message; another supervisor may', async () => {
     const flight = await flightWithSingles(3);
     const p = (await supervisor.post(`/api/flights/${flight.id}/denial-proposals`, { seatsNeeded: 1, reason: 'one short' }).expect(201)).body;
     const own = await supervisor.post(`/api/denial-proposals/${p.id}/authorize`).expect(403);
     expect(own.body.message).toMatch(/You proposed these denials\. Another supervisor must authorize them/);
-    await admin.post(`/api/denial-proposals/${p.id}/authorize`).expect(200);
+    await second.post(`/api/denial-proposals/${p.id}/authorize`).expect(200);
   });
 
   it('authorizes one denial at a time when named, leaving the rest waiting', async () => {
@@ -131,7 +141,7 @@ describe('changing the selection', () => {
     // The supervisor who added a booking is its proposer and may not authorize it alone.
     const own = await supervisor.post(`/api/denial-proposals/${p.id}/authorize`).expect(403);
     expect(own.body.message).toMatch(/You added denial/);
-    await admin.post(`/api/denial-proposals/${p.id}/authorize`).expect(200);
+    await second.post(`/api/denial-proposals/${p.id}/authorize`).expect(200);
   });
 
   it('refuses to add a protected booking, naming the protection', async () => {

@@ -26,10 +26,15 @@ interface Case {
   passengerIds: number[];
 }
 
-/** A flight where one booking (`denied`) checked in last, so the default rules select it first. */
+/**
+ * A full flight (every seat taken by a traveller alone) where one more booking (`denied`) checked in last, at the
+ * deadline: a real shortfall of its size, and the default rules select it first.
+ */
 async function authorizedCase(station: string, destination: string, denied: PassengerSpec[], opts: { seats?: number; alternateLaterBy?: number; currency: string; email?: string | null }): Promise<Case> {
-  const flight = await createFlight(t.db, { station, destination, seats: opts.seats ?? 150 });
-  await addSingles(t.db, flight, 2, { fareMinor: 20_000, fareCurrency: opts.currency });
+  // 30 seats: the smallest aircraft 14 CFR 250.2 covers.
+  const seats = opts.seats ?? 30;
+  const flight = await createFlight(t.db, { station, destination, seats });
+  await addSingles(t.db, flight, seats, { fareMinor: 20_000, fareCurrency: opts.currency });
   await addBooking(t.db, flight, denied.map((p) => ({ checkedInBefore: 30, fareCurrency: opts.currency, ...p })), { email: opts.email });
   const alternate = opts.alternateLaterBy === undefined ? null : await createFlight(t.db, { station, destination, seats: 150, after: flight, laterBy: opts.alternateLaterBy });
   const proposal = (await agent.post(`/api/flights/${flight.id}/denial-proposals`, { seatsNeeded: denied.length, reason: 'oversold at the gate' }).expect(201)).body;
@@ -127,7 +132,8 @@ describe('eu-261 (Reg. (EC) 261/2004 Art. 7)', () => {
 
 describe('ca-appr (SOR/2019-150 s. 20(1))', () => {
   it('alternate planned 7 h later: CAD 1,800 for 6 h or more but less than 9 h', async () => {
-    const c = await authorizedCase('YUL', 'YVR', [{ first: 'Chloe', last: 'Canuck', fareMinor: 40_000 }, { first: 'Marc', last: 'Canuck', fareMinor: 40_000 }], { currency: 'CAD', alternateLaterBy: 420 });
+    // Two colleagues in one booking: relatives would be a priority group under SOR/2019-150 s.15 and selected last.
+    const c = await authorizedCase('YUL', 'YVR', [{ first: 'Chloe', last: 'Canuck', fareMinor: 40_000 }, { first: 'Marc', last: 'Tremblay', fareMinor: 40_000 }], { currency: 'CAD', alternateLaterBy: 420, seats: 2 });
     const res = await agent.post(`/api/denials/${c.denialId}/rebook`, { alternateFlightId: c.alternate!.id }).expect(200);
     // SOR/2019-150 s. 20(1)(b) (from memory): CAD 1,800 per passenger for an arrival 6-9 h late; one row per passenger.
     expect(res.body.denial.compensation.passengers.map((p: { amountMinor: number; band: string }) => [p.amountMinor, p.band])).toEqual([[180_000, 'ca-6h-to-9h'], [180_000, 'ca-6h-to-9h']]);
@@ -144,7 +150,7 @@ describe('ca-appr (SOR/2019-150 s. 20(1))', () => {
 
 describe('rebooking rules', () => {
   it('only authorized denials, only once; a booking without an address gets no mail and says so', async () => {
-    const flight = await createFlight(t.db, { station: 'BOS', destination: 'ORD', seats: 150 });
+    const flight = await createFlight(t.db, { station: 'BOS', destination: 'ORD', seats: 1 });
     await addSingles(t.db, flight, 2);
     const p = (await agent.post(`/api/flights/${flight.id}/denial-proposals`, { seatsNeeded: 1, reason: 'one short' }).expect(201)).body;
     const early = await agent.post(`/api/denials/${p.denials[0].id}/rebook`, { noAlternate: true }).expect(409);

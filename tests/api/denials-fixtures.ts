@@ -27,15 +27,19 @@ export interface FlightSpec {
   station: string;
   destination: string;
   seats?: number;
+  /** Seats per cabin; overrides seats (which is all economy). */
+  cabins?: Record<string, number>;
   blockMinutes?: number;
   /** Minutes after the first flight of the same test: for later alternates on the same route and day. */
   laterBy?: number;
   after?: FlightEntity;
+  /** A fixed departure (e.g. a flight that already left), instead of a random far-future day. */
+  departure?: Date;
 }
 
 export async function createFlight(db: DataSource, spec: FlightSpec): Promise<FlightEntity> {
   const station = await db.getRepository(StationEntity).findOneByOrFail({ iata: spec.station });
-  const departure = spec.after ? new Date(spec.after.scheduledDeparture.getTime() + (spec.laterBy ?? 120) * 60_000) : farDate();
+  const departure = spec.departure ?? (spec.after ? new Date(spec.after.scheduledDeparture.getTime() + (spec.laterBy ?? 120) * 60_000) : farDate());
   const block = spec.blockMinutes ?? 150;
   for (let attempt = 0; attempt < 20; attempt++) {
     sequence += 1;
@@ -44,7 +48,7 @@ export async function createFlight(db: DataSource, spec: FlightSpec): Promise<Fl
       const flight = await db.getRepository(FlightEntity).save(db.getRepository(FlightEntity).create({
         stationId: station.id, carrierCode: 'ZZ', flightNumber: number, serviceDate: departure.toISOString().slice(0, 10), origin: spec.station,
         destination: spec.destination, scheduledDeparture: departure, scheduledArrival: new Date(departure.getTime() + block * 60_000),
-        aircraftType: '320', seatsByCabin: { Y: spec.seats ?? 4 }, gate: 'T1', state: 'check-in-open', shock: null,
+        aircraftType: '320', seatsByCabin: spec.cabins ?? { Y: spec.seats ?? 4 }, gate: 'T1', state: 'check-in-open', shock: null,
       }));
       created.push(flight.id);
       return flight;
@@ -66,6 +70,7 @@ export interface PassengerSpec {
   ssr?: string[];
   tier?: string | null;
   isChild?: boolean;
+  cabin?: string;
 }
 
 let pnrCounter = 0;
@@ -96,7 +101,7 @@ export async function addBooking(
     const status = p.status ?? 'checked-in';
     const checkedIn = status === 'checked-in' || status === 'boarded' ? new Date(flight.scheduledDeparture.getTime() - (p.checkedInBefore ?? 60) * 60_000) : null;
     return db.getRepository(PassengerEntity).create({
-      bookingId: booking.id, flightId: flight.id, pnrSequence: i + 1, firstName: p.first, lastName: p.last, cabin: 'Y',
+      bookingId: booking.id, flightId: flight.id, pnrSequence: i + 1, firstName: p.first, lastName: p.last, cabin: p.cabin ?? 'Y',
       fareMinor: p.fareMinor ?? 20_000, fareCurrency: p.fareCurrency ?? 'USD', fareType: 'standard', ssrCodes: p.ssr ?? [], frequentFlyerTier: p.tier ?? null,
       isChild: p.isChild ?? false, inboundFlight: null, inboundScheduledArrival: null, inboundEstimatedArrival: null, seat: null, status,
       checkedInAt: checkedIn, boardedAt: status === 'boarded' ? new Date(flight.scheduledDeparture.getTime() - 20 * 60_000) : null, statusChangedAt: checkedIn,
@@ -128,6 +133,7 @@ export async function removeDenialFixtures(db: DataSource): Promise<void> {
   await db.query('DELETE FROM outbox_messages WHERE flight_id IN (?)', [ids]);
   await db.query('DELETE FROM compensations WHERE flight_id IN (?)', [ids]);
   await db.query('DELETE FROM rebookings WHERE original_flight_id IN (?) OR alternate_flight_id IN (?)', [ids, ids]);
+  await db.query('DELETE FROM boarding_refusals WHERE flight_id IN (?)', [ids]);
   await db.query('DELETE FROM denials WHERE flight_id IN (?)', [ids]);
   await db.query('DELETE FROM denial_proposals WHERE flight_id IN (?)', [ids]);
   await db.query('DELETE FROM volunteers WHERE flight_id IN (?)', [ids]);
@@ -155,6 +161,10 @@ export interface DenialRouteContext {
   statementDenialId: number;
   /** A proposal and a denial at the station no demo user belongs to. */
   other: { proposalId: number; denialId: number };
+  /** A passenger still on the flight, for a refusal of carriage. */
+  nextRefusal(): { flightId: number; passengerId: number };
+  /** A passenger of a flight that left two hours ago, checked in on time, for a denial recorded after the fact. */
+  nextRecorded(): { flightId: number; passengerId: number; occurredAt: string };
 }
 
 function pool<T>(items: T[], what: string): () => T {
@@ -169,9 +179,10 @@ function pool<T>(items: T[], what: string): () => T {
 export async function denialRouteContext(db: DataSource, otherFlight: FlightEntity, poolSize = 7): Promise<DenialRouteContext> {
   const [agent, supervisor] = await Promise.all([sessionUserOf(db, 'agent@bumpboard.test'), sessionUserOf(db, 'supervisor@bumpboard.test')]);
   const body = { seatsNeeded: 1, reason: 'route matrix fixture' };
+  // One seat and two passengers present: one short, so a proposal has a real shortfall to cover.
   const singleFlight = async () => {
-    const flight = await createFlight(db, { station: 'BOS', destination: 'ORD', seats: 150 });
-    await addSingles(db, flight, 1);
+    const flight = await createFlight(db, { station: 'BOS', destination: 'ORD', seats: 1 });
+    await addSingles(db, flight, 2);
     return flight;
   };
   const proposeFlights: number[] = [];
@@ -185,8 +196,8 @@ export async function denialRouteContext(db: DataSource, otherFlight: FlightEnti
   const authorizeProposalId = (await proposeDenials(db, agent, (await singleFlight()).id, body)).proposal.id;
   const withdrawProposalId = (await proposeDenials(db, agent, (await singleFlight()).id, body)).proposal.id;
 
-  const rebookFlight = await createFlight(db, { station: 'BOS', destination: 'ORD', seats: 150 });
-  await addSingles(db, rebookFlight, poolSize + 1);
+  const rebookFlight = await createFlight(db, { station: 'BOS', destination: 'ORD', seats: 1 });
+  await addSingles(db, rebookFlight, poolSize + 2);
   const { proposal } = await proposeDenials(db, agent, rebookFlight.id, { seatsNeeded: poolSize + 1, reason: 'route matrix fixture' });
   await authorizeDenials(db, supervisor, proposal.id, undefined);
   const rebookDenials = (await db.getRepository(DenialEntity).findBy({ proposalId: proposal.id })).map((d) => d.id);
@@ -204,8 +215,16 @@ export async function denialRouteContext(db: DataSource, otherFlight: FlightEnti
     status: 'authorized', selectedByUserId: agent.id, authorizedByUserId: supervisor.id, authorizedAt: new Date(), changeReason: null, category: null,
     compensation: null, statementMessageIds: null,
   });
+  const refusalFlight = await createFlight(db, { station: 'BOS', destination: 'ORD', seats: 150 });
+  const refusals = (await addSingles(db, refusalFlight, poolSize)).map((b) => ({ flightId: refusalFlight.id, passengerId: b.passengers[0].id }));
+  const left = new Date(Date.now() - 2 * 3_600_000);
+  const recordedFlight = await createFlight(db, { station: 'BOS', destination: 'ORD', seats: 150, departure: left });
+  const occurredAt = new Date(left.getTime() - 10 * 60_000).toISOString();
+  const recorded = (await addSingles(db, recordedFlight, poolSize)).map((b) => ({ flightId: recordedFlight.id, passengerId: b.passengers[0].id, occurredAt }));
   const rules = await priorityRulesFor(db, rebookFlight.stationId);
   return {
+    nextRefusal: pool(refusals, 'passengers to refuse'),
+    nextRecorded: pool(recorded, 'passengers to record a denial for'),
     ownRules: { rules: rules.rules, tierOrder: rules.tierOrder },
     nextProposeFlight: pool(proposeFlights, 'flights to propose on'),
     nextChangeProposal: pool(changeProposals, 'proposals to change'),

@@ -32,13 +32,15 @@ beforeAll(async () => {
   await add('early', [{ first: 'Ada', last: 'Early', checkedInBefore: 180, fareMinor: 20_000 }]);
   await add('late', [{ first: 'Leo', last: 'Late', checkedInBefore: 40, fareMinor: 15_000 }]);
   await add('notCheckedIn', [{ first: 'Nia', last: 'Nocheck', status: 'booked', fareMinor: 30_000 }]);
-  await add('umnr', [{ first: 'Uma', last: 'Minor', checkedInBefore: 30, ssr: ['UMNR'], isChild: true }]);
-  await add('wheelchair', [{ first: 'Walt', last: 'Wheels', checkedInBefore: 20, ssr: ['WCHR'] }, { first: 'Cora', last: 'Wheels', checkedInBefore: 20 }]);
-  await add('family', [{ first: 'Fay', last: 'Family', checkedInBefore: 15 }, { first: 'Kit', last: 'Family', checkedInBefore: 15, ssr: ['CHLD'], isChild: true }, { first: 'Ivo', last: 'Family', checkedInBefore: 15, ssr: ['INFT'], isChild: true }]);
+  await add('umnr', [{ first: 'Uma', last: 'Minor', checkedInBefore: 70, ssr: ['UMNR'], isChild: true }]);
+  await add('wheelchair', [{ first: 'Walt', last: 'Wheels', checkedInBefore: 66, ssr: ['WCHR'] }, { first: 'Cora', last: 'Wheels', checkedInBefore: 66 }]);
+  await add('family', [{ first: 'Fay', last: 'Family', checkedInBefore: 64 }, { first: 'Kit', last: 'Family', checkedInBefore: 64, ssr: ['CHLD'], isChild: true }, { first: 'Ivo', last: 'Family', checkedInBefore: 64, ssr: ['INFT'], isChild: true }]);
   await add('boarded', [{ first: 'Bea', last: 'Boarded', status: 'boarded', checkedInBefore: 120 }]);
-  await add('partyWithBoarded', [{ first: 'Pat', last: 'Pair', status: 'boarded', checkedInBefore: 10 }, { first: 'Sam', last: 'Pair', checkedInBefore: 10 }]);
-  await add('volunteer', [{ first: 'Val', last: 'Volunteer', checkedInBefore: 5 }]);
+  await add('partyWithBoarded', [{ first: 'Pat', last: 'Pair', status: 'boarded', checkedInBefore: 62 }, { first: 'Sam', last: 'Pair', checkedInBefore: 62 }]);
+  await add('volunteer', [{ first: 'Val', last: 'Volunteer', checkedInBefore: 60 }]);
   await add('cancelled', [{ first: 'Cal', last: 'Cancelled', status: 'cancelled' }]);
+  // Check-in closes 30 min before departure (the default show-up profile): 10 min before is too late to be present.
+  await add('lateCheckIn', [{ first: 'Lou', last: 'Latecomer', checkedInBefore: 10, fareMinor: 5_000 }]);
 
   // Denied once already: the same booking reference and name were denied (authorized) on an earlier flight.
   const earlier = await createFlight(t.db, { station: 'BOS', destination: 'ORD', seats: 6 });
@@ -47,7 +49,7 @@ beforeAll(async () => {
   const supervisor = await sessionUserOf(t.db, DEMO.supervisor);
   const proposal = await t.db.getRepository(DenialProposalEntity).save({ flightId: earlier.id, stationId: bosId, status: 'authorized', seatsNeeded: 1, proposedByUserId: supervisor.id, proposedByLabel: 'fixture', decidedByUserId: null, decidedAt: null, reason: 'fixture: denied on an earlier flight' });
   await t.db.getRepository(DenialEntity).save({ proposalId: proposal.id, flightId: earlier.id, stationId: bosId, bookingId: before.booking.id, passengerIds: before.passengers.map((p) => p.id), position: 1, reasons: [], status: 'authorized', selectedByUserId: supervisor.id, authorizedByUserId: supervisor.id, authorizedAt: new Date(), changeReason: null, category: null, compensation: null, statementMessageIds: null });
-  await add('deniedBefore', [{ first: 'Dan', last: 'Denied', checkedInBefore: 8 }], { pnr: deniedPnr });
+  await add('deniedBefore', [{ first: 'Dan', last: 'Denied', checkedInBefore: 58 }], { pnr: deniedPnr });
 
   const round = await t.db.getRepository(VolunteerRoundEntity).save({ flightId, stationId: bosId, kind: 'posted', status: 'open', currency: 'USD', offerMinor: 40_000, extras: [], volunteersNeeded: 1, openedByUserId: supervisor.id, openedByLabel: 'fixture', closedAt: null });
   await t.db.getRepository(VolunteerEntity).save({ roundId: round.id, flightId, bookingId: (await t.db.query('SELECT booking_id FROM passengers WHERE id = ?', [ids.volunteer[0]]))[0].booking_id, passengerIds: ids.volunteer, askMinor: null, source: 'agent', status: 'accepted', agreedMinor: 40_000, acceptedByUserId: supervisor.id, acceptedAt: new Date() });
@@ -59,12 +61,16 @@ afterAll(async () => {
 });
 
 describe('GET /api/flights/:flightId/denial-candidates', () => {
-  it('ranks only the unprotected, by the default rules: latest check-in first (not checked in counts as latest)', async () => {
+  it('ranks only the unprotected who are present, by the default rules: latest check-in first', async () => {
     const res = await agent.get(`/api/flights/${flightId}/denial-candidates`).expect(200);
     const order = res.body.candidates.map((c: { passengerIds: number[] }) => c.passengerIds);
-    expect(order).toEqual([ids.notCheckedIn, ids.late, ids.early]);
-    expect(res.body.candidates[0].reasons.join(' ')).toContain('not checked in');
-    expect(res.body.candidates[1].reasons.some((r: string) => r.startsWith('rule 1, check-in time: checked in'))).toBe(true);
+    // Not checked in, or checked in after the deadline: not present, so never a denied passenger (a no-show).
+    expect(order).toEqual([ids.late, ids.early]);
+    expect(res.body.candidates[0].reasons.some((r: string) => r.startsWith('rule 1, check-in time: checked in'))).toBe(true);
+    const set = (id: number) => res.body.excluded.find((e: { passengerId: number }) => e.passengerId === id);
+    expect(set(ids.notCheckedIn[0])).toMatchObject({ protection: 'not-checked-in' });
+    expect(set(ids.lateCheckIn[0])).toMatchObject({ protection: 'checked-in-late' });
+    expect(set(ids.lateCheckIn[0]).reason).toContain('after the deadline');
     expect(res.body.rulesText[0]).toMatch(/volunteers/);
   });
 
@@ -84,10 +90,12 @@ describe('GET /api/flights/:flightId/denial-candidates', () => {
     expect(everyone).not.toContain(ids.cancelled[0]);
   });
 
-  it('counts the live shortfall: checked in + boarded, less accepted volunteers, minus seats', async () => {
+  it('counts the live shortfall: present (checked in by the deadline, or boarded), less accepted volunteers, minus seats', async () => {
     const res = await agent.get(`/api/flights/${flightId}/denial-candidates`).expect(200);
-    // derived: 11 checked in and 2 boarded (every fixture but the not-checked-in and the cancelled), 1 of them a volunteer, 6 seats.
-    expect(res.body.counts).toMatchObject({ seats: 6, boarded: 2, checkedIn: 11, acceptedVolunteerSeats: 1, occupying: 12, seatsShort: 6, waitingProposalSeats: 0, seatsShortAfterProposals: 6 });
+    // derived: 12 checked in (one of them after the deadline, so not present) and 2 boarded; 11 + 2 present, 1 of them
+    // a volunteer: 12 occupying on 6 seats.
+    expect(res.body.counts).toMatchObject({ seats: 6, boarded: 2, checkedIn: 12, acceptedVolunteerSeats: 1, occupying: 12, seatsShort: 6, waitingProposalSeats: 0, seatsShortAfterProposals: 6 });
+    expect(res.body.counts.byCabin).toEqual([{ cabin: 'Y', seats: 6, occupying: 12, acceptedVolunteerSeats: 1, seatsShort: 6, waitingProposalSeats: 0, seatsShortAfterProposals: 6 }]);
   });
 
   it('refuses finance (403) and answers another station\'s flight as not found', async () => {
@@ -100,7 +108,7 @@ describe('GET /api/flights/:flightId/denial-candidates', () => {
     try {
       await admin.put(`/api/stations/${bosId}/priority-rules`, { rules: [{ factor: 'fare-paid', direction: 'lowest-first' }, { factor: 'check-in-time', direction: 'latest-first' }], tierOrder: ['silver', 'gold', 'platinum'] }).expect(200);
       const res = await agent.get(`/api/flights/${flightId}/denial-candidates`).expect(200);
-      expect(res.body.candidates.map((c: { passengerIds: number[] }) => c.passengerIds)).toEqual([ids.late, ids.early, ids.notCheckedIn]);
+      expect(res.body.candidates.map((c: { passengerIds: number[] }) => c.passengerIds)).toEqual([ids.late, ids.early]);
     } finally {
       await admin.put(`/api/stations/${bosId}/priority-rules`, { rules: before.rules, tierOrder: before.tierOrder }).expect(200);
     }

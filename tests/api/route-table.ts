@@ -213,7 +213,7 @@ export const ROUTES: readonly RouteRow[] = [
   {
     method: 'POST',
     pattern: '/api/denial-proposals/:id/authorize',
-    access: ['supervisor', 'admin'],
+    access: ['supervisor'],
     call: (ctx, scope) => ({ url: `/api/denial-proposals/${scope === 'own' ? ctx.denials.authorizeProposalId : ctx.denials.other.proposalId}/authorize`, body: {} }),
     success: 200,
     otherStation: 404,
@@ -243,6 +243,31 @@ export const ROUTES: readonly RouteRow[] = [
     access: GATE_ROLES,
     call: (ctx, scope) => ({ url: `/api/denials/${scope === 'own' ? ctx.denials.nextRebookDenial() : ctx.denials.other.denialId}/rebook`, body: { noAlternate: true } }),
     success: 200,
+    otherStation: 404,
+  },
+  { method: 'GET', pattern: '/api/flights/:flightId/boarding-refusals', access: GATE_ROLES, call: (ctx, scope) => ({ url: `/api/flights/${flightOf(ctx, scope)}/boarding-refusals` }), success: 200, otherStation: 404 },
+  {
+    method: 'POST',
+    pattern: '/api/flights/:flightId/boarding-refusals',
+    access: ['agent', 'supervisor'],
+    call: (ctx, scope) => {
+      if (scope === 'other') return { url: `/api/flights/${ctx.otherFlightId}/boarding-refusals`, body: { passengerIds: [1], ground: 'conduct', reason: 'route matrix check' } };
+      const { flightId, passengerId } = ctx.denials.nextRefusal();
+      return { url: `/api/flights/${flightId}/boarding-refusals`, body: { passengerIds: [passengerId], ground: 'conduct', reason: 'route matrix check' } };
+    },
+    success: 201,
+    otherStation: 404,
+  },
+  {
+    method: 'POST',
+    pattern: '/api/flights/:flightId/denials/recorded',
+    access: ['supervisor'],
+    call: (ctx, scope) => {
+      if (scope === 'other') return { url: `/api/flights/${ctx.otherFlightId}/denials/recorded`, body: { passengerIds: [1], occurredAt: new Date().toISOString(), reason: 'route matrix check' } };
+      const { flightId, passengerId, occurredAt } = ctx.denials.nextRecorded();
+      return { url: `/api/flights/${flightId}/denials/recorded`, body: { passengerIds: [passengerId], occurredAt, reason: 'route matrix check' } };
+    },
+    success: 201,
     otherStation: 404,
   },
   { method: 'GET', pattern: '/api/denials/:id/statement', access: GATE_ROLES, call: (ctx, scope) => ({ url: `/api/denials/${scope === 'own' ? ctx.denials.statementDenialId : ctx.denials.other.denialId}/statement` }), success: 200, otherStation: 404 },

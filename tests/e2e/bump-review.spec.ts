@@ -4,7 +4,7 @@
 // the same database (the test writes its own flight, 8xxx on a far-off date, and removes it afterwards).
 import { expect, test, type Browser, type Page } from '@playwright/test';
 import mysql from 'mysql2/promise';
-import { SCREENSHOTS, mailFromCatcher, shot, signIn } from './helpers';
+import { SCREENSHOTS, mailFromCatcher, shot, signIn, staffApi } from './helpers';
 
 const DATABASE_URL = process.env.DATABASE_URL ?? '';
 const RUN = `${Date.now().toString(36)}${Math.random().toString(36).slice(2, 6)}`;
@@ -99,7 +99,8 @@ test('an agent proposes, a supervisor authorizes in another browser, and the sta
   await agent.goto(`/flights/${fixture.flightId}`);
   // The panel is the section its heading titles.
   const panel = agent.getByRole('heading', { name: 'Denied boarding', exact: true }).locator('xpath=..');
-  await expect(panel.getByText('1 seat short now')).toBeVisible();
+  // The first page of the run: the ranking waits for the forecast of a flight nobody opened yet.
+  await expect(panel.getByText('1 seat short now')).toBeVisible({ timeout: 15_000 });
   const form = agent.getByRole('form', { name: 'Propose denials' });
   // Prefilled from the live shortfall: 31 checked in on 30 seats.
   await expect(form.getByLabel('Seats needed')).toHaveValue('1');
@@ -146,6 +147,64 @@ test('an agent proposes, a supervisor authorizes in another browser, and the sta
   await printable.waitForLoadState();
   await expect(printable.getByRole('heading', { level: 2, name: 'Compensation for Involuntary Denied Boarding' })).toBeVisible();
   await shot(printable, 'bump-review-6-printable-statement');
+});
+
+test('after the selection changes, the authorize buttons follow it; an admin changes but never authorizes', async ({ browser }) => {
+  // A second flight of the same shape: 31 present on 30 seats, one short.
+  const [[station]] = await db.query<mysql.RowDataPacket[]>(`SELECT id FROM stations WHERE iata = 'BOS'`);
+  const departure = new Date(Date.now() + (100 + Math.floor(Math.random() * 600)) * 86_400_000);
+  departure.setUTCHours(17, 0, 0, 0);
+  const number = String(8000 + Math.floor(Math.random() * 1000));
+  const flightId = await insertFlight(station.id, number, departure, 30);
+  const tag = `S${RUN.slice(-4).toUpperCase()}`.replace(/[^A-Z0-9]/g, 'X');
+  try {
+    for (let i = 1; i <= 31; i++) {
+      await insertSingle(flightId, `${tag}${String(i).padStart(2, '0')}`.slice(0, 8), 'Seat', `Holder${i}`, new Date(departure.getTime() - (200 - i) * 60_000), `e2e-swap-${RUN}-${i}@passengers.bumpboard.test`);
+    }
+    const agentApi = await staffApi('agent@bumpboard.test');
+    const proposed = await agentApi.post(`/flights/${flightId}/denial-proposals`, { seatsNeeded: 1, reason: 'one short at the gate' });
+    expect(proposed.status).toBe(201);
+    const first = (proposed.body as { id: number; denials: { id: number }[] });
+    await agentApi.dispose();
+
+    const supervisor = await signedInPage(browser, 'supervisor@bumpboard.test');
+    await supervisor.goto(`/flights/${flightId}/bump-review`);
+    const proposal = supervisor.getByRole('article', { name: `Proposal ${first.id}` });
+    const authorizeAll = proposal.getByRole('button', { name: 'Authorize all (1)' });
+    await expect(authorizeAll).toHaveAttribute('data-denial-ids', String(first.denials[0].id));
+
+    // The admin swaps the selected booking for the next in line; the admin's own page offers no authorization.
+    const admin = await signedInPage(browser, 'admin@bumpboard.test');
+    await admin.goto(`/flights/${flightId}/bump-review`);
+    const adminProposal = admin.getByRole('article', { name: `Proposal ${first.id}` });
+    await expect(adminProposal.getByText('Authorizing an involuntary denial is a supervisor’s act')).toBeVisible();
+    await expect(adminProposal.getByRole('button', { name: /^Authorize/ })).toHaveCount(0);
+    await adminProposal.getByRole('button', { name: 'Change selection' }).click();
+    const change = adminProposal.getByRole('form', { name: 'Change the selection' });
+    await change.getByRole('checkbox').first().check();
+    await change.getByRole('checkbox').nth(1).check();
+    await change.getByLabel('Reason for the change (required)').fill('travelling to a funeral; next in line instead');
+    await change.getByRole('button', { name: 'Save the change' }).click();
+    await expect(adminProposal.locator('[data-proposal-status="changed"]')).toBeVisible();
+    await shot(admin, 'bump-review-8-admin-changed-no-authorize');
+
+    // The supervisor's open page follows without a reload: the button now names the new denial only.
+    await expect(proposal.locator('[data-proposal-status="changed"]')).toBeVisible({ timeout: 15_000 });
+    const [[added]] = await db.query<mysql.RowDataPacket[]>(`SELECT id FROM denials WHERE proposal_id = ? AND status = 'proposed'`, [first.id]);
+    await expect(authorizeAll).toHaveAttribute('data-denial-ids', String(added.id));
+    await shot(supervisor, 'bump-review-9-supervisor-after-change');
+    await authorizeAll.click();
+    await expect(proposal.locator('[data-proposal-status="authorized"]')).toBeVisible();
+    const [rows] = await db.query<mysql.RowDataPacket[]>(`SELECT id, status FROM denials WHERE proposal_id = ? ORDER BY id`, [first.id]);
+    expect(rows.map((r) => [r.id, r.status])).toEqual([[first.denials[0].id, 'removed'], [added.id, 'authorized']]);
+
+    // The other outcomes live on the same page: a refusal of carriage and a supervisor's after-the-fact record.
+    await expect(supervisor.getByRole('form', { name: 'Refuse carriage' })).toBeVisible();
+    await expect(supervisor.getByRole('form', { name: 'Record a denial after the fact' })).toBeVisible();
+    await supervisor.getByRole('form', { name: 'Refuse carriage' }).screenshot({ path: `${SCREENSHOTS}/bump-review-10-refuse-carriage.png` });
+  } finally {
+    await removeFixture({ flightId, alternateId: flightId } as Fixture);
+  }
 });
 
 test('an admin sees the station\'s boarding priorities in station setup, with the statement\'s wording', async ({ page }) => {

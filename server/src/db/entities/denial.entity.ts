@@ -121,6 +121,50 @@ export class DenialEntity {
   @Column({ type: 'json', name: 'statement_message_ids', nullable: true })
   statementMessageIds!: string[] | null;
 
+  /** Set only for a denial recorded after the fact: when it really happened (its date chooses the amounts in force). */
+  @Column({ type: 'datetime', precision: 3, name: 'occurred_at', nullable: true })
+  occurredAt!: Date | null;
+
   @CreateDateColumn({ type: 'datetime', precision: 3, default: () => 'CURRENT_TIMESTAMP(3)', name: 'created_at' })
   createdAt!: Date;
+}
+
+export type RefusalGround = 'safety' | 'security' | 'health' | 'conduct';
+
+/**
+ * A refusal of carriage for safety, security, health or the passenger's conduct: not a denial of boarding, no
+ * compensation, never counted on the denied-boarding report.
+ */
+@Entity({ name: 'boarding_refusals' })
+@Index('ix_boarding_refusal_flight', ['flightId'])
+export class BoardingRefusalEntity {
+  @PrimaryGeneratedColumn({ type: 'int' })
+  id!: number;
+
+  @Column({ type: 'int', name: 'flight_id' })
+  flightId!: number;
+
+  @Column({ type: 'int', name: 'station_id' })
+  stationId!: number;
+
+  @Column({ type: 'int', name: 'booking_id' })
+  bookingId!: number;
+
+  @Column({ type: 'json', name: 'passenger_ids' })
+  passengerIds!: number[];
+
+  @Column({ type: 'varchar', length: 12 })
+  ground!: RefusalGround;
+
+  @Column({ type: 'varchar', length: 300 })
+  reason!: string;
+
+  @Column({ type: 'int', name: 'refused_by_user_id' })
+  refusedByUserId!: number;
+
+  @Column({ type: 'varchar', length: 254, name: 'refused_by_label' })
+  refusedByLabel!: string;
+
+  @Column({ type: 'datetime', precision: 3, name: 'refused_at', default: () => 'CURRENT_TIMESTAMP(3)' })
+  refusedAt!: Date;
 }

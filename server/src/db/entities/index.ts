@@ -13,7 +13,7 @@ import { SavedPlanEntity } from './saved-plan.entity';
 import { CompensationEntity } from './compensation.entity';
 import { OutboxMessageEntity } from './outbox-message.entity';
 import { PaymentIssuanceEntity, ProviderCardEntity, ProviderEventEntity, ReconciliationDifferenceEntity, ReconciliationRunEntity, VoucherOfferEntity } from './payment.entity';
-import { DenialEntity, DenialProposalEntity, StationPriorityRulesEntity } from './denial.entity';
+import { BoardingRefusalEntity, DenialEntity, DenialProposalEntity, StationPriorityRulesEntity } from './denial.entity';
 
 export { AuditLogEntity, BookingEntity, FlightEntity, PassengerEntity, StationEntity, UserEntity };
 export { ShowUpProfileEntity, IntegrationKeyEntity, FlightEventEntity, FlightForecastEntity, ForecastSnapshotEntity };
@@ -21,9 +21,9 @@ export { OfferApprovalEntity, RebookingEntity, VolunteerEntity, VolunteerPolicyE
 export { CompensationEntity };
 export { OutboxMessageEntity };
 export { PaymentIssuanceEntity, ProviderCardEntity, ProviderEventEntity, ReconciliationDifferenceEntity, ReconciliationRunEntity, VoucherOfferEntity };
-export { DenialEntity, DenialProposalEntity, StationPriorityRulesEntity };
+export { BoardingRefusalEntity, DenialEntity, DenialProposalEntity, StationPriorityRulesEntity };
 export const entities = [StationEntity, UserEntity, FlightEntity, BookingEntity, PassengerEntity, AuditLogEntity,
   ShowUpProfileEntity, IntegrationKeyEntity, FlightEventEntity, FlightForecastEntity, ForecastSnapshotEntity, SavedPlanEntity,
   VolunteerPolicyEntity, VolunteerRoundEntity, OfferApprovalEntity, VolunteerEntity, RebookingEntity, OutboxMessageEntity, CompensationEntity,
-  StationPriorityRulesEntity, DenialProposalEntity, DenialEntity,
+  StationPriorityRulesEntity, DenialProposalEntity, DenialEntity, BoardingRefusalEntity,
   ProviderEventEntity, PaymentIssuanceEntity, ProviderCardEntity, VoucherOfferEntity, ReconciliationRunEntity, ReconciliationDifferenceEntity];

@@ -11,6 +11,7 @@ import { Payments1796153500000 } from './1796153500000-Payments';
 import { AdminScopeAndSignInThrottle1796210000000 } from './1796210000000-AdminScopeAndSignInThrottle';
 import { AmountApprovals1796220000000 } from './1796220000000-AmountApprovals';
 import { CompensationAmountCleared1796220100000 } from './1796220100000-CompensationAmountCleared';
+import { RefusalsAndRecordedDenials1796240000000 } from './1796240000000-RefusalsAndRecordedDenials';
 import { ForeignKeys1796290000000 } from './1796290000000-ForeignKeys';
 
 export const migrations = [
@@ -26,5 +27,6 @@ export const migrations = [
   AdminScopeAndSignInThrottle1796210000000,
   AmountApprovals1796220000000,
   CompensationAmountCleared1796220100000,
+  RefusalsAndRecordedDenials1796240000000,
   ForeignKeys1796290000000,
 ];

@@ -4,9 +4,10 @@ import { describeRules, rankDenialCandidates, type DenialPassenger } from '@shar
 import type { DenialCandidates, DenialCounts } from '@shared/schemas/denials';
 import type { RegimeCode } from '@shared/schemas/common';
 import {
-  BookingEntity, DenialEntity, DenialProposalEntity, FlightEntity, FlightForecastEntity, PassengerEntity, StationEntity, VolunteerEntity,
+  BookingEntity, DenialEntity, FlightEntity, FlightForecastEntity, PassengerEntity, StationEntity, VolunteerEntity,
 } from '../../db/entities';
 import { priorityRulesFor } from './priority-rules.service';
+import { checkInDeadline, checkInTime, flightPresence } from './shortfall';
 
 type Db = DataSource | EntityManager;
 
@@ -48,29 +49,16 @@ async function deniedBefore(db: Db, flightId: number, passengers: PassengerEntit
 }
 
 export async function liveCounts(db: Db, flight: FlightEntity): Promise<DenialCounts> {
-  const [passengers, volunteers, waiting, forecast] = await Promise.all([
-    db.getRepository(PassengerEntity).find({ select: { id: true, status: true }, where: { flightId: flight.id, status: In(['checked-in', 'boarded']) } }),
-    acceptedVolunteerPassengers(db, flight.id),
-    waitingDenialSeats(db, flight.id),
-    db.getRepository(FlightForecastEntity).findOneBy({ flightId: flight.id }),
-  ]);
-  const seats = seatsOf(flight);
-  const checkedIn = passengers.filter((p) => p.status === 'checked-in').length;
-  const boarded = passengers.length - checkedIn;
-  const occupying = passengers.filter((p) => !volunteers.has(p.id)).length;
-  const seatsShort = Math.max(0, occupying - seats);
+  const [presence, forecast] = await Promise.all([flightPresence(db, flight), db.getRepository(FlightForecastEntity).findOneBy({ flightId: flight.id })]);
+  const checkedIn = presence.passengers.filter((p) => p.status === 'checked-in').length;
+  const sum = (key: 'seats' | 'occupying' | 'acceptedVolunteerSeats' | 'seatsShort' | 'waitingProposalSeats' | 'seatsShortAfterProposals') =>
+    presence.byCabin.reduce((total, c) => total + c[key], 0);
   return {
-    seats, checkedIn, boarded, acceptedVolunteerSeats: volunteers.size, occupying, seatsShort,
-    waitingProposalSeats: waiting, seatsShortAfterProposals: Math.max(0, seatsShort - waiting),
-    expectedShows: forecast?.forecast?.mean ?? null,
+    seats: seatsOf(flight), checkedIn, boarded: presence.passengers.length - checkedIn, acceptedVolunteerSeats: sum('acceptedVolunteerSeats'),
+    occupying: sum('occupying'), seatsShort: sum('seatsShort'), waitingProposalSeats: sum('waitingProposalSeats'),
+    seatsShortAfterProposals: sum('seatsShortAfterProposals'), expectedShows: forecast?.forecast?.mean ?? null,
+    checkInDeadline: presence.deadline.toISOString(), byCabin: presence.byCabin,
   };
-}
-
-async function waitingDenialSeats(db: Db, flightId: number): Promise<number> {
-  const open = await db.getRepository(DenialProposalEntity).findBy({ flightId, status: In(['proposed', 'changed']) });
-  if (open.length === 0) return 0;
-  const denials = await db.getRepository(DenialEntity).findBy({ proposalId: In(open.map((p) => p.id)), status: 'proposed' });
-  return denials.reduce((sum, d) => sum + d.passengerIds.length, 0);
 }
 
 export interface FlightRanking extends DenialCandidates {
@@ -79,13 +67,14 @@ export interface FlightRanking extends DenialCandidates {
 
 export async function rankFlight(db: Db, flight: FlightEntity): Promise<FlightRanking> {
   const station = await db.getRepository(StationEntity).findOneByOrFail({ id: flight.stationId });
-  const [stationRules, passengers, bookings, volunteers, active, counts] = await Promise.all([
+  const [stationRules, passengers, bookings, volunteers, active, counts, deadline] = await Promise.all([
     priorityRulesFor(db, flight.stationId),
     db.getRepository(PassengerEntity).find({ where: { flightId: flight.id, status: ON_FLIGHT }, order: { bookingId: 'ASC', pnrSequence: 'ASC' } }),
     db.getRepository(BookingEntity).findBy({ flightId: flight.id }),
     acceptedVolunteerPassengers(db, flight.id),
     activeDenials(db, flight.id),
     liveCounts(db, flight),
+    checkInDeadline(db, flight),
   ]);
   const bookingById = new Map(bookings.map((b) => [b.id, b]));
   const pnrOf = new Map(bookings.map((b) => [b.id, b.pnr]));
@@ -96,7 +85,6 @@ export async function rankFlight(db: Db, flight: FlightEntity): Promise<FlightRa
   // A tier the station has not listed ranks as the lowest status rather than failing the whole ranking.
   const unknownTiers = [...new Set(passengers.map((p) => p.frequentFlyerTier).filter((t): t is string => t !== null && !stationRules.tierOrder.includes(t)))];
   const tierOrder = [...unknownTiers, ...stationRules.tierOrder];
-  const onBoardStatus = (p: PassengerEntity) => p.status === 'checked-in' || p.status === 'boarded';
 
   const input: DenialPassenger[] = passengers.map((p) => ({
     id: String(p.id),
@@ -105,7 +93,8 @@ export async function rankFlight(db: Db, flight: FlightEntity): Promise<FlightRa
     partySize: partySize.get(p.bookingId),
     partySplitAgreed: bookingById.get(p.bookingId)?.travelsTogether === false,
     name: `${p.firstName} ${p.lastName}`,
-    checkedInAt: onBoardStatus(p) && p.checkedInAt ? p.checkedInAt.toISOString() : null,
+    familyName: p.lastName,
+    checkedInAt: checkInTime(p)?.toISOString() ?? (p.status === 'checked-in' ? deadline.toISOString() : null),
     boardedAt: p.status === 'boarded' ? (p.boardedAt ?? p.statusChangedAt ?? new Date()).toISOString() : null,
     fareMinor: p.fareMinor,
     frequentFlyerTier: p.frequentFlyerTier,
@@ -117,6 +106,7 @@ export async function rankFlight(db: Db, flight: FlightEntity): Promise<FlightRa
   }));
   const ranking = rankDenialCandidates(input, stationRules.rules, {
     tierOrder, currency: station.currency, stationTimeZone: station.timeZone, regime: station.regime as RegimeCode,
+    checkInDeadline: deadline.toISOString(), now: new Date().toISOString(),
   });
 
   const passengersById = new Map(passengers.map((p) => [p.id, p]));
@@ -139,12 +129,13 @@ export async function rankFlight(db: Db, flight: FlightEntity): Promise<FlightRa
     regime: station.regime,
     counts,
     rules: stationRules.rules,
-    rulesText: describeRules(stationRules.rules),
+    rulesText: describeRules(stationRules.rules, station.regime as RegimeCode),
     candidates: ranking.candidates.map((c) => {
       const ids = c.passengerIds.map(Number);
       return {
         position: c.position, unitId: c.unitId, bookingId: Number(c.partyId), pnr: c.pnr, passengerIds: ids, names: c.names,
-        seatsFreed: c.seatsFreed, reasons: [...c.reasons, ...notes(ids)], selection: selectionOf(ids),
+        seatsFreed: c.seatsFreed, cabins: [...new Set(ids.map((id) => passengersById.get(id)?.cabin ?? '?'))].sort(), priorityGroup: c.priorityGroup,
+        reasons: [...c.reasons, ...notes(ids)], selection: selectionOf(ids),
       };
     }),
     excluded: ranking.excluded.map((e) => ({

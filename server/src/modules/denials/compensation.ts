@@ -10,6 +10,8 @@ import { seatsOf } from './candidates.service';
 export interface CaseFacts {
   station: StationEntity;
   flight: FlightEntity;
+  /** The station-local date the denial happened; the amounts in force that day apply. Default: the flight's date. */
+  deniedOn?: string;
   /** Planned arrival of the alternate vs the original; null when no alternate transportation was offered. */
   plannedArrivalDelayMinutes: number | null;
   exemption?: string;
@@ -33,7 +35,7 @@ function inputFor(facts: CaseFacts, passenger: PassengerEntity): CompensationInp
   const { origin, destination } = facts.flight;
   const input: CompensationInput = {
     regime,
-    deniedOn: facts.flight.serviceDate,
+    deniedOn: facts.deniedOn ?? facts.flight.serviceDate,
     voluntary: false,
     plannedArrivalDelayMinutes: facts.plannedArrivalDelayMinutes,
     ...(facts.exemption !== undefined ? { exemption: facts.exemption } : {}),

@@ -5,7 +5,8 @@ import type { DataSource } from 'typeorm';
 import { z } from 'zod';
 import { idParamSchema } from '@shared/schemas/common';
 import {
-  authorizeDenialsBodySchema, changeDenialsBodySchema, priorityRulesBodySchema, proposeDenialsBodySchema, rebookDenialBodySchema, withdrawDenialsBodySchema,
+  authorizeDenialsBodySchema, changeDenialsBodySchema, priorityRulesBodySchema, proposeDenialsBodySchema, rebookDenialBodySchema, recordDenialAfterBodySchema,
+  recordRefusalBodySchema, withdrawDenialsBodySchema,
 } from '@shared/schemas/denials';
 import { FlightEntity } from '../../db/entities';
 import { notFound } from '../../http/errors';
@@ -18,6 +19,8 @@ import { priorityRulesFor, presentPriorityRules, savePriorityRules } from './pri
 import { presentProposals, waitingProposals } from './proposals.presenter';
 import { authorizeDenials, changeDenials, proposeDenials, withdrawProposal } from './proposals.service';
 import { rebookDenial } from './rebook.service';
+import { recordDenialAfter } from './recorded.service';
+import { recordRefusal, refusalsOf } from './refusals.service';
 import { statementPageFor } from './statement-page.service';
 
 export interface DenialDeps {
@@ -77,7 +80,8 @@ export function denialsRouter(deps: DenialDeps) {
     res.status(201).json(await proposalOf(flight.id, proposal.id));
   });
 
-  r.post('/denial-proposals/:id/authorize', supervisors, async (req, res) => {
+  // Authorizing an involuntary denial is a supervisor's act; an admin manages the station but does not authorize.
+  r.post('/denial-proposals/:id/authorize', requireRole('supervisor'), async (req, res) => {
     const { id } = parse(idParamSchema, req.params, 'params');
     const body = parse(authorizeDenialsBodySchema, req.body);
     const { proposal, authorized } = await authorizeDenials(deps.db, currentUser(req), id, body.denialIds);
@@ -100,6 +104,28 @@ export function denialsRouter(deps: DenialDeps) {
     const { proposal, changed } = await withdrawProposal(deps.db, currentUser(req), id, reason);
     if (changed) deps.changed(proposal.flightId, proposal.stationId, ['denials']);
     res.json(await proposalOf(proposal.flightId, proposal.id));
+  });
+
+  // A correction after the fact: the supervisor records a denial with its real date and time and a reason.
+  r.post('/flights/:flightId/denials/recorded', requireRole('supervisor'), async (req, res) => {
+    const flight = await flightOf(req);
+    const body = parse(recordDenialAfterBodySchema, req.body);
+    const { proposal } = await recordDenialAfter(deps.db, currentUser(req), flight.id, body);
+    deps.changed(flight.id, flight.stationId, ['denials', 'counts', 'forecast']);
+    res.status(201).json(await proposalOf(flight.id, proposal.id));
+  });
+
+  r.get('/flights/:flightId/boarding-refusals', desk, async (req, res) => {
+    res.json({ refusals: await refusalsOf(deps.db, await flightOf(req)) });
+  });
+
+  // Refusal of carriage for safety, security, health or conduct: its own outcome, not a denial, no compensation.
+  r.post('/flights/:flightId/boarding-refusals', requireRole('agent', 'supervisor'), async (req, res) => {
+    const flight = await flightOf(req);
+    const body = parse(recordRefusalBodySchema, req.body);
+    const { refusal } = await recordRefusal(deps.db, currentUser(req), flight.id, body);
+    deps.changed(flight.id, flight.stationId, ['denials', 'counts', 'forecast']);
+    res.status(201).json((await refusalsOf(deps.db, flight)).find((r) => r.id === refusal.id)!);
   });
 
   r.post('/denials/:id/rebook', desk, async (req, res) => {

@@ -10,6 +10,7 @@ import { alternatesFor } from '../volunteers/rebooking.service';
 import { CATEGORY_LABELS } from './category';
 import { passengerCompensation } from './compensation';
 import { enforcementBodyFor } from './enforcement-bodies';
+import { denialDate } from './recorded.service';
 import type { RegimeCode } from '@shared/schemas/common';
 
 type Alternate = Awaited<ReturnType<typeof alternatesFor>>[number];
@@ -22,7 +23,7 @@ function preview(station: StationEntity, flight: FlightEntity, d: DenialEntity, 
   const basis = alt
     ? `Preview: assumes rebooking on ${alt.label} (the first alternate with ${d.passengerIds.length} free seat${d.passengerIds.length === 1 ? '' : 's'}), planned to arrive ${formatDuration(delay ?? 0)} after the original flight. Fixed when the passenger is rebooked.`
     : 'Preview: no alternate of ours has enough free seats, so the amounts assume no alternate transportation is offered. Fixed when the passenger is rebooked.';
-  const facts = { station, flight, plannedArrivalDelayMinutes: delay };
+  const facts = { station, flight, deniedOn: denialDate(d, flight, station), plannedArrivalDelayMinutes: delay };
   return { plannedArrivalDelayMinutes: delay, basis, passengers: passengers.map((p) => passengerCompensation(facts, p)), reviewFlags: [enforcement.reviewFlag] };
 }
 

@@ -9,6 +9,7 @@ import { canSeeStation } from '../../http/require-role';
 import { audit } from '../audit/audit.service';
 import { rankFlight } from './candidates.service';
 import { assertNotDeparted } from '../flights/departure-guard';
+import { assertStillNeeded, cabinForProposal, flightPresence } from './shortfall';
 
 const WAITING = ['proposed', 'changed'] as const;
 
@@ -30,17 +31,18 @@ export async function proposeDenials(db: DataSource, user: SessionUser, flightId
     await assertNotDeparted(em, flight, 'proposing a new denial of boarding');
     const waiting = await em.findOneBy(DenialProposalEntity, { flightId, status: In([...WAITING]) });
     if (waiting) throw conflict('proposal_waiting', `Proposal ${waiting.id} on this flight still waits for a supervisor. Change or withdraw it instead of proposing again.`);
+    const cabin = cabinForProposal(await flightPresence(em, flight), body.cabin, body.seatsNeeded);
     const ranking = await rankFlight(em, flight);
     const chosen: typeof ranking.candidates = [];
     let covered = 0;
-    // Strictly in rank order: a party kept together may free more seats than asked, never fewer people are skipped.
+    // Strictly in rank order within the short cabin: a party kept together may free more seats than asked, never fewer.
     for (const candidate of ranking.candidates) {
       if (covered >= body.seatsNeeded) break;
-      if (candidate.selection) continue;
+      if (candidate.selection || !candidate.cabins.includes(cabin.cabin)) continue;
       chosen.push(candidate);
-      covered += candidate.seatsFreed;
+      covered += candidate.passengerIds.filter((id) => ranking.passengersById.get(id)?.cabin === cabin.cabin).length;
     }
-    if (chosen.length === 0) throw conflict('no_candidates', 'Nobody on this flight can be selected: every passenger is protected, boarded, a volunteer or already selected.');
+    if (chosen.length === 0) throw conflict('no_candidates', `Nobody in cabin ${cabin.cabin} can be selected: every passenger present is boarded, a volunteer or already selected.`);
     const proposal = await em.save(em.create(DenialProposalEntity, {
       flightId, stationId: flight.stationId, status: 'proposed', seatsNeeded: body.seatsNeeded, proposedByUserId: user.id,
       proposedByLabel: user.displayName, decidedByUserId: null, decidedAt: null, reason: body.reason,
@@ -52,7 +54,7 @@ export async function proposeDenials(db: DataSource, user: SessionUser, flightId
     })));
     await audit(em, {
       actor: user, action: 'denial_proposal.created', entityType: 'denial_proposal', entityId: proposal.id, stationId: flight.stationId,
-      after: { flightId, seatsNeeded: body.seatsNeeded, seatsSelected: covered, reason: body.reason, denials: denials.map(unitSummary) },
+      after: { flightId, cabin: cabin.cabin, shortfall: cabin, seatsNeeded: body.seatsNeeded, seatsSelected: covered, reason: body.reason, denials: denials.map(unitSummary) },
     });
     return { proposal, flight };
   });
@@ -140,11 +142,14 @@ export async function withdrawProposal(db: DataSource, user: SessionUser, propos
 export async function authorizeDenials(db: DataSource, user: SessionUser, proposalId: number, denialIds: number[] | undefined) {
   return db.transaction(async (em) => {
     const proposal = await proposalForUser(em, user, proposalId);
+    if (user.role !== 'supervisor') {
+      throw forbidden('Authorizing an involuntary denial of boarding is a supervisor\'s act: ask a supervisor of this station.');
+    }
     if (proposal.proposedByUserId === user.id) {
       throw forbidden('You proposed these denials. Another supervisor must authorize them: nobody authorizes their own proposal.');
     }
     if (proposal.status === 'withdrawn') throw conflict('proposal_withdrawn', 'This proposal was withdrawn.');
-    await lockFlight(em, proposal.flightId);
+    const flight = await lockFlight(em, proposal.flightId);
     const own = await em.findBy(DenialEntity, { proposalId });
     const targets = (denialIds ?? own.filter((d) => d.status === 'proposed').map((d) => d.id)).map((denialId) => {
       const d = own.find((x) => x.id === denialId);
@@ -158,6 +163,9 @@ export async function authorizeDenials(db: DataSource, user: SessionUser, propos
     if (ownPicks.length > 0) {
       throw forbidden(`You added ${ownPicks.length === 1 ? 'denial' : 'denials'} ${ownPicks.map((d) => d.id).join(', ')} to the selection. Another supervisor must authorize ${ownPicks.length === 1 ? 'it' : 'them'}.`);
     }
+    // The same check as at proposal time: still present, still short. Passengers who left or a shortfall that
+    // closed since then make the denial unnecessary, and an unnecessary denial is never authorized.
+    assertStillNeeded(await flightPresence(em, flight), toAuthorize);
     const now = new Date();
     for (const d of toAuthorize) {
       Object.assign(d, { status: 'authorized', authorizedByUserId: user.id, authorizedAt: now });

@@ -16,6 +16,7 @@ import { denialCategory } from './category';
 import { checkExemption, passengerCompensation, type CaseFacts } from './compensation';
 import { enforcementBodyFor } from './enforcement-bodies';
 import { priorityRulesFor } from './priority-rules.service';
+import { denialDate } from './recorded.service';
 import { statementFor, statementMail } from './statement';
 import { freeSeats } from '../volunteers/rebooking.service';
 
@@ -75,7 +76,7 @@ export async function rebookDenial(db: DataSource, user: SessionUser, denialId: 
     checkExemption(regime, body.exemption);
     const rebooking = await holdSeats(em, user, denial, original, body);
     const facts: CaseFacts = {
-      station, flight: original, plannedArrivalDelayMinutes: rebooking?.plannedArrivalDelayMinutes ?? null,
+      station, flight: original, deniedOn: denialDate(denial, original, station), plannedArrivalDelayMinutes: rebooking?.plannedArrivalDelayMinutes ?? null,
       exemption: body.exemption, applyReroutingReduction: body.applyReroutingReduction,
     };
     const owed = passengers.map((p) => passengerCompensation(facts, p));

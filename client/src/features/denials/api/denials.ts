@@ -1,7 +1,8 @@
 import { queryOptions, useMutation, useQueryClient } from '@tanstack/react-query';
 import {
-  denialCandidatesSchema, denialProposalListSchema, denialProposalSchema, rebookDenialResultSchema, stationPriorityRulesSchema, waitingProposalListSchema,
-  type ChangeDenialsBody, type PriorityRulesBody, type ProposeDenialsBody, type RebookDenialBody,
+  boardingRefusalListSchema, boardingRefusalSchema, denialCandidatesSchema, denialProposalListSchema, denialProposalSchema, rebookDenialResultSchema,
+  stationPriorityRulesSchema, waitingProposalListSchema,
+  type ChangeDenialsBody, type PriorityRulesBody, type ProposeDenialsBody, type RebookDenialBody, type RecordDenialAfterBody, type RecordRefusalBody,
 } from '@shared/schemas/denials';
 import { alternateListSchema } from '@shared/schemas/volunteers';
 import type { z } from 'zod';
@@ -14,6 +15,7 @@ export const denialKeys = {
   candidates: (flightId: number) => [...denialKeys.flight(flightId), 'candidates'] as const,
   proposals: (flightId: number) => [...denialKeys.flight(flightId), 'proposals'] as const,
   alternates: (flightId: number) => [...denialKeys.flight(flightId), 'alternates'] as const,
+  refusals: (flightId: number) => [...denialKeys.flight(flightId), 'refusals'] as const,
   station: (stationId: number) => [...denialKeys.all, 'station', stationId] as const,
   waiting: (stationId: number) => [...denialKeys.station(stationId), 'waiting'] as const,
   rules: (stationId: number) => [...denialKeys.station(stationId), 'rules'] as const,
@@ -38,6 +40,9 @@ export const denialProposalsQueryOptions = (flightId: number) =>
     queryFn: () => api.get(`/flights/${flightId}/denial-proposals`, denialProposalListSchema),
     refetchInterval: (query) => (statementsSending(query.state.data) ? SENDING_REFETCH_MS : SAFETY_REFETCH_MS),
   });
+
+export const refusalsQueryOptions = (flightId: number) =>
+  queryOptions({ queryKey: denialKeys.refusals(flightId), queryFn: () => api.get(`/flights/${flightId}/boarding-refusals`, boardingRefusalListSchema), refetchInterval: SAFETY_REFETCH_MS });
 
 export const alternatesQueryOptions = (flightId: number) =>
   queryOptions({ queryKey: denialKeys.alternates(flightId), queryFn: () => api.get(`/flights/${flightId}/alternates`, alternateListSchema) });
@@ -69,6 +74,12 @@ export const useChangeDenials = (flightId: number) =>
 
 export const useWithdrawProposal = (flightId: number) =>
   useFlightMutation(flightId, ({ proposalId, reason }: { proposalId: number; reason: string }) => api.post(`/denial-proposals/${proposalId}/withdraw`, denialProposalSchema, { reason }));
+
+export const useRecordRefusal = (flightId: number) =>
+  useFlightMutation(flightId, (body: RecordRefusalBody) => api.post(`/flights/${flightId}/boarding-refusals`, boardingRefusalSchema, body));
+
+export const useRecordDenialAfter = (flightId: number) =>
+  useFlightMutation(flightId, (body: RecordDenialAfterBody) => api.post(`/flights/${flightId}/denials/recorded`, denialProposalSchema, body));
 
 export const useRebookDenial = (flightId: number) =>
   useFlightMutation(flightId, ({ denialId, ...body }: RebookDenialBody & { denialId: number }) => api.post(`/denials/${denialId}/rebook`, rebookDenialResultSchema, body));

@@ -8,6 +8,7 @@ import { sessionQueryOptions } from '../../../lib/session';
 import { denialCandidatesQueryOptions, denialProposalsQueryOptions } from '../api/denials';
 import { useFlightDenialsLive } from '../api/use-denials-live';
 import { CandidateRanking, ExcludedList } from './candidate-ranking';
+import { peopleOf, RecordedDenialForm, RefusalForm, RefusalList } from './other-outcomes';
 import { ProposalReview } from './proposal-review';
 
 /**
@@ -34,6 +35,7 @@ export function BumpReview({ flightId }: { flightId: number }) {
   const user = session?.user ?? null;
   const tz = user?.stations.find((s) => s.id === c.flight.stationId)?.timeZone ?? 'UTC';
   const decides = user?.role === 'supervisor' || user?.role === 'admin';
+  const authorizes = user?.role === 'supervisor';
   const list = proposals.data?.proposals ?? [];
 
   return (
@@ -58,16 +60,29 @@ export function BumpReview({ flightId }: { flightId: number }) {
           {list.length === 0 && !proposals.isPending && <p className="text-ink-soft">Nothing proposed yet. Agents propose from the flight desk.</p>}
           <div className="space-y-6">
             {list.map((p) => (
-              <ProposalReview key={p.id} proposal={p} flightId={flightId} timeZone={tz} userId={user?.id ?? null} decides={decides} candidates={c.candidates} />
+              <ProposalReview key={p.id} proposal={p} flightId={flightId} timeZone={tz} userId={user?.id ?? null} decides={decides} authorizes={authorizes} candidates={c.candidates} />
             ))}
           </div>
         </Panel>
+        <div className="grid gap-4 xl:grid-cols-2">
+          <Panel title="Refusals of carriage (not a denial)">
+            <div className="space-y-4">
+              <RefusalList flightId={flightId} timeZone={tz} />
+              {(user?.role === 'agent' || authorizes) && <RefusalForm flightId={flightId} people={peopleOf(c)} />}
+            </div>
+          </Panel>
+          {authorizes && (
+            <Panel title="Record a denial after the fact">
+              <RecordedDenialForm flightId={flightId} people={peopleOf(c)} timeZone={tz} />
+            </Panel>
+          )}
+        </div>
         <div className="grid gap-4 xl:grid-cols-[3fr_2fr]">
           <Panel title="Ranking: who would be selected, in order">
             <CandidateRanking candidates={c.candidates} />
           </Panel>
           <div className="space-y-4">
-            <Panel title="Never selected (protected)">
+            <Panel title="Never selected: not present, boarded, volunteers or protected">
               <ExcludedList excluded={c.excluded} />
             </Panel>
             <Panel title="The station’s boarding priorities">

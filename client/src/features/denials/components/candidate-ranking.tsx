@@ -1,7 +1,7 @@
 import { useState } from 'react';
 import type { DenialCandidates } from '@shared/schemas/denials';
 import { Button } from '../../../components/ui/button';
-import { PROTECTION_WORDS } from '../model/words';
+import { PRIORITY_GROUP_WORDS, PROTECTION_WORDS } from '../model/words';
 
 /** Enough rows to see who is next without scrolling past the whole flight; the rest on request. */
 const FIRST_ROWS = 12;
@@ -28,6 +28,7 @@ export function CandidateRanking({ candidates }: { candidates: DenialCandidates[
               <td className="py-1 pr-2 text-lg font-bold">{c.position}</td>
               <td className="py-1 pr-2">
                 <span className="font-bold">{c.pnr}</span> {c.names.join(', ')}
+                {c.priorityGroup && <span className="ml-2 rounded bg-calm-soft px-2 text-sm font-bold text-calm">{PRIORITY_GROUP_WORDS[c.priorityGroup]}</span>}
                 {c.selection && (
                   <span className="ml-2 rounded bg-harbour px-2 text-sm font-bold text-white">
                     {c.selection.status === 'authorized' ? 'Authorized' : `In proposal ${c.selection.proposalId}`}
@@ -59,9 +60,9 @@ export function CandidateRanking({ candidates }: { candidates: DenialCandidates[
 }
 
 export function ExcludedList({ excluded }: { excluded: DenialCandidates['excluded'] }) {
-  if (excluded.length === 0) return <p className="text-ink-soft">No protected passengers on this flight.</p>;
+  if (excluded.length === 0) return <p className="text-ink-soft">Nobody set aside on this flight.</p>;
   return (
-    <ul className="space-y-2" aria-label="Protected passengers">
+    <ul className="space-y-2" aria-label="Passengers set aside">
       {excluded.map((e) => (
         <li key={e.passengerId}>
           <span className="font-bold">{e.name}</span> <span className="text-ink-soft">({e.pnr})</span>{' '}

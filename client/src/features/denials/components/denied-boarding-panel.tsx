@@ -1,6 +1,8 @@
 import { useQuery } from '@tanstack/react-query';
 import { Link } from 'react-router-dom';
+import type { DenialCounts } from '@shared/schemas/denials';
 import { Caution, Panel } from '../../../components/ui/page';
+import { formatTime } from '../../../lib/format';
 import { sessionQueryOptions } from '../../../lib/session';
 import { denialCandidatesQueryOptions, denialProposalsQueryOptions } from '../api/denials';
 import { useFlightDenialsLive } from '../api/use-denials-live';
@@ -23,13 +25,13 @@ export function DeniedBoardingPanel({ flightId, timeZone }: { flightId: number; 
       {candidates.error && <p role="alert" className="font-bold text-alert">The ranking could not be loaded: {candidates.error.message}</p>}
       {candidates.data && (
         <div className="space-y-4">
-          <ShortfallLine counts={candidates.data.counts} />
+          <ShortfallLine counts={candidates.data.counts} timeZone={timeZone} />
           {canPropose && (
             <ProposeDenialsForm
               flightId={flightId}
-              suggested={candidates.data.counts.seatsShortAfterProposals}
+              byCabin={candidates.data.counts.byCabin}
               waitingProposalId={waiting?.id ?? null}
-              selectable={candidates.data.candidates.filter((c) => c.selection === null).length}
+              selectableIn={(cabin) => candidates.data.candidates.filter((c) => c.selection === null && c.cabins.includes(cabin)).length}
             />
           )}
           <DenialStatusList proposals={list} timeZone={timeZone} />
@@ -47,8 +49,9 @@ export function DeniedBoardingPanel({ flightId, timeZone }: { flightId: number; 
   );
 }
 
-function ShortfallLine({ counts }: { counts: { seats: number; occupying: number; acceptedVolunteerSeats: number; seatsShort: number; waitingProposalSeats: number; expectedShows: number | null } }) {
+function ShortfallLine({ counts, timeZone }: { counts: DenialCounts; timeZone: string }) {
   const short = counts.seatsShort;
+  const cabins = counts.byCabin.length > 1 ? ` (${counts.byCabin.map((c) => `cabin ${c.cabin}: ${c.occupying} for ${c.seats}`).join('; ')})` : '';
   return (
     <div className={`rounded-md border-2 px-3 py-2 ${short > 0 ? 'border-alert bg-alert-soft' : 'border-line bg-paper'}`} role="status" aria-live="polite">
       <p className="text-lg font-bold">
@@ -62,7 +65,7 @@ function ShortfallLine({ counts }: { counts: { seats: number; occupying: number;
         )}
       </p>
       <p className="text-sm">
-        {counts.occupying} checked in or boarded for {counts.seats} seats
+        {counts.occupying} present (checked in by {formatTime(counts.checkInDeadline, timeZone)} or boarded) for {counts.seats} seats{cabins}
         {counts.acceptedVolunteerSeats > 0 ? `, not counting ${counts.acceptedVolunteerSeats} accepted volunteer${counts.acceptedVolunteerSeats === 1 ? '' : 's'}` : ''}
         {counts.expectedShows !== null ? `; the forecast expects ${counts.expectedShows.toFixed(1)} to show` : ''}
         {counts.waitingProposalSeats > 0 ? `; ${counts.waitingProposalSeats} seat${counts.waitingProposalSeats === 1 ? '' : 's'} already in a proposal` : ''}.

@@ -13,26 +13,31 @@ interface Props {
   flightId: number;
   timeZone: string;
   userId: number | null;
-  /** Supervisors and admins decide; everyone else reads. */
+  /** Supervisors and admins change or withdraw the selection; everyone else reads. */
   decides: boolean;
+  /** Only a supervisor authorizes an involuntary denial. */
+  authorizes: boolean;
   candidates: DenialCandidates['candidates'];
 }
 
-export function ProposalReview({ proposal, flightId, timeZone, userId, decides, candidates }: Props) {
+export function ProposalReview({ proposal, flightId, timeZone, userId, decides, authorizes, candidates }: Props) {
   const [mode, setMode] = useState<'none' | 'change' | 'withdraw'>('none');
-  const [error, setError] = useState<string | null>(null);
-  const authorize = useAuthorizeDenials(flightId);
   const waiting = proposal.status === 'proposed' || proposal.status === 'changed';
   const ownProposal = userId !== null && proposal.proposedByUserId === userId;
   const pending = proposal.denials.filter((d) => d.status === 'proposed');
-  const mayAuthorize = (selectedByUserId: number) => decides && waiting && !ownProposal && selectedByUserId !== userId;
+  // The selection as shown: a message about an earlier selection is not shown against a new one.
+  const selectionKey = proposal.denials.map((d) => `${d.id}:${d.status}`).join(',');
+  const [error, setError] = useState<{ key: string; message: string } | null>(null);
+  const authorize = useAuthorizeDenials(flightId);
+  const mayAuthorize = (selectedByUserId: number) => authorizes && waiting && !ownProposal && selectedByUserId !== userId;
 
-  async function authorizeNow(denialIds?: number[]) {
+  /** Always names the denials on screen, so a click never authorizes a selection changed since it was drawn. */
+  async function authorizeNow(denialIds: number[]) {
     setError(null);
     try {
       await authorize.mutateAsync({ proposalId: proposal.id, denialIds });
     } catch (err) {
-      setError(err instanceof Error ? err.message : 'Not authorized.');
+      setError({ key: selectionKey, message: err instanceof Error ? err.message : 'Not authorized.' });
     }
   }
 
@@ -55,8 +60,8 @@ export function ProposalReview({ proposal, flightId, timeZone, userId, decides, 
         </div>
         {decides && waiting && (
           <div className="flex flex-wrap gap-2 no-print">
-            {!ownProposal && pending.length > 0 && pending.every((d) => mayAuthorize(d.selectedByUserId)) && (
-              <Button onClick={() => authorizeNow()} disabled={authorize.isPending}>
+            {pending.length > 0 && pending.every((d) => mayAuthorize(d.selectedByUserId)) && (
+              <Button onClick={() => authorizeNow(pending.map((d) => d.id))} disabled={authorize.isPending} data-denial-ids={pending.map((d) => d.id).join(' ')}>
                 {authorize.isPending ? 'Authorizing…' : `Authorize all (${pending.length})`}
               </Button>
             )}
@@ -69,10 +74,13 @@ export function ProposalReview({ proposal, flightId, timeZone, userId, decides, 
           </div>
         )}
       </header>
-      {decides && waiting && ownProposal && (
+      {authorizes && waiting && ownProposal && (
         <p className="mt-2 rounded-md bg-watch-soft px-3 py-2">You proposed these denials: another supervisor must authorize them.</p>
       )}
-      {error && <p role="alert" className="mt-2 font-bold text-alert">{error}</p>}
+      {decides && !authorizes && waiting && (
+        <p className="mt-2 rounded-md bg-harbour-soft px-3 py-2">Authorizing an involuntary denial is a supervisor’s act: a supervisor of this station authorizes it.</p>
+      )}
+      {error && error.key === selectionKey && <p role="alert" className="mt-2 font-bold text-alert">{error.message}</p>}
       {mode === 'change' && <ChangeSelectionForm proposal={proposal} flightId={flightId} candidates={candidates} onDone={() => setMode('none')} />}
       {mode === 'withdraw' && <WithdrawForm proposalId={proposal.id} flightId={flightId} onDone={() => setMode('none')} />}
       <div className="mt-4 space-y-4">

@@ -6,6 +6,9 @@ export const PROTECTION_WORDS: Record<string, string> = {
   'unaccompanied-minor': 'Unaccompanied minor',
   'disability-or-companion': 'Disability or companion',
   'family-with-child': 'Family with a child',
+  'travelling-with-family': 'Travelling with family',
+  'not-checked-in': 'Not checked in',
+  'checked-in-late': 'Checked in after the deadline',
   'already-denied-on-ticket': 'Already denied on this ticket',
   boarded: 'Boarded',
   volunteered: 'Accepted volunteer',
@@ -40,3 +43,10 @@ export function denialStatusWords(d: Denial, timeZone: string): string {
   const mail = sent === d.statements.length ? 'statements sent' : queued > 0 ? `${queued} statement${queued === 1 ? '' : 's'} being sent` : 'statements to print';
   return `Authorized${who}${when}; ${where}; ${mail}`;
 }
+
+export const PRIORITY_GROUP_WORDS: Record<string, string> = {
+  'unaccompanied-minor': 'Priority: unaccompanied minor',
+  'disability-or-companion': 'Priority: disability or companion',
+  family: 'Priority: travelling with family',
+  'already-denied-on-ticket': 'Priority: already denied on this ticket',
+};
