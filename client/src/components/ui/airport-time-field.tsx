@@ -1,0 +1,27 @@
+import { TextField } from './text-field';
+import { zoneLabel } from '../../lib/format';
+
+interface Props {
+  /** What the time is, e.g. "Arrives". */
+  label: string;
+  /** The airport the time happens at: the time is read on its clock, whatever the browser's zone. */
+  airport: string;
+  timeZone: string;
+  value: string;
+  onChange: (v: string) => void;
+  error?: string;
+}
+
+/** A date-time typed on the clock of the airport where it happens, with that airport and zone in the label. */
+export function AirportTimeField({ label, airport, timeZone, value, onChange, error }: Props) {
+  return (
+    <TextField
+      label={`${label} · ${airport} local time`}
+      type="datetime-local"
+      value={value}
+      onChange={onChange}
+      error={error}
+      hint={`Read in ${zoneLabel(timeZone)}`}
+    />
+  );
+}
