@@ -1,3 +1,4 @@
+import { localToInstant } from '@shared/time';
 import { TextField } from './text-field';
 import { zoneLabel } from '../../lib/format';
 
@@ -13,6 +14,15 @@ interface Props {
 }
 
 /** A date-time typed on the clock of the airport where it happens, with that airport and zone in the label. */
+/** The zone's name on the typed day (summer or winter time), or today's while nothing readable is typed. */
+function zoneOn(value: string, timeZone: string) {
+  try {
+    return zoneLabel(timeZone, new Date(localToInstant('time', value, timeZone)));
+  } catch {
+    return zoneLabel(timeZone);
+  }
+}
+
 export function AirportTimeField({ label, airport, timeZone, value, onChange, error }: Props) {
   return (
     <TextField
@@ -21,7 +31,7 @@ export function AirportTimeField({ label, airport, timeZone, value, onChange, er
       value={value}
       onChange={onChange}
       error={error}
-      hint={`Read in ${zoneLabel(timeZone)}`}
+      hint={`Read in ${zoneOn(value, timeZone)}`}
     />
   );
 }
