@@ -53,6 +53,17 @@ export function euStyleCompensation(regime: EuStyleRegime, input: CompensationIn
     };
   }
 
+  if (input.ticket === 'free' || input.ticket === 'non-public-reduced') {
+    const what = input.ticket === 'free' ? 'travels free of charge' : 'travels at a reduced fare not available to the public';
+    return {
+      amountMinor: 0, currency: row.currency, band: 'out-of-scope', ruleRef: `${instrument} Art. 3(3)`, notes, reviewFlags, rulesInForce,
+      explanation: `Outside the Regulation: the passenger ${what} (Art. 3(3)); a ticket bought with frequent-flyer points or under another commercial programme would be covered.`,
+    };
+  }
+  if (input.ticket === 'frequent-flyer') {
+    notes.push(`A ticket issued under a frequent-flyer or other commercial programme is covered like a ticket bought for money (${instrument} Art. 3(3)).`);
+  }
+
   const intra = input.intraCommunity ?? false;
   const band = distanceBand(distanceKm, intra);
   if (!intra && distanceKm === 3500) notes.push(`Policy: ${EXACTLY_3500_KM_POLICY}.`);

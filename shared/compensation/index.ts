@@ -6,6 +6,8 @@ import { APPR_DENIED_BOARDING_AMOUNTS, apprCompensation } from './ca-appr';
 import { euStyleCompensation } from './eu-uk';
 import { usDotCompensation } from './us-dot';
 import { assertOptionalBoolean, assertWholeMinutes, parseIsoDate, rowInForce } from './validation';
+import { findExemption } from './exemptions';
+import { assertTicketKind } from './tickets';
 
 export type { CompensationInput, CompensationResult, Regime } from './types';
 export { REGIMES } from './types';
@@ -13,6 +15,11 @@ export type { Money } from './money';
 export { formatMoney } from './money';
 export { greatCircleKm, bandEdgeWarning, type LatLon, type BandEdgeWarning } from './geodesic';
 export { EXEMPTIONS, type ExemptionRule } from './exemptions';
+export {
+  journeyScope, plannedDelayAtMeasured, checkItinerary, isUsInterstate, US_INTERSTATE_COUNTRIES, US_STOPOVER_MINUTES, KEEPS_CONNECTION_MINUTES,
+  type JourneyScope, type JourneySegment, type JourneyAirport, type AirportResolver,
+} from './journey';
+export { FARE_TYPES, FARE_TYPE_NAMES, TICKET_KINDS, ticketKindOf, lowestCashFare, isZeroFareTicket, type FareType, type TicketKind, type FareOnBoard } from './tickets';
 export { US_DBC_CAPS, US_DELAY_BANDS, CPI_U_AUGUST_2011, CPI_U_JULY, reviseUsCaps, type UsCapRow, type RevisedCaps } from './us-dot-rules';
 export { EU_STYLE_AMOUNTS, EXACTLY_3500_KM_POLICY, REDUCTION_MAX_DELAY_MINUTES, type EuStyleAmountRow } from './eu-uk-rules';
 export {
@@ -53,6 +60,9 @@ export function compensationDue(input: CompensationInput): CompensationResult {
   if (input.exemption !== undefined && typeof input.exemption !== 'string') {
     throw new RangeError(`exemption: expected a documented exemption code, got ${JSON.stringify(input.exemption)}`);
   }
+  // Every input is checked before any rule decides scope: an unknown code is an error on any aircraft, any distance.
+  if (input.exemption !== undefined) findExemption(input.regime, input.exemption);
+  assertTicketKind('ticket', input.ticket);
 
   if (input.voluntary === true) return volunteerResult(input.regime, deniedOn, input.exemption);
 

@@ -1,4 +1,5 @@
 import type { Money } from './money';
+import type { TicketKind } from './tickets';
 
 export type Regime = 'us-dot' | 'eu-261' | 'uk-261' | 'ca-appr';
 
@@ -28,6 +29,11 @@ export interface CompensationInput {
   aircraftSeats?: number;
   /** us-dot: for a zero-fare ticket, the lowest cash fare in the same class on that flight. */
   lowestCashFareSameClass?: Money;
+  /**
+   * How the ticket was paid for (default cash). us-dot: a frequent-flyer or free ticket is a zero-fare ticket priced at
+   * the lowest cash fare in its class; eu-261 / uk-261: free and non-public reduced fares are outside the rule (Art. 3(3)).
+   */
+  ticket?: TicketKind;
   /** us-dot: optional fees (seat, bag) paid for services the passenger will not receive. */
   unusedOptionalFeesMinor?: number;
 }

@@ -1,6 +1,7 @@
 // 14 CFR Part 250 amounts for an involuntary denial from an oversold flight.
 import { assertMinorAmount, assertMoney, formatMoney, type Money } from './money';
 import type { CompensationInput, CompensationResult } from './types';
+import { isZeroFareTicket } from './tickets';
 import { findExemption } from './exemptions';
 import { formatMinutes, rowInForce } from './validation';
 import {
@@ -20,6 +21,12 @@ export function usDotCompensation(input: CompensationInput, deniedOn: string): C
   const notes = commonNotes(input);
   const reviewFlags: string[] = [];
   const base = { currency: CURRENCY, notes, reviewFlags, rulesInForce };
+  const delay = input.plannedArrivalDelayMinutes;
+  const bands = input.international ? US_DELAY_BANDS.international : US_DELAY_BANDS.domestic;
+  const scope = input.international ? 'foreign air transportation from a US airport' : 'domestic';
+  // Every given input is checked before scope is decided: a bad value is an error on any aircraft.
+  if (input.lowestCashFareSameClass !== undefined) validatedLowestCashFare(input.lowestCashFareSameClass);
+  if (input.exemption !== undefined) checkExemptionConsistency(input.exemption, seats, delay, bands.noneUpTo);
 
   if (seats !== undefined && seats < US_MIN_SEATS_IN_SCOPE) {
     return {
@@ -34,13 +41,8 @@ export function usDotCompensation(input: CompensationInput, deniedOn: string): C
     reviewFlags.push(`Aircraft seat count not given: assumed ${US_MIN_SEATS_IN_SCOPE} seats or more (14 CFR 250.2).`);
   }
 
-  const delay = input.plannedArrivalDelayMinutes;
-  const bands = input.international ? US_DELAY_BANDS.international : US_DELAY_BANDS.domestic;
-  const scope = input.international ? 'foreign air transportation from a US airport' : 'domestic';
-
   if (input.exemption !== undefined) {
     const rule = findExemption('us-dot', input.exemption);
-    checkExemptionConsistency(input.exemption, seats, delay, bands.noneUpTo);
     return { ...base, amountMinor: 0, band: 'exempt', ruleRef: rule.ruleRef, explanation: `Not eligible: ${rule.summary}.` };
   }
 
@@ -92,17 +94,25 @@ function validatedSeats(seats: unknown): number | undefined {
   return seats;
 }
 
-function fareForCompensation(input: CompensationInput, fare: Money): { amountMinor: number; zeroFare: boolean } {
-  if (fare.amountMinor > 0) return { amountMinor: fare.amountMinor, zeroFare: false };
-  const lowest = input.lowestCashFareSameClass;
-  if (lowest === undefined) {
-    throw new RangeError('lowestCashFareSameClass: required when oneWayFare is 0 (zero-fare ticket, 14 CFR 250.5(d))');
-  }
+function validatedLowestCashFare(lowest: unknown): Money {
   assertMoney('lowestCashFareSameClass', lowest);
   if (lowest.currency !== CURRENCY) {
     throw new RangeError(`lowestCashFareSameClass.currency: expected USD, got ${lowest.currency}`);
   }
-  return { amountMinor: lowest.amountMinor, zeroFare: true };
+  if (lowest.amountMinor <= 0) throw new RangeError('lowestCashFareSameClass.amountMinor: a cash fare is more than 0');
+  return lowest;
+}
+
+/**
+ * A ticket bought with miles, or given free, is a zero-fare ticket even when taxes were paid in cash: its fare is the
+ * lowest cash fare in the same class on that flight (14 CFR 250.1 "zero fare ticket"; 250.5(d)).
+ */
+function fareForCompensation(input: CompensationInput, fare: Money): { amountMinor: number; zeroFare: boolean } {
+  if (!isZeroFareTicket(input.ticket, fare.amountMinor)) return { amountMinor: fare.amountMinor, zeroFare: false };
+  if (input.lowestCashFareSameClass === undefined) {
+    throw new RangeError('lowestCashFareSameClass: required for a zero-fare ticket (miles, free or a fare of 0), 14 CFR 250.5(d)');
+  }
+  return { amountMinor: validatedLowestCashFare(input.lowestCashFareSameClass).amountMinor, zeroFare: true };
 }
 
 function checkExemptionConsistency(code: string, seats: number | undefined, delay: number | null, noneUpTo: number): void {

@@ -1,6 +1,7 @@
 import { betaBinomialPmf, binomialPmf } from './binomial';
 import type { BookingLimitOptimum, BookingLimitOptions, BookingLimitPoint, CommonShock } from './types';
 import {
+  probabilityOut,
   requireNonNegativeFinite,
   requireNonNegativeInteger,
   requireProbability,
@@ -25,7 +26,7 @@ function tailFigures(pmf: Float64Array, capacity: number): TailFigures {
   }
   // X >= 0 always holds, so capacity 0 gives exactly 1 rather than the rounded sum of the pmf
   const pFullOrOver = capacity === 0 ? 1 : capacity < pmf.length ? pOversale + pmf[capacity] : 0;
-  return { pOversale, pFullOrOver, expectedDenied };
+  return { pOversale: probabilityOut(pOversale, 'pOversale'), pFullOrOver: probabilityOut(pFullOrOver, 'pFullOrOver'), expectedDenied };
 }
 
 /** Adds one more booking with show probability p: f'[k] = (1-p) f[k] + p f[k-1]. */
@@ -63,7 +64,7 @@ function* showUpTails(capacity: number, p: number, from: number, to: number, sho
       mixed.expectedDenied += part.weight * figures.expectedDenied;
       if (n < to) part.pmf = addBooking(part.pmf, part.p);
     }
-    yield mixed;
+    yield { ...mixed, pOversale: probabilityOut(mixed.pOversale, 'pOversale'), pFullOrOver: probabilityOut(mixed.pFullOrOver, 'pFullOrOver') };
   }
 }
 

@@ -1,5 +1,5 @@
 import type { OversaleRisk } from './types';
-import { requireNonNegativeInteger, requireOpenUnitInterval, requireProbability, validatePmf } from './validate';
+import { probabilityOut, requireNonNegativeInteger, requireOpenUnitInterval, requireProbability, validatePmf } from './validate';
 
 function total(pmf: ArrayLike<number>): number {
   let sum = 0;
@@ -11,7 +11,7 @@ function total(pmf: ArrayLike<number>): number {
 export function upperTail(pmf: ArrayLike<number>, from: number): number {
   let tail = 0;
   for (let k = pmf.length - 1; k >= Math.max(0, from); k--) tail += pmf[k];
-  return tail;
+  return probabilityOut(tail, 'upperTail');
 }
 
 /**
@@ -59,7 +59,11 @@ export function oversaleRisk(pmf: ArrayLike<number>, capacity: number): Oversale
   for (let k = 0; k < pmf.length; k++) mean += k * pmf[k];
   let variance = 0;
   for (let k = 0; k < pmf.length; k++) variance += (k - mean) * (k - mean) * pmf[k];
-  return { pOversale, pFullOrOver, expectedDenied, mean, sd: Math.sqrt(variance), median: quantile(pmf, 0.5) };
+  return {
+    pOversale: probabilityOut(pOversale, 'pOversale'),
+    pFullOrOver: probabilityOut(pFullOrOver, 'pFullOrOver'),
+    expectedDenied, mean, sd: Math.sqrt(variance), median: quantile(pmf, 0.5),
+  };
 }
 
 /**
@@ -78,7 +82,13 @@ export function volunteerTarget(pmf: ArrayLike<number>, capacity: number, alpha:
     above += pmf[level];
     level--;
   }
-  return Math.max(0, level - capacity);
+  const target = Math.max(0, level - capacity);
+  // Nobody beyond the people who could show can volunteer: the target never exceeds bookings minus seats.
+  const mostWhoCouldShow = pmf.length - 1;
+  if (target > Math.max(0, mostWhoCouldShow - capacity)) {
+    throw new RangeError(`volunteerTarget: ${target} exceeds bookings minus seats (${mostWhoCouldShow} - ${capacity})`);
+  }
+  return target;
 }
 
 /**

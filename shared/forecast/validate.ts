@@ -84,3 +84,17 @@ export function validatePmf(pmf: ArrayLike<number>, field = 'pmf'): void {
     throw new RangeError(`${field} must sum to 1 within ${SUM_TOLERANCE} (got ${sum})`);
   }
 }
+
+/**
+ * Rounding in a long sum can carry a probability a hair past 0 or 1 (1.0000000000000018): within this much it is
+ * a rounding artefact and is clamped; beyond it the engine is wrong and says so rather than showing it.
+ */
+export const PROBABILITY_ROUNDING_TOLERANCE = 1e-9;
+
+/** Every probability the engine returns passes here: the result is always within [0, 1]. */
+export function probabilityOut(value: number, field: string): number {
+  if (!Number.isFinite(value) || value < -PROBABILITY_ROUNDING_TOLERANCE || value > 1 + PROBABILITY_ROUNDING_TOLERANCE) {
+    throw new RangeError(`${field}: the engine produced ${value}, outside [0, 1]`);
+  }
+  return Math.min(1, Math.max(0, value));
+}

@@ -145,6 +145,11 @@ export const rebookDenialBodySchema = z
     exemption: z.string().trim().min(1).max(60).optional(),
     /** eu-261 / uk-261 Art. 7(2): the carrier halves when the re-routing arrives close to schedule. */
     applyReroutingReduction: z.boolean({ error: 'applyReroutingReduction must be true or false' }).optional(),
+    /**
+     * The planned arrival at the airport the rule measures to (the final destination, or the US first stopover), when
+     * the re-routing no longer follows the booking's onward flights. ISO 8601 with offset.
+     */
+    arrivalAtDestination: z.iso.datetime({ offset: true, error: 'arrivalAtDestination must be an ISO 8601 date-time with an offset' }).optional(),
   })
   .refine((b) => [b.alternateFlightId, b.manual, b.noAlternate].filter((x) => x !== undefined).length === 1, {
     message: 'give exactly one of alternateFlightId, manual { carrier, number, departure, arrival } or noAlternate: true',
@@ -210,6 +215,11 @@ export const denialSchema = z.object({
   categoryLabel: z.string().nullable(),
   /** settled: frozen at rebooking; otherwise a preview on the stated assumption. */
   compensation: denialCompensationSnapshotSchema.extend({ settled: z.boolean() }),
+  /** Where the station's rule measures this booking's journey; the zones read the times typed for those airports. */
+  journey: z.object({
+    legDestination: z.string(), legDestinationTimeZone: z.string().nullable(), finalDestination: z.string(),
+    measuredTo: z.string(), measuredToTimeZone: z.string().nullable(), measuredBecause: z.string(), onward: z.array(z.string()),
+  }).nullable(),
   rebooking: z.object({ flight: z.string(), departure: z.string(), arrival: z.string(), plannedArrivalDelayMinutes: z.number() }).nullable(),
   statements: z.array(statementStatusSchema),
 });

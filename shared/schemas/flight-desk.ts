@@ -35,6 +35,8 @@ export const flightDeskSchema = z.object({
     id: z.number(), carrierCode: z.string(), flightNumber: z.string(), serviceDate: z.string(), origin: z.string(), destination: z.string(),
     scheduledDeparture: z.string(), scheduledArrival: z.string(), gate: z.string().nullable(), state: flightStateSchema, aircraftType: z.string().nullable(),
     seatsByCabin: z.record(z.string(), z.number()),
+    /** The zone of the destination airport: an arrival there is typed and shown on its clock. Null if unknown. */
+    destinationTimeZone: z.string().nullable().optional(),
   }),
   station: z.object({ id: z.number(), iata: z.string(), name: z.string(), timeZone: z.string(), regime: z.string(), currency: z.string() }),
   cabins: z.array(cabinCountsSchema),
@@ -48,6 +50,8 @@ export const deskPassengerSchema = z.object({
   firstName: z.string(), lastName: z.string(), cabin: z.string(), fareMinor: z.number(), fareCurrency: z.string(), fareType: z.string(),
   ssrCodes: z.array(z.string()), frequentFlyerTier: z.string().nullable(), isChild: z.boolean(),
   inboundFlight: z.string().nullable(), inboundEstimatedArrival: z.string().nullable(),
+  /** The booking's flights after this one, to the final destination on the ticket ("ZZ 450 BRU-HAM"). */
+  onward: z.array(z.string()).optional(),
   status: z.enum(['booked', 'checked-in', 'boarded', 'offloaded', 'cancelled']), checkedInAt: z.string().nullable(), boardedAt: z.string().nullable(),
   showProbability: z.number(), why: z.string(),
 });

@@ -1,5 +1,7 @@
 import { z } from 'zod';
 import { minorAmountSchema } from './money';
+import { FARE_TYPE_NAMES } from '../compensation/tickets';
+import { onwardItinerarySchema } from './itinerary';
 
 const flightRef = z.object({
   carrier: z.string().regex(/^[A-Z0-9]{2,3}$/, 'carrier must be a 2-3 character airline designator'),
@@ -23,7 +25,7 @@ export const bookingPassengerSchema = z.object({
   cabin: z.string().regex(/^[A-Z]$/, 'cabin must be one capital letter'),
   fareMinor: minorAmountSchema('fareMinor'),
   fareCurrency: z.string().regex(/^[A-Z]{3}$/, 'fareCurrency must be an ISO 4217 code'),
-  fareType: z.string().max(16).default('standard'),
+  fareType: z.enum(FARE_TYPE_NAMES, { error: `fareType must be one of ${FARE_TYPE_NAMES.join(', ')}` }).default('standard'),
   ssrCodes: z.array(z.string().regex(/^[A-Z]{4}$/, 'each SSR code must be four capital letters')).default([]),
   frequentFlyerTier: z.string().max(16).nullable().default(null),
   isChild: z.boolean().default(false),
@@ -32,7 +34,7 @@ export const bookingPassengerSchema = z.object({
 });
 
 export const integrationEventSchema = z.discriminatedUnion('type', [
-  z.object({ ...base, type: z.literal('booking.added'), pnr, contactEmail: z.email().nullable().default(null), passengers: z.array(bookingPassengerSchema).min(1).max(9) }),
+  z.object({ ...base, type: z.literal('booking.added'), pnr, contactEmail: z.email().nullable().default(null), passengers: z.array(bookingPassengerSchema).min(1).max(9), itinerary: onwardItinerarySchema.default([]) }),
   z.object({ ...base, type: z.literal('booking.cancelled'), pnr }),
   z.object({ ...base, type: z.literal('passenger.checked-in'), pnr, sequence }),
   z.object({ ...base, type: z.literal('check-in.cancelled'), pnr, sequence }),

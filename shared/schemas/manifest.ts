@@ -1,5 +1,7 @@
 import { z } from 'zod';
+import { FARE_TYPE_NAMES } from '../compensation/tickets';
 import { apiErrorSchema } from './common';
+import { ITINERARY_CELL_EXAMPLE, itineraryCellSchema } from './itinerary';
 
 /**
  * The manifest CSV a station exports from its booking system: one row per passenger, in our own column layout.
@@ -24,7 +26,10 @@ export const MANIFEST_COLUMNS = [
   'inbound_scheduled_arrival',
   'contact_email',
 ] as const;
-export type ManifestColumn = (typeof MANIFEST_COLUMNS)[number];
+/** Columns a file may leave out: older exports without them still import. */
+export const MANIFEST_OPTIONAL_COLUMNS = ['itinerary'] as const;
+export const MANIFEST_ALL_COLUMNS = [...MANIFEST_COLUMNS, ...MANIFEST_OPTIONAL_COLUMNS] as const;
+export type ManifestColumn = (typeof MANIFEST_ALL_COLUMNS)[number];
 
 /** What each column holds, shown beside the template download. */
 export const MANIFEST_COLUMN_HELP: Record<ManifestColumn, string> = {
@@ -38,13 +43,14 @@ export const MANIFEST_COLUMN_HELP: Record<ManifestColumn, string> = {
   cabin: 'One capital letter that the flight has seats in (J, Y).',
   fare_minor: 'Fare paid in minor units, digits only (18950 = 189.50).',
   fare_currency: 'ISO 4217 code (USD, EUR, CAD).',
-  fare_type: 'standard, flex or award; empty means standard.',
+  fare_type: `${FARE_TYPE_NAMES.join(', ')}; empty means standard. award = bought with frequent-flyer points; staff = a reduced fare not sold to the public; free = no fare at all.`,
   ssr_codes: 'Special-service codes separated by spaces (WCHR CHLD); may be empty.',
   frequent_flyer_tier: 'Tier name, or empty.',
   is_child: 'true or false; empty means false.',
   inbound_flight: 'The connecting flight that brings the passenger (ZZ386), or empty for a local passenger.',
   inbound_scheduled_arrival: 'Scheduled arrival of the inbound flight, ISO 8601 with offset (2026-12-01T14:05:00-05:00).',
   contact_email: 'Booking contact e-mail, the same on every row of the PNR; may be empty.',
+  itinerary: `Optional. The flights after this one to the final destination on the ticket, separated by ";", each like "${ITINERARY_CELL_EXAMPLE}"; the same on every row of the PNR; empty when this flight ends the journey.`,
 };
 
 export const MANIFEST_MAX_BYTES = 2 * 1024 * 1024;
@@ -77,7 +83,7 @@ export const manifestRowSchema = z
     fare_currency: upper.pipe(z.string().regex(/^[A-Z]{3}$/, 'fare_currency must be a three-letter ISO 4217 code')),
     fare_type: cell
       .transform((s) => s.toLowerCase() || 'standard')
-      .pipe(z.string().regex(/^[a-z][a-z-]{0,15}$/, 'fare_type must be a word of at most 16 letters, such as standard, flex or award')),
+      .pipe(z.enum(FARE_TYPE_NAMES, { error: `fare_type must be one of ${FARE_TYPE_NAMES.join(', ')}` })),
     ssr_codes: upper
       .transform((s) => (s === '' ? [] : s.split(/\s+/)))
       .pipe(z.array(z.string().regex(/^[A-Z]{4}$/, 'ssr_codes must be four-letter codes separated by spaces'))),
@@ -91,6 +97,7 @@ export const manifestRowSchema = z
       z.union([z.literal('').transform(() => null), z.iso.datetime({ offset: true, error: 'inbound_scheduled_arrival must be an ISO 8601 date-time with an offset' })]),
     ),
     contact_email: cell.pipe(z.union([z.literal('').transform(() => null), z.email({ error: 'contact_email must be an e-mail address' })])),
+    itinerary: z.string().optional().transform((s) => s ?? '').pipe(itineraryCellSchema),
   })
   // Only once every cell passed: a broken cell above should not also raise this rule about the same row.
   .refine((row) => !(row.inbound_scheduled_arrival && !row.inbound_flight), {
@@ -104,6 +111,19 @@ export type ManifestRow = z.infer<typeof manifestRowSchema>;
 export const manifestProblemSchema = z.object({ line: z.number().int(), field: z.string(), rule: z.string() });
 export type ManifestProblem = z.infer<typeof manifestProblemSchema>;
 
+/** What an import would change on one flight, passenger by passenger. */
+export const manifestFlightDiffSchema = z.object({
+  added: z.number().int(),
+  changed: z.number().int(),
+  /** Travelling now and missing from the file: the import cancels them, so it needs a confirmation. */
+  removed: z.number().int(),
+  unchanged: z.number().int(),
+  addedNames: z.array(z.string()),
+  changedNames: z.array(z.string()),
+  removedNames: z.array(z.string()),
+});
+export type ManifestFlightDiff = z.infer<typeof manifestFlightDiffSchema>;
+
 export const manifestFlightPreviewSchema = z.object({
   carrier: z.string(),
   number: z.string(),
@@ -114,11 +134,20 @@ export const manifestFlightPreviewSchema = z.object({
   passengers: z.number().int(),
   /** Passengers stored now and missing from the file: an import marks them cancelled. */
   willCancel: z.number().int(),
+  /** Seats on the flight and the most bookings the station allows on it; null when the flight was not found. */
+  seats: z.number().int().nullable(),
+  bookingLimit: z.number().int().nullable(),
+  diff: manifestFlightDiffSchema.nullable(),
 });
 export type ManifestFlightPreview = z.infer<typeof manifestFlightPreviewSchema>;
 
+/** The multipart field that confirms an import which cancels passengers, sent after the preview listed them. */
+export const MANIFEST_CONFIRM_FIELD = 'confirmRemovals';
+
 export const manifestPreviewSchema = z.object({
   rows: z.number().int(),
+  /** True when the import would cancel anyone: it then needs confirmRemovals=true. */
+  needsConfirmation: z.boolean(),
   flights: z.array(manifestFlightPreviewSchema),
   errors: z.array(manifestProblemSchema),
 });

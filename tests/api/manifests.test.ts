@@ -5,7 +5,7 @@
 // §15.5.2/§15.5.4/§15.5.5 (401 without credentials, 403 for a role that may not, 404 for what the caller may not see).
 import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { In } from 'typeorm';
-import { MANIFEST_COLUMNS, manifestImportResultSchema, manifestPreviewSchema, manifestRejectedSchema } from '@shared/schemas/manifest';
+import { MANIFEST_ALL_COLUMNS, MANIFEST_COLUMNS, manifestImportResultSchema, manifestPreviewSchema, manifestRejectedSchema } from '@shared/schemas/manifest';
 import { AuditLogEntity, BookingEntity, FlightEntity, FlightForecastEntity, PassengerEntity, StationEntity } from '../../server/src/db/entities';
 import { Client, startTestApp, upload, type TestApp } from './harness';
 import { TEST_PASSWORD, insertUser, removeRunUsers, stationIdByIata } from './helpers';
@@ -16,7 +16,7 @@ let bos: number;
 const as = {} as Record<'admin' | 'supervisor' | 'agent', Client>;
 const flightIds: number[] = [];
 
-type Cells = Partial<Record<(typeof MANIFEST_COLUMNS)[number], string>>;
+type Cells = Partial<Record<(typeof MANIFEST_ALL_COLUMNS)[number], string>>;
 
 /** Bergen, a real airport in Norway: a station of these tests alone, created once and reused. */
 async function testStation(): Promise<StationEntity> {
@@ -60,6 +60,8 @@ async function signInAs(role: 'admin' | 'supervisor' | 'agent'): Promise<Client>
 
 const url = (stationId: number, what: 'template' | 'preview' | 'import') => `/api/stations/${stationId}/manifests/${what}`;
 const send = (c: Client, what: 'preview' | 'import', content: string, name = 'manifest.csv', type = 'text/csv') => upload(c, url(station.id, what), { name, content, type });
+/** An import that cancels passengers goes through only with the confirmation the preview asks for. */
+const confirmed = (content: string) => upload(as.admin, url(station.id, 'import'), { name: 'manifest.csv', content }).field('confirmRemovals', 'true');
 const passengersOf = (flightId: number) => t.db.getRepository(PassengerEntity).find({ where: { flightId }, order: { id: 'ASC' } });
 
 async function waitForForecast(flightId: number, after: number): Promise<FlightForecastEntity> {
@@ -87,19 +89,26 @@ afterAll(async () => {
 });
 
 describe('the template', () => {
-  it('is a CSV with every column in the header and two example rows that preview cleanly but for their invented flight', async () => {
+  it('is a CSV of every column on one of the station’s own flights, and imports as downloaded (round trip)', async () => {
+    // Latest flight of the station, so the template names it.
+    const f = await makeFlight({ departsInHours: 400 * 24 });
     const res = await as.admin.get(url(station.id, 'template')).expect(200);
     expect(res.headers['content-type']).toMatch(/^text\/csv/);
     expect(res.headers['content-disposition']).toMatch(/^attachment; filename="?bumpboard-manifest-template\.csv"?$/);
     const lines = res.text.trimEnd().split('\n');
-    expect(lines[0]).toBe(MANIFEST_COLUMNS.join(','));
+    expect(lines[0]).toBe(MANIFEST_ALL_COLUMNS.join(','));
     expect(lines).toHaveLength(3);
+    expect(lines[1]).toContain(`ZZ,${f.flightNumber},${f.serviceDate}`);
 
     const preview = manifestPreviewSchema.parse((await send(as.admin, 'preview', res.text).expect(200)).body);
-    // The example flight ZZ123 does not exist at this station: the only problems are that, on lines 2 and 3.
-    expect(preview.rows).toBe(2);
-    expect(preview.errors.map((e) => [e.line, e.field])).toEqual([[2, 'flight_number'], [3, 'flight_number']]);
-    expect(preview.flights).toEqual([{ carrier: 'ZZ', number: '123', date: '2027-01-15', found: false, bookings: 1, passengers: 2, willCancel: 0 }]);
+    expect(preview.errors).toEqual([]);
+    expect(preview.flights[0]).toMatchObject({ found: true, bookings: 1, passengers: 2, willCancel: 0, diff: { added: 2, changed: 0, removed: 0 } });
+    const result = manifestImportResultSchema.parse((await send(as.admin, 'import', res.text).expect(200)).body);
+    expect(result.totals).toMatchObject({ bookingsCreated: 1, passengersCreated: 2 });
+    // The example's onward flight is stored with the booking.
+    const booking = await t.db.getRepository(BookingEntity).findOneByOrFail({ flightId: f.id });
+    expect(booking.itinerary).toHaveLength(1);
+    expect(booking.itinerary?.[0]).toMatchObject({ origin: 'OSL', destination: 'YUL' });
   });
 });
 
@@ -112,7 +121,8 @@ describe('a good import', () => {
       csvRow(f, { pnr: 'MNF002', sequence: '1', first_name: 'Sofie', last_name: 'Brann', cabin: 'J', fare_type: 'flex', inbound_flight: 'ZZ 386', inbound_scheduled_arrival: '2031-01-01T10:05:00+01:00' }),
     );
     const preview = manifestPreviewSchema.parse((await send(as.admin, 'preview', file).expect(200)).body);
-    expect(preview).toEqual({ rows: 3, errors: [], flights: [{ carrier: 'ZZ', number: f.flightNumber, date: f.serviceDate, found: true, bookings: 2, passengers: 3, willCancel: 0 }] });
+    expect(preview).toMatchObject({ rows: 3, errors: [], needsConfirmation: false, flights: [{ carrier: 'ZZ', number: f.flightNumber, date: f.serviceDate, found: true, bookings: 2, passengers: 3, willCancel: 0, seats: 24, bookingLimit: 36 }] });
+    expect(preview.flights[0].diff).toMatchObject({ added: 3, changed: 0, removed: 0, unchanged: 0 });
     expect(await passengersOf(f.id)).toHaveLength(0); // a preview stores nothing
 
     const before = Date.now();
@@ -205,7 +215,13 @@ describe('a re-import of the same flight', () => {
     );
     const preview = manifestPreviewSchema.parse((await send(as.admin, 'preview', second).expect(200)).body);
     expect(preview.flights[0].willCancel).toBe(1); // Ben
-    const result = manifestImportResultSchema.parse((await send(as.admin, 'import', second).expect(200)).body);
+    expect(preview.needsConfirmation).toBe(true);
+    expect(preview.flights[0].diff).toMatchObject({ added: 1, changed: 1, removed: 1, unchanged: 1, addedNames: ['Dag Quill (REI003)'], changedNames: ['Ana Maria Quill (REI001)'], removedNames: ['Ben Quill (REI001)'] });
+    // Without the confirmation nothing changes, and the refusal names the field and who would go.
+    const refused = await send(as.admin, 'import', second).expect(400);
+    expect(refused.body.details).toEqual([{ field: 'confirmRemovals', rule: expect.stringMatching(/cancels passengers \(1 from ZZ\d+ on /) }]);
+    expect((await passengersOf(f.id)).map((p) => p.status)).toEqual(['checked-in', 'booked', 'boarded']);
+    const result = manifestImportResultSchema.parse((await confirmed(second).expect(200)).body);
     expect(result.totals).toEqual({ bookingsCreated: 1, bookingsUpdated: 2, bookingsCancelled: 0, passengersCreated: 1, passengersUpdated: 2, passengersCancelled: 1 });
 
     const pax = await passengersOf(f.id);
@@ -224,10 +240,46 @@ describe('a re-import of the same flight', () => {
 
     // A booking that leaves the file entirely is cancelled with its passengers.
     const third = csv(csvRow(f, { pnr: 'REI001', sequence: '1', first_name: 'Ana Maria' }));
-    const dropped = manifestImportResultSchema.parse((await send(as.admin, 'import', third).expect(200)).body);
+    const dropped = manifestImportResultSchema.parse((await confirmed(third).expect(200)).body);
     expect(dropped.totals).toMatchObject({ bookingsCancelled: 2, passengersCancelled: 2 });
     const bookings = await t.db.getRepository(BookingEntity).find({ where: { flightId: f.id }, order: { pnr: 'ASC' } });
     expect(bookings.map((b) => [b.pnr, b.status])).toEqual([['REI001', 'active'], ['REI002', 'cancelled'], ['REI003', 'cancelled']]);
+  });
+});
+
+describe('limits and journeys', () => {
+  it('refuses more bookings than capacity times the station’s maximum overbooking factor, naming both', async () => {
+    // 24 seats × 1.5 (the default 15000 basis points) = 36 bookings at most (derived).
+    const f = await makeFlight();
+    const rows = (n: number) => Array.from({ length: n }, (_, i) => csvRow(f, { pnr: `LIM${String(Math.floor(i / 9)).padStart(3, '0')}`, sequence: String((i % 9) + 1), first_name: `P${i}` }));
+    const res = await send(as.admin, 'import', csv(...rows(37))).expect(400);
+    const body = manifestRejectedSchema.parse(res.body);
+    expect(body.errors).toEqual([{ line: 2, field: 'flight_number', rule: expect.stringContaining('would hold 37 booked passengers; BGO allows at most 36 (24 seats × 1.5 maximum overbooking)') }]);
+    expect(await passengersOf(f.id)).toHaveLength(0);
+    await send(as.admin, 'import', csv(...rows(36))).expect(200);
+  });
+
+  it('stores each booking’s onward flights, and refuses ones that do not join this flight', async () => {
+    const f = await makeFlight();
+    const dep = new Date(f.scheduledArrival.getTime() + 2 * 3_600_000).toISOString();
+    const arr = new Date(f.scheduledArrival.getTime() + 4 * 3_600_000).toISOString();
+    const onward = `ZZ812 OSL-HAM ${dep} ${arr}`;
+    const header = [...MANIFEST_COLUMNS, 'itinerary'].join(',');
+    const withItinerary = (cell: string) => `${header}\r\n${csvRow(f, {})},${cell}\r\n`;
+    await send(as.admin, 'import', withItinerary(onward)).expect(200);
+    const booking = await t.db.getRepository(BookingEntity).findOneByOrFail({ flightId: f.id, pnr: 'MNF001' });
+    expect(booking.itinerary).toEqual([{ carrier: 'ZZ', number: '812', origin: 'OSL', destination: 'HAM', departure: dep, arrival: arr }]);
+
+    const wrongAirport = await send(as.admin, 'preview', withItinerary(`ZZ812 BGO-HAM ${dep} ${arr}`)).expect(200);
+    expect(manifestPreviewSchema.parse(wrongAirport.body).errors).toEqual([{ line: 2, field: 'itinerary', rule: 'PNR MNF001: itinerary[0].origin: must be OSL, where the flight before it arrives (got BGO)' }]);
+    const garbled = await send(as.admin, 'preview', withItinerary('to Hamburg tomorrow')).expect(200);
+    expect(manifestPreviewSchema.parse(garbled.body).errors[0]).toMatchObject({ line: 2, field: 'itinerary', rule: expect.stringMatching(/^itinerary flight 1 must read like/) });
+  });
+
+  it('knows the fare types the compensation rules read, and refuses others', async () => {
+    const f = await makeFlight();
+    const res = await send(as.admin, 'preview', csv(csvRow(f, { fare_type: 'promo' }))).expect(200);
+    expect(manifestPreviewSchema.parse(res.body).errors).toEqual([{ line: 2, field: 'fare_type', rule: 'fare_type must be one of standard, flex, award, staff, free' }]);
   });
 });
 

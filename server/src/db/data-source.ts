@@ -2,10 +2,11 @@ import 'reflect-metadata';
 import { DataSource } from 'typeorm';
 import { entities } from './entities';
 import { migrations } from './migrations';
+import { pinSessionsToUtc } from './utc-session';
 
 /** Schema changes go through migrations only: synchronize stays off everywhere, tests included. */
 export function createDataSource(url: string): DataSource {
-  return new DataSource({
+  return pinSessionsToUtc(new DataSource({
     type: 'mariadb',
     url,
     entities,
@@ -17,5 +18,5 @@ export function createDataSource(url: string): DataSource {
     charset: 'utf8mb4_unicode_ci',
     extra: { connectionLimit: 20 },
     logging: ['error'],
-  });
+  }));
 }

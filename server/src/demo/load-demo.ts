@@ -3,7 +3,7 @@ import { BookingEntity, FlightEntity, IntegrationKeyEntity, PassengerEntity, Sta
 import type { FlightState } from '@shared/schemas/flights';
 import { hashPassword } from '../modules/auth/password';
 import { audit } from '../modules/audit/audit.service';
-import { localDate } from '../time/zone';
+import { localDate } from '@shared/time';
 import { createIntegrationKey } from '../modules/integrations/integration-keys.service';
 import { deleteInDependencyOrder, flightsHeldByMoney } from './delete-in-order';
 import { demoManifest } from './manifest';

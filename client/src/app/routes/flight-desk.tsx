@@ -26,7 +26,9 @@ export default function FlightDeskPage() {
       key={id}
       flightId={id}
       volunteerRounds={(d) => (
-        <VolunteerRoundsPanel flightId={id} station={d.station} forecast={d.forecast} flightLabel={`${d.flight.carrierCode} ${d.flight.flightNumber} to ${d.flight.destination}`} />
+        <VolunteerRoundsPanel flightId={id} station={d.station} forecast={d.forecast} flightLabel={`${d.flight.carrierCode} ${d.flight.flightNumber} to ${d.flight.destination}`}
+          arrival={d.flight.destinationTimeZone ? { airport: d.flight.destination, timeZone: d.flight.destinationTimeZone } : undefined}
+        />
       )}
       deniedBoarding={(d) => <DeniedBoardingPanel flightId={id} timeZone={d.station.timeZone} />}
       compensations={isAgent ? () => <CompensationsPanel flightId={id} /> : undefined}

@@ -1,4 +1,5 @@
 import { Column, CreateDateColumn, Entity, Index, JoinColumn, ManyToOne, OneToMany, PrimaryGeneratedColumn, type Relation } from 'typeorm';
+import type { JourneySegment } from '@shared/compensation';
 import { FlightEntity } from './flight.entity';
 import { PassengerEntity } from './passenger.entity';
 
@@ -25,6 +26,10 @@ export class BookingEntity {
   /** Whether the party must travel (and show) together; a party may choose to split at the gate. */
   @Column({ type: 'boolean', name: 'travels_together', default: true })
   travelsTogether!: boolean;
+
+  /** The flights after this one to the final destination on the ticket; empty or null when this flight ends the journey. */
+  @Column({ type: 'json', nullable: true })
+  itinerary!: JourneySegment[] | null;
 
   @Column({ type: 'varchar', length: 16, default: 'active' })
   status!: 'active' | 'cancelled';

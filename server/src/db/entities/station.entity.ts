@@ -33,6 +33,10 @@ export class StationEntity {
   @Column({ type: 'int', name: 'departure_grace_minutes', default: 10 })
   departureGraceMinutes!: number;
 
+  /** Bookings per flight may not exceed capacity times this factor, in basis points (15000 = 1.5 x). */
+  @Column({ type: 'int', name: 'max_overbooking_bp', default: 15_000 })
+  maxOverbookingBp!: number;
+
   @CreateDateColumn({ type: 'datetime', precision: 3, default: () => 'CURRENT_TIMESTAMP(3)', name: 'created_at' })
   createdAt!: Date;
 }

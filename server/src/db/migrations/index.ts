@@ -12,6 +12,7 @@ import { AdminScopeAndSignInThrottle1796210000000 } from './1796210000000-AdminS
 import { AmountApprovals1796220000000 } from './1796220000000-AmountApprovals';
 import { CompensationAmountCleared1796220100000 } from './1796220100000-CompensationAmountCleared';
 import { RefusalsAndRecordedDenials1796240000000 } from './1796240000000-RefusalsAndRecordedDenials';
+import { JourneyAndBookingLimit1796250000000 } from './1796250000000-JourneyAndBookingLimit';
 import { ForeignKeys1796290000000 } from './1796290000000-ForeignKeys';
 
 export const migrations = [
@@ -28,5 +29,6 @@ export const migrations = [
   AmountApprovals1796220000000,
   CompensationAmountCleared1796220100000,
   RefusalsAndRecordedDenials1796240000000,
+  JourneyAndBookingLimit1796250000000,
   ForeignKeys1796290000000,
 ];

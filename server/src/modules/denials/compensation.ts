@@ -1,10 +1,13 @@
 // What each denied passenger is owed under the station's regime, from the facts of the flight and the rebooking.
-import { compensationDue, EXEMPTIONS, type CompensationInput, type CompensationResult } from '@shared/compensation';
+import {
+  compensationDue, EXEMPTIONS, journeyScope, lowestCashFare, plannedDelayAtMeasured, ticketKindOf, isZeroFareTicket,
+  type CompensationInput, type CompensationResult, type FareOnBoard, type JourneyScope,
+} from '@shared/compensation';
 import type { PassengerCompensation } from '@shared/schemas/denials';
 import type { RegimeCode } from '@shared/schemas/common';
-import type { FlightEntity, PassengerEntity, StationEntity } from '../../db/entities';
+import type { BookingEntity, FlightEntity, PassengerEntity, StationEntity } from '../../db/entities';
 import { badRequest } from '../../http/errors';
-import { findAirport, isEuAirport, routeDistanceKm } from '../../reference/airports';
+import { flightSegment, journeyAirport } from '../../reference/journey-airports';
 import { seatsOf } from './candidates.service';
 
 export interface CaseFacts {
@@ -14,13 +17,34 @@ export interface CaseFacts {
   deniedOn?: string;
   /** Planned arrival of the alternate vs the original; null when no alternate transportation was offered. */
   plannedArrivalDelayMinutes: number | null;
+  /** The denied booking: its onward flights decide where each rule measures distance and delay. */
+  booking?: Pick<BookingEntity, 'itinerary'> | null;
+  /** Fares on the flight: a zero-fare ticket is priced at the lowest cash fare in its cabin (14 CFR 250.5(d)). */
+  onBoard?: readonly FareOnBoard[];
   exemption?: string;
   applyReroutingReduction?: boolean;
 }
 
 const REGIME_CURRENCY: Record<RegimeCode, string> = { 'us-dot': 'USD', 'eu-261': 'EUR', 'uk-261': 'GBP', 'ca-appr': 'CAD' };
 
-const countryOf = (iata: string) => findAirport(iata)?.country ?? null;
+/** What the station's rule measures on this booking's journey; throws a RangeError naming the field at fault. */
+export function journeyOf(station: StationEntity, flight: FlightEntity, booking: Pick<BookingEntity, 'itinerary'> | null | undefined): JourneyScope {
+  return journeyScope(station.regime as RegimeCode, flightSegment(flight), booking?.itinerary ?? [], journeyAirport);
+}
+
+/**
+ * The planned arrival delay where the rule measures it (the final destination, or the US first stopover), from the
+ * alternate's arrival at this flight's destination or the planned arrival there given by the agent. A 400 names the field.
+ */
+export function plannedDelayOnJourney(station: StationEntity, flight: FlightEntity, booking: Pick<BookingEntity, 'itinerary'> | null, alternateArrival: Date | null, arrivalAtDestination?: string): number | null {
+  try {
+    return plannedDelayAtMeasured(journeyOf(station, flight, booking), alternateArrival?.toISOString() ?? null, arrivalAtDestination);
+  } catch (err) {
+    if (!(err instanceof RangeError)) throw err;
+    const field = err.message.split(':')[0];
+    throw badRequest(err.message, [{ field, rule: err.message.slice(field.length + 1).trim() }]);
+  }
+}
 
 export function checkExemption(regime: RegimeCode, exemption: string | undefined): void {
   if (exemption === undefined) return;
@@ -32,26 +56,33 @@ export function checkExemption(regime: RegimeCode, exemption: string | undefined
 
 function inputFor(facts: CaseFacts, passenger: PassengerEntity): CompensationInput {
   const regime = facts.station.regime as RegimeCode;
-  const { origin, destination } = facts.flight;
+  const scope = journeyOf(facts.station, facts.flight, facts.booking);
+  const ticket = ticketKindOf(passenger.fareType);
   const input: CompensationInput = {
     regime,
     deniedOn: facts.deniedOn ?? facts.flight.serviceDate,
     voluntary: false,
     plannedArrivalDelayMinutes: facts.plannedArrivalDelayMinutes,
+    ticket,
     ...(facts.exemption !== undefined ? { exemption: facts.exemption } : {}),
   };
   if (regime === 'us-dot') {
-    // Foreign air transportation: from a US airport to one abroad (14 CFR 250.5(b)).
-    const international = countryOf(destination) !== 'United States';
-    return { ...input, oneWayFare: { amountMinor: passenger.fareMinor, currency: passenger.fareCurrency }, international, aircraftSeats: seatsOf(facts.flight) };
+    const lowest = isZeroFareTicket(ticket, passenger.fareMinor) ? lowestCashFare(facts.onBoard ?? [], passenger.cabin, passenger.fareCurrency) : null;
+    return {
+      ...input, oneWayFare: { amountMinor: passenger.fareMinor, currency: passenger.fareCurrency }, international: scope.international, aircraftSeats: seatsOf(facts.flight),
+      ...(lowest !== null ? { lowestCashFareSameClass: { amountMinor: lowest, currency: passenger.fareCurrency } } : {}),
+    };
   }
   if (regime === 'eu-261' || regime === 'uk-261') {
-    const intraCommunity = regime === 'eu-261'
-      ? isEuAirport(origin) && isEuAirport(destination)
-      : countryOf(origin) === 'United Kingdom' && countryOf(destination) === 'United Kingdom';
-    return { ...input, distanceKm: routeDistanceKm(origin, destination), intraCommunity, applyReroutingReduction: facts.applyReroutingReduction ?? false };
+    return { ...input, distanceKm: scope.distanceKm, intraCommunity: scope.intraCommunity, applyReroutingReduction: facts.applyReroutingReduction ?? false };
   }
   return input;
+}
+
+/** Where the amounts were measured, for the basis shown beside them. */
+export function measuredWords(scope: JourneyScope): string {
+  const via = scope.segments.length > 1 ? ` (journey ${[scope.from, ...scope.segments.map((s) => s.destination)].join('-')})` : '';
+  return `measured to ${scope.measuredTo}${via}: ${scope.measuredBecause}`;
 }
 
 /** Never throws for a passenger's data: a rule that cannot be applied comes back as a problem to show and fix. */

@@ -8,23 +8,48 @@ import {
 import { formatDuration } from '../../notices/format';
 import { alternatesFor } from '../volunteers/rebooking.service';
 import { CATEGORY_LABELS } from './category';
-import { passengerCompensation } from './compensation';
+import { journeyOf, measuredWords, passengerCompensation, plannedDelayOnJourney } from './compensation';
+import type { FareOnBoard, JourneyScope } from '@shared/compensation';
+import { airportZone } from '../../reference/journey-airports';
 import { enforcementBodyFor } from './enforcement-bodies';
 import { denialDate } from './recorded.service';
 import type { RegimeCode } from '@shared/schemas/common';
 
 type Alternate = Awaited<ReturnType<typeof alternatesFor>>[number];
 
-function preview(station: StationEntity, flight: FlightEntity, d: DenialEntity, passengers: PassengerEntity[], alternates: Alternate[]): DenialCompensationSnapshot {
+/** Where the station's rule measures this booking's journey, with the zones its times are typed in; null if unknown. */
+function journeyFacts(station: StationEntity, flight: FlightEntity, booking: BookingEntity | undefined): Denial['journey'] {
+  let scope: JourneyScope;
+  try {
+    scope = journeyOf(station, flight, booking);
+  } catch {
+    return null;
+  }
+  return {
+    legDestination: flight.destination, legDestinationTimeZone: airportZone(flight.destination), finalDestination: scope.finalDestination,
+    measuredTo: scope.measuredTo, measuredToTimeZone: airportZone(scope.measuredTo), measuredBecause: scope.measuredBecause,
+    onward: scope.segments.slice(1).map((s) => `${s.carrier} ${s.number} ${s.origin}-${s.destination}`),
+  };
+}
+
+function preview(station: StationEntity, flight: FlightEntity, d: DenialEntity, passengers: PassengerEntity[], alternates: Alternate[], booking: BookingEntity | undefined, onBoard: FareOnBoard[]): DenialCompensationSnapshot {
   const enforcement = enforcementBodyFor(station.regime as RegimeCode, flight.origin);
   if (d.status === 'removed') return { plannedArrivalDelayMinutes: null, basis: 'Removed from the selection: nothing is owed for this flight.', passengers: [], reviewFlags: [] };
   const alt = alternates.find((a) => a.freeSeats >= d.passengerIds.length) ?? null;
-  const delay = alt?.plannedArrivalDelayMinutes ?? null;
+  const reviewFlags = [enforcement.reviewFlag];
+  let delay = alt?.plannedArrivalDelayMinutes ?? null;
+  let measured = '';
+  try {
+    if (alt) delay = plannedDelayOnJourney(station, flight, booking ?? null, new Date(alt.arrival));
+    measured = `, ${measuredWords(journeyOf(station, flight, booking))}`;
+  } catch (err) {
+    reviewFlags.push(`The preview counts the delay at ${flight.destination}: ${err instanceof Error ? err.message : String(err)}`);
+  }
   const basis = alt
-    ? `Preview: assumes rebooking on ${alt.label} (the first alternate with ${d.passengerIds.length} free seat${d.passengerIds.length === 1 ? '' : 's'}), planned to arrive ${formatDuration(delay ?? 0)} after the original flight. Fixed when the passenger is rebooked.`
+    ? `Preview: assumes rebooking on ${alt.label} (the first alternate with ${d.passengerIds.length} free seat${d.passengerIds.length === 1 ? '' : 's'}), planned to arrive ${formatDuration(delay ?? 0)} after the original schedule${measured}. Fixed when the passenger is rebooked.`
     : 'Preview: no alternate of ours has enough free seats, so the amounts assume no alternate transportation is offered. Fixed when the passenger is rebooked.';
-  const facts = { station, flight, deniedOn: denialDate(d, flight, station), plannedArrivalDelayMinutes: delay };
-  return { plannedArrivalDelayMinutes: delay, basis, passengers: passengers.map((p) => passengerCompensation(facts, p)), reviewFlags: [enforcement.reviewFlag] };
+  const facts = { station, flight, deniedOn: denialDate(d, flight, station), booking, onBoard, plannedArrivalDelayMinutes: delay };
+  return { plannedArrivalDelayMinutes: delay, basis, passengers: passengers.map((p) => passengerCompensation(facts, p)), reviewFlags };
 }
 
 export async function presentProposals(db: DataSource, flight: FlightEntity): Promise<{ regime: string; proposals: DenialProposal[] }> {
@@ -44,6 +69,7 @@ export async function presentProposals(db: DataSource, flight: FlightEntity): Pr
   ]);
   const needsPreview = denials.some((d) => !d.compensation && d.status !== 'removed');
   const alternates = needsPreview ? await alternatesFor(db, flight) : [];
+  const onBoard = needsPreview ? await db.getRepository(PassengerEntity).find({ where: { flightId: flight.id }, select: { cabin: true, fareMinor: true, fareCurrency: true, fareType: true } }) : [];
   const passengerById = new Map(passengers.map((p) => [p.id, p]));
   const bookingById = new Map(bookings.map((b) => [b.id, b]));
   const userLabel = (id: number | null) => (id === null ? null : users.find((u) => u.id === id)?.displayName ?? `user ${id}`);
@@ -53,13 +79,14 @@ export async function presentProposals(db: DataSource, flight: FlightEntity): Pr
     const rebooking = rebookings.find((r) => r.denialId === d.id) ?? null;
     const booking = bookingById.get(d.bookingId);
     const own = messages.filter((m) => (d.statementMessageIds ?? []).includes(m.id));
-    const compensation = d.compensation ? { ...d.compensation, settled: true } : { ...preview(station, flight, d, people, alternates), settled: false };
+    const compensation = d.compensation ? { ...d.compensation, settled: true } : { ...preview(station, flight, d, people, alternates, booking, onBoard), settled: false };
     return {
       id: d.id, proposalId: d.proposalId, bookingId: d.bookingId, pnr: booking?.pnr ?? '?', passengerIds: d.passengerIds,
       names: people.map((p) => `${p.firstName} ${p.lastName}`), position: d.position, reasons: d.reasons, status: d.status,
       selectedBy: userLabel(d.selectedByUserId) ?? '', selectedByUserId: d.selectedByUserId, authorizedBy: userLabel(d.authorizedByUserId),
       authorizedAt: d.authorizedAt?.toISOString() ?? null, changeReason: d.changeReason, category: d.category, categoryLabel: d.category ? CATEGORY_LABELS[d.category] : null,
       compensation,
+      journey: journeyFacts(station, flight, booking),
       rebooking: rebooking
         ? { flight: rebooking.label, departure: rebooking.departure.toISOString(), arrival: rebooking.arrival.toISOString(), plannedArrivalDelayMinutes: rebooking.plannedArrivalDelayMinutes }
         : null,

@@ -13,17 +13,17 @@ import { audit } from '../audit/audit.service';
 import { recordCompensationDue } from '../compensations/compensation-due';
 import { enqueueMessage } from '../outbox/outbox.service';
 import { denialCategory } from './category';
-import { checkExemption, passengerCompensation, type CaseFacts } from './compensation';
+import { checkExemption, journeyOf, measuredWords, passengerCompensation, plannedDelayOnJourney, type CaseFacts } from './compensation';
 import { enforcementBodyFor } from './enforcement-bodies';
 import { priorityRulesFor } from './priority-rules.service';
 import { denialDate } from './recorded.service';
 import { statementFor, statementMail } from './statement';
 import { freeSeats } from '../volunteers/rebooking.service';
 
-const MINUTE = 60_000;
-const delayMinutes = (original: FlightEntity, arrival: Date) => Math.max(0, Math.round((arrival.getTime() - original.scheduledArrival.getTime()) / MINUTE));
+/** The delay is counted where the station's rule measures it on the booking's journey, not at the end of this leg. */
+type DelayOf = (arrival: Date) => number;
 
-async function holdSeats(em: EntityManager, user: SessionUser, denial: DenialEntity, original: FlightEntity, body: RebookDenialBody): Promise<RebookingEntity | null> {
+async function holdSeats(em: EntityManager, user: SessionUser, denial: DenialEntity, original: FlightEntity, body: RebookDenialBody, delayOf: DelayOf): Promise<RebookingEntity | null> {
   if (body.noAlternate) return null;
   let hold: Pick<RebookingEntity, 'alternateFlightId' | 'label' | 'departure' | 'arrival'>;
   if (body.alternateFlightId !== undefined) {
@@ -45,13 +45,13 @@ async function holdSeats(em: EntityManager, user: SessionUser, denial: DenialEnt
   }
   return em.save(em.create(RebookingEntity, {
     ...hold, volunteerId: null, denialId: denial.id, originalFlightId: original.id,
-    plannedArrivalDelayMinutes: delayMinutes(original, hold.arrival), seats: denial.passengerIds.length, createdByUserId: user.id,
+    plannedArrivalDelayMinutes: delayOf(hold.arrival), seats: denial.passengerIds.length, createdByUserId: user.id,
   }));
 }
 
-function basisText(rebooking: RebookingEntity | null, exemption: string | undefined): string {
+function basisText(rebooking: RebookingEntity | null, exemption: string | undefined, measured: string): string {
   const base = rebooking
-    ? `Rebooked on ${rebooking.label}, planned to arrive ${formatDuration(rebooking.plannedArrivalDelayMinutes)} after the original flight`
+    ? `Rebooked on ${rebooking.label}, planned to arrive ${formatDuration(rebooking.plannedArrivalDelayMinutes)} after the original schedule, ${measured}`
     : 'No alternate transportation offered';
   return exemption ? `${base}; exemption ${exemption} applied` : base;
 }
@@ -74,9 +74,11 @@ export async function rebookDenial(db: DataSource, user: SessionUser, denialId: 
     ]);
     const regime = station.regime as RegimeCode;
     checkExemption(regime, body.exemption);
-    const rebooking = await holdSeats(em, user, denial, original, body);
+    const delayOf: DelayOf = (arrival) => plannedDelayOnJourney(station, original, booking, arrival, body.arrivalAtDestination) ?? 0;
+    const rebooking = await holdSeats(em, user, denial, original, body, delayOf);
+    const onBoard = await em.find(PassengerEntity, { where: { flightId: original.id }, select: { cabin: true, fareMinor: true, fareCurrency: true, fareType: true } });
     const facts: CaseFacts = {
-      station, flight: original, deniedOn: denialDate(denial, original, station), plannedArrivalDelayMinutes: rebooking?.plannedArrivalDelayMinutes ?? null,
+      station, flight: original, deniedOn: denialDate(denial, original, station), booking, onBoard, plannedArrivalDelayMinutes: rebooking?.plannedArrivalDelayMinutes ?? null,
       exemption: body.exemption, applyReroutingReduction: body.applyReroutingReduction,
     };
     const owed = passengers.map((p) => passengerCompensation(facts, p));
@@ -95,7 +97,7 @@ export async function rebookDenial(db: DataSource, user: SessionUser, denialId: 
     const enforcement = enforcementBodyFor(regime, original.origin);
     const { rules } = await priorityRulesFor(em, station.id);
     const snapshot: DenialCompensationSnapshot = {
-      plannedArrivalDelayMinutes: facts.plannedArrivalDelayMinutes, basis: basisText(rebooking, body.exemption), passengers: owed,
+      plannedArrivalDelayMinutes: facts.plannedArrivalDelayMinutes, basis: basisText(rebooking, body.exemption, measuredWords(journeyOf(station, original, booking))), passengers: owed,
       reviewFlags: [enforcement.reviewFlag], priorityRules: rules,
     };
     const messageIds = await queueStatements(em, { denial, station, original, booking, passengers, snapshot, rebooking });

@@ -6,6 +6,7 @@ import { BookingEntity, FlightEntity, FlightEventEntity, FlightForecastEntity, F
 import { notFound } from '../../http/errors';
 import { canSeeStation } from '../../http/require-role';
 import { audit } from '../audit/audit.service';
+import { airportZone } from '../../reference/journey-airports';
 import { recomputeFlight } from '../forecast/forecast.service';
 import type { CabinFigures } from '../forecast/flight-forecast';
 import type { ShowEstimate } from '../forecast/show-probability';
@@ -36,6 +37,7 @@ export async function flightDesk(db: DataSource, flight: FlightEntity): Promise<
       id: flight.id, carrierCode: flight.carrierCode, flightNumber: flight.flightNumber, serviceDate: flight.serviceDate, origin: flight.origin,
       destination: flight.destination, scheduledDeparture: flight.scheduledDeparture.toISOString(), scheduledArrival: flight.scheduledArrival.toISOString(),
       gate: flight.gate, state: flight.state, aircraftType: flight.aircraftType, seatsByCabin: flight.seatsByCabin,
+      destinationTimeZone: airportZone(flight.destination),
     },
     station: { id: station.id, iata: station.iata, name: station.name, timeZone: station.timeZone, regime: station.regime, currency: station.currency },
     cabins,
@@ -59,6 +61,7 @@ export async function deskPassengers(db: DataSource, flight: FlightEntity): Prom
     firstName: p.firstName, lastName: p.lastName, cabin: p.cabin, fareMinor: p.fareMinor, fareCurrency: p.fareCurrency, fareType: p.fareType,
     ssrCodes: p.ssrCodes, frequentFlyerTier: p.frequentFlyerTier, isChild: p.isChild, inboundFlight: p.inboundFlight,
     inboundEstimatedArrival: p.inboundEstimatedArrival?.toISOString() ?? null, status: p.status,
+    onward: (byId.get(p.bookingId)?.itinerary ?? []).map((s) => `${s.carrier} ${s.number} ${s.origin}-${s.destination}`),
     checkedInAt: p.checkedInAt?.toISOString() ?? null, boardedAt: p.boardedAt?.toISOString() ?? null,
     showProbability: estimates[p.id]?.probability ?? 0, why: estimates[p.id]?.why ?? 'Not computed yet.',
   }));

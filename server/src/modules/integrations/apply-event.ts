@@ -5,6 +5,7 @@ import type { IntegrationEvent } from '@shared/schemas/integration-events';
 import { BookingEntity, FlightEntity, PassengerEntity } from '../../db/entities';
 import type { PassengerStatus } from '../../db/entities/passenger.entity';
 import { HttpError } from '../../http/errors';
+import { feedBookingProblem } from '../manifests/booking-guard';
 
 export interface Applied {
   flightId: number;
@@ -52,7 +53,10 @@ export async function applyEvent(em: EntityManager, stationId: number, e: Integr
   if (e.type === 'booking.added') {
     const existing = await em.findOneBy(BookingEntity, { flightId: flight.id, pnr: e.pnr });
     if (existing && existing.status === 'active') return { flightId: flight.id, status: 'superseded', summary: `Booking ${e.pnr} is already on ${label}` };
+    const problem = await feedBookingProblem(em, flight, existing?.id ?? null, e.passengers.length, e.itinerary);
+    if (problem) throw rejected(problem.field, problem.rule);
     const booking = existing ?? em.create(BookingEntity, { flightId: flight.id, pnr: e.pnr, travelsTogether: true });
+    booking.itinerary = e.itinerary;
     booking.status = 'active';
     booking.contactEmail = e.contactEmail;
     await em.save(booking);

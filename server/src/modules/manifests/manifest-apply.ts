@@ -11,7 +11,7 @@ export const emptyCounts = (): ManifestImportCounts => ({ bookingsCreated: 0, bo
 export const passengerKey = (pnr: string, sequence: number) => `${pnr}|${sequence}`;
 
 /** The fields a manifest owns; status, check-in, boarding and seat belong to the departure-control feed. */
-function manifestFields({ row }: ManifestPassengerRow) {
+export function manifestFields({ row }: ManifestPassengerRow) {
   return {
     firstName: row.first_name,
     lastName: row.last_name,
@@ -55,9 +55,10 @@ export async function applyFlightManifest(em: EntityManager, flight: FlightEntit
       counts.bookingsUpdated++;
       booking.status = 'active';
       if (g.contactEmail) booking.contactEmail = g.contactEmail;
+      booking.itinerary = g.itinerary;
     } else {
       counts.bookingsCreated++;
-      booking = em.create(BookingEntity, { flightId: flight.id, pnr: g.pnr, contactEmail: g.contactEmail, travelsTogether: true, status: 'active' });
+      booking = em.create(BookingEntity, { flightId: flight.id, pnr: g.pnr, contactEmail: g.contactEmail, itinerary: g.itinerary, travelsTogether: true, status: 'active' });
     }
     booking = await em.save(booking);
 

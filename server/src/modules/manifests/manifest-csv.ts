@@ -1,10 +1,11 @@
 // Reads the manifest CSV into rows keyed by column name, each with the line it starts on as an editor shows it
 // (header = line 1), so every problem can point at the exact place in the file.
 import Papa from 'papaparse';
-import { MANIFEST_COLUMNS, type ManifestColumn, type ManifestProblem } from '@shared/schemas/manifest';
+import { MANIFEST_ALL_COLUMNS, MANIFEST_COLUMNS, type ManifestColumn, type ManifestProblem } from '@shared/schemas/manifest';
 
 export interface CsvRecord {
   line: number;
+  /** Every required column; an optional column only when the header has it. */
   cells: Record<ManifestColumn, string>;
 }
 
@@ -25,11 +26,11 @@ function lineCounter(text: string) {
 
 function checkHeader(header: string[], line: number): { columns: (ManifestColumn | null)[]; problems: ManifestProblem[] } {
   const problems: ManifestProblem[] = [];
-  const known = new Set<string>(MANIFEST_COLUMNS);
+  const known = new Set<string>(MANIFEST_ALL_COLUMNS);
   const names = header.map((h) => h.trim().toLowerCase());
   const seen = new Set<string>();
   for (const name of names) {
-    if (!known.has(name)) problems.push({ line, field: name || '(empty)', rule: `is not a manifest column; the columns are ${MANIFEST_COLUMNS.join(', ')}` });
+    if (!known.has(name)) problems.push({ line, field: name || '(empty)', rule: `is not a manifest column; the columns are ${MANIFEST_ALL_COLUMNS.join(', ')}` });
     else if (seen.has(name)) problems.push({ line, field: name, rule: 'appears more than once in the header' });
     seen.add(name);
   }
@@ -81,19 +82,39 @@ export function parseManifestCsv(raw: string): ParsedCsv {
   return { records, problems };
 }
 
-/** Header and two invented passengers (one local, one child on a connection), to start a station's export from. */
-export function manifestTemplateCsv(): string {
+export interface TemplateFlight {
+  carrier: string;
+  number: string;
+  date: string;
+  cabin: string;
+  currency: string;
+  /** ISO instants of the flight's schedule: the inbound arrives before it leaves, the onward flight leaves after it lands. */
+  departure: string;
+  arrival: string;
+  destination: string;
+}
+
+/** A flight that no station has: the template then shows the layout but names no real flight. */
+const PLACEHOLDER: TemplateFlight = { carrier: 'ZZ', number: '123', date: '2027-01-15', cabin: 'Y', currency: 'USD', departure: '2027-01-15T16:00:00Z', arrival: '2027-01-15T18:00:00Z', destination: 'BOS' };
+
+const plusHours = (iso: string, hours: number) => new Date(Date.parse(iso) + hours * 3_600_000).toISOString().replace(/\.000Z$/, 'Z');
+
+/**
+ * Header and two invented passengers (one local, one child on a connection with an onward flight), on one of the
+ * station's own flights when it has one, so the file imports as it is downloaded.
+ */
+export function manifestTemplateCsv(flight: TemplateFlight = PLACEHOLDER): string {
+  const common = { flight_carrier: flight.carrier, flight_number: flight.number, flight_date: flight.date, cabin: flight.cabin, fare_currency: flight.currency, pnr: 'QX7T2M', last_name: 'Testwell', contact_email: 'mira.testwell@example.com' };
+  const onward = `ZZ9001 ${flight.destination}-${flight.destination === 'YUL' ? 'BOS' : 'YUL'} ${plusHours(flight.arrival, 2)} ${plusHours(flight.arrival, 4)}`;
   const rows: Record<ManifestColumn, string>[] = [
     {
-      flight_carrier: 'ZZ', flight_number: '123', flight_date: '2027-01-15', pnr: 'QX7T2M', sequence: '1', first_name: 'Mira', last_name: 'Testwell',
-      cabin: 'Y', fare_minor: '18950', fare_currency: 'USD', fare_type: 'standard', ssr_codes: '', frequent_flyer_tier: 'gold', is_child: 'false',
-      inbound_flight: 'ZZ340', inbound_scheduled_arrival: '2027-01-15T14:05:00-05:00', contact_email: 'mira.testwell@example.com',
+      ...common, sequence: '1', first_name: 'Mira', fare_minor: '18950', fare_type: 'standard', ssr_codes: '', frequent_flyer_tier: 'gold', is_child: 'false',
+      inbound_flight: 'ZZ340', inbound_scheduled_arrival: plusHours(flight.departure, -1.5), itinerary: onward,
     },
     {
-      flight_carrier: 'ZZ', flight_number: '123', flight_date: '2027-01-15', pnr: 'QX7T2M', sequence: '2', first_name: 'Oskar', last_name: 'Testwell',
-      cabin: 'Y', fare_minor: '14200', fare_currency: 'USD', fare_type: 'flex', ssr_codes: 'CHLD VGML', frequent_flyer_tier: '', is_child: 'true',
-      inbound_flight: 'ZZ340', inbound_scheduled_arrival: '2027-01-15T14:05:00-05:00', contact_email: 'mira.testwell@example.com',
+      ...common, sequence: '2', first_name: 'Oskar', fare_minor: '14200', fare_type: 'flex', ssr_codes: 'CHLD VGML', frequent_flyer_tier: '', is_child: 'true',
+      inbound_flight: 'ZZ340', inbound_scheduled_arrival: plusHours(flight.departure, -1.5), itinerary: onward,
     },
   ];
-  return `${Papa.unparse({ fields: [...MANIFEST_COLUMNS], data: rows.map((r) => MANIFEST_COLUMNS.map((c) => r[c])) }, { newline: '\n' })}\n`;
+  return `${Papa.unparse({ fields: [...MANIFEST_ALL_COLUMNS], data: rows.map((r) => MANIFEST_ALL_COLUMNS.map((c) => r[c])) }, { newline: '\n' })}\n`;
 }

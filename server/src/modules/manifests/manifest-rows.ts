@@ -1,6 +1,7 @@
 // Checks each row against the shared row schema, then the rules that span rows: one row per passenger and one
 // contact per PNR (a party holds at most nine, as sequence runs 1-9). Groups the good rows by flight and PNR for the database step.
 import { manifestRowSchema, type ManifestProblem, type ManifestRow } from '@shared/schemas/manifest';
+import { itineraryCell, type ItinerarySegment } from '@shared/schemas/itinerary';
 import type { CsvRecord } from './manifest-csv';
 
 export interface ManifestPassengerRow {
@@ -13,6 +14,8 @@ export interface ManifestBookingGroup {
   pnr: string;
   firstLine: number;
   contactEmail: string | null;
+  /** Onward flights to the final destination; one journey per PNR. */
+  itinerary: ItinerarySegment[];
   passengers: ManifestPassengerRow[];
 }
 
@@ -56,7 +59,7 @@ export function groupManifestRows(records: CsvRecord[]): { flights: Map<string, 
     flight.lines.push(line);
     let booking = flight.bookings.get(row.pnr);
     if (!booking) {
-      booking = { pnr: row.pnr, firstLine: line, contactEmail: null, passengers: [] };
+      booking = { pnr: row.pnr, firstLine: line, contactEmail: null, itinerary: row.itinerary, passengers: [] };
       flight.bookings.set(row.pnr, booking);
     }
     if (row.contact_email) {
@@ -65,6 +68,10 @@ export function groupManifestRows(records: CsvRecord[]): { flights: Map<string, 
         continue;
       }
       booking.contactEmail = row.contact_email;
+    }
+    if (itineraryCell(row.itinerary) !== itineraryCell(booking.itinerary)) {
+      problems.push({ line, field: 'itinerary', rule: `must be the same on every row of PNR ${row.pnr} (line ${booking.firstLine} has "${itineraryCell(booking.itinerary) || 'none'}")` });
+      continue;
     }
     booking.passengers.push({ line, sequence: row.sequence, row });
   }

@@ -2,10 +2,12 @@ import type { DataSource, EntityManager } from 'typeorm';
 import type { SessionUser } from '@shared/schemas/auth';
 import type { ManifestFlightPreview, ManifestImportResult, ManifestPreview, ManifestProblem } from '@shared/schemas/manifest';
 import { FlightEntity, StationEntity } from '../../db/entities';
-import { HttpError } from '../../http/errors';
+import { badRequest, HttpError } from '../../http/errors';
 import { audit } from '../audit/audit.service';
-import { applyFlightManifest, emptyCounts, passengerKey, storedManifest } from './manifest-apply';
-import { parseManifestCsv } from './manifest-csv';
+import { applyFlightManifest, emptyCounts } from './manifest-apply';
+import { bookingLimit, capacityOf, flightProblems, passengersIn } from './manifest-checks';
+import { flightDiff } from './manifest-diff';
+import { parseManifestCsv, type TemplateFlight } from './manifest-csv';
 import { groupManifestRows, type ManifestFlightGroup } from './manifest-rows';
 
 /** The 400 of an import with problems: rendered by the route with every problem and its line. */
@@ -21,6 +23,7 @@ const CLOSED_STATES = new Set(['departed', 'cancelled']);
 interface Analysis {
   rows: number;
   problems: ManifestProblem[];
+  station: StationEntity;
   flights: { group: ManifestFlightGroup; flight: FlightEntity | null }[];
 }
 
@@ -54,33 +57,43 @@ async function analyse(em: EntityManager, stationId: number, text: string, lock:
         if (!cabins.includes(p.row.cabin)) problems.push({ line: p.line, field: 'cabin', rule: `flight ${label} has no cabin ${p.row.cabin} (its cabins: ${cabins.join(', ')})` });
       }
     }
+    problems.push(...flightProblems(group, flight, station, label));
   }
-  return { rows: csv.records.length, problems: problems.sort(byLine), flights };
+  return { rows: csv.records.length, problems: problems.sort(byLine), station, flights };
 }
-
-const passengersIn = (g: ManifestFlightGroup) => [...g.bookings.values()].reduce((n, b) => n + b.passengers.length, 0);
 
 export async function previewManifest(db: DataSource, stationId: number, text: string): Promise<ManifestPreview> {
   const a = await analyse(db.manager, stationId, text, false);
   const flights: ManifestFlightPreview[] = [];
   for (const { group, flight } of a.flights) {
-    let willCancel = 0;
-    if (flight) {
-      const inFile = new Set([...group.bookings.values()].flatMap((b) => b.passengers.map((p) => passengerKey(b.pnr, p.sequence))));
-      const stored = await storedManifest(db.manager, flight.id, false);
-      for (const [key, p] of stored.passengersByKey) if (!inFile.has(key) && p.status !== 'cancelled') willCancel++;
-    }
-    flights.push({ carrier: group.carrier, number: group.number, date: group.date, found: Boolean(flight), bookings: group.bookings.size, passengers: passengersIn(group), willCancel });
+    const diff = flight ? await flightDiff(db.manager, flight.id, group) : null;
+    flights.push({
+      carrier: group.carrier, number: group.number, date: group.date, found: Boolean(flight), bookings: group.bookings.size, passengers: passengersIn(group),
+      willCancel: diff?.removed ?? 0, seats: flight ? capacityOf(flight) : null, bookingLimit: flight ? bookingLimit(flight, a.station) : null, diff,
+    });
   }
-  return { rows: a.rows, flights, errors: a.problems };
+  return { rows: a.rows, needsConfirmation: flights.some((f) => f.willCancel > 0), flights, errors: a.problems };
 }
 
 /** All or nothing: one transaction, and any problem (found again under the locks) rolls everything back. */
-export async function importManifest(db: DataSource, stationId: number, text: string, actor: SessionUser, fileName: string): Promise<ManifestImportResult> {
+export async function importManifest(db: DataSource, stationId: number, text: string, actor: SessionUser, fileName: string, confirmRemovals: boolean): Promise<ManifestImportResult> {
   const now = new Date();
   return db.transaction(async (em) => {
     const a = await analyse(em, stationId, text, true);
     if (a.problems.length) throw new ManifestRejectedError(a.problems);
+    if (!confirmRemovals) {
+      // Counted under the locks, so a passenger added since the preview is not cancelled unconfirmed.
+      const removing: string[] = [];
+      for (const { group, flight } of a.flights) {
+        if (!flight) continue;
+        const diff = await flightDiff(em, flight.id, group);
+        if (diff.removed > 0) removing.push(`${diff.removed} from ${group.carrier}${group.number} on ${group.date}`);
+      }
+      if (removing.length) {
+        const rule = `must be true to import a file that cancels passengers (${removing.join('; ')}); preview the file to see who`;
+        throw badRequest(`confirmRemovals: ${rule}`, [{ field: 'confirmRemovals', rule }]);
+      }
+    }
     const totals = emptyCounts();
     const flights: ManifestImportResult['flights'] = [];
     for (const { group, flight } of a.flights) {
@@ -99,4 +112,21 @@ export async function importManifest(db: DataSource, stationId: number, text: st
     }
     return { rows: a.rows, flights, totals };
   });
+}
+
+/** The station's latest flight that can still take a manifest, for a template that imports as downloaded. */
+export async function templateFlight(db: DataSource, stationId: number): Promise<TemplateFlight | undefined> {
+  const station = await db.manager.findOneByOrFail(StationEntity, { id: stationId });
+  const flight = await db.manager
+    .createQueryBuilder(FlightEntity, 'f')
+    .where('f.station_id = :stationId', { stationId })
+    .andWhere('f.state NOT IN (:...closed)', { closed: [...CLOSED_STATES] })
+    .orderBy('f.scheduled_departure', 'DESC')
+    .getOne();
+  if (!flight) return undefined;
+  const cabin = Object.keys(flight.seatsByCabin).sort((a, b) => flight.seatsByCabin[b] - flight.seatsByCabin[a])[0] ?? 'Y';
+  return {
+    carrier: flight.carrierCode, number: flight.flightNumber, date: flight.serviceDate, cabin, currency: station.currency,
+    departure: flight.scheduledDeparture.toISOString(), arrival: flight.scheduledArrival.toISOString(), destination: flight.destination,
+  };
 }

@@ -6,8 +6,13 @@ import { notFound } from '../../http/errors';
 import { parse } from '../../http/validate';
 import { recomputeInBackground, type FlightsChanged } from '../show-up-profiles/recompute-flights';
 import { manifestTemplateCsv } from './manifest-csv';
-import { importManifest, ManifestRejectedError, previewManifest } from './manifest.service';
+import { MANIFEST_CONFIRM_FIELD } from '@shared/schemas/manifest';
+import { importManifest, ManifestRejectedError, previewManifest, templateFlight } from './manifest.service';
 import { manifestUpload, uploadedText } from './manifest-upload';
+
+const confirmBody = z.object({
+  [MANIFEST_CONFIRM_FIELD]: z.enum(['true', 'false'], { error: `${MANIFEST_CONFIRM_FIELD} must be true or false` }).optional(),
+});
 
 const stationParams = z.object({ stationId: z.coerce.number().int().positive('stationId must be positive') });
 
@@ -26,8 +31,9 @@ export function manifestsRouter(deps: { db: DataSource; onFlightsChanged?: Fligh
     next();
   });
 
-  r.get('/template', (_req, res) => {
-    res.type('text/csv; charset=utf-8').attachment('bumpboard-manifest-template.csv').send(manifestTemplateCsv());
+  r.get('/template', async (_req, res) => {
+    const example = await templateFlight(deps.db, res.locals.stationId as number);
+    res.type('text/csv; charset=utf-8').attachment('bumpboard-manifest-template.csv').send(manifestTemplateCsv(example));
   });
 
   r.post('/preview', manifestUpload, async (req, res) => {
@@ -37,8 +43,9 @@ export function manifestsRouter(deps: { db: DataSource; onFlightsChanged?: Fligh
 
   r.post('/import', manifestUpload, async (req, res) => {
     const { text, fileName } = uploadedText(req);
+    const { [MANIFEST_CONFIRM_FIELD]: confirm } = parse(confirmBody, req.body ?? {}, 'body');
     try {
-      const result = await importManifest(deps.db, res.locals.stationId as number, text, currentUser(req), fileName);
+      const result = await importManifest(deps.db, res.locals.stationId as number, text, currentUser(req), fileName, confirm === 'true');
       res.json(result);
       flightsChanged(result.flights.map((f) => f.flightId));
     } catch (err) {

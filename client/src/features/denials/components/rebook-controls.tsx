@@ -2,6 +2,8 @@ import { useQuery } from '@tanstack/react-query';
 import { useState } from 'react';
 import type { Denial, RebookDenialBody } from '@shared/schemas/denials';
 import { Button } from '../../../components/ui/button';
+import { localToInstant } from '@shared/time';
+import { AirportTimeField } from '../../../components/ui/airport-time-field';
 import { TextField } from '../../../components/ui/text-field';
 import { formatTime } from '../../../lib/format';
 import { alternatesQueryOptions, useRebookDenial } from '../api/denials';
@@ -16,21 +18,43 @@ export function RebookControls({ denial, flightId, timeZone }: { denial: Denial;
   const rebook = useRebookDenial(flightId);
   const [error, setError] = useState<string | null>(null);
   const [manual, setManual] = useState({ carrier: '', number: '', departure: '', arrival: '' });
+  const [finalArrival, setFinalArrival] = useState('');
   const seats = denial.passengerIds.length;
+  // Each typed time is read on the clock of the airport where it happens, never the browser's.
+  const journey = denial.journey;
+  const arrivalAirport = journey?.legDestination ?? 'destination';
+  const arrivalZone = journey?.legDestinationTimeZone ?? 'UTC';
+  const measuredBeyond = journey !== null && journey.measuredTo !== journey.legDestination;
 
   async function send(body: RebookDenialBody) {
     setError(null);
     try {
-      await rebook.mutateAsync({ denialId: denial.id, ...body });
+      const extra = measuredBeyond && finalArrival ? { arrivalAtDestination: localToInstant('arrivalAtDestination', finalArrival, journey?.measuredToTimeZone ?? 'UTC') } : {};
+      await rebook.mutateAsync({ denialId: denial.id, ...body, ...extra });
     } catch (err) {
       setError(err instanceof Error ? err.message : 'Not rebooked.');
     }
   }
 
-  const toIso = (local: string) => (local ? new Date(local).toISOString() : '');
+  function sendManual() {
+    try {
+      send({ manual: { ...manual, departure: localToInstant('departure', manual.departure, timeZone), arrival: localToInstant('arrival', manual.arrival, arrivalZone) } });
+    } catch (err) {
+      setError(err instanceof Error ? err.message : 'Check the times.');
+    }
+  }
   return (
     <div className="mt-3 rounded-md border-2 border-dashed border-line p-3 no-print" aria-label={`Rebook ${denial.pnr}`}>
       <p className="font-bold">Rebook {denial.pnr} ({seats} seat{seats === 1 ? '' : 's'})</p>
+      {journey && measuredBeyond && (
+        <div className="mt-2 max-w-md">
+          <p className="text-sm">
+            Journey continues {journey.onward.join(', ')}; the delay counts at {journey.measuredTo}: {journey.measuredBecause}. If the rebooking misses the onward
+            flight, give the planned arrival there.
+          </p>
+          <AirportTimeField label="Planned arrival" airport={journey.measuredTo} timeZone={journey.measuredToTimeZone ?? 'UTC'} value={finalArrival} onChange={setFinalArrival} />
+        </div>
+      )}
       {alternates.data && alternates.data.alternates.length === 0 && <p className="text-sm text-ink-soft">No later flight of ours on this route.</p>}
       <div className="mt-2 flex flex-wrap gap-2">
         {alternates.data?.alternates.map((a) => (
@@ -47,18 +71,17 @@ export function RebookControls({ denial, flightId, timeZone }: { denial: Denial;
         <div className="mt-2 grid gap-2 sm:grid-cols-4">
           <TextField label="Carrier" value={manual.carrier} onChange={(v) => setManual({ ...manual, carrier: v.toUpperCase() })} />
           <TextField label="Number" value={manual.number} onChange={(v) => setManual({ ...manual, number: v })} />
-          <TextField label="Departs" type="datetime-local" value={manual.departure} onChange={(v) => setManual({ ...manual, departure: v })} />
-          <TextField label="Arrives" type="datetime-local" value={manual.arrival} onChange={(v) => setManual({ ...manual, arrival: v })} />
+          <AirportTimeField label="Departs" airport="this station" timeZone={timeZone} value={manual.departure} onChange={(v) => setManual({ ...manual, departure: v })} />
+          <AirportTimeField label="Arrives" airport={arrivalAirport} timeZone={arrivalZone} value={manual.arrival} onChange={(v) => setManual({ ...manual, arrival: v })} />
         </div>
         <Button
           className="mt-2"
           variant="secondary"
           disabled={rebook.isPending}
-          onClick={() => send({ manual: { ...manual, departure: toIso(manual.departure), arrival: toIso(manual.arrival) } })}
+          onClick={sendManual}
         >
           Rebook on this flight
         </Button>
-        <p className="mt-1 text-sm text-ink-soft">Times as this browser’s clock reads them.</p>
       </details>
       {error && <p role="alert" className="mt-2 font-bold text-alert">{error}</p>}
     </div>

@@ -60,6 +60,11 @@ export function passengerColumns({ timeZone, departureIso }: { timeZone: string;
         <>
           <span className="font-mono text-lg font-bold tracking-wider">{p.pnr}</span>
           <span className="block text-sm text-ink-soft">{p.partySize > 1 ? `party of ${p.partySize}` : 'alone'}</span>
+          {p.onward && p.onward.length > 0 && (
+            <span className="block text-sm" aria-label={`Journey continues on ${p.onward.join(', ')}`}>
+              then {p.onward.join(' · ')}
+            </span>
+          )}
         </>
       ),
     }),

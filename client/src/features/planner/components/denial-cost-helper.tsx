@@ -1,4 +1,5 @@
 import { useState } from 'react';
+import { localDate } from '@shared/time';
 import { REGIME_LABELS, type RegimeCode } from '@shared/schemas/common';
 import { Button } from '../../../components/ui/button';
 import { TextField } from '../../../components/ui/text-field';
@@ -16,17 +17,13 @@ interface Props {
   onUse: (costText: string) => void;
 }
 
-/** The station's local calendar day, which selects the compensation amounts in force. */
-function localDate(now: number, timeZone: string): string {
-  return new Intl.DateTimeFormat('en-CA', { timeZone, year: 'numeric', month: '2-digit', day: '2-digit' }).format(now);
-}
 
 /** Builds the cost of one denied boarding: the regime's compensation for a typical case, plus rebooking and goodwill. */
 export function DenialCostHelper({ regime, currency, timeZone, revenuePerBookingMinor, aircraftSeats, onUse }: Props) {
   const [f, setF] = useState<CostHelperFields>(EMPTY_COST_HELPER);
   const now = useNow(60 * 60_000);
   const set = (patch: Partial<CostHelperFields>) => setF((old) => ({ ...old, ...patch }));
-  const outcome = buildDenialCost(f, { regime, deniedOn: localDate(now, timeZone), currency, revenuePerBookingMinor, aircraftSeats });
+  const outcome = buildDenialCost(f, { regime, deniedOn: localDate(now, timeZone) /* the station's calendar day selects the amounts in force */, currency, revenuePerBookingMinor, aircraftSeats });
   const euStyle = regime === 'eu-261' || regime === 'uk-261';
 
   return (

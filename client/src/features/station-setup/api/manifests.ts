@@ -2,7 +2,7 @@
 // session the app already holds.
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { apiErrorSchema } from '@shared/schemas/common';
-import { manifestImportResultSchema, manifestPreviewSchema, manifestRejectedSchema, type ManifestProblem } from '@shared/schemas/manifest';
+import { MANIFEST_CONFIRM_FIELD, manifestImportResultSchema, manifestPreviewSchema, manifestRejectedSchema, type ManifestProblem } from '@shared/schemas/manifest';
 import { sessionQueryOptions } from '../../../lib/session';
 import { ApiRequestError } from '../../../lib/api-client';
 
@@ -15,8 +15,10 @@ export class ManifestUploadError extends ApiRequestError {
   }
 }
 
-async function send(stationId: number, what: 'preview' | 'import', file: File, csrfToken: string): Promise<unknown> {
+async function send(stationId: number, what: 'preview' | 'import', file: File, csrfToken: string, confirmRemovals = false): Promise<unknown> {
   const form = new FormData();
+  // The server cancels stored passengers missing from the file only when this confirms the preview was read.
+  if (confirmRemovals) form.append(MANIFEST_CONFIRM_FIELD, 'true');
   form.append('file', file, file.name);
   const res = await fetch(`/api/stations/${stationId}/manifests/${what}`, { method: 'POST', body: form, headers: { Accept: 'application/json', 'X-CSRF-Token': csrfToken }, credentials: 'same-origin' });
   const json: unknown = await res.json().catch(() => null);
@@ -41,7 +43,7 @@ export function useImportManifest(stationId: number) {
   const token = useCsrfToken();
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: async (file: File) => manifestImportResultSchema.parse(await send(stationId, 'import', file, token())),
+    mutationFn: async ({ file, confirmRemovals }: { file: File; confirmRemovals: boolean }) => manifestImportResultSchema.parse(await send(stationId, 'import', file, token(), confirmRemovals)),
     // The departures board and flight desks (their query roots) show booked counts: let them fetch fresh figures.
     onSuccess: () => Promise.all([qc.invalidateQueries({ queryKey: ['departures'] }), qc.invalidateQueries({ queryKey: ['flights'] })]),
   });

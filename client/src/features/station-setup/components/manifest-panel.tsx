@@ -1,5 +1,5 @@
 import { useId, useState, type ChangeEvent } from 'react';
-import { MANIFEST_COLUMNS, MANIFEST_COLUMN_HELP, MANIFEST_MAX_BYTES } from '@shared/schemas/manifest';
+import { MANIFEST_ALL_COLUMNS, MANIFEST_COLUMN_HELP, MANIFEST_MAX_BYTES } from '@shared/schemas/manifest';
 import { Button } from '../../../components/ui/button';
 import { manifestTemplateUrl, ManifestUploadError, useImportManifest, usePreviewManifest } from '../api/manifests';
 import type { StationRef } from '../model/station-ref';
@@ -13,7 +13,7 @@ function ColumnHelp() {
     <details className="rounded-md border-2 border-line bg-paper px-3 py-2">
       <summary className="cursor-pointer font-bold">What each column holds</summary>
       <dl className="mt-2 grid gap-x-4 gap-y-1 text-sm sm:grid-cols-[auto_1fr]">
-        {MANIFEST_COLUMNS.map((c) => (
+        {MANIFEST_ALL_COLUMNS.map((c) => (
           <div key={c} className="contents">
             <dt className="font-mono font-bold">{c}</dt>
             <dd>{MANIFEST_COLUMN_HELP[c]}</dd>
@@ -27,6 +27,8 @@ function ColumnHelp() {
 export function ManifestPanel({ station }: { station: StationRef }) {
   const inputId = useId();
   const [file, setFile] = useState<File | null>(null);
+  const [confirmed, setConfirmed] = useState(false);
+  const confirmId = useId();
   const preview = usePreviewManifest(station.id);
   const runImport = useImportManifest(station.id);
 
@@ -34,6 +36,7 @@ export function ManifestPanel({ station }: { station: StationRef }) {
     const chosen = e.target.files?.[0] ?? null;
     if (!chosen) return;
     setFile(chosen);
+    setConfirmed(false);
     runImport.reset();
     preview.mutate(chosen);
   }
@@ -55,7 +58,7 @@ export function ManifestPanel({ station }: { station: StationRef }) {
         <a href={manifestTemplateUrl(station.id)} download className="inline-flex min-h-11 items-center rounded-md border-2 border-harbour bg-card px-4 py-2 font-bold text-harbour hover:bg-harbour-soft">
           Download template
         </a>
-        <span className="text-sm text-ink-soft">A CSV with the header and two invented passengers to start from.</span>
+        <span className="text-sm text-ink-soft">A CSV with the header and two invented passengers on one of this station’s flights; it imports as it is.</span>
       </div>
       <ColumnHelp />
 
@@ -94,11 +97,18 @@ export function ManifestPanel({ station }: { station: StationRef }) {
       {ready && !runImport.isSuccess && (
         <div className="space-y-2">
           {cancels > 0 && (
-            <p role="note" className="rounded-md border-l-4 border-watch bg-watch-soft px-3 py-2 text-sm">
-              <strong>Caution:</strong> {cancels} stored passenger{cancels === 1 ? ' is' : 's are'} not in this file and will be marked cancelled.
-            </p>
+            <div role="note" className="space-y-2 rounded-md border-l-4 border-watch bg-watch-soft px-3 py-2 text-sm">
+              <p>
+                <strong>Caution:</strong> {cancels} stored passenger{cancels === 1 ? ' is' : 's are'} not in this file and will be marked cancelled (listed above under
+                “Removed”). A checked-in passenger removed by mistake loses their place in the odds and in any denial ranking.
+              </p>
+              <p className="flex items-center gap-2">
+                <input id={confirmId} type="checkbox" className="h-5 w-5" checked={confirmed} onChange={(e) => setConfirmed(e.target.checked)} />
+                <label htmlFor={confirmId} className="font-bold">I have checked the {cancels} passenger{cancels === 1 ? '' : 's'} this import cancels</label>
+              </p>
+            </div>
           )}
-          <Button disabled={runImport.isPending} onClick={() => file && runImport.mutate(file)}>
+          <Button disabled={runImport.isPending || (cancels > 0 && !confirmed)} onClick={() => file && runImport.mutate({ file, confirmRemovals: cancels > 0 && confirmed })}>
             {runImport.isPending ? 'Importing…' : `Import ${passengers} passenger${passengers === 1 ? '' : 's'}`}
           </Button>
         </div>

@@ -49,7 +49,10 @@ export function FlightsTable({ flights, partial }: { flights: ManifestFlightPrev
           <th scope="col" className="px-3 py-2">At this station</th>
           <th scope="col" className="px-3 py-2 text-right">Bookings</th>
           <th scope="col" className="px-3 py-2 text-right">Passengers</th>
-          <th scope="col" className="px-3 py-2 text-right">Stored but not in the file</th>
+          <th scope="col" className="px-3 py-2 text-right">Added</th>
+          <th scope="col" className="px-3 py-2 text-right">Changed</th>
+          <th scope="col" className="px-3 py-2 text-right">Removed</th>
+          <th scope="col" className="px-3 py-2 text-right">Seats · most bookings allowed</th>
         </tr>
       </thead>
       <tbody>
@@ -60,11 +63,31 @@ export function FlightsTable({ flights, partial }: { flights: ManifestFlightPrev
             <td className="px-3 py-1.5">{f.found ? 'Found' : <strong className="text-alert">✗ Not found</strong>}</td>
             <td className="px-3 py-1.5 text-right">{f.bookings}</td>
             <td className="px-3 py-1.5 text-right">{f.passengers}</td>
-            <td className="px-3 py-1.5 text-right">{f.willCancel > 0 ? <strong className="text-watch">{f.willCancel} will be cancelled</strong> : '—'}</td>
+            <td className="px-3 py-1.5 text-right"><Counted n={f.diff?.added} names={f.diff?.addedNames} what="added" /></td>
+            <td className="px-3 py-1.5 text-right"><Counted n={f.diff?.changed} names={f.diff?.changedNames} what="changed" /></td>
+            <td className="px-3 py-1.5 text-right">
+              {f.willCancel > 0 ? <Counted n={f.willCancel} names={f.diff?.removedNames} what="will be cancelled" strong /> : '—'}
+            </td>
+            <td className="px-3 py-1.5 text-right">{f.seats === null ? '—' : `${f.seats} · ${f.bookingLimit}`}</td>
           </tr>
         ))}
       </tbody>
     </table>
+  );
+}
+
+/** A count with the names behind it, folded away: who is added, changed or removed. */
+function Counted({ n, names, what, strong = false }: { n: number | undefined; names: string[] | undefined; what: string; strong?: boolean }) {
+  if (n === undefined) return <>—</>;
+  if (n === 0 || !names?.length) return <>{n}</>;
+  return (
+    <details className="inline-block text-left">
+      <summary className={`cursor-pointer ${strong ? 'font-bold text-watch' : ''}`}>{n} {strong ? what : ''}</summary>
+      <ul className="mt-1 text-sm" aria-label={`Passengers ${what}`}>
+        {names.map((name) => <li key={name}>{name}</li>)}
+        {n > names.length && <li className="text-ink-soft">and {n - names.length} more</li>}
+      </ul>
+    </details>
   );
 }
 

@@ -69,14 +69,29 @@ describe('rebooking an accepted volunteer', () => {
     await userEvent.click(screen.getByRole('button', { name: 'Another flight, entered by hand' }));
     await userEvent.type(screen.getByLabelText('Carrier'), 'zz');
     await userEvent.type(screen.getByLabelText('Flight number'), '1905');
-    fireEvent.change(screen.getByLabelText('Departure'), { target: { value: '2026-12-01T22:30' } });
-    fireEvent.change(screen.getByLabelText('Arrival'), { target: { value: '2026-12-01T22:00' } });
+    fireEvent.change(screen.getByLabelText(/^Departure · this station/), { target: { value: '2026-12-01T22:30' } });
+    fireEvent.change(screen.getByLabelText(/^Arrival · the destination/), { target: { value: '2026-12-01T22:00' } });
     await userEvent.click(screen.getByRole('button', { name: 'Hold the seat on this flight' }));
     expect(screen.getByText('arrival must be after the departure')).toBeInTheDocument();
     expect(posts).toEqual([]);
-    fireEvent.change(screen.getByLabelText('Arrival'), { target: { value: '2026-12-02T01:10' } });
+    fireEvent.change(screen.getByLabelText(/^Arrival · the destination/), { target: { value: '2026-12-02T01:10' } });
     await userEvent.click(screen.getByRole('button', { name: 'Hold the seat on this flight' }));
     // New York is UTC-5 on 1 December (EST; 15 U.S.C. 260a): 22:30 local is 03:30 UTC the next day.
     expect(posts).toEqual([{ path: '/volunteers/5/rebook', body: { manual: { carrier: 'ZZ', number: '1905', departure: '2026-12-02T03:30:00.000Z', arrival: '2026-12-02T06:10:00.000Z' } } }]);
+  });
+
+  it('reads the arrival on the destination airport’s clock, not the station’s or the browser’s', async () => {
+    wrap(<RebookPanel volunteer={VOLUNTEER} flightId={4} timeZone="America/New_York" arrival={{ airport: 'ORD', timeZone: 'America/Chicago' }} onDone={() => undefined} />);
+    // Shown on Chicago's clock with its zone: 04:50 UTC is 22:50 CST (UTC-6 in December, IANA tz database).
+    expect(await screen.findByText((_, el) => el?.tagName === 'P' && /arrives 22:50 CST/.test(el.textContent ?? ''))).toBeInTheDocument();
+    await userEvent.click(screen.getByRole('button', { name: 'Another flight, entered by hand' }));
+    await userEvent.type(screen.getByLabelText('Carrier'), 'qq');
+    await userEvent.type(screen.getByLabelText('Flight number'), '88');
+    fireEvent.change(screen.getByLabelText(/^Departure · this station/), { target: { value: '2026-12-01T22:30' } });
+    fireEvent.change(screen.getByLabelText(/^Arrival · ORD local time/), { target: { value: '2026-12-02T00:10' } });
+    await userEvent.click(screen.getByRole('button', { name: 'Hold the seat on this flight' }));
+    // 22:30 EST (UTC-5) is 03:30 UTC; 00:10 CST (UTC-6) is 06:10 UTC: the same instants as the station-only reading above
+    // would give only if both airports shared a zone (derived).
+    expect(posts).toEqual([{ path: '/volunteers/5/rebook', body: { manual: { carrier: 'QQ', number: '88', departure: '2026-12-02T03:30:00.000Z', arrival: '2026-12-02T06:10:00.000Z' } } }]);
   });
 });

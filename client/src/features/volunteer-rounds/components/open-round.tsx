@@ -1,4 +1,5 @@
 import { useState } from 'react';
+import type { ArrivalClock } from './rebook-panel';
 import type { Round, VolunteerPolicy } from '@shared/schemas/volunteers';
 import { Button } from '../../../components/ui/button';
 import { formatMoney, formatTime } from '../../../lib/format';
@@ -19,6 +20,7 @@ export interface OpenRoundProps {
   timeZone: string;
   role: string | undefined;
   flightLabel?: string;
+  arrival?: ArrivalClock;
 }
 
 /** A round in progress: how many seats are found, the offer, who volunteered, and what they must be told. */
@@ -45,7 +47,7 @@ export function OpenRound(props: OpenRoundProps) {
           </p>
         )}
         <OfferControl round={round} policy={policy} role={props.role} flightId={flightId} timeZone={timeZone} />
-        <VolunteerList round={round} flightId={flightId} timeZone={timeZone} />
+        <VolunteerList round={round} flightId={flightId} timeZone={timeZone} arrival={props.arrival} />
         <AddVolunteer round={round} flightId={flightId} />
       </div>
       <aside className="space-y-4" aria-label="For the gate">

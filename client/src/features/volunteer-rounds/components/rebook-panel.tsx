@@ -2,16 +2,33 @@ import { useState, type FormEvent } from 'react';
 import { useQuery } from '@tanstack/react-query';
 import type { Volunteer } from '@shared/schemas/volunteers';
 import { Button } from '../../../components/ui/button';
+import { localToInstant } from '@shared/time';
+import { AirportTimeField } from '../../../components/ui/airport-time-field';
 import { TextField } from '../../../components/ui/text-field';
 import { ApiRequestError } from '../../../lib/api-client';
-import { formatTime } from '../../../lib/format';
+import { formatTime, formatTimeWithZone } from '../../../lib/format';
 import { alternatesQueryOptions, useRebook } from '../api/rounds';
 import { delayWords } from '../model/round-words';
-import { zonedToIso } from '../model/zoned-time';
 import { Problem } from './problem';
 
+/** The airport a rebooking arrives at and its zone. */
+export interface ArrivalClock {
+  airport: string;
+  timeZone: string;
+}
+
+/** Reads a typed wall-clock time on an airport's clock; the message names the field when it cannot. */
+function readLocal(field: 'departure' | 'arrival', local: string, timeZone: string): { iso: string | null; error?: string } {
+  if (!local) return { iso: null, error: `${field} must be a date and time` };
+  try {
+    return { iso: localToInstant(field, local, timeZone) };
+  } catch (err) {
+    return { iso: null, error: err instanceof Error ? err.message : `${field} must be a date and time` };
+  }
+}
+
 /** Holds seats for an accepted volunteer on one of the carrier's later flights, or on a flight entered by hand. */
-export function RebookPanel({ volunteer, flightId, timeZone, onDone }: { volunteer: Volunteer; flightId: number; timeZone: string; onDone: () => void }) {
+export function RebookPanel({ volunteer, flightId, timeZone, arrival, onDone }: { volunteer: Volunteer; flightId: number; timeZone: string; arrival?: ArrivalClock; onDone: () => void }) {
   const alternates = useQuery(alternatesQueryOptions(flightId));
   const rebook = useRebook(flightId);
   const [manual, setManual] = useState(false);
@@ -36,7 +53,7 @@ export function RebookPanel({ volunteer, flightId, timeZone, onDone }: { volunte
                 <div>
                   <p className="text-xl font-bold">{a.label}</p>
                   <p>
-                    Leaves {formatTime(a.departure, timeZone)} · arrives {formatTime(a.arrival, timeZone)} ·{' '}
+                    Leaves {formatTime(a.departure, timeZone)} · arrives {arrival ? formatTimeWithZone(a.arrival, arrival.timeZone) : formatTime(a.arrival, timeZone)} ·{' '}
                     <strong>{a.plannedArrivalDelayMinutes > 0 ? `${delayWords(a.plannedArrivalDelayMinutes)} later` : 'on time'}</strong> than planned
                   </p>
                   <p className={fits ? 'text-calm' : 'font-bold text-alert'}>
@@ -53,7 +70,7 @@ export function RebookPanel({ volunteer, flightId, timeZone, onDone }: { volunte
         </ul>
       )}
       {manual ? (
-        <ManualRebooking volunteerId={volunteer.id} flightId={flightId} timeZone={timeZone} onDone={onDone} />
+        <ManualRebooking volunteerId={volunteer.id} flightId={flightId} timeZone={timeZone} arrival={arrival} onDone={onDone} />
       ) : (
         <Button variant="secondary" className="mt-3" onClick={() => setManual(true)}>Another flight, entered by hand</Button>
       )}
@@ -64,7 +81,9 @@ export function RebookPanel({ volunteer, flightId, timeZone, onDone }: { volunte
 
 type ManualErrors = Partial<Record<'carrier' | 'number' | 'departure' | 'arrival' | 'form', string>>;
 
-function ManualRebooking({ volunteerId, flightId, timeZone, onDone }: { volunteerId: number; flightId: number; timeZone: string; onDone: () => void }) {
+function ManualRebooking({ volunteerId, flightId, timeZone, arrival: arrivalClock, onDone }: { volunteerId: number; flightId: number; timeZone: string; arrival?: ArrivalClock; onDone: () => void }) {
+  // Departure is on this station's clock; arrival on the destination's (the station's only when it is unknown).
+  const arrivesAt = arrivalClock ?? { airport: 'the destination', timeZone };
   const rebook = useRebook(flightId);
   const [f, setF] = useState({ carrier: '', number: '', departure: '', arrival: '' });
   const [errors, setErrors] = useState<ManualErrors>({});
@@ -77,11 +96,13 @@ function ManualRebooking({ volunteerId, flightId, timeZone, onDone }: { voluntee
     const number = f.number.trim().toUpperCase();
     if (!/^[A-Z0-9]{2,3}$/.test(carrier)) next.carrier = 'carrier must be a 2-3 character airline designator';
     if (!/^\d{1,4}[A-Z]?$/.test(number)) next.number = 'number must be 1-4 digits';
-    const departure = zonedToIso(f.departure, timeZone);
-    const arrival = zonedToIso(f.arrival, timeZone);
-    if (!departure) next.departure = 'departure must be a date and time';
-    if (!arrival) next.arrival = 'arrival must be a date and time';
-    else if (departure && arrival <= departure) next.arrival = 'arrival must be after the departure';
+    const dep = readLocal('departure', f.departure, timeZone);
+    const arr = readLocal('arrival', f.arrival, arrivesAt.timeZone);
+    const departure = dep.iso;
+    const arrival = arr.iso;
+    if (dep.error) next.departure = dep.error;
+    if (arr.error) next.arrival = arr.error;
+    else if (departure && arrival && arrival <= departure) next.arrival = 'arrival must be after the departure';
     setErrors(next);
     if (Object.keys(next).length || !departure || !arrival) return;
     rebook.mutate(
@@ -97,12 +118,12 @@ function ManualRebooking({ volunteerId, flightId, timeZone, onDone }: { voluntee
 
   return (
     <form onSubmit={submit} noValidate className="mt-3 space-y-3 rounded-md border-2 border-line bg-card p-3" aria-label="Another flight, entered by hand">
-      <p className="font-bold">Another flight · times at this station ({timeZone.replace(/_/g, ' ')})</p>
+      <p className="font-bold">Another flight · each time on the clock of the airport where it happens</p>
       <div className="grid gap-3 sm:grid-cols-2">
         <TextField label="Carrier" value={f.carrier} onChange={set('carrier')} error={errors.carrier} maxLength={3} autoComplete="off" />
         <TextField label="Flight number" value={f.number} onChange={set('number')} error={errors.number} maxLength={5} autoComplete="off" />
-        <TextField label="Departure" type="datetime-local" value={f.departure} onChange={set('departure')} error={errors.departure} />
-        <TextField label="Arrival" type="datetime-local" value={f.arrival} onChange={set('arrival')} error={errors.arrival} />
+        <AirportTimeField label="Departure" airport="this station" timeZone={timeZone} value={f.departure} onChange={set('departure')} error={errors.departure} />
+        <AirportTimeField label="Arrival" airport={arrivesAt.airport} timeZone={arrivesAt.timeZone} value={f.arrival} onChange={set('arrival')} error={errors.arrival} />
       </div>
       <Button type="submit" disabled={rebook.isPending}>Hold the seat on this flight</Button>
       <Problem error={rebook.error} />

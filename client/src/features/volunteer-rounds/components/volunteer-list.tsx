@@ -1,11 +1,11 @@
 import { useState } from 'react';
 import type { Round, Volunteer } from '@shared/schemas/volunteers';
 import { Button } from '../../../components/ui/button';
-import { formatMoney, formatTime } from '../../../lib/format';
+import { formatMoney, formatTime, formatTimeWithZone } from '../../../lib/format';
 import { useDecideVolunteer } from '../api/rounds';
 import { delayWords, seatsLeft } from '../model/round-words';
 import { Problem } from './problem';
-import { RebookPanel } from './rebook-panel';
+import { RebookPanel, type ArrivalClock } from './rebook-panel';
 
 const STATUS_LOOK: Record<Volunteer['status'], { icon: string; word: string; tone: string }> = {
   offered: { icon: '◆', word: 'Offered', tone: 'border-watch bg-watch-soft text-watch' },
@@ -15,7 +15,7 @@ const STATUS_LOOK: Record<Volunteer['status'], { icon: string; word: string; ton
 };
 
 /** Everyone who offered a seat in this round; sealed asks arrive sorted lowest first. */
-export function VolunteerList({ round, flightId, timeZone }: { round: Round; flightId: number; timeZone: string }) {
+export function VolunteerList({ round, flightId, timeZone, arrival }: { round: Round; flightId: number; timeZone: string; arrival?: ArrivalClock }) {
   return (
     <section aria-labelledby={`volunteers-${round.id}`}>
       <h3 id={`volunteers-${round.id}`} className="mb-2 text-xl font-bold">
@@ -28,7 +28,7 @@ export function VolunteerList({ round, flightId, timeZone }: { round: Round; fli
       ) : (
         <ul className="space-y-3" data-testid="volunteer-list">
           {round.volunteers.map((v) => (
-            <VolunteerRow key={v.id} v={v} round={round} flightId={flightId} timeZone={timeZone} />
+            <VolunteerRow key={v.id} v={v} round={round} flightId={flightId} timeZone={timeZone} arrival={arrival} />
           ))}
         </ul>
       )}
@@ -36,7 +36,7 @@ export function VolunteerList({ round, flightId, timeZone }: { round: Round; fli
   );
 }
 
-function VolunteerRow({ v, round, flightId, timeZone }: { v: Volunteer; round: Round; flightId: number; timeZone: string }) {
+function VolunteerRow({ v, round, flightId, timeZone, arrival }: { v: Volunteer; round: Round; flightId: number; timeZone: string; arrival?: ArrivalClock }) {
   const decide = useDecideVolunteer(flightId);
   const [rebooking, setRebooking] = useState(false);
   const look = STATUS_LOOK[v.status];
@@ -82,11 +82,11 @@ function VolunteerRow({ v, round, flightId, timeZone }: { v: Volunteer; round: R
           {v.agreedMinor !== null && <p className="text-lg">Agreed <strong>{money(v.agreedMinor)}</strong> per seat.</p>}
           {v.rebooking ? (
             <p className="rounded-md border-l-4 border-calm bg-calm-soft px-3 py-2 text-lg" data-testid="rebooked">
-              <strong>Rebooked on {v.rebooking.flight}</strong> · leaves {formatTime(v.rebooking.departure, timeZone)} · arrives {formatTime(v.rebooking.arrival, timeZone)} ·{' '}
+              <strong>Rebooked on {v.rebooking.flight}</strong> · leaves {formatTime(v.rebooking.departure, timeZone)} · arrives {arrival ? formatTimeWithZone(v.rebooking.arrival, arrival.timeZone) : formatTime(v.rebooking.arrival, timeZone)} ·{' '}
               {v.rebooking.plannedArrivalDelayMinutes > 0 ? `${delayWords(v.rebooking.plannedArrivalDelayMinutes)} later than planned` : 'arrives on time'}
             </p>
           ) : rebooking ? (
-            <RebookPanel volunteer={v} flightId={flightId} timeZone={timeZone} onDone={() => setRebooking(false)} />
+            <RebookPanel volunteer={v} flightId={flightId} timeZone={timeZone} arrival={arrival} onDone={() => setRebooking(false)} />
           ) : (
             <Button onClick={() => setRebooking(true)}>Rebook</Button>
           )}

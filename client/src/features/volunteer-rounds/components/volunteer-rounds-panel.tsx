@@ -8,6 +8,7 @@ import { useRoundsLive } from '../api/use-live';
 import { seatsFoundWords } from '../model/round-words';
 import { OpenRound } from './open-round';
 import { OpenRoundForm } from './open-round-form';
+import type { ArrivalClock } from './rebook-panel';
 
 /** What the panel needs of the station the flight leaves from. */
 export interface RoundsStation {
@@ -22,10 +23,12 @@ export interface VolunteerRoundsPanelProps {
   forecast: { volunteerTarget: number } | null;
   /** Shown on the gate screen's QR view, e.g. "ZZ 105 to ORD". */
   flightLabel?: string;
+  /** The destination airport and its zone: arrival times there are typed and shown on its clock. */
+  arrival?: ArrivalClock;
 }
 
 /** The volunteer rounds of one flight on the flight desk: open one, run it live, and see the earlier ones. */
-export function VolunteerRoundsPanel({ flightId, station, forecast, flightLabel }: VolunteerRoundsPanelProps) {
+export function VolunteerRoundsPanel({ flightId, station, forecast, flightLabel, arrival }: VolunteerRoundsPanelProps) {
   const rounds = useQuery(roundsQueryOptions(flightId));
   const role = useQuery(sessionQueryOptions()).data?.user?.role;
   useRoundsLive(flightId);
@@ -45,7 +48,7 @@ export function VolunteerRoundsPanel({ flightId, station, forecast, flightLabel 
     <Panel title="Volunteer rounds">
       <div data-testid="volunteer-rounds">
         {open ? (
-          <OpenRound key={open.id} round={open} policy={policy} bidLink={bidLink} flightId={flightId} timeZone={station.timeZone} role={role} flightLabel={flightLabel} />
+          <OpenRound key={open.id} round={open} policy={policy} bidLink={bidLink} flightId={flightId} timeZone={station.timeZone} role={role} flightLabel={flightLabel} arrival={arrival} />
         ) : (
           <OpenRoundForm flightId={flightId} policy={policy} role={role} volunteerTarget={forecast?.volunteerTarget ?? null} />
         )}
