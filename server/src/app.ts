@@ -29,6 +29,7 @@ import { denialsRouter } from './modules/denials/denials.routes';
 import { publicOffersRouter } from './modules/volunteers/public-offers.routes';
 import { createPaymentsRuntime, type PaymentsRuntime } from './modules/payments/payments-runtime';
 import { financeRouter } from './modules/finance/finance.routes';
+import { alertsRouter } from './modules/alerts/alerts.routes';
 
 export interface AppDeps {
   env: Env;
@@ -82,6 +83,7 @@ export function createApp(deps: AppDeps) {
   api.use(denialsRouter({ db: deps.db, changed }));
   api.use(payments.compensationsRouter());
   api.use('/finance', financeRouter({ db: deps.db, reconciliation: payments.reconciliation }));
+  api.use('/alerts', alertsRouter({ db: deps.db }));
   api.use('/stations/:stationId/integration-keys', integrationKeysRouter(deps));
   api.use('/stations/:stationId/manifests', manifestsRouter({ db: deps.db, onFlightsChanged: (ids) => ids.forEach((id) => forecast.markDirty(id)) }));
   api.use('/stations/:stationId/show-up-profile', showUpProfilesRouter({ db: deps.db, onFlightsChanged: (ids) => ids.forEach((id) => forecast.markDirty(id)) }));
