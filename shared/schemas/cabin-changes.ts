@@ -8,14 +8,16 @@ export const CABIN_RANK: Record<(typeof CABIN_CODES)[number], number> = { F: 4, 
 
 const cabin = (field: string) => z.enum(CABIN_CODES, { error: `${field} must be one of ${CABIN_CODES.join(', ')}` });
 
-export const recordCabinChangeBodySchema = z
-  .object({
+export const recordCabinChangeBodySchema = z.object({
     passengerId: z.number({ error: 'passengerId must be a number' }).int('passengerId must be a whole number').positive('passengerId must be positive'),
     flownCabin: cabin('flownCabin'),
-    /** Fare of the cabin booked minus the fare of the cabin flown, for the same journey, in minor units. */
-    fareDifferenceMinor: z.number({ error: 'fareDifferenceMinor must be a number of minor units' }).int('fareDifferenceMinor must be a whole number of minor units'),
-    reason: z.string({ error: 'reason is required' }).trim().min(3, 'reason must say why, in at least 3 characters').max(200, 'reason must be at most 200 characters'),
-  });
+    /** The difference between the fares of the two cabins for the same journey, in minor units. */
+    fareDifferenceMinor: z
+      .number({ error: 'fareDifferenceMinor must be a number of minor units' })
+      .int('fareDifferenceMinor must be a whole number of minor units')
+      .nonnegative('fareDifferenceMinor must not be negative: give the difference between the two fares'),
+  reason: z.string({ error: 'reason is required' }).trim().min(3, 'reason must say why, in at least 3 characters').max(200, 'reason must be at most 200 characters'),
+});
 export type RecordCabinChangeBody = z.infer<typeof recordCabinChangeBodySchema>;
 
 export const cabinChangeViewSchema = z.object({

@@ -355,6 +355,17 @@ export const ROUTES: readonly RouteRow[] = [
     success: 200,
     otherStation: 404,
   },
+  // Cabin changes: the desk records and lists them.
+  { method: 'GET', pattern: '/api/flights/:flightId/cabin-changes', access: ['agent', 'supervisor'], call: (ctx, scope) => ({ url: `/api/flights/${flightOf(ctx, scope)}/cabin-changes` }), success: 200, otherStation: 404 },
+  {
+    method: 'POST',
+    pattern: '/api/flights/:flightId/cabin-changes',
+    access: ['agent', 'supervisor'],
+    // One passenger per successful call: a second change for the same passenger is refused.
+    call: (ctx, scope) => ({ url: `/api/flights/${scope === 'own' ? ctx.payments.cabinFlightId : ctx.otherFlightId}/cabin-changes`, body: { passengerId: scope === 'own' ? (ctx.payments.cabinPassengerIds.length > 1 ? ctx.payments.cabinPassengerIds.shift() : ctx.payments.cabinPassengerIds[0]) : 1, flownCabin: 'Y', fareDifferenceMinor: 0, reason: 'route matrix check' } }),
+    success: 201,
+    otherStation: 404,
+  },
   // Alerts: everyone at a station sees and acknowledges its own.
   { method: 'GET', pattern: '/api/alerts', access: ALL_ROLES, call: (ctx, scope) => ({ url: `/api/alerts?stationId=${stationOf(ctx, scope)}` }), success: 200, otherStation: 404 },
   { method: 'POST', pattern: '/api/alerts/:id/acknowledge', access: ALL_ROLES, call: (ctx, scope) => ({ url: `/api/alerts/${scope === 'own' ? ctx.payments.alertId : ctx.payments.other.alertId}/acknowledge` }), success: 200, otherStation: 404 },

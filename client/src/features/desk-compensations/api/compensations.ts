@@ -37,3 +37,7 @@ export const useOfferVoucher = (flightId: number) =>
 
 export const useRecordVoucherAgreement = (flightId: number) =>
   useFlightMutation(flightId, ({ id, ...body }: VoucherAgreementBody & { id: number }) => api.post(`/compensations/${id}/voucher-agreement`, compensationResponseSchema, body));
+
+/** A payment refused, voided or canceled leaves the passenger owed: the desk starts a new one, with the reason. */
+export const useReissueCompensation = (flightId: number) =>
+  useFlightMutation(flightId, ({ id, reason }: { id: number; reason: string }) => api.post(`/compensations/${id}/reissue`, compensationResponseSchema, { reason }));

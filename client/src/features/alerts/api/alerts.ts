@@ -1,0 +1,26 @@
+import { queryOptions, useMutation, useQueryClient } from '@tanstack/react-query';
+import { alertResponseSchema, alertsResponseSchema } from '@shared/schemas/alerts';
+import { api } from '../../../lib/api-client';
+
+export const alertKeys = {
+  all: ['alerts'] as const,
+  list: (stationId: number | undefined) => [...alertKeys.all, 'list', stationId ?? 'all'] as const,
+};
+
+/** Alerts are rare and matter: a short poll keeps station and finance screens current without a socket topic. */
+const ALERT_REFETCH_MS = 15_000;
+
+export const alertsQueryOptions = (stationId?: number) =>
+  queryOptions({
+    queryKey: alertKeys.list(stationId),
+    queryFn: () => api.get(`/alerts${stationId === undefined ? '' : `?stationId=${stationId}`}`, alertsResponseSchema),
+    refetchInterval: ALERT_REFETCH_MS,
+  });
+
+export function useAcknowledgeAlert() {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (id: number) => api.post(`/alerts/${id}/acknowledge`, alertResponseSchema),
+    onSettled: () => qc.invalidateQueries({ queryKey: alertKeys.all }),
+  });
+}
