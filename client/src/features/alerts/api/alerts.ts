@@ -1,11 +1,7 @@
 import { queryOptions, useMutation, useQueryClient } from '@tanstack/react-query';
 import { alertResponseSchema, alertsResponseSchema } from '@shared/schemas/alerts';
+import { alertKeys } from '../../../lib/alert-keys';
 import { api } from '../../../lib/api-client';
-
-export const alertKeys = {
-  all: ['alerts'] as const,
-  list: (stationId: number | undefined) => [...alertKeys.all, 'list', stationId ?? 'all'] as const,
-};
 
 /** Alerts are rare and matter: a short poll keeps station and finance screens current without a socket topic. */
 const ALERT_REFETCH_MS = 15_000;
