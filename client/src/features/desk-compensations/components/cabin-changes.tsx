@@ -1,22 +1,14 @@
 import { useState, type FormEvent } from 'react';
 import { useQuery } from '@tanstack/react-query';
-import { minorUnitExponent } from '@shared/compensation/money';
 import { CABIN_CODES, CABIN_LABELS } from '@shared/schemas/cabin-changes';
 import { Button } from '../../../components/ui/button';
 import { TextField } from '../../../components/ui/text-field';
 import { formatMoney } from '../../../lib/format';
 import { cabinChangesQueryOptions, cabinPassengersQueryOptions, useRecordCabinChange } from '../api/cabin-changes';
+import { toMinor } from '../model/fare-difference';
 import { Problem } from './problem';
 
 const cabinName = (code: string) => CABIN_LABELS[code as keyof typeof CABIN_LABELS] ?? code;
-
-/** "120.50" in the fare's currency to minor units; null when it is not a plain amount with at most the currency's decimals. */
-export function toMinor(text: string, currency: string): number | null {
-  const exponent = minorUnitExponent(currency);
-  const match = new RegExp(`^(\\d+)(?:\\.(\\d{1,${exponent}}))?$`).exec(text.trim());
-  if (!match || (exponent === 0 && text.includes('.'))) return null;
-  return Number(match[1]) * 10 ** exponent + Number((match[2] ?? '').padEnd(exponent, '0') || 0);
-}
 
 /**
  * Passengers seated in another cabin than the one booked: recorded with the fare difference, and what the station's
