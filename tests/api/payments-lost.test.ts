@@ -136,7 +136,12 @@ describe('the provider cancels a card', () => {
 
     const alerts = await openAlerts(finance, comp.id);
     expect(alerts.map((a: { kind: string }) => a.kind)).toEqual(['payment-canceled']);
-    expect((await report()).line['5'].count).toBeGreaterThanOrEqual(1);
+    const owed = await report();
+    expect(owed.line['5'].count).toBe(1);
+    // derived: 400.00 owed − 150.00 the passenger spent before the cancellation = 250.00 still owed.
+    expect(owed.line['x-owed'].amounts).toEqual([{ currency: 'USD', amountMinor: 25_000 }]);
+    const ledger = await finance.get(`/api/finance/compensations?stationId=${alb.id}&from=2027-02-11&to=2027-02-11`).expect(200);
+    expect(ledger.body.totals[0]).toMatchObject({ owedMinor: 25_000, lostMinor: 40_000 });
 
     await finance.post(`/api/compensations/${comp.id}/reissue`, { reason: 'Card canceled by the provider' }).expect(200);
     const live = cardsFor(comp.id).filter((c) => c.status === 'active');
@@ -160,6 +165,20 @@ describe('a refused payment', () => {
     await app.db.getRepository(CompensationEntity).update({ id: comp.id }, { currency: 'USD' });
     expect((await finance.post(`/api/compensations/${comp.id}/reissue`, { reason: 'Currency corrected' }).expect(200)).body.compensation.state).toBe('issued');
     expect(await openAlerts(agent, comp.id)).toHaveLength(0);
+  });
+});
+
+describe('acknowledging an alert', () => {
+  it('records who is on it (audited), and keeps it listed until the passenger is paid', async () => {
+    const comp = await volunteer(10_000);
+    await finance.post(`/api/compensations/${comp.id}/void`, { reason: 'Wrong amount keyed' }).expect(200);
+    const [alert] = await openAlerts(agent, comp.id);
+    const acked = await agent.post(`/api/alerts/${alert.id}/acknowledge`).expect(200);
+    expect(acked.body.alert.acknowledgedAt).not.toBeNull();
+    expect(await openAlerts(finance, comp.id)).toHaveLength(1);
+    const [{ n }] = await app.db.query("SELECT COUNT(*) AS n FROM audit_log WHERE action = 'alert.acknowledged' AND entity_id = ?", [String(alert.id)]);
+    expect(Number(n)).toBe(1);
+    await elsewhere.post(`/api/alerts/${alert.id}/acknowledge`).expect(404);
   });
 });
 

@@ -2,7 +2,7 @@
 // are the same facts as Form 251 (volunteers, denials, what is owed and paid, cabin changes), each line with the
 // article it rests on.
 import type { ReportLine } from '@shared/schemas/finance';
-import { hasCompensation, isLost, isOwed, isPaid, line, sumByCurrency, type CabinChangeItem, type ReportItem } from './report-items';
+import { hasCompensation, isLost, isOwed, isPaid, line, owedMinor, sumByCurrency, type CabinChangeItem, type ReportItem } from './report-items';
 
 type NonUsRegime = 'eu-261' | 'uk-261' | 'ca-appr';
 
@@ -74,7 +74,7 @@ export function regimeLines(regime: NonUsRegime, items: readonly ReportItem[], t
     line('D4', 'Passengers denied boarding who received compensation', src.paid, paid(owedSomething).length),
     line('D5', 'Compensation paid to passengers denied boarding (any form they accepted)', src.paid, null, sumByCurrency(paid(owedSomething), (i) => i.amountMinor)),
     line('D5-vouchers', 'of which travel vouchers, with the passenger’s agreement', src.vouchers, vouchers.filter((i) => !i.voluntary).length, sumByCurrency(vouchers.filter((i) => !i.voluntary), (i) => i.amountMinor)),
-    line('O', 'Compensation owed, not yet paid (volunteers and denied passengers)', 'Bumpboard ledger: due, being issued, or a payment voided, canceled or refused', unpaid.length, sumByCurrency(unpaid, (i) => i.amountMinor),
+    line('O', 'Compensation owed, not yet paid (volunteers and denied passengers)', 'Bumpboard ledger: due, being issued, or a payment voided, canceled or refused', unpaid.length, sumByCurrency(unpaid, owedMinor),
       lost.length ? `${lost.length} of them had a payment voided, canceled or refused and wait for a re-issue.` : null),
     line('C1', 'Passengers placed in a higher class than booked', src.upgrade, ups.length),
     line('C2', 'Passengers placed in a lower class than booked, and what they are owed back', src.downgrade, downs.length, sumByCurrency(downs, (c) => c.owedMinor)),

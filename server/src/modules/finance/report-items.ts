@@ -17,6 +17,8 @@ export interface ReportItem {
   /** Where the payment stands; null for a denied passenger with no compensation worked out yet. */
   state: CompensationStateCode | null;
   form: 'prepaid-card' | 'voucher' | null;
+  /** Spent by the passenger on this compensation's cards: before a loss, part of it may already have reached them. */
+  spentMinor: number;
 }
 
 /** A passenger accommodated in another cabin of the same flight. */
@@ -31,8 +33,10 @@ export type Amounts = NonNullable<ReportLine['amounts']>;
 
 export const isPaid = (i: ReportItem) => i.state !== null && (PAID_STATES as readonly string[]).includes(i.state);
 export const isLost = (i: ReportItem) => i.state !== null && (PAYMENT_LOST_STATES as readonly string[]).includes(i.state);
+/** What is still owed: nothing once paid; otherwise the amount less what was spent on a card since canceled. */
+export const owedMinor = (i: ReportItem) => (i.state === null || isPaid(i) ? 0 : Math.max(0, i.amountMinor - i.spentMinor));
 /** Owed and not paid: due, being issued, or a lost payment waiting for its re-issue. */
-export const isOwed = (i: ReportItem) => i.state !== null && i.amountMinor > 0 && !isPaid(i);
+export const isOwed = (i: ReportItem) => owedMinor(i) > 0;
 export const hasCompensation = (i: ReportItem) => i.state !== null;
 
 export function sumByCurrency<T extends { currency: string }>(items: readonly T[], amount: (i: T) => number): Amounts {
@@ -57,7 +61,7 @@ export function perDay(items: readonly ReportItem[], paidMoney: (i: ReportItem) 
       if (i.voluntary) day.voluntaryPaidMinor += i.amountMinor;
       else day.involuntaryPaidMinor += i.amountMinor;
     }
-    if (isOwed(i)) day.owedMinor += i.amountMinor;
+    day.owedMinor += owedMinor(i);
     days.set(key, day);
   }
   return [...days.values()].sort((a, b) => a.date.localeCompare(b.date) || a.currency.localeCompare(b.currency));

@@ -10,7 +10,7 @@ import { categoryFromCompensation, form251Lines, paidInMoneyForForm251 } from '.
 import { regimeLines } from './regime-lines';
 
 const item = (over: Partial<ReportItem>): ReportItem => ({
-  serviceDate: '2026-10-05', voluntary: false, category: '1a', band: 'us-200pct', amountMinor: 50_000, currency: 'USD', state: 'issued', form: 'prepaid-card', ...over,
+  serviceDate: '2026-10-05', voluntary: false, category: '1a', band: 'us-200pct', amountMinor: 50_000, currency: 'USD', state: 'issued', form: 'prepaid-card', spentMinor: 0, ...over,
 });
 const byCode = (lines: ReturnType<typeof form251Lines>) => Object.fromEntries(lines.map((l) => [l.code, l]));
 
@@ -74,6 +74,12 @@ describe('form251Lines', () => {
     expect(sum('voluntaryPaidMinor')).toBe(lines['8c'].amounts![0].amountMinor);
     expect(sum('involuntaryPaidMinor')).toBe(lines['8a'].amounts![0].amountMinor + lines['8b'].amounts![0].amountMinor);
     expect(sum('owedMinor')).toBe(lines['x-owed'].amounts![0].amountMinor);
+  });
+
+  it('owes only what was not spent on a card the provider canceled (derived: 600.00 − 150.00 = 450.00)', () => {
+    const partly = byCode(form251Lines([item({ amountMinor: 60_000, state: 'canceled', spentMinor: 15_000 })], 0));
+    expect(partly['x-owed'].amounts).toEqual([{ currency: 'USD', amountMinor: 45_000 }]);
+    expect(perDay([item({ amountMinor: 60_000, state: 'canceled', spentMinor: 15_000 })], paidInMoneyForForm251)[0].owedMinor).toBe(45_000);
   });
 });
 

@@ -1,7 +1,7 @@
 // BTS Form 251, "Report of Passengers Denied Confirmed Space" (OMB No. 2138-0018), which 14 CFR 250.10 requires
 // each quarter, as data: every line with the form's wording and the source of its definition beside it.
 import type { ReportLine } from '@shared/schemas/finance';
-import { hasCompensation, isLost, isOwed, isPaid, line, sumByCurrency, type CabinChangeItem, type Form251Category, type ReportItem } from './report-items';
+import { hasCompensation, isLost, isOwed, isPaid, line, owedMinor, sumByCurrency, type CabinChangeItem, type Form251Category, type ReportItem } from './report-items';
 
 export type { Form251Category, ReportItem } from './report-items';
 
@@ -59,7 +59,7 @@ export function form251Lines(items: readonly ReportItem[], totalBoardings: numbe
     line('8b', 'Compensation paid: denied involuntarily, not given alternate transportation (line 1b)', LINE_8_SOURCE, null, money(of('1b'))),
     line('8c', 'Compensation paid: volunteers (line 5)', LINE_8_SOURCE, null, money(volunteers)),
     line('x-vouchers', 'Not on the form: value of travel vouchers issued (left out of line 8)', LINE_8_SOURCE, vouchers.length, sumByCurrency(vouchers, (i) => i.amountMinor)),
-    line('x-owed', 'Not on the form: compensation owed and not yet paid', 'Bumpboard ledger: due, being issued, or a payment voided, canceled or refused', owed.length, sumByCurrency(owed, (i) => i.amountMinor),
+    line('x-owed', 'Not on the form: compensation owed and not yet paid', 'Bumpboard ledger: due, being issued, or a payment voided, canceled or refused', owed.length, sumByCurrency(owed, owedMinor),
       lost.length ? `${lost.length} of them had a payment voided, canceled or refused and wait for a re-issue.` : null),
     ...(hasUnworked(involuntary) ? [line('x-pending', 'Not on the form: denied passengers with no compensation worked out yet', 'Bumpboard denial records', involuntary.filter((i) => !hasCompensation(i)).length)] : []),
   ];

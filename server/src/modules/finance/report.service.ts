@@ -32,6 +32,7 @@ interface CompensationFact {
   rule_ref: string;
   explanation: string;
   service_date: string;
+  spent_minor: number | string;
 }
 
 let denialsReadable: boolean | null = null;
@@ -47,14 +48,15 @@ async function denialsHaveCategories(db: DataSource): Promise<boolean> {
 
 // Every compensation stays an item whatever its payment state: voided, canceled or refused payments leave it owed.
 const toItem = (c: CompensationFact, category: Form251Category | null): ReportItem => ({
-  serviceDate: c.service_date, voluntary: Boolean(c.voluntary), category, band: c.band, amountMinor: c.amount_minor, currency: c.currency, state: c.state, form: c.form,
+  serviceDate: c.service_date, voluntary: Boolean(c.voluntary), category, band: c.band, amountMinor: c.amount_minor, currency: c.currency, state: c.state, form: c.form, spentMinor: Number(c.spent_minor),
 });
 
 /** The one query behind both the lines and the chart: one item per passenger of the quarter. */
 async function reportItems(db: DataSource, station: StationEntity, from: string, to: string): Promise<{ items: ReportItem[]; source: PeriodReport['source'] }> {
   const facts: CompensationFact[] = await db.query(
     `SELECT c.id, c.source_kind, c.source_id, c.voluntary, c.amount_minor, c.currency, c.state, c.form, c.band, c.rule_ref, c.explanation,
-            DATE_FORMAT(f.service_date, '%Y-%m-%d') AS service_date
+            DATE_FORMAT(f.service_date, '%Y-%m-%d') AS service_date,
+            (SELECT COALESCE(SUM(pc.spent_minor), 0) FROM provider_cards pc WHERE pc.compensation_id = c.id) AS spent_minor
        FROM compensations c JOIN flights f ON f.id = c.flight_id
       WHERE c.station_id = ? AND f.service_date BETWEEN ? AND ?`,
     [station.id, from, to],
@@ -79,7 +81,7 @@ async function reportItems(db: DataSource, station: StationEntity, from: string,
     for (const c of comps) involuntary.push(toItem(c, d.category));
     // A passenger of the denial with no compensation row yet is still a denied passenger.
     for (let i = comps.length; i < passengers.length; i += 1) {
-      involuntary.push({ serviceDate: d.service_date, voluntary: false, category: d.category, band: '', amountMinor: 0, currency: station.currency, state: null, form: null });
+      involuntary.push({ serviceDate: d.service_date, voluntary: false, category: d.category, band: '', amountMinor: 0, currency: station.currency, state: null, form: null, spentMinor: 0 });
     }
   }
   return { items: [...volunteers, ...involuntary], source: 'denials' };
