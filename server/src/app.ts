@@ -32,6 +32,8 @@ import { carrierNameFrom } from './config/carrier';
 import { publicOffersRouter } from './modules/volunteers/public-offers.routes';
 import { createPaymentsRuntime, type PaymentsRuntime } from './modules/payments/payments-runtime';
 import { financeRouter } from './modules/finance/finance.routes';
+import { alertsRouter } from './modules/alerts/alerts.routes';
+import { cabinChangesRouter } from './modules/cabin-changes/cabin-changes.routes';
 
 export interface AppDeps {
   env: Env;
@@ -92,6 +94,8 @@ export function createApp(deps: AppDeps) {
   api.use(denialsRouter({ db: deps.db, changed }));
   api.use(payments.compensationsRouter());
   api.use('/finance', financeRouter({ db: deps.db, reconciliation: payments.reconciliation }));
+  api.use('/alerts', alertsRouter({ db: deps.db }));
+  api.use(cabinChangesRouter({ db: deps.db, changed }));
   api.use('/stations/:stationId/integration-keys', integrationKeysRouter(deps));
   api.use('/stations/:stationId/manifests', manifestsRouter({ db: deps.db, onFlightsChanged: (ids) => ids.forEach((id) => forecast.markDirty(id)) }));
   api.use('/stations/:stationId/show-up-profile', showUpProfilesRouter({ db: deps.db, onFlightsChanged: (ids) => ids.forEach((id) => forecast.markDirty(id)) }));

@@ -3,7 +3,7 @@
 import { z } from 'zod';
 import { currencySchema, regimeSchema } from './common';
 
-export const COMPENSATION_STATES = ['due', 'issuing', 'issued', 'settled', 'failed', 'voided'] as const;
+export const COMPENSATION_STATES = ['due', 'issuing', 'issued', 'settled', 'failed', 'voided', 'canceled'] as const;
 export const compensationStateSchema = z.enum(COMPENSATION_STATES, { error: `state must be one of ${COMPENSATION_STATES.join(', ')}` });
 export type CompensationStateCode = z.infer<typeof compensationStateSchema>;
 
@@ -17,7 +17,18 @@ export const STATE_LABELS: Record<CompensationStateCode, string> = {
   settled: 'Spent',
   failed: 'Failed',
   voided: 'Voided',
+  canceled: 'Canceled by the provider',
 };
+
+/**
+ * A denial or a volunteer's agreement is a fact; a payment is an attempt to settle it. In these states the attempt
+ * was lost (voided by finance, canceled at the provider, refused by it): the passenger is owed again, and finance
+ * may re-issue.
+ */
+export const PAYMENT_LOST_STATES = ['failed', 'voided', 'canceled'] as const satisfies readonly CompensationStateCode[];
+/** The money reached the passenger. */
+export const PAID_STATES = ['issued', 'settled'] as const satisfies readonly CompensationStateCode[];
+export const isPaymentLost = (state: CompensationStateCode) => (PAYMENT_LOST_STATES as readonly string[]).includes(state);
 
 const isoDate = (field: string) =>
   z.string().regex(/^\d{4}-\d{2}-\d{2}$/, `${field} must be a date as YYYY-MM-DD`).refine((s) => {
@@ -117,11 +128,14 @@ export type LedgerQuery = z.infer<typeof ledgerQuerySchema>;
 export const currencyTotalSchema = z.object({
   currency: z.string(),
   count: z.number(),
-  /** Everything not voided: owed or paid. */
+  /** Everything the rows are for, owed or paid: a lost payment does not make the passenger owed less. */
   amountMinor: z.number(),
   /** Issued or spent: the money that left. */
   paidMinor: z.number(),
-  voidedMinor: z.number(),
+  /** Not paid: due, being issued, or a payment voided, canceled or refused. */
+  owedMinor: z.number(),
+  /** Of what is owed, the part whose payment was lost (voided, canceled or refused) and waits for a re-issue. */
+  lostMinor: z.number(),
 });
 
 export const ledgerResponseSchema = z.object({
@@ -212,10 +226,23 @@ export const reportLineSchema = z.object({
   count: z.number().nullable(),
   amounts: z.array(amountSchema).nullable(),
   note: z.string().nullable(),
+  /** Where the line's definition comes from: the form's own wording or instructions, or the rule's article. */
+  source: z.string(),
 });
 export type ReportLine = z.infer<typeof reportLineSchema>;
 
-export const reportDaySchema = z.object({ date: z.string(), currency: z.string(), voluntaryMinor: z.number(), involuntaryMinor: z.number() });
+/** One flight date's figures, from the same items as the lines: the paid sums add up to the paid lines. */
+export const reportDaySchema = z.object({
+  date: z.string(),
+  currency: z.string(),
+  /** Paid to volunteers, as the report's paid lines count money (for Form 251: cash equivalents only). */
+  voluntaryPaidMinor: z.number(),
+  /** Paid to passengers denied boarding involuntarily, counted the same way. */
+  involuntaryPaidMinor: z.number(),
+  /** Owed to anyone and not paid yet, including payments voided, canceled or refused. */
+  owedMinor: z.number(),
+});
+export type ReportDay = z.infer<typeof reportDaySchema>;
 
 export const periodReportSchema = z.object({
   quarter: z.string(),

@@ -107,14 +107,15 @@ describe('the ledger', () => {
     const res = await finance.get(`/api/finance/compensations?stationId=${us.id}&from=2026-10-01&to=2026-10-31`).expect(200);
     expect(res.body.total).toBe(4);
     expect(res.body.rows.every((r: { flight: string }) => r.flight === `ZP ${octFlight.flightNumber}`)).toBe(true);
-    // derived: 400.00 + 600.00 + 500.00 + 0 owed; paid are the issued and spent ones (1,500.00); none voided.
-    expect(res.body.totals).toEqual([{ currency: 'USD', count: 4, amountMinor: 150_000, paidMinor: 150_000, voidedMinor: 0 }]);
+    // derived: 400.00 + 600.00 + 500.00 + 0; paid are the issued and spent ones (1,500.00); nothing owed or lost.
+    expect(res.body.totals).toEqual([{ currency: 'USD', count: 4, amountMinor: 150_000, paidMinor: 150_000, owedMinor: 0, lostMinor: 0 }]);
   });
 
   it('filters by state and regime, and pages', async () => {
     const voided = await finance.get(`/api/finance/compensations?stationId=${us.id}&state=voided`).expect(200);
     expect(voided.body.rows.map((r: { id: number }) => r.id)).toEqual([rows[4].id]);
-    expect(voided.body.totals).toEqual([{ currency: 'USD', count: 1, amountMinor: 0, paidMinor: 0, voidedMinor: 80_000 }]);
+    // A voided payment leaves the passenger owed: it is counted, and owed, never subtracted.
+    expect(voided.body.totals).toEqual([{ currency: 'USD', count: 1, amountMinor: 80_000, paidMinor: 0, owedMinor: 80_000, lostMinor: 80_000 }]);
     const eur = await finance.get('/api/finance/compensations?regime=eu-261').expect(200);
     expect(eur.body.totals.map((t: { currency: string }) => t.currency)).toEqual(['EUR']);
     const page2 = await finance.get(`/api/finance/compensations?stationId=${us.id}&pageSize=3&page=2`).expect(200);
@@ -157,16 +158,20 @@ describe('the period report', () => {
     expect(line['3'].count).toBe(5);
     // Line 4: involuntary passengers actually paid (the 1a and the 1b one).
     expect(line['4'].count).toBe(2);
-    // Line 5: volunteers not voided (the failed one is still owed).
-    expect(line['5'].count).toBe(3);
+    // Line 5: every volunteer, the voided and the refused payments included (the volunteering happened).
+    expect(line['5'].count).toBe(4);
     // Line 7: passengers boarded on the station's flights of the quarter (derived: 4 + 3).
     expect(line['7'].count).toBe(7);
     expect(line['8a'].amounts).toEqual([{ currency: 'USD', amountMinor: 50_000 }]);
     expect(line['8b'].amounts).toEqual([{ currency: 'USD', amountMinor: 107_500 }]);
-    expect(line['8c'].amounts).toEqual([{ currency: 'USD', amountMinor: 100_000 }]);
+    // Line 8(c): money only; the 600.00 voucher is left out (BTS Form 251 instructions, para. F).
+    expect(line['8c'].amounts).toEqual([{ currency: 'USD', amountMinor: 40_000 }]);
+    expect(line['x-vouchers'].amounts).toEqual([{ currency: 'USD', amountMinor: 60_000 }]);
+    // derived: 800.00 voided + 300.00 refused, both still owed.
+    expect(line['x-owed'].amounts).toEqual([{ currency: 'USD', amountMinor: 110_000 }]);
     expect(res.body.perDay).toEqual([
-      { date: '2026-10-05', currency: 'USD', voluntaryMinor: 100_000, involuntaryMinor: 50_000 },
-      { date: '2026-11-12', currency: 'USD', voluntaryMinor: 30_000, involuntaryMinor: 107_500 },
+      { date: '2026-10-05', currency: 'USD', voluntaryPaidMinor: 40_000, involuntaryPaidMinor: 50_000, owedMinor: 0 },
+      { date: '2026-11-12', currency: 'USD', voluntaryPaidMinor: 0, involuntaryPaidMinor: 107_500, owedMinor: 110_000 },
     ]);
   });
 
@@ -177,14 +182,15 @@ describe('the period report', () => {
     expect(line.V1.count).toBe(1);
     expect(line.D1.count).toBe(2);
     expect(line.D5.amounts).toEqual([{ currency: 'EUR', amountMinor: 40_000 }]);
-    expect(line.D6.amounts).toEqual([{ currency: 'EUR', amountMinor: 60_000 }]);
+    expect(line.O.amounts).toEqual([{ currency: 'EUR', amountMinor: 60_000 }]);
   });
 
   it('exports the report as CSV and refuses a malformed quarter', async () => {
     const res = await finance.get(`/api/finance/report.csv?quarter=2026-Q4&stationId=${us.id}`).expect(200);
     const parsed = Papa.parse<Record<string, string>>(res.text, { header: true, skipEmptyLines: true });
     expect(parsed.data.find((r) => r.code === '3')).toMatchObject({ section: 'line', count: '5' });
-    expect(parsed.data.filter((r) => r.section === 'day')).toHaveLength(4);
+    expect(parsed.data.filter((r) => r.section === 'day')).toHaveLength(6);
+    expect(parsed.data.find((r) => r.code === '8c')!.source).toMatch(/vouchers/);
     const bad = await finance.get(`/api/finance/report?quarter=2026-4&stationId=${us.id}`).expect(400);
     expect(bad.body.details[0]).toEqual({ field: 'quarter', rule: 'quarter must look like 2026-Q4' });
   });

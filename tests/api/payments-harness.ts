@@ -196,6 +196,8 @@ export async function removeFlights(db: DataSource, flightIds: number[]): Promis
     await db.query('DELETE FROM compensations WHERE id IN (?)', [compensationIds]);
   }
   await db.query('DELETE FROM outbox_messages WHERE flight_id IN (?)', [flightIds]);
+  await db.query('DELETE FROM alerts WHERE flight_id IN (?)', [flightIds]);
+  await db.query('DELETE FROM cabin_changes WHERE flight_id IN (?)', [flightIds]);
   await db.getRepository(FlightEntity).delete({ id: In(flightIds) });
 }
 

@@ -15,10 +15,16 @@ export interface PaymentsRouteContext {
   /** Due, with a voucher offer made: ready for the passenger's agreement. */
   offeredId: number;
   voidableId: number;
-  failedId: number;
+  /** Failed ones, one for each re-issue call (an agent's and finance's both succeed). */
+  failedIds: number[];
+  /** A flight with J and Y cabins whose J passengers can each be moved to Y once. */
+  cabinFlightId: number;
+  cabinPassengerIds: number[];
+  /** An open alert of the own station, and one of the other station. */
+  alertId: number;
   runId: number;
   differenceId: number;
-  other: { compensationId: number; runId: number; differenceId: number };
+  other: { compensationId: number; runId: number; differenceId: number; alertId: number };
 }
 
 let made: { flightIds: number[]; runIds: number[]; compensationIds: number[]; stationId: number; since: Date } = { flightIds: [], runIds: [], compensationIds: [], stationId: 0, since: new Date() };
@@ -40,9 +46,9 @@ async function runWithDifference(db: DataSource, stationId: number, compensation
 export async function paymentsRouteContext(db: DataSource, opts: { ownStationId: number; otherFlight: FlightEntity }): Promise<PaymentsRouteContext> {
   made = { flightIds: [], runIds: [], compensationIds: [], stationId: opts.ownStationId, since: new Date() };
   const bos = await db.getRepository(StationEntity).findOneByOrFail({ id: opts.ownStationId });
-  const { flight, passengers } = await seedFlight(db, bos, { passengers: 5, serviceDate: '2026-12-01' });
+  const { flight, passengers } = await seedFlight(db, bos, { passengers: 12, serviceDate: '2026-12-01' });
   made.flightIds.push(flight.id);
-  const states = ['issued', 'due', 'due', 'due', 'failed'] as const;
+  const states = ['issued', 'due', 'due', 'due', ...Array<'failed'>(8).fill('failed')] as const;
   const rows = await insertCompensations(db, flight, passengers, (i) => ({
     state: states[i],
     idempotencyKey: states[i] === 'due' ? null : `comp-matrix-${flight.id}-${i}`,
@@ -60,14 +66,24 @@ export async function paymentsRouteContext(db: DataSource, opts: { ownStationId:
   made.compensationIds.push(other.id);
   const own = await runWithDifference(db, bos.id, rows[0].id);
   const otherRun = await runWithDifference(db, opts.otherFlight.stationId, other.id);
+  const alert = async (stationId: number, compensationId: number) =>
+    (await db.query("INSERT INTO alerts (station_id, compensation_id, kind, message, dedupe_key) VALUES (?, ?, 'payment-failed', 'Route matrix alert', ?)", [stationId, compensationId, `matrix:${compensationId}:${Date.now()}`])).insertId as number;
+  const cabin = await seedFlight(db, bos, { passengers: 8, serviceDate: '2026-12-02' });
+  made.flightIds.push(cabin.flight.id);
+  await db.query(`UPDATE flights SET seats_by_cabin = '{"J": 16, "Y": 150}' WHERE id = ?`, [cabin.flight.id]);
+  await db.query(`UPDATE passengers SET cabin = 'J' WHERE flight_id = ?`, [cabin.flight.id]);
   return {
-    issuedId: rows[0].id, dueId: rows[1].id, offeredId: rows[2].id, voidableId: rows[3].id, failedId: rows[4].id,
+    cabinFlightId: cabin.flight.id, cabinPassengerIds: cabin.passengers.map((p) => p.id),
+    issuedId: rows[0].id, dueId: rows[1].id, offeredId: rows[2].id, voidableId: rows[3].id, failedIds: rows.slice(4).map((r) => r.id),
+    alertId: await alert(bos.id, rows[4].id),
     runId: own.runId, differenceId: own.differenceId,
-    other: { compensationId: other.id, runId: otherRun.runId, differenceId: otherRun.differenceId },
+    other: { compensationId: other.id, runId: otherRun.runId, differenceId: otherRun.differenceId, alertId: await alert(opts.otherFlight.stationId, other.id) },
   };
 }
 
 export async function removePaymentsRouteFixtures(db: DataSource): Promise<void> {
+  await db.query("DELETE FROM alerts WHERE message = 'Route matrix alert' OR compensation_id IN (SELECT id FROM compensations WHERE flight_id IN (?))", [made.flightIds.length ? made.flightIds : [0]]);
+  await db.query('DELETE FROM cabin_changes WHERE flight_id IN (?)', [made.flightIds.length ? made.flightIds : [0]]);
   await removeFlights(db, made.flightIds);
   if (made.compensationIds.length) await db.query('DELETE FROM compensations WHERE id IN (?)', [made.compensationIds]);
   // The runs made here, and the one the matrix itself started at the own station.

@@ -102,9 +102,10 @@ describe('duplicates and order', () => {
     const comp = await oneCompensation({ state: 'issuing' });
     const canceled = cardEvent(eventId(), 'issuing_card.updated', card(comp.id, { status: 'canceled' }), 2_000);
     const created = cardEvent(eventId(), 'issuing_card.created', card(comp.id), 1_000);
-    expect((await post(canceled, sign(canceled))).json.outcome).toBe('voided');
-    expect((await post(created, sign(created))).json.outcome).toMatch(/^ignored: already voided/);
-    expect((await app.db.getRepository(CompensationEntity).findOneByOrFail({ id: comp.id })).state).toBe('voided');
+    // The provider's cancellation is its own state (never a silent void): the passenger is owed again.
+    expect((await post(canceled, sign(canceled))).json.outcome).toBe('canceled');
+    expect((await post(created, sign(created))).json.outcome).toMatch(/^ignored: already canceled/);
+    expect((await app.db.getRepository(CompensationEntity).findOneByOrFail({ id: comp.id })).state).toBe('canceled');
   });
 
   it('settles on a spend, and a late "card created" leaves it settled', async () => {

@@ -65,7 +65,7 @@ describe('an agent issues a compensation', () => {
     const keys = [...fake.fake.store.state.idempotency.keys()];
     expect(keys).toEqual(expect.arrayContaining([`comp-${comp.id}-cardholder`, `comp-${comp.id}-card`]));
 
-    const receipts = await app.db.getRepository(OutboxMessageEntity).findBy({ dedupeKey: `compensation-receipt:${comp.id}` });
+    const receipts = await app.db.getRepository(OutboxMessageEntity).findBy({ dedupeKey: `compensation-receipt:${comp.id}:${card.id}` });
     expect(receipts).toHaveLength(1);
     expect(receipts[0]).toMatchObject({ kind: 'compensation-receipt', passengerIds: [comp.passengerId] });
     expect(receipts[0].text).toContain(card.last4);
@@ -168,10 +168,10 @@ describe('finance voids and re-issues', () => {
     expect([...fake.fake.store.state.cardholders.values()].filter((h) => h.metadata.compensationId === String(comp.id))).toHaveLength(1);
   });
 
-  it('re-issues only a failed compensation', async () => {
+  it('re-issues only a compensation whose payment was lost (refused, voided or canceled)', async () => {
     const { rows: [comp] } = await dueCompensations(1);
     const res = await finance.post(`/api/compensations/${comp.id}/reissue`, { reason: 'try' }).expect(409);
-    expect(res.body.error).toBe('not_failed');
+    expect(res.body.error).toBe('not_reissuable');
   });
 });
 

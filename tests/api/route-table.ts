@@ -371,7 +371,29 @@ export const ROUTES: readonly RouteRow[] = [
     otherStation: 404,
   },
   { method: 'POST', pattern: '/api/compensations/:id/void', access: ['finance'], call: (ctx, scope) => ({ url: `/api/compensations/${scope === 'own' ? ctx.payments.voidableId : ctx.payments.other.compensationId}/void`, body: { reason: 'route matrix check' } }), success: 200, otherStation: 404 },
-  { method: 'POST', pattern: '/api/compensations/:id/reissue', access: ['finance'], call: (ctx, scope) => ({ url: `/api/compensations/${scope === 'own' ? ctx.payments.failedId : ctx.payments.other.compensationId}/reissue`, body: { reason: 'route matrix check' } }), success: 200, otherStation: 404 },
+  {
+    method: 'POST',
+    pattern: '/api/compensations/:id/reissue',
+    access: ['agent', 'finance'],
+    // A fresh failed compensation for each call while they last: each successful re-issue moves one on.
+    call: (ctx, scope) => ({ url: `/api/compensations/${scope === 'own' ? (ctx.payments.failedIds.length > 1 ? ctx.payments.failedIds.shift() : ctx.payments.failedIds[0]) : ctx.payments.other.compensationId}/reissue`, body: { reason: 'route matrix check' } }),
+    success: 200,
+    otherStation: 404,
+  },
+  // Cabin changes: the desk records and lists them.
+  { method: 'GET', pattern: '/api/flights/:flightId/cabin-changes', access: ['agent', 'supervisor'], call: (ctx, scope) => ({ url: `/api/flights/${flightOf(ctx, scope)}/cabin-changes` }), success: 200, otherStation: 404 },
+  {
+    method: 'POST',
+    pattern: '/api/flights/:flightId/cabin-changes',
+    access: ['agent', 'supervisor'],
+    // One passenger per successful call: a second change for the same passenger is refused.
+    call: (ctx, scope) => ({ url: `/api/flights/${scope === 'own' ? ctx.payments.cabinFlightId : ctx.otherFlightId}/cabin-changes`, body: { passengerId: scope === 'own' ? (ctx.payments.cabinPassengerIds.length > 1 ? ctx.payments.cabinPassengerIds.shift() : ctx.payments.cabinPassengerIds[0]) : 1, flownCabin: 'Y', fareDifferenceMinor: 0, reason: 'route matrix check' } }),
+    success: 201,
+    otherStation: 404,
+  },
+  // Alerts: everyone at a station sees and acknowledges its own.
+  { method: 'GET', pattern: '/api/alerts', access: ALL_ROLES, call: (ctx, scope) => ({ url: `/api/alerts?stationId=${stationOf(ctx, scope)}` }), success: 200, otherStation: 404 },
+  { method: 'POST', pattern: '/api/alerts/:id/acknowledge', access: ALL_ROLES, call: (ctx, scope) => ({ url: `/api/alerts/${scope === 'own' ? ctx.payments.alertId : ctx.payments.other.alertId}/acknowledge` }), success: 200, otherStation: 404 },
   // The provider's webhook: no session, a signature instead; an unsigned call is refused with 400.
   { method: 'POST', pattern: '/api/payments/webhook', access: 'public', call: () => ({ url: '/api/payments/webhook', body: { id: 'evt_unsigned', type: 'issuing_card.created' } }), success: 400 },
   // Finance's screens: finance only, within its stations.

@@ -1,5 +1,6 @@
 // Finance sees an issued compensation in the ledger (with the card's state at the payment provider), exports the
-// filtered rows as CSV, and runs a reconciliation that comes out clean.
+// filtered rows as CSV, and runs a reconciliation that comes out clean. Then finance voids the payment: the
+// passenger stays owed, an alert reaches finance and the station, and the desk re-issues it.
 // Needs: the app at APP_BASE_URL talking to the payments stand-in (STRIPE_API_URL), and DATABASE_URL of the same
 // database: the test writes its own flight on a far-off date with one volunteer's compensation, which an agent
 // issues through the API. At the end finance voids it, so the card can never be spent and both sides still agree.
@@ -17,6 +18,7 @@ const SERVICE_DATE = `2033-0${1 + (RUN % 9)}-${String(10 + (RUN % 18)).padStart(
 let db: mysql.Connection;
 let compensationId: number;
 let flightLabel: string;
+let flightId: number;
 let bosId: number;
 
 async function staff(email: string): Promise<{ api: APIRequestContext; csrf: string }> {
@@ -52,6 +54,7 @@ test.beforeAll(async () => {
     [bos.id, flight.insertId, booking.insertId, passenger.insertId, 1_900_000_000 + RUN],
   );
   compensationId = comp.insertId;
+  flightId = flight.insertId;
 
   // The agent issues it at the desk's API: a prepaid card at the payment provider.
   const agent = await staff('agent@bumpboard.test');
@@ -65,6 +68,8 @@ test.afterAll(async () => {
   if (compensationId) {
     const finance = await staff('finance@bumpboard.test');
     await finance.api.post(`/api/compensations/${compensationId}/void`, { headers: { 'X-CSRF-Token': finance.csrf }, data: { reason: 'End-to-end test compensation' } });
+    // The clean-up void raises an alert like any other; it is this test's own, so it goes with it.
+    await db.execute('DELETE FROM alerts WHERE compensation_id = ?', [compensationId]);
   }
   await db.end();
 });
@@ -75,7 +80,7 @@ test('finance sees the issued compensation, exports exactly the filtered rows, a
   await expect(page.getByRole('heading', { name: 'Compensation ledger' })).toBeVisible();
   await page.getByLabel('Flights from').fill(SERVICE_DATE);
   await page.getByLabel('Flights to').fill(SERVICE_DATE);
-  const row = page.getByRole('row', { name: /Marta Ledgerwood/ });
+  const row = page.getByRole('row', { name: new RegExp(`^BOS ${flightLabel}.*Marta Ledgerwood`) });
   await expect(row).toBeVisible();
   await expect(row).toContainText(flightLabel);
   await expect(row).toContainText('$450.00');
@@ -109,4 +114,45 @@ test('the passenger’s receipt for the issued compensation arrives in the mail 
   const messages = await mailFromCatcher(`to=${encodeURIComponent(to)}`, (m) => (m.length ? m : undefined), `the receipt to ${to}`);
   expect(messages).toHaveLength(1);
   expect(messages[0].text).toContain('450.00');
+});
+
+test('a voided payment stays owed: finance and the station are alerted, and the desk re-issues it', async ({ browser }) => {
+  const financePage = await browser.newPage();
+  await signIn(financePage, 'finance@bumpboard.test');
+  await financePage.getByRole('link', { name: 'Compensation ledger' }).click();
+  await financePage.getByLabel('Flights from').fill(SERVICE_DATE);
+  await financePage.getByLabel('Flights to').fill(SERVICE_DATE);
+  await financePage.getByRole('button', { name: `Void compensation ${compensationId}` }).click();
+  await financePage.getByLabel(/Why void/).fill('Card sent to the wrong address');
+  await financePage.getByRole('button', { name: 'Cancel the card and void' }).click();
+  const row = financePage.getByRole('row', { name: new RegExp(`^BOS ${flightLabel}.*Marta Ledgerwood`) });
+  await expect(row).toContainText('Still owed');
+  const alert = financePage.getByTestId('alert').filter({ hasText: flightLabel });
+  await expect(alert).toContainText('Payment voided by finance', { timeout: 20_000 });
+  await expect(financePage.getByTestId('total-USD')).toContainText('re-issue');
+  await shot(financePage, 'finance-ledger-owed-alert');
+
+  const desk = await browser.newPage();
+  await signIn(desk, 'agent@bumpboard.test');
+  await desk.goto('/departures');
+  await expect(desk.getByTestId('alert').filter({ hasText: flightLabel })).toBeVisible();
+  await shot(desk, 'departures-payment-alert');
+  await desk.goto(`/flights/${flightId}`);
+  const card = desk.getByTestId('compensation-row').filter({ hasText: 'Marta Ledgerwood' });
+  await expect(card.getByTestId('compensation-state')).toContainText('Voided');
+  await expect(desk.getByTestId('compensations-lost')).toBeVisible();
+  await expect(desk.getByTestId('cabin-changes')).toBeVisible();
+  await shot(desk, 'desk-compensation-voided');
+  await card.getByLabel('Why issue it again?').fill('Passenger at the desk, new card');
+  await card.getByRole('button', { name: 'Re-issue $450.00' }).click();
+  await expect(card.getByTestId('compensation-state')).toContainText('Issued', { timeout: 20_000 });
+
+  await financePage.reload();
+  await financePage.getByLabel('Flights from').fill(SERVICE_DATE);
+  await financePage.getByLabel('Flights to').fill(SERVICE_DATE);
+  await expect(financePage.getByRole('row', { name: new RegExp(`^BOS ${flightLabel}.*Marta Ledgerwood`) })).toContainText('Issued');
+  await expect(financePage.getByTestId('alert').filter({ hasText: flightLabel })).toHaveCount(0);
+  await financePage.getByRole('link', { name: 'Period report' }).click();
+  await expect(financePage.getByText(/Source: BTS Form 251/).first()).toBeVisible();
+  await shot(financePage, 'finance-report-sources');
 });

@@ -1,11 +1,13 @@
 import { Page } from '../../components/ui/page';
+import { AlertsList } from '../../features/alerts/components/alerts-list';
 import { LedgerScreen } from '../../features/finance/components/ledger-screen';
 import { useCurrentStation } from '../use-current-station';
 
 export default function FinanceLedgerPage() {
   const { stations } = useCurrentStation();
   return (
-    <Page title="Compensation ledger" subtitle="Every compensation of your stations: what is owed, what the payment provider holds, and what was voided.">
+    <Page title="Compensation ledger" subtitle="Every compensation of your stations: what is owed, what is paid, and what the payment provider holds.">
+      <AlertsList hint="The passengers are still owed. Re-issue from the ledger below, giving the reason." />
       <LedgerScreen stations={stations} />
     </Page>
   );

@@ -1,6 +1,6 @@
 import { Column, CreateDateColumn, Entity, Index, PrimaryGeneratedColumn, UpdateDateColumn } from 'typeorm';
 
-export type CompensationState = 'due' | 'issuing' | 'issued' | 'settled' | 'failed' | 'voided';
+export type CompensationState = 'due' | 'issuing' | 'issued' | 'settled' | 'failed' | 'voided' | 'canceled';
 
 /**
  * What one passenger (of a volunteer or denied party) is owed for one flight, and where its payment stands. The unique

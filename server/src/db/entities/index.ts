@@ -14,6 +14,8 @@ import { CompensationEntity } from './compensation.entity';
 import { OutboxMessageEntity } from './outbox-message.entity';
 import { PaymentIssuanceEntity, ProviderCardEntity, ProviderEventEntity, ReconciliationDifferenceEntity, ReconciliationRunEntity, VoucherOfferEntity } from './payment.entity';
 import { BoardingRefusalEntity, DenialEntity, DenialProposalEntity, StationPriorityRulesEntity } from './denial.entity';
+import { AlertEntity } from './alert.entity';
+import { CabinChangeEntity } from './cabin-change.entity';
 
 export { AuditLogEntity, BookingEntity, FlightEntity, PassengerEntity, StationEntity, UserEntity };
 export { ShowUpProfileEntity, IntegrationKeyEntity, FlightEventEntity, FlightForecastEntity, ForecastSnapshotEntity };
@@ -22,8 +24,10 @@ export { CompensationEntity };
 export { OutboxMessageEntity };
 export { PaymentIssuanceEntity, ProviderCardEntity, ProviderEventEntity, ReconciliationDifferenceEntity, ReconciliationRunEntity, VoucherOfferEntity };
 export { BoardingRefusalEntity, DenialEntity, DenialProposalEntity, StationPriorityRulesEntity };
+export { AlertEntity, CabinChangeEntity };
 export const entities = [StationEntity, UserEntity, FlightEntity, BookingEntity, PassengerEntity, AuditLogEntity,
   ShowUpProfileEntity, IntegrationKeyEntity, FlightEventEntity, FlightForecastEntity, ForecastSnapshotEntity, SavedPlanEntity,
   VolunteerPolicyEntity, VolunteerRoundEntity, OfferApprovalEntity, VolunteerEntity, RebookingEntity, OutboxMessageEntity, CompensationEntity,
   StationPriorityRulesEntity, DenialProposalEntity, DenialEntity, BoardingRefusalEntity,
-  ProviderEventEntity, PaymentIssuanceEntity, ProviderCardEntity, VoucherOfferEntity, ReconciliationRunEntity, ReconciliationDifferenceEntity];
+  ProviderEventEntity, PaymentIssuanceEntity, ProviderCardEntity, VoucherOfferEntity, ReconciliationRunEntity, ReconciliationDifferenceEntity,
+  AlertEntity, CabinChangeEntity];

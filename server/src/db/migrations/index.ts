@@ -13,6 +13,7 @@ import { AmountApprovals1796220000000 } from './1796220000000-AmountApprovals';
 import { CompensationAmountCleared1796220100000 } from './1796220100000-CompensationAmountCleared';
 import { RefusalsAndRecordedDenials1796240000000 } from './1796240000000-RefusalsAndRecordedDenials';
 import { JourneyAndBookingLimit1796250000000 } from './1796250000000-JourneyAndBookingLimit';
+import { AlertsAndCabinChanges1796260000000 } from './1796260000000-AlertsAndCabinChanges';
 import { ForeignKeys1796290000000 } from './1796290000000-ForeignKeys';
 
 export const migrations = [
@@ -30,5 +31,6 @@ export const migrations = [
   CompensationAmountCleared1796220100000,
   RefusalsAndRecordedDenials1796240000000,
   JourneyAndBookingLimit1796250000000,
+  AlertsAndCabinChanges1796260000000,
   ForeignKeys1796290000000,
 ];

@@ -40,21 +40,24 @@ export async function ledgerPage(db: DataSource, user: SessionUser, query: Ledge
   const [rows, [{ n }], totals] = await Promise.all([
     compensationRows(db, filter.where, [...filter.params, query.pageSize, offset], `${ORDER} LIMIT ? OFFSET ?`),
     db.query(`SELECT COUNT(*) AS n ${COMPENSATION_FROM} WHERE ${filter.where}`, filter.params) as Promise<{ n: string | number }[]>,
+    // A lost payment leaves the passenger owed: it counts in the amount and in what is owed, never subtracted;
+    // what the passenger already spent on a card since canceled is no longer owed.
     db.query(
-      `SELECT c.currency, COUNT(*) AS n,
-              SUM(CASE WHEN c.state <> 'voided' THEN c.amount_minor ELSE 0 END) AS amount,
+      `SELECT c.currency, COUNT(*) AS n, SUM(c.amount_minor) AS amount,
               SUM(CASE WHEN c.state IN ('issued', 'settled') THEN c.amount_minor ELSE 0 END) AS paid,
-              SUM(CASE WHEN c.state = 'voided' THEN c.amount_minor ELSE 0 END) AS voided
+              SUM(CASE WHEN c.state IN ('issued', 'settled') THEN 0
+                       ELSE GREATEST(0, c.amount_minor - (SELECT COALESCE(SUM(x.spent_minor), 0) FROM provider_cards x WHERE x.compensation_id = c.id)) END) AS owed,
+              SUM(CASE WHEN c.state IN ('failed', 'voided', 'canceled') THEN c.amount_minor ELSE 0 END) AS lost
          ${COMPENSATION_FROM} WHERE ${filter.where} GROUP BY c.currency ORDER BY c.currency`,
       filter.params,
-    ) as Promise<{ currency: string; n: string | number; amount: string | number; paid: string | number; voided: string | number }[]>,
+    ) as Promise<{ currency: string; n: string | number; amount: string | number; paid: string | number; owed: string | number; lost: string | number }[]>,
   ]);
   return {
     rows: rows.map(presentCompensation),
     total: Number(n),
     page: query.page,
     pageSize: query.pageSize,
-    totals: totals.map((t) => ({ currency: t.currency, count: Number(t.n), amountMinor: Number(t.amount), paidMinor: Number(t.paid), voidedMinor: Number(t.voided) })),
+    totals: totals.map((t) => ({ currency: t.currency, count: Number(t.n), amountMinor: Number(t.amount), paidMinor: Number(t.paid), owedMinor: Number(t.owed), lostMinor: Number(t.lost) })),
   };
 }
 

@@ -55,6 +55,20 @@ describe('compareLedgerWithProvider', () => {
     expect(kinds(input({ ledger: [entry({ providerCardId: 'ic_gone' })] }))).toEqual(['card-differs']);
   });
 
+  it('reads a re-issue as one payment: the earlier canceled card is no duplicate, and the new limit is what was left', () => {
+    // 600.00 owed; 150.00 spent on the first card before the provider canceled it; the new card holds 450.00.
+    const reissued = input({
+      cards: [card({ id: 'ic_old', status: 'canceled' }), card({ id: 'ic_new', limitMinor: 45_000 })],
+      ledger: [entry({ providerCardId: 'ic_new' })],
+      spentByCard: new Map([['ic_old', 15_000]]),
+    });
+    expect(kinds(reissued)).toEqual([]);
+    // A second usable card beside it is still a duplicate.
+    expect(kinds({ ...reissued, cards: [...reissued.cards, card({ id: 'ic_third' })] })).toEqual(['duplicate-at-provider']);
+    // The provider's cancellation agrees with a ledger that says canceled.
+    expect(kinds(input({ ledger: [entry({ state: 'canceled' })], cards: [card({ status: 'canceled' })] }))).toEqual([]);
+  });
+
   it('leaves alone cards of other stations and cards that are not Bumpboard’s', () => {
     const foreign = [card({ id: 'ic_x', compensationId: 500, stationId: 8 }), card({ id: 'ic_y', compensationId: null, stationId: null }), card({ id: 'ic_z', compensationId: 600, stationId: STATION })];
     expect(kinds(input({ cards: [card(), ...foreign], elsewhere: new Set([600]) }))).toEqual([]);

@@ -67,7 +67,7 @@ export function compareLedgerWithProvider(input: CompareInput): Difference[] {
   for (const entry of input.ledger) {
     const cards = cardsByCompensation.get(entry.id) ?? [];
     if (!cards.length) {
-      if (EXPECTS_CARD.has(entry.state) || (entry.state === 'voided' && entry.providerCardId)) {
+      if (EXPECTS_CARD.has(entry.state) || ((entry.state === 'voided' || entry.state === 'canceled') && entry.providerCardId)) {
         out.push({ kind: 'missing-at-provider', compensationId: entry.id, cardId: entry.providerCardId, ledgerValue: `${entry.state}, ${moneyText(entry.amountMinor, entry.currency)}`, providerValue: null });
       }
       continue;
@@ -75,19 +75,24 @@ export function compareLedgerWithProvider(input: CompareInput): Difference[] {
     const named = cards.find((c) => c.id === entry.providerCardId);
     const primary = named ?? cards.find((c) => c.status !== 'canceled') ?? cards[0];
     for (const extra of cards) {
-      if (extra !== primary) out.push({ kind: 'duplicate-at-provider', compensationId: entry.id, cardId: extra.id, ledgerValue: entry.providerCardId, providerValue: `${extra.id} (${extra.status})` });
+      // A canceled card beside the one the ledger names is an earlier attempt a re-issue replaced, not a second payment.
+      if (extra !== primary && extra.status !== 'canceled') out.push({ kind: 'duplicate-at-provider', compensationId: entry.id, cardId: extra.id, ledgerValue: entry.providerCardId, providerValue: `${extra.id} (${extra.status})` });
     }
+    const spentEarlier = cards.filter((c) => c !== primary).reduce((sum, c) => sum + (input.spentByCard.get(c.id) ?? 0), 0);
+    const expectedLimit = entry.amountMinor - spentEarlier;
     if (entry.providerCardId !== primary.id) {
       out.push({ kind: 'card-differs', compensationId: entry.id, cardId: primary.id, ledgerValue: entry.providerCardId ?? 'no card', providerValue: primary.id });
     }
-    if (primary.limitMinor !== entry.amountMinor) {
-      out.push({ kind: 'amount-differs', compensationId: entry.id, cardId: primary.id, ledgerValue: moneyText(entry.amountMinor, entry.currency), providerValue: primary.limitMinor === null ? 'no all_time limit' : moneyText(primary.limitMinor, primary.currency) });
+    if (primary.limitMinor !== expectedLimit) {
+      out.push({ kind: 'amount-differs', compensationId: entry.id, cardId: primary.id, ledgerValue: moneyText(expectedLimit, entry.currency), providerValue: primary.limitMinor === null ? 'no all_time limit' : moneyText(primary.limitMinor, primary.currency) });
     }
     if (primary.currency !== entry.currency) {
       out.push({ kind: 'currency-differs', compensationId: entry.id, cardId: primary.id, ledgerValue: entry.currency, providerValue: primary.currency });
     }
     const atProvider = providerState(primary, input.spentByCard.get(primary.id) ?? 0);
-    if (atProvider !== entry.state) {
+    // Voided by finance or canceled by the provider: either way the provider's card is canceled.
+    const ledgerState = entry.state === 'canceled' ? 'voided' : entry.state;
+    if (atProvider !== ledgerState) {
       out.push({ kind: 'state-differs', compensationId: entry.id, cardId: primary.id, ledgerValue: entry.state, providerValue: atProvider });
     }
   }

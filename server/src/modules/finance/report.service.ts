@@ -7,7 +7,10 @@ import type { PeriodReport } from '@shared/schemas/finance';
 import { StationEntity } from '../../db/entities';
 import { stationScope, decimalAmount } from './scope';
 import { quarterRange } from './quarter';
-import { categoryFromCompensation, form251Lines, regimeLines, type Form251Category, type ReportItem } from './report-lines';
+import type { CompensationStateCode } from '@shared/schemas/finance';
+import { isPaid, perDay, type CabinChangeItem } from './report-items';
+import { categoryFromCompensation, form251Lines, paidInMoneyForForm251, type Form251Category, type ReportItem } from './report-lines';
+import { regimeLines } from './regime-lines';
 
 const TITLES: Record<string, { form: PeriodReport['form']; title: string }> = {
   'us-dot': { form: 'us-form-251', title: 'Form 251: passengers denied confirmed space (14 CFR 250.10)' },
@@ -23,11 +26,13 @@ interface CompensationFact {
   voluntary: number;
   amount_minor: number;
   currency: string;
-  state: string;
+  state: CompensationStateCode;
+  form: 'prepaid-card' | 'voucher';
   band: string;
   rule_ref: string;
   explanation: string;
   service_date: string;
+  spent_minor: number | string;
 }
 
 let denialsReadable: boolean | null = null;
@@ -41,15 +46,17 @@ async function denialsHaveCategories(db: DataSource): Promise<boolean> {
   return denialsReadable;
 }
 
+// Every compensation stays an item whatever its payment state: voided, canceled or refused payments leave it owed.
 const toItem = (c: CompensationFact, category: Form251Category | null): ReportItem => ({
-  voluntary: Boolean(c.voluntary), category, band: c.band, amountMinor: c.amount_minor, currency: c.currency,
-  paid: c.state === 'issued' || c.state === 'settled', voided: c.state === 'voided', hasCompensation: true,
+  serviceDate: c.service_date, voluntary: Boolean(c.voluntary), category, band: c.band, amountMinor: c.amount_minor, currency: c.currency, state: c.state, form: c.form, spentMinor: Number(c.spent_minor),
 });
 
-async function reportItems(db: DataSource, station: StationEntity, from: string, to: string): Promise<{ items: ReportItem[]; facts: CompensationFact[]; source: PeriodReport['source'] }> {
+/** The one query behind both the lines and the chart: one item per passenger of the quarter. */
+async function reportItems(db: DataSource, station: StationEntity, from: string, to: string): Promise<{ items: ReportItem[]; source: PeriodReport['source'] }> {
   const facts: CompensationFact[] = await db.query(
-    `SELECT c.id, c.source_kind, c.source_id, c.voluntary, c.amount_minor, c.currency, c.state, c.band, c.rule_ref, c.explanation,
-            DATE_FORMAT(f.service_date, '%Y-%m-%d') AS service_date
+    `SELECT c.id, c.source_kind, c.source_id, c.voluntary, c.amount_minor, c.currency, c.state, c.form, c.band, c.rule_ref, c.explanation,
+            DATE_FORMAT(f.service_date, '%Y-%m-%d') AS service_date,
+            (SELECT COALESCE(SUM(pc.spent_minor), 0) FROM provider_cards pc WHERE pc.compensation_id = c.id) AS spent_minor
        FROM compensations c JOIN flights f ON f.id = c.flight_id
       WHERE c.station_id = ? AND f.service_date BETWEEN ? AND ?`,
     [station.id, from, to],
@@ -58,10 +65,10 @@ async function reportItems(db: DataSource, station: StationEntity, from: string,
   const volunteers = facts.filter((c) => c.voluntary).map((c) => toItem(c, null));
   if (!(await denialsHaveCategories(db))) {
     const involuntary = facts.filter((c) => !c.voluntary).map((c) => toItem(c, us ? categoryFromCompensation(c.band, c.rule_ref, c.explanation) : null));
-    return { items: [...volunteers, ...involuntary], facts, source: 'compensations' };
+    return { items: [...volunteers, ...involuntary], source: 'compensations' };
   }
-  const denials: { id: number; category: Form251Category | null; passenger_ids: string | number[] }[] = await db.query(
-    `SELECT d.id, d.category, d.passenger_ids FROM denials d JOIN flights f ON f.id = d.flight_id
+  const denials: { id: number; category: Form251Category | null; passenger_ids: string | number[]; service_date: string }[] = await db.query(
+    `SELECT d.id, d.category, d.passenger_ids, DATE_FORMAT(f.service_date, '%Y-%m-%d') AS service_date FROM denials d JOIN flights f ON f.id = d.flight_id
       WHERE d.station_id = ? AND d.status = 'authorized' AND f.service_date BETWEEN ? AND ?`,
     [station.id, from, to],
   );
@@ -74,42 +81,49 @@ async function reportItems(db: DataSource, station: StationEntity, from: string,
     for (const c of comps) involuntary.push(toItem(c, d.category));
     // A passenger of the denial with no compensation row yet is still a denied passenger.
     for (let i = comps.length; i < passengers.length; i += 1) {
-      involuntary.push({ voluntary: false, category: d.category, band: '', amountMinor: 0, currency: station.currency, paid: false, voided: false, hasCompensation: false });
+      involuntary.push({ serviceDate: d.service_date, voluntary: false, category: d.category, band: '', amountMinor: 0, currency: station.currency, state: null, form: null, spentMinor: 0 });
     }
   }
-  return { items: [...volunteers, ...involuntary], facts, source: 'denials' };
+  return { items: [...volunteers, ...involuntary], source: 'denials' };
+}
+
+async function cabinChangeItems(db: DataSource, stationId: number, from: string, to: string): Promise<CabinChangeItem[]> {
+  const rows: { service_date: string; direction: 'upgrade' | 'downgrade'; owed_minor: number; currency: string }[] = await db.query(
+    `SELECT DATE_FORMAT(f.service_date, '%Y-%m-%d') AS service_date, cc.direction, cc.owed_minor, cc.currency
+       FROM cabin_changes cc JOIN flights f ON f.id = cc.flight_id
+      WHERE cc.station_id = ? AND f.service_date BETWEEN ? AND ?`,
+    [stationId, from, to],
+  );
+  return rows.map((r) => ({ serviceDate: r.service_date, direction: r.direction, owedMinor: r.owed_minor, currency: r.currency }));
 }
 
 export async function periodReport(db: DataSource, user: SessionUser, quarter: string, stationId: number): Promise<PeriodReport> {
   stationScope(user, stationId);
   const station = await db.getRepository(StationEntity).findOneByOrFail({ id: stationId });
   const { from, to } = quarterRange(quarter);
-  const { items, facts, source } = await reportItems(db, station, from, to);
+  const [{ items, source }, cabinChanges] = await Promise.all([reportItems(db, station, from, to), cabinChangeItems(db, station.id, from, to)]);
   const [{ boarded }] = await db.query(
     `SELECT COUNT(*) AS boarded FROM passengers p JOIN flights f ON f.id = p.flight_id WHERE f.station_id = ? AND f.service_date BETWEEN ? AND ? AND p.status = 'boarded'`,
     [station.id, from, to],
   );
-  const perDay = new Map<string, { date: string; currency: string; voluntaryMinor: number; involuntaryMinor: number }>();
-  for (const c of facts) {
-    if (c.state === 'voided') continue;
-    const key = `${c.service_date} ${c.currency}`;
-    const day = perDay.get(key) ?? { date: c.service_date, currency: c.currency, voluntaryMinor: 0, involuntaryMinor: 0 };
-    if (c.voluntary) day.voluntaryMinor += c.amount_minor;
-    else day.involuntaryMinor += c.amount_minor;
-    perDay.set(key, day);
-  }
+  const us = station.regime === 'us-dot';
   const kind = TITLES[station.regime] ?? TITLES['eu-261'];
   const notes = [
-    'Counts are passengers; amounts are in the currency paid. Voided compensations are left out.',
-    'Per-day figures are what is owed or paid, by the date of the flight.',
+    'Counts are passengers; amounts are in the currency paid.',
+    'A denial or a volunteer’s agreement stays counted whatever became of its payment: a payment voided, canceled by the provider or refused leaves the passenger owed.',
+    us
+      ? 'Line 8 counts money paid only (cash or a prepaid card without spending restrictions), never the value of travel vouchers, as the form’s instructions require.'
+      : 'Paid amounts count any form the passenger accepted; travel vouchers are shown on their own line.',
+    'The chart adds up to the table: its paid figures are the paid lines, day by day, and its owed figure is the owed line.',
     source === 'compensations' ? 'Involuntary denials were classified from the compensation rules recorded for each passenger.' : 'Involuntary denials were counted from the authorized denial records and their categories.',
+    'The tool computes what the configured rules say; the applicable regulation, the contract of carriage and the carrier’s compliance staff decide what is filed.',
   ];
   return {
     quarter, from, to,
     station: { id: station.id, iata: station.iata, name: station.name, regime: station.regime, currency: station.currency },
     form: kind.form, title: kind.title, source,
-    lines: station.regime === 'us-dot' ? form251Lines(items, Number(boarded)) : regimeLines(items, Number(boarded)),
-    perDay: [...perDay.values()].sort((a, b) => a.date.localeCompare(b.date) || a.currency.localeCompare(b.currency)),
+    lines: us ? form251Lines(items, Number(boarded), cabinChanges) : regimeLines(station.regime as 'eu-261' | 'uk-261' | 'ca-appr', items, Number(boarded), cabinChanges),
+    perDay: perDay(items, us ? paidInMoneyForForm251 : isPaid),
     notes,
   };
 }
@@ -118,12 +132,13 @@ export async function periodReport(db: DataSource, user: SessionUser, quarter: s
 export function reportCsv(report: PeriodReport): string {
   const rows: (string | number)[][] = [];
   for (const l of report.lines) {
-    if (!l.amounts?.length) rows.push(['line', l.code, l.label, '', l.count ?? '', '', '', '', l.note ?? '']);
-    for (const a of l.amounts ?? []) rows.push(['line', l.code, l.label, '', l.count ?? '', a.currency, a.amountMinor, decimalAmount(a.amountMinor, a.currency), l.note ?? '']);
+    if (!l.amounts?.length) rows.push(['line', l.code, l.label, '', l.count ?? '', '', '', '', l.note ?? '', l.source]);
+    for (const a of l.amounts ?? []) rows.push(['line', l.code, l.label, '', l.count ?? '', a.currency, a.amountMinor, decimalAmount(a.amountMinor, a.currency), l.note ?? '', l.source]);
   }
   for (const d of report.perDay) {
-    rows.push(['day', 'voluntary', 'Compensation to volunteers', d.date, '', d.currency, d.voluntaryMinor, decimalAmount(d.voluntaryMinor, d.currency), '']);
-    rows.push(['day', 'involuntary', 'Compensation for involuntary denials', d.date, '', d.currency, d.involuntaryMinor, decimalAmount(d.involuntaryMinor, d.currency), '']);
+    rows.push(['day', 'voluntary-paid', 'Paid to volunteers', d.date, '', d.currency, d.voluntaryPaidMinor, decimalAmount(d.voluntaryPaidMinor, d.currency), '']);
+    rows.push(['day', 'involuntary-paid', 'Paid for involuntary denials', d.date, '', d.currency, d.involuntaryPaidMinor, decimalAmount(d.involuntaryPaidMinor, d.currency), '']);
+    rows.push(['day', 'owed', 'Owed, not yet paid', d.date, '', d.currency, d.owedMinor, decimalAmount(d.owedMinor, d.currency), '']);
   }
-  return Papa.unparse({ fields: ['section', 'code', 'label', 'date', 'count', 'currency', 'amount_minor', 'amount', 'note'], data: rows }, { escapeFormulae: true, newline: '\r\n' });
+  return Papa.unparse({ fields: ['section', 'code', 'label', 'date', 'count', 'currency', 'amount_minor', 'amount', 'note', 'source'], data: rows }, { escapeFormulae: true, newline: '\r\n' });
 }

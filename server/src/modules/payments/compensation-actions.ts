@@ -1,4 +1,5 @@
-// What people do with a compensation's money: an agent issues it, finance voids it or re-issues a refused one.
+// What people do with a compensation's money: an agent issues it, finance voids a payment, and either re-issues
+// one that was lost.
 // Each decision is recorded (and audited) before the provider is called, so the intent survives any failure.
 import type { EntityManager } from 'typeorm';
 import type { SessionUser } from '@shared/schemas/auth';
@@ -8,9 +9,10 @@ import { canSeeStation } from '../../http/require-role';
 import type { CardSnapshot } from '../../integrations/payments/issuing-provider';
 import { classifyProviderError } from '../../integrations/payments/provider-errors';
 import { audit } from '../audit/audit.service';
+import { raisePaymentLost } from '../alerts/alerts.service';
 import { gateIssue } from '../approvals/approval-gate';
-import { baseKeyFor, reissueKeyFor, voidKey } from './compensation-states';
-import { upsertProviderCard } from './issuance-record';
+import { baseKeyFor, REISSUABLE, reissueKeyFor, voidKey } from './compensation-states';
+import { spentOnEarlierCards, upsertProviderCard } from './issuance-record';
 import type { Issuer } from './issuer';
 import type { PaymentsContext } from './payments-context';
 
@@ -45,8 +47,9 @@ function waitBriefly(work: Promise<void>): Promise<void> {
 export async function issueCompensation(ctx: PaymentsContext, issuer: Issuer, user: SessionUser, id: number): Promise<void> {
   const started = await ctx.db.transaction(async (em) => {
     const row = await lockVisible(em, user, id);
-    if (row.state === 'failed') throw conflict('issue_failed', `The payment provider refused this compensation (${row.lastError ?? 'no reason given'}). Finance can re-issue it.`);
-    if (row.state === 'voided') throw conflict('compensation_voided', `This compensation was voided: ${row.voidReason ?? 'no reason recorded'}.`);
+    if (row.state === 'failed') throw conflict('issue_failed', `The payment provider refused this compensation (${row.lastError ?? 'no reason given'}). It is still owed: re-issue it with a reason.`);
+    if (row.state === 'voided') throw conflict('compensation_voided', `The payment was voided (${row.voidReason ?? 'no reason recorded'}). It is still owed: re-issue it with a reason.`);
+    if (row.state === 'canceled') throw conflict('payment_canceled', 'The payment provider canceled the card. It is still owed: re-issue it with a reason.');
     if (row.state !== 'due') return row.state === 'issuing';
     if (row.amountMinor <= 0) throw conflict('nothing_to_pay', 'This compensation is for no money; there is nothing to issue.');
     if (row.form === 'voucher' && !row.voucherAgreedAt) throw conflict('voucher_not_agreed', 'A voucher needs the passenger’s recorded agreement first.');
@@ -65,15 +68,26 @@ export async function issueCompensation(ctx: PaymentsContext, issuer: Issuer, us
   if (started) await waitBriefly(issuer.attempt(id));
 }
 
-/** Finance sends a refused compensation back to issuing under fresh keys, with the reason on record. */
+/**
+ * A payment refused, voided or canceled leaves the passenger owed: an agent or finance starts a new attempt under
+ * fresh keys, with the reason on record. The earlier card is dead (canceled at the provider, or never made), and
+ * what was spent on it is deducted from the new card, so nothing is paid twice.
+ */
 export async function reissueCompensation(ctx: PaymentsContext, issuer: Issuer, user: SessionUser, id: number, reason: string): Promise<void> {
   await ctx.db.transaction(async (em) => {
     const row = await lockVisible(em, user, id);
-    if (row.state !== 'failed') throw conflict('not_failed', `Only a failed compensation can be re-issued; this one is ${row.state}.`);
+    if (!REISSUABLE.includes(row.state)) throw conflict('not_reissuable', `Only a compensation whose payment was refused, voided or canceled can be re-issued; this one is ${row.state}.`);
+    if (row.amountMinor <= 0) throw conflict('nothing_to_pay', 'This compensation is for no money; there is nothing to issue.');
+    if (row.form === 'voucher' && !row.voucherAgreedAt) throw conflict('voucher_not_agreed', 'A voucher needs the passenger’s recorded agreement first.');
+    const live = await em.query("SELECT card_id FROM provider_cards WHERE compensation_id = ? AND status <> 'canceled'", [row.id]) as { card_id: string }[];
+    if (row.state !== 'failed' && live.length) throw conflict('card_still_live', `The provider still lists card ${live[0].card_id} as usable; cancel it before re-issuing.`);
+    const spent = await spentOnEarlierCards(em, row.id);
+    if (spent >= row.amountMinor) throw conflict('already_paid', 'The passenger already spent the whole amount on an earlier card; nothing is left to pay.');
     const key = reissueKeyFor(row.id, row.idempotencyKey);
-    await em.update(CompensationEntity, { id: row.id }, { state: 'issuing', idempotencyKey: key });
+    // The earlier card stays in provider_cards for the record; the ledger names the new one once it exists.
+    await em.update(CompensationEntity, { id: row.id }, { state: 'issuing', idempotencyKey: key, providerCardId: row.state === 'failed' ? row.providerCardId : null, lastError: null });
     await rememberAccount(em, ctx, row.id);
-    await audit(em, { actor: user, action: 'compensation.reissued', entityType: 'compensation', entityId: row.id, stationId: row.stationId, before: { state: 'failed', idempotencyKey: row.idempotencyKey, lastError: row.lastError }, after: { state: 'issuing', idempotencyKey: key, reason } });
+    await audit(em, { actor: user, action: 'compensation.reissued', entityType: 'compensation', entityId: row.id, stationId: row.stationId, before: { state: row.state, idempotencyKey: row.idempotencyKey, lastError: row.lastError, voidReason: row.voidReason, providerCardId: row.providerCardId }, after: { state: 'issuing', idempotencyKey: key, reason, alreadySpentMinor: spent } });
   });
   await waitBriefly(issuer.attempt(id));
 }
@@ -98,15 +112,18 @@ export async function voidCompensation(ctx: PaymentsContext, user: SessionUser, 
   if (current.state === 'issuing') throw conflict('issuing', 'The card is being issued right now; void it once it is issued.');
   if (current.state === 'settled') throw conflict('already_spent', 'The passenger has already spent this card; it can no longer be voided.');
   if (current.state === 'voided') throw conflict('already_voided', `Already voided: ${current.voidReason ?? 'no reason recorded'}.`);
+  if (current.state === 'canceled') throw conflict('already_canceled', 'The payment provider already canceled this card; the passenger is owed again. Re-issue it instead.');
   const canceled = current.state === 'issued' && current.providerCardId ? await cancelAtProvider(ctx, id, current.providerCardId) : null;
   await ctx.db.transaction(async (em) => {
     const row = await lockVisible(em, user, id);
     if (canceled) await upsertProviderCard(em, canceled, row.id);
-    const allowed = canceled ? ['issued', 'settled', 'voided'] : ['due', 'failed'];
+    const allowed = canceled ? ['issued', 'settled', 'voided', 'canceled'] : ['due', 'failed'];
     if (!allowed.includes(row.state)) throw conflict('state_changed', `The compensation became ${row.state} meanwhile; look again before voiding.`);
     // A webhook may have recorded the cancellation first; the reason is still finance's to give.
     await em.update(CompensationEntity, { id: row.id }, { state: 'voided', voidReason: reason });
     await audit(em, { actor: user, action: 'compensation.voided', entityType: 'compensation', entityId: row.id, stationId: row.stationId, before: { state: row.state, voidReason: row.voidReason }, after: { state: 'voided', reason, canceledCardId: canceled?.id ?? null } });
+    // The denial or the volunteer's agreement still stands: the passenger is owed again, and the station must know.
+    await raisePaymentLost(em, row, 'payment-voided', reason);
   });
   ctx.changed(current.flightId, current.stationId, ['compensations']);
 }

@@ -3,8 +3,11 @@
 // compensation forward: a late 'card created' never undoes 'spent' or 'voided'.
 import type { CompensationState } from '../../db/entities/compensation.entity';
 
-/** Forward order. 'failed' sits beside 'issuing': finance may send a failed one back to issuing. */
-const RANK: Record<CompensationState, number> = { due: 0, issuing: 1, failed: 1, issued: 2, settled: 3, voided: 4 };
+/**
+ * Forward order for the provider's news. 'failed' sits beside 'issuing'; 'voided' and 'canceled' end an attempt.
+ * Only a person's re-issue starts a new attempt from 'failed', 'voided' or 'canceled' (the passenger is still owed).
+ */
+const RANK: Record<CompensationState, number> = { due: 0, issuing: 1, failed: 1, issued: 2, settled: 3, voided: 4, canceled: 4 };
 
 export function stateRank(state: CompensationState): number {
   return RANK[state];
@@ -25,8 +28,11 @@ export const cardholderKey = (baseKey: string) => `${baseKey}-cardholder`;
 export const cardKey = (baseKey: string) => `${baseKey}-card`;
 export const voidKey = (compensationId: number) => `comp-${compensationId}-void`;
 
+/** A lost payment attempt: the passenger is owed again and the compensation may be re-issued. */
+export const REISSUABLE: readonly CompensationState[] = ['failed', 'voided', 'canceled'];
+
 /**
- * A re-issue after a refusal gets fresh keys (comp-<id>-r2, -r3, …): the refused request may have been saved under
+ * A re-issue after a lost attempt gets fresh keys (comp-<id>-r2, -r3, …): the refused request may have been saved under
  * the old key, and replaying it would only repeat the refusal.
  */
 export function reissueKeyFor(compensationId: number, currentKey: string | null): string {

@@ -1,5 +1,5 @@
 // The compensation money routes. Agents issue what a round or an authorized denial set, and record a voucher
-// choice; finance voids or re-issues. Supervisors and admins do not touch money.
+// choice; finance voids; either re-issues a payment that was lost. Supervisors and admins do not touch money.
 import { Router, type Request } from 'express';
 import { z } from 'zod';
 import { idParamSchema } from '@shared/schemas/common';
@@ -55,7 +55,8 @@ export function compensationsRouter(ctx: PaymentsContext, issuer: Issuer) {
     res.json(await answer(id));
   });
 
-  r.post('/compensations/:id/reissue', finance, async (req, res) => {
+  // The passenger is owed whatever became of the payment: the desk may re-issue as finance may, with a reason.
+  r.post('/compensations/:id/reissue', requireRole('agent', 'finance'), async (req, res) => {
     const id = idOf(req);
     const { reason } = parse(reissueBodySchema, req.body);
     await reissueCompensation(ctx, issuer, currentUser(req), id, reason);

@@ -3,6 +3,7 @@
 import type { EntityManager } from 'typeorm';
 import { CompensationEntity, VoucherOfferEntity } from '../../db/entities';
 import type { CardSnapshot } from '../../integrations/payments/issuing-provider';
+import { resolvePaymentAlerts, raisePaymentLost } from '../alerts/alerts.service';
 import { audit, type AuditEntry } from '../audit/audit.service';
 import { enqueueMessage } from '../outbox/outbox.service';
 import { AWAITING_CARD } from './compensation-states';
@@ -34,6 +35,15 @@ export async function upsertProviderCard(em: EntityManager, card: CardSnapshot, 
   );
 }
 
+/** What the passenger already spent on this compensation's cards other than the one the ledger names now. */
+export async function spentOnEarlierCards(em: EntityManager, compensationId: number, currentCardId: string | null = null): Promise<number> {
+  const [row]: { spent: string | number | null }[] = await em.query(
+    'SELECT COALESCE(SUM(spent_minor), 0) AS spent FROM provider_cards WHERE compensation_id = ? AND (? IS NULL OR card_id <> ?)',
+    [compensationId, currentCardId, currentCardId],
+  );
+  return Number(row?.spent ?? 0);
+}
+
 async function enqueueReceipt(em: EntityManager, compensationId: number, card: CardSnapshot): Promise<boolean> {
   const row = await compensationRow(em, compensationId);
   if (!row.contact_email) return false;
@@ -60,7 +70,8 @@ async function enqueueReceipt(em: EntityManager, compensationId: number, card: C
     subject: notice.subject,
     text: notice.text,
     html: notice.html,
-    dedupeKey: `compensation-receipt:${compensationId}`,
+    // Once per card: a re-issued compensation's new card gets its own receipt.
+    dedupeKey: `compensation-receipt:${compensationId}:${card.id}`,
   });
   return true;
 }
@@ -83,6 +94,7 @@ export async function recordIssued(em: EntityManager, compensationId: number, ca
     actor, action: 'compensation.issued', entityType: 'compensation', entityId: row.id, stationId: row.stationId,
     before, after: { state: 'issued', providerCardId: card.id, amountMinor: row.amountMinor, currency: row.currency, form: row.form },
   });
+  await resolvePaymentAlerts(em, row.id, `Paid: card ${card.id} issued.`);
   const mail = await enqueueReceipt(em, row.id, card);
   return { mail, changed: { flightId: row.flightId, stationId: row.stationId } };
 }
@@ -93,5 +105,6 @@ export async function recordRefused(em: EntityManager, compensationId: number, r
   if (!row || row.state !== 'issuing') return NO_EFFECTS;
   await em.update(CompensationEntity, { id: row.id }, { state: 'failed', lastError: reason });
   await audit(em, { actor, action: 'compensation.issue_failed', entityType: 'compensation', entityId: row.id, stationId: row.stationId, before: { state: 'issuing' }, after: { state: 'failed', reason } });
+  await raisePaymentLost(em, row, 'payment-failed', reason);
   return { mail: false, changed: { flightId: row.flightId, stationId: row.stationId } };
 }

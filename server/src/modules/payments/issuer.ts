@@ -9,7 +9,7 @@ import type { CardSnapshot } from '../../integrations/payments/issuing-provider'
 import { classifyProviderError } from '../../integrations/payments/provider-errors';
 import { cardKey, cardholderKey } from './compensation-states';
 import { compensationRow, type CompensationRow } from './compensation-view';
-import { recordIssued, recordRefused } from './issuance-record';
+import { recordIssued, recordRefused, spentOnEarlierCards } from './issuance-record';
 import { applyEffects, WORKER_ACTOR, type PaymentsContext } from './payments-context';
 import { VOUCHER_CATEGORIES } from './voucher-rules';
 
@@ -28,11 +28,13 @@ export function createIssuer(ctx: PaymentsContext): Issuer {
   const inFlight = new Map<number, Promise<void>>();
 
   async function createCard(row: CompensationRow, baseKey: string, cardholderId: string): Promise<CardSnapshot> {
+    // After a re-issue, what was spent on an earlier (now canceled) card is already paid: the new card holds the rest.
+    const spent = await spentOnEarlierCards(ctx.db.manager, row.id);
     return ctx.provider.createCard(
       {
         cardholderId,
         currency: row.currency,
-        amountMinor: row.amount_minor,
+        amountMinor: Math.max(0, row.amount_minor - spent),
         categories: row.form === 'voucher' ? VOUCHER_CATEGORIES : [],
         metadata: cardMetadata(row),
       },

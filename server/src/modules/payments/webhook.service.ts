@@ -5,6 +5,7 @@ import type Stripe from 'stripe';
 import type { EntityManager } from 'typeorm';
 import { CompensationEntity } from '../../db/entities';
 import { snapshotOf, type CardSnapshot } from '../../integrations/payments/issuing-provider';
+import { raisePaymentLost } from '../alerts/alerts.service';
 import { audit } from '../audit/audit.service';
 import { AWAITING_CARD, isForward } from './compensation-states';
 import { NO_EFFECTS, recordIssued, upsertProviderCard, type Effects } from './issuance-record';
@@ -25,6 +26,12 @@ async function lockCompensation(em: EntityManager, id: number) {
   return em.findOne(CompensationEntity, { where: { id }, lock: { mode: 'pessimistic_write' } });
 }
 
+/** What the ledger already knows of a card: a card once canceled stays canceled, whatever an older event says. */
+async function knownCard(em: EntityManager, cardId: string): Promise<{ status: string; compensation_id: number | null } | undefined> {
+  const [known]: { status: string; compensation_id: number | null }[] = await em.query('SELECT status, compensation_id FROM provider_cards WHERE card_id = ?', [cardId]);
+  return known;
+}
+
 async function applyCard(em: EntityManager, card: CardSnapshot): Promise<Applied> {
   if (card.compensationId === null) return ignored('card without a compensation id');
   const row = await lockCompensation(em, card.compensationId);
@@ -36,19 +43,21 @@ async function applyCard(em: EntityManager, card: CardSnapshot): Promise<Applied
     await upsertProviderCard(em, card, null);
     return ignored('another card than the ledger names', row.id);
   }
-  if (card.status !== 'canceled') {
-    if (!AWAITING_CARD.includes(row.state)) {
-      await upsertProviderCard(em, card, row.id);
-      return ignored(`already ${row.state}`, row.id);
-    }
+  const known = await knownCard(em, card.id);
+  await upsertProviderCard(em, card, row.id);
+  const dead = card.status === 'canceled' || known?.status === 'canceled';
+  // A card of this compensation that a re-issue replaced: its news belongs to the earlier attempt.
+  if (dead && known?.compensation_id === row.id && row.providerCardId !== card.id) return ignored('an earlier card of this compensation, replaced by a re-issue', row.id);
+  if (!dead) {
+    if (!AWAITING_CARD.includes(row.state)) return ignored(`already ${row.state}`, row.id);
     return { outcome: 'issued', compensationId: row.id, effects: await recordIssued(em, row.id, card, PROVIDER_ACTOR) };
   }
-  await upsertProviderCard(em, card, row.id);
-  if (!isForward(row.state, 'voided')) return ignored(`already ${row.state}`, row.id);
-  const voidReason = row.voidReason ?? 'Card canceled at the payment provider.';
-  await em.update(CompensationEntity, { id: row.id }, { state: 'voided', voidReason, providerCardId: card.id, providerCardholderId: row.providerCardholderId ?? card.cardholderId });
-  await audit(em, { actor: PROVIDER_ACTOR, action: 'compensation.voided_at_provider', entityType: 'compensation', entityId: row.id, stationId: row.stationId, before: { state: row.state }, after: { state: 'voided', providerCardId: card.id } });
-  return { outcome: 'voided', compensationId: row.id, effects: { mail: false, changed: { flightId: row.flightId, stationId: row.stationId } } };
+  if (!isForward(row.state, 'canceled')) return ignored(`already ${row.state}`, row.id);
+  // Never a silent void: the provider ended the payment, not the debt. The passenger is owed again, with an alert.
+  await em.update(CompensationEntity, { id: row.id }, { state: 'canceled', providerCardId: card.id, providerCardholderId: row.providerCardholderId ?? card.cardholderId });
+  await audit(em, { actor: PROVIDER_ACTOR, action: 'compensation.canceled_at_provider', entityType: 'compensation', entityId: row.id, stationId: row.stationId, before: { state: row.state }, after: { state: 'canceled', providerCardId: card.id } });
+  await raisePaymentLost(em, row, 'payment-canceled', null);
+  return { outcome: 'canceled', compensationId: row.id, effects: { mail: false, changed: { flightId: row.flightId, stationId: row.stationId } } };
 }
 
 async function applyTransaction(em: EntityManager, transaction: Stripe.Issuing.Transaction, card: CardSnapshot | null): Promise<Applied> {

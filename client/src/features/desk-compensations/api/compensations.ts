@@ -1,6 +1,7 @@
 import { queryOptions, useMutation, useQueryClient } from '@tanstack/react-query';
 import type { z } from 'zod';
 import { compensationResponseSchema, deskCompensationsResponseSchema, voucherOfferResponseSchema, type voucherAgreementBodySchema } from '@shared/schemas/finance';
+import { alertKeys } from '../../../lib/alert-keys';
 import { api } from '../../../lib/api-client';
 
 export const deskCompensationKeys = {
@@ -26,7 +27,11 @@ export const deskCompensationsQueryOptions = (flightId: number) =>
 
 function useFlightMutation<T, R>(flightId: number, mutationFn: (input: T) => Promise<R>) {
   const qc = useQueryClient();
-  return useMutation({ mutationFn, onSettled: () => qc.invalidateQueries({ queryKey: deskCompensationKeys.flight(flightId) }) });
+  return useMutation({
+    mutationFn,
+    // An issue or a re-issue may raise or resolve an alert as well.
+    onSettled: () => Promise.all([qc.invalidateQueries({ queryKey: deskCompensationKeys.flight(flightId) }), qc.invalidateQueries({ queryKey: alertKeys.all })]),
+  });
 }
 
 export const useIssueCompensation = (flightId: number) =>
@@ -37,3 +42,7 @@ export const useOfferVoucher = (flightId: number) =>
 
 export const useRecordVoucherAgreement = (flightId: number) =>
   useFlightMutation(flightId, ({ id, ...body }: VoucherAgreementBody & { id: number }) => api.post(`/compensations/${id}/voucher-agreement`, compensationResponseSchema, body));
+
+/** A payment refused, voided or canceled leaves the passenger owed: the desk starts a new one, with the reason. */
+export const useReissueCompensation = (flightId: number) =>
+  useFlightMutation(flightId, ({ id, reason }: { id: number; reason: string }) => api.post(`/compensations/${id}/reissue`, compensationResponseSchema, { reason }));

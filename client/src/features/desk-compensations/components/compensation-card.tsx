@@ -1,10 +1,11 @@
 import { bandLabel } from '@shared/compensation/labels';
-import type { DeskCompensation } from '@shared/schemas/finance';
+import { isPaymentLost, type DeskCompensation } from '@shared/schemas/finance';
 import { Button } from '../../../components/ui/button';
 import { formatMoney } from '../../../lib/format';
 import { useIssueCompensation } from '../api/compensations';
 import { FORM_LABELS, kindLabel, STATE_LOOK, TONE_CLASS, voucherStep } from '../model/words';
 import { Problem } from './problem';
+import { ReissueForm } from './reissue-form';
 import { VoucherPath } from './voucher-path';
 
 /** One passenger's compensation: who, why, how much, in what form, where it stands, and the press that pays it. */
@@ -52,7 +53,7 @@ export function CompensationCard({ flightId, compensation: c }: { flightId: numb
         )}
         {c.voidReason && (
           <>
-            <dt className="font-bold">Void reason</dt>
+            <dt className="font-bold">Why it was voided</dt>
             <dd>{c.voidReason}</dd>
           </>
         )}
@@ -71,6 +72,7 @@ export function CompensationCard({ flightId, compensation: c }: { flightId: numb
           <Problem error={issue.error} />
         </div>
       )}
+      {isPaymentLost(c.state) && c.amountMinor > 0 && <ReissueForm flightId={flightId} compensationId={c.id} amount={amount} />}
       {step !== 'none' && <VoucherPath flightId={flightId} compensation={c} step={step} />}
     </article>
   );

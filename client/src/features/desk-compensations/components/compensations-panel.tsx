@@ -1,7 +1,9 @@
 import { useQuery } from '@tanstack/react-query';
+import { isPaymentLost } from '@shared/schemas/finance';
 import { Caution, Panel } from '../../../components/ui/page';
 import { deskCompensationsQueryOptions } from '../api/compensations';
 import { useFlightCompensationsLive } from '../api/use-compensations-live';
+import { CabinChanges } from './cabin-changes';
 import { CompensationCard } from './compensation-card';
 
 /**
@@ -13,6 +15,7 @@ export function CompensationsPanel({ flightId }: { flightId: number }) {
   useFlightCompensationsLive(flightId);
   const rows = list.data?.compensations ?? [];
   const due = rows.filter((c) => c.state === 'due').length;
+  const lost = rows.filter((c) => isPaymentLost(c.state)).length;
 
   return (
     <section data-testid="desk-compensations" aria-labelledby="desk-compensations-title" className="rounded-lg border-2 border-line bg-card p-4">
@@ -35,6 +38,12 @@ export function CompensationsPanel({ flightId }: { flightId: number }) {
         {rows.length > 0 && (
           <p className="text-lg" data-testid="compensations-summary">
             <strong>{rows.length}</strong> {rows.length === 1 ? 'compensation' : 'compensations'}, <strong>{due}</strong> still to issue.
+            {lost > 0 && (
+              <strong className="ml-2 text-alert" data-testid="compensations-lost">
+                <span aria-hidden>⚠ </span>
+                {lost} {lost === 1 ? 'payment was' : 'payments were'} voided, canceled or refused: still owed, re-issue below.
+              </strong>
+            )}
           </p>
         )}
         <ul className="space-y-3">
@@ -44,6 +53,7 @@ export function CompensationsPanel({ flightId }: { flightId: number }) {
             </li>
           ))}
         </ul>
+        <CabinChanges flightId={flightId} />
       </div>
     </section>
   );

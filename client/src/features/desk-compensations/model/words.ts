@@ -8,8 +8,9 @@ export const STATE_LOOK: Record<CompensationStateCode, { icon: string; text: str
   issuing: { icon: '…', text: STATE_LABELS.issuing, tone: 'watch', detail: 'Sent to the payment provider; waiting for its answer.' },
   issued: { icon: '✓', text: STATE_LABELS.issued, tone: 'calm', detail: 'Paid: the card is ready for the passenger.' },
   settled: { icon: '✓', text: STATE_LABELS.settled, tone: 'calm', detail: 'Paid, and the passenger has spent it.' },
-  failed: { icon: '⚠', text: STATE_LABELS.failed, tone: 'alert', detail: 'The payment provider refused it. Finance can re-issue it.' },
-  voided: { icon: '✕', text: STATE_LABELS.voided, tone: 'plain', detail: 'Cancelled by finance; nothing is owed through this entry.' },
+  failed: { icon: '⚠', text: STATE_LABELS.failed, tone: 'alert', detail: 'The payment provider refused it. The passenger is still owed: re-issue it with a reason.' },
+  voided: { icon: '⚠', text: STATE_LABELS.voided, tone: 'alert', detail: 'Finance voided the payment. The passenger is still owed: re-issue it with a reason.' },
+  canceled: { icon: '⚠', text: STATE_LABELS.canceled, tone: 'alert', detail: 'The payment provider canceled the card. The passenger is still owed: re-issue it with a reason.' },
 };
 
 export const TONE_CLASS: Record<Tone, string> = {

@@ -9,6 +9,7 @@ import {
   reconciliationRunsResponseSchema,
   startReconciliationResponseSchema,
 } from '@shared/schemas/finance';
+import { alertKeys } from '../../../lib/alert-keys';
 import { api } from '../../../lib/api-client';
 import { ledgerQueryString, type LedgerFilters } from '../model/ledger-filters';
 
@@ -56,7 +57,8 @@ export function useCompensationAction() {
   return useMutation({
     mutationFn: ({ id, action, reason }: { id: number; action: 'void' | 'reissue'; reason: string }) =>
       api.post(`/compensations/${id}/${action}`, compensationResponseSchema, { reason }),
-    onSettled: () => qc.invalidateQueries({ queryKey: [...financeKeys.all, 'ledger'] }),
+    // A void raises an alert and a re-issue resolves it: the alerts list refreshes with the ledger.
+    onSettled: () => Promise.all([qc.invalidateQueries({ queryKey: [...financeKeys.all, 'ledger'] }), qc.invalidateQueries({ queryKey: alertKeys.all })]),
   });
 }
 

@@ -1,6 +1,6 @@
 import { useState } from 'react';
 import { regimeLabel } from '@shared/compensation/labels';
-import { STATE_LABELS, type CompensationView } from '@shared/schemas/finance';
+import { isPaymentLost, STATE_LABELS, type CompensationView } from '@shared/schemas/finance';
 import { Button } from '../../../components/ui/button';
 import { formatMoney } from '../../../lib/format';
 import { useCompensationAction } from '../api/finance-api';
@@ -31,14 +31,15 @@ function Row({ c }: { c: CompensationView }) {
         <td className="p-2 text-right font-bold tabular-nums">{formatMoney(c.amountMinor, c.currency)}</td>
         <td className="p-2">{providerStateText(c)}</td>
         <td className="p-2">
-          <span className="font-bold">{STATE_LABELS[c.state]}</span>
+          <span className="font-bold">{isPaymentLost(c.state) ? '⚠ ' : ''}{STATE_LABELS[c.state]}</span>
+          {isPaymentLost(c.state) && <span className="block text-sm font-bold text-alert">Still owed</span>}
           {c.voidReason && <span className="block text-sm text-ink-soft">{c.voidReason}</span>}
           {c.lastError && c.state !== 'issued' && <span className="block text-sm text-alert">{c.lastError}</span>}
         </td>
         <td className="p-2">
           <div className="flex flex-wrap gap-1">
             {canVoid(c) && <Button type="button" variant="secondary" onClick={() => setOpen('void')} aria-label={`Void compensation ${c.id}`}>Void…</Button>}
-            {c.state === 'failed' && <Button type="button" variant="secondary" onClick={() => setOpen('reissue')} aria-label={`Re-issue compensation ${c.id}`}>Re-issue…</Button>}
+            {isPaymentLost(c.state) && <Button type="button" variant="secondary" onClick={() => setOpen('reissue')} aria-label={`Re-issue compensation ${c.id}`}>Re-issue…</Button>}
           </div>
         </td>
       </tr>

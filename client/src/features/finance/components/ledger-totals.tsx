@@ -12,10 +12,11 @@ export function LedgerTotals({ totals, total }: { totals: LedgerResponse['totals
         <dl key={t.currency} className="min-w-56 rounded-md border-2 border-line bg-paper px-4 py-3" data-testid={`total-${t.currency}`}>
           <dt className="text-sm font-bold uppercase tracking-wide text-ink-soft">{t.currency} · {plural(t.count, 'compensation')}</dt>
           <dd className="text-2xl font-bold">{formatMoney(t.amountMinor, t.currency)}</dd>
-          <dd className="text-sm">Paid {formatMoney(t.paidMinor, t.currency)} · voided {formatMoney(t.voidedMinor, t.currency)}</dd>
+          <dd className="text-sm">Paid {formatMoney(t.paidMinor, t.currency)} · owed {formatMoney(t.owedMinor, t.currency)}</dd>
+          {t.lostMinor > 0 && <dd className="text-sm font-bold text-alert">⚠ {formatMoney(t.lostMinor, t.currency)} of it had a payment voided, canceled or refused: re-issue</dd>}
         </dl>
       ))}
-      <p className="self-end text-sm text-ink-soft">{plural(total, 'row')} in all; owed totals leave voided ones out.</p>
+      <p className="self-end text-sm text-ink-soft">{plural(total, 'row')} in all. A voided, canceled or refused payment leaves the passenger owed.</p>
     </section>
   );
 }

@@ -3,16 +3,20 @@ import type { PeriodReport } from '@shared/schemas/finance';
 import { formatMoney } from '../../../lib/format';
 
 /**
- * Compensation per flight date, volunteers and involuntary denials stacked. The two series differ in pattern as well
- * as tone (solid and hatched), and the figures are also given as a table, so nothing rests on colour alone.
+ * Per flight date: paid to volunteers and paid for involuntary denials (stacked, counted as the paid lines count),
+ * and what is still owed beside them. The series differ in pattern as well as tone (solid, hatched, outlined), and
+ * the figures are also given as a table, so nothing rests on colour alone.
  */
+const SERIES: Record<string, string> = { voluntary: 'Paid to volunteers', involuntary: 'Paid for involuntary denials', owed: 'Still owed' };
+const LEGEND: Record<string, string> = { voluntary: 'Paid to volunteers (solid)', involuntary: 'Paid for involuntary denials (hatched)', owed: 'Still owed (outlined)' };
+
 export function ReportDayChart({ days, currency }: { days: PeriodReport['perDay']; currency: string }) {
-  const data = days.filter((d) => d.currency === currency).map((d) => ({ date: d.date.slice(5), voluntary: d.voluntaryMinor, involuntary: d.involuntaryMinor }));
+  const data = days.filter((d) => d.currency === currency).map((d) => ({ date: d.date.slice(5), voluntary: d.voluntaryPaidMinor, involuntary: d.involuntaryPaidMinor, owed: d.owedMinor }));
   if (!data.length) return <p className="text-ink-soft">No compensation in {currency} in this quarter.</p>;
   const money = (minor: number) => formatMoney(minor, currency);
   return (
     <figure className="min-w-0">
-      <figcaption className="mb-1 font-bold">Compensation per day in {currency}, volunteers and involuntary denials</figcaption>
+      <figcaption className="mb-1 font-bold">Per day in {currency}: paid to volunteers, paid for involuntary denials, and still owed</figcaption>
       <div aria-hidden data-testid="report-day-chart">
         <BarChart data={data} responsive style={{ width: '100%', height: 280 }} margin={{ top: 8, right: 12, bottom: 8, left: 8 }}>
           <defs>
@@ -24,10 +28,11 @@ export function ReportDayChart({ days, currency }: { days: PeriodReport['perDay'
           <CartesianGrid vertical={false} stroke="var(--color-line)" />
           <XAxis dataKey="date" tick={{ fill: 'var(--color-ink)', fontSize: 13 }} />
           <YAxis tickFormatter={(v: number) => money(v)} tick={{ fill: 'var(--color-ink)', fontSize: 13 }} width={96} />
-          <Tooltip formatter={(v, name) => [money(Number(v)), name === 'voluntary' ? 'Volunteers' : 'Involuntary denials']} contentStyle={{ fontSize: 15, borderWidth: 2 }} />
-          <Legend formatter={(name) => (name === 'voluntary' ? 'Volunteers (solid)' : 'Involuntary denials (hatched)')} />
-          <Bar dataKey="voluntary" stackId="day" fill="var(--color-harbour)" isAnimationActive={false} />
-          <Bar dataKey="involuntary" stackId="day" fill="url(#involuntary-hatch)" isAnimationActive={false} />
+          <Tooltip formatter={(v, name) => [money(Number(v)), SERIES[String(name)] ?? String(name)]} contentStyle={{ fontSize: 15, borderWidth: 2 }} />
+          <Legend formatter={(name) => LEGEND[String(name)] ?? String(name)} />
+          <Bar dataKey="voluntary" stackId="paid" fill="var(--color-harbour)" isAnimationActive={false} />
+          <Bar dataKey="involuntary" stackId="paid" fill="url(#involuntary-hatch)" isAnimationActive={false} />
+          <Bar dataKey="owed" fill="var(--color-paper)" stroke="var(--color-alert)" strokeWidth={2} strokeDasharray="4 2" isAnimationActive={false} />
         </BarChart>
       </div>
     </figure>

@@ -20,6 +20,7 @@ export function ReportLinesTable({ report }: { report: PeriodReport }) {
             <td className="p-2">
               {l.label}
               {l.note && <span className="block text-sm text-ink-soft">{l.note}</span>}
+              <span className="block text-sm text-ink-soft">Source: {l.source}</span>
             </td>
             <td className="p-2 text-right tabular-nums">{l.count ?? '—'}</td>
             <td className="p-2 text-right tabular-nums">{l.amounts ? (l.amounts.length ? l.amounts.map((a) => formatMoney(a.amountMinor, a.currency)).join(' + ') : formatMoney(0, report.station.currency)) : '—'}</td>

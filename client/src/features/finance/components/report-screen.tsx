@@ -39,14 +39,15 @@ export function ReportScreen({ stations, defaultStationId, now = new Date() }: {
           <Panel>
             <ReportDayChart days={data.perDay} currency={data.station.currency} />
             <table className="mt-3 w-full border-collapse text-left text-sm">
-              <caption className="sr-only">Compensation per day</caption>
-              <thead><tr><th scope="col" className="p-1">Date</th><th scope="col" className="p-1 text-right">Volunteers</th><th scope="col" className="p-1 text-right">Involuntary denials</th></tr></thead>
+              <caption className="sr-only">Per day: paid and still owed (the same figures as the chart)</caption>
+              <thead><tr><th scope="col" className="p-1">Date</th><th scope="col" className="p-1 text-right">Paid to volunteers</th><th scope="col" className="p-1 text-right">Paid for involuntary denials</th><th scope="col" className="p-1 text-right">Still owed</th></tr></thead>
               <tbody>
                 {data.perDay.map((d) => (
                   <tr key={`${d.date}-${d.currency}`} className="border-t border-line">
                     <td className="p-1">{d.date}</td>
-                    <td className="p-1 text-right tabular-nums">{formatMoney(d.voluntaryMinor, d.currency)}</td>
-                    <td className="p-1 text-right tabular-nums">{formatMoney(d.involuntaryMinor, d.currency)}</td>
+                    <td className="p-1 text-right tabular-nums">{formatMoney(d.voluntaryPaidMinor, d.currency)}</td>
+                    <td className="p-1 text-right tabular-nums">{formatMoney(d.involuntaryPaidMinor, d.currency)}</td>
+                    <td className="p-1 text-right tabular-nums">{formatMoney(d.owedMinor, d.currency)}</td>
                   </tr>
                 ))}
               </tbody>

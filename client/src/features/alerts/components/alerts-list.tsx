@@ -1,0 +1,42 @@
+import { useQuery } from '@tanstack/react-query';
+import { ALERT_KIND_LABELS } from '@shared/schemas/alerts';
+import { Button } from '../../../components/ui/button';
+import { alertsQueryOptions, useAcknowledgeAlert } from '../api/alerts';
+
+/**
+ * What the station and finance must act on: payments voided, canceled by the provider or refused, whose passengers
+ * are owed again. An alert stays listed until the passenger is paid; acknowledging only says someone is on it.
+ */
+export function AlertsList({ stationId, hint }: { stationId?: number; hint: string }) {
+  const { data, error } = useQuery(alertsQueryOptions(stationId));
+  const acknowledge = useAcknowledgeAlert();
+  const alerts = data?.alerts ?? [];
+  if (error) return <p role="alert" className="font-bold text-alert">The alerts could not be loaded: {error.message}</p>;
+  if (!alerts.length) return null;
+  return (
+    <section aria-labelledby="alerts-title" data-testid="alerts" className="mb-4 rounded-lg border-2 border-alert bg-alert-soft p-4">
+      <h2 id="alerts-title" className="text-xl font-bold text-alert">
+        <span aria-hidden>⚠ </span>
+        {alerts.length === 1 ? '1 payment needs attention' : `${alerts.length} payments need attention`}
+      </h2>
+      <p className="mb-2">{hint}</p>
+      <ul className="space-y-2">
+        {alerts.map((a) => (
+          <li key={a.id} data-testid="alert" data-kind={a.kind} className="rounded-md border-2 border-line bg-card p-3">
+            <p className="font-bold">{ALERT_KIND_LABELS[a.kind]} · {a.stationIata}</p>
+            <p>{a.message}</p>
+            <p className="text-sm text-ink-soft">
+              Raised {new Date(a.createdAt).toISOString().slice(0, 16).replace('T', ' ')} UTC
+              {a.acknowledgedAt ? ` · seen by ${a.acknowledgedBy ?? 'a colleague'}` : ''}
+            </p>
+            {!a.acknowledgedAt && (
+              <Button type="button" variant="quiet" onClick={() => acknowledge.mutate(a.id)} disabled={acknowledge.isPending} aria-label={`Mark alert ${a.id} as seen`}>
+                I am on it
+              </Button>
+            )}
+          </li>
+        ))}
+      </ul>
+    </section>
+  );
+}
