@@ -12,6 +12,8 @@ export interface FeedBenchSettings {
   serverPid?: number;
   dbPid?: number;
   resultFile?: string;
+  /** How the consoles react to notices: as today's client (patch) or as the client before (refetch everything). */
+  clientModel: 'patch' | 'refetch';
   /** Keeps event ids unique when the bench runs twice against one database. */
   runId: string;
 }
@@ -28,6 +30,12 @@ function whole(env: NodeJS.ProcessEnv, name: string, fallback: number, min: numb
 
 function optionalPid(env: NodeJS.ProcessEnv, name: string): number | undefined {
   return env[name] ? whole(env, name, 0, 1, 2 ** 22) : undefined;
+}
+
+function clientModel(raw: string | undefined): 'patch' | 'refetch' {
+  if (raw === undefined || raw === '' || raw === 'patch') return 'patch';
+  if (raw === 'refetch') return 'refetch';
+  throw new Error(`BENCH_CLIENT_MODEL must be "patch" or "refetch" (got "${raw}")`);
 }
 
 export function readSettings(env: NodeJS.ProcessEnv): FeedBenchSettings {
@@ -47,7 +55,7 @@ export function readSettings(env: NodeJS.ProcessEnv): FeedBenchSettings {
   return {
     appUrl,
     databaseUrl,
-    seconds: whole(env, 'BENCH_SECONDS', 60, 1, 600),
+    seconds: whole(env, 'BENCH_SECONDS', 30, 1, 600),
     rate: whole(env, 'BENCH_RATE', 200, 1, 5000),
     flights: whole(env, 'BENCH_FLIGHTS', 20, 1, 200),
     clients: whole(env, 'BENCH_CLIENTS', 300, 1, 5000),
@@ -55,6 +63,7 @@ export function readSettings(env: NodeJS.ProcessEnv): FeedBenchSettings {
     serverPid: optionalPid(env, 'BENCH_SERVER_PID'),
     dbPid: optionalPid(env, 'BENCH_DB_PID'),
     resultFile: env.BENCH_RESULT_FILE || undefined,
+    clientModel: clientModel(env.BENCH_CLIENT_MODEL),
     runId: `${Date.now().toString(36)}${randomBytes(3).toString('hex')}`,
   };
 }
