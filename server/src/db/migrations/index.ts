@@ -8,5 +8,6 @@ import { Outbox1796152300000 } from './1796152300000-Outbox';
 import { Compensations1796153183331 } from './1796153183331-Compensations';
 import { Payments1796153500000 } from './1796153500000-Payments';
 import { Denials1796153400000 } from './1796153400000-Denials';
+import { ForecastVersion1796270000000 } from './1796270000000-ForecastVersion';
 
-export const migrations = [Initial1796151413508, SessionsAndAuditGuard1796151413600, LiveFlightDesk1796152035497, SavedPlans1796151413700, VolunteerRounds1796152709441, Outbox1796152300000, Compensations1796153183331, Denials1796153400000, Payments1796153500000];
+export const migrations = [Initial1796151413508, SessionsAndAuditGuard1796151413600, LiveFlightDesk1796152035497, SavedPlans1796151413700, VolunteerRounds1796152709441, Outbox1796152300000, Compensations1796153183331, Denials1796153400000, Payments1796153500000, ForecastVersion1796270000000];
