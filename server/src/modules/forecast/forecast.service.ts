@@ -30,12 +30,28 @@ export type RecomputeResult =
  * moment compared, and only a newer state writes, with the version one above the stored one. A recompute that read
  * its inputs earlier can therefore never overwrite one that read them later, whatever order they finish in.
  */
+const RETRIED = new Set(['ER_DUP_ENTRY', 'ER_LOCK_DEADLOCK', 'ER_LOCK_WAIT_TIMEOUT']);
+const codeOf = (err: unknown) => (err as { driverError?: { code?: string } })?.driverError?.code ?? (err as { code?: string })?.code ?? '';
+
 async function writeIfNewer(db: DataSource, state: FlightState): Promise<{ version: number; point: HistoryPoint | null } | null> {
+  for (let attempt = 1; ; attempt++) {
+    try {
+      return await writeOnce(db, state);
+    } catch (err) {
+      // Two first writes of one flight race to insert its row: the loser reads the winner's row on the next attempt.
+      if (!RETRIED.has(codeOf(err)) || attempt >= 4) throw err;
+    }
+  }
+}
+
+async function writeOnce(db: DataSource, state: FlightState): Promise<{ version: number; point: HistoryPoint | null } | null> {
   const flightId = state.flight.id;
   const { forecast, cabins } = state.result;
   const store = liveStoreOf(db);
   const last = await store.latestSnapshot(flightId);
-  return db.transaction(async (em) => {
+  // READ COMMITTED: locking a row that does not exist yet takes no gap lock, so first writes of different flights
+  // never block each other.
+  return db.transaction('READ COMMITTED', async (em) => {
     const [row]: { version: number | string; computed_at: Date }[] = await em.query('SELECT version, computed_at FROM flight_forecasts WHERE flight_id = ? FOR UPDATE', [flightId]);
     if (row && new Date(row.computed_at).getTime() >= state.at.getTime()) return null;
     const version = (row ? Number(row.version) : 0) + 1;
