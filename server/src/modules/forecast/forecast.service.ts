@@ -33,7 +33,7 @@ export type RecomputeResult =
 const RETRIED = new Set(['ER_DUP_ENTRY', 'ER_LOCK_DEADLOCK', 'ER_LOCK_WAIT_TIMEOUT']);
 const codeOf = (err: unknown) => (err as { driverError?: { code?: string } })?.driverError?.code ?? (err as { code?: string })?.code ?? '';
 
-async function writeIfNewer(db: DataSource, state: FlightState): Promise<{ version: number; point: HistoryPoint | null } | null> {
+export async function writeIfNewer(db: DataSource, state: FlightState): Promise<{ version: number; point: HistoryPoint | null } | null> {
   for (let attempt = 1; ; attempt++) {
     try {
       return await writeOnce(db, state);
