@@ -106,6 +106,22 @@ describe('feed POST to notice and stored summary', () => {
   });
 });
 
+describe('batches', () => {
+  it('applies a batch in one go, each event alone: a rejected one and a repeated id change nothing, the rest stand', async () => {
+    const { flight, pnrs } = await flightWithTwo();
+    const now = Date.now();
+    const good = event(flight, pnrs[0], 'passenger.checked-in', now);
+    const unknownPnr = event(flight, 'NOPNR1', 'passenger.checked-in', now);
+    const res = await feed([good, unknownPnr, { ...good }, { type: 'passenger.checked-in' }, event(flight, pnrs[1], 'passenger.checked-in', now)]).expect(200);
+    expect(res.body.results.map((r: { status: string }) => r.status)).toEqual(['applied', 'rejected', 'duplicate', 'rejected', 'applied']);
+    expect(res.body.results[1].message).toContain('pnr');
+    expect(res.body.results[3].details[0].field).toBe('id');
+    const rows = await db.getRepository(PassengerEntity).findBy({ flightId: flight.id });
+    expect(rows.map((p) => p.status)).toEqual(['checked-in', 'checked-in']);
+    expect(await db.getRepository(FlightEventEntity).countBy({ flightId: flight.id })).toBe(2);
+  });
+});
+
 describe('versions and reads', () => {
   it('a recompute that read earlier cannot overwrite figures read later', async () => {
     const { flight, pnrs } = await flightWithTwo();
