@@ -14,8 +14,11 @@ export const flightKeys = {
 
 /** A slow safety net under the socket: a missed notice still shows up within a minute (a 304 when nothing moved). */
 const SAFETY_REFETCH_MS = 60_000;
-/** Notices keep the desk current; a refetch happens only on a version gap, a reconnect or the safety net. */
-const LIVE_STALE_MS = Infinity;
+/**
+ * Notices keep a mounted desk current, and a patch counts as fresh data. Opening the desk again asks at once: notices
+ * went unheard while it was closed, and the answer is a 304 when nothing moved.
+ */
+const LIVE_STALE_MS = 0;
 
 export const flightDeskQueryOptions = (id: number) =>
   queryOptions({
