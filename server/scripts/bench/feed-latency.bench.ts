@@ -18,6 +18,7 @@ import { createDataSource } from '../../src/db/data-source';
 import { DEMO_PASSWORD, DEMO_USERS } from '../../src/demo/scenario';
 import { openConsoles, signIn } from './feed/consoles';
 import { DeskConsole } from './feed/desk-console';
+import { compareThroughput } from './feed/throughput';
 import { HoldLedger } from './feed/hold-ledger';
 import { cpuSeconds } from './feed/proc-stats';
 import { createStationKeys, ensureFlights, forecastComputedAt, loadBenchFlights } from './feed/fixture';
@@ -107,6 +108,8 @@ async function main() {
       });
     });
     desks.forEach((d) => d.load());
+    // Every console first holds the desk as it opens, as an agent's screen would, before anything is counted.
+    for (const until = Date.now() + 60_000; desks.some((d) => !d.idle()) && Date.now() < until; ) await sleep(50);
     log(`${consoles.sockets.length} consoles connected and watching, each behaving like the desk (client model "${settings.clientModel}")`);
     // Start-up recomputes may still be reaching some consoles: start counting updates only once all is quiet.
     for (const until = Date.now() + 10_000; Date.now() - lastMessageAt < QUIET_MS && Date.now() < until; ) await sleep(50);
@@ -166,9 +169,13 @@ async function main() {
     const counts = await verifyCounts(db, settings.appUrl, cookies[0], flights);
     const memoryAfter = serverPid ? memory(serverPid) : null;
 
+    // After the load and its drain: the desk read at 50 connections against a constant route behind the same middleware.
+    consoles.closeAll();
+    const throughput = settings.throughputSeconds > 0 ? await compareThroughput(settings.appUrl, cookies[0], flights[0].id, settings.throughputSeconds) : null;
+
     const partial = {
       settings: { rate: settings.rate, seconds: settings.seconds, flights: flights.length, clients: consoles.sockets.length, sessions: cookies.length },
-      load, latency, counts,
+      load, latency, counts, throughput,
       holds: held,
       perEvent: {
         requestsPerConsole: traffic.requests / pairsExpected,

@@ -42,7 +42,7 @@ interface DeskNotice {
 
 /** One query of the desk: a refetch aborts the one in flight when the client passes the signal (`abortsInFlight`). */
 class QuerySlot {
-  private controller: AbortController | null = null;
+  controller: AbortController | null = null;
   private serial = 0;
   constructor(
     private readonly path: string,
@@ -76,7 +76,9 @@ class QuerySlot {
         this.controller = null;
         this.onData(body);
       },
-      () => undefined,
+      () => {
+        if (mine === this.serial) this.controller = null;
+      },
     );
   }
 }
@@ -128,6 +130,11 @@ export class DeskConsole {
     if (this.held && held.computedAt < this.held.computedAt) return;
     this.held = held;
     this.opts.onHeld(held, Date.now());
+  }
+
+  /** Holds the desk and has no request open. */
+  idle(): boolean {
+    return this.held !== null && [this.desk, ...this.others, ...this.denials].every((s) => s.controller === null);
   }
 
   /** First load, as the desk does when it mounts. */

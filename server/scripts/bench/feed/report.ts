@@ -2,6 +2,7 @@
 import type { CountCheck } from './verify';
 import type { LatencyFigures } from './ledger';
 import type { HoldFigures } from './hold-ledger';
+import type { ThroughputFigures } from './throughput';
 import type { LoadFigures } from './load';
 import type { CpuReport, Memory } from './proc-stats';
 import { ms } from './stats';
@@ -16,6 +17,7 @@ export interface FeedBenchResult {
   latency: LatencyFigures;
   counts: CountCheck;
   holds: HoldFigures;
+  throughput: ThroughputFigures | null;
   perEvent: { requestsPerConsole: number; bytesPerConsole: number; serverCpuMs: number; sqlStatements: number };
   traffic: {
     requests: number; bytes: number; notices: number; noticeBytes: number; discarded: number; aborted: number; patched: number;
@@ -68,6 +70,11 @@ export function printFigures(r: FeedBenchResult): void {
     'notices received / patched without a request': `${r.traffic.notices} / ${r.traffic.patched}`,
     'answers thrown away / requests aborted': `${r.traffic.discarded} / ${r.traffic.aborted}`,
     ...Object.fromEntries(Object.entries(r.traffic.byPath).map(([path, v]) => [`  GET ${path}`, `${v.requests} requests, ${(v.bytes / Math.max(1, v.requests) / 1024).toFixed(1)} KiB each`])),
+    ...(r.throughput ? {
+      'desk GET at 50 connections': `${r.throughput.desk.requestsPerSecond.toFixed(0)} req/s, p99 ${ms(r.throughput.desk.p99Ms)}, ${r.throughput.desk.non2xx} not 2xx`,
+      'same middleware, constant body (GET /api/auth/session)': `${r.throughput.reference.requestsPerSecond.toFixed(0)} req/s, p99 ${ms(r.throughput.reference.p99Ms)}`,
+      'desk GET / constant route (target >= 0.5)': `${r.throughput.ratio.toFixed(2)} (${r.throughput.ratio >= 0.5 ? 'met' : 'NOT met'})`,
+    } : {}),
     'POST -> notice p50 (every delivery)': ms(l.deliveries.p50),
     'POST -> notice p99 (every delivery)': ms(l.deliveries.p99),
     'POST -> notice max': ms(l.deliveries.max),

@@ -14,6 +14,8 @@ export interface FeedBenchSettings {
   resultFile?: string;
   /** How the consoles react to notices: as today's client (patch) or as the client before (refetch everything). */
   clientModel: 'patch' | 'refetch';
+  /** Seconds of each read-throughput run after the load (0 skips it). */
+  throughputSeconds: number;
   /** Keeps event ids unique when the bench runs twice against one database. */
   runId: string;
 }
@@ -64,6 +66,7 @@ export function readSettings(env: NodeJS.ProcessEnv): FeedBenchSettings {
     dbPid: optionalPid(env, 'BENCH_DB_PID'),
     resultFile: env.BENCH_RESULT_FILE || undefined,
     clientModel: clientModel(env.BENCH_CLIENT_MODEL),
+    throughputSeconds: whole(env, 'BENCH_THROUGHPUT_SECONDS', 5, 0, 60),
     runId: `${Date.now().toString(36)}${randomBytes(3).toString('hex')}`,
   };
 }
