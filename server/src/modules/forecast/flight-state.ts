@@ -40,7 +40,11 @@ export async function readFlightState(db: DataSource, flightId: number, at?: Dat
     db.getRepository(PassengerEntity).find({ where: { flightId }, order: { lastName: 'ASC', firstName: 'ASC', id: 'ASC' } }),
     db.getRepository(BookingEntity).find({ select: { id: true, pnr: true, travelsTogether: true }, where: { flightId } }),
     db.getRepository(VolunteerEntity).find({ select: { id: true, passengerIds: true }, where: { flightId, status: In(['accepted']) } }),
-    db.getRepository(FlightEventEntity).find({ where: { flightId }, order: { receivedAt: 'DESC', id: 'DESC' }, take: TRAIL_ROWS }),
+    // The trail's own columns only: the stored payload is large and never shown.
+    db.getRepository(FlightEventEntity).find({
+      select: { id: true, eventId: true, type: true, occurredAt: true, receivedAt: true, status: true, summary: true },
+      where: { flightId }, order: { receivedAt: 'DESC', id: 'DESC' }, take: TRAIL_ROWS,
+    }),
   ]);
   const together = new Map(bookings.map((b) => [b.id, b.travelsTogether]));
   const volunteered = new Set(accepted.flatMap((v) => v.passengerIds));
