@@ -19,6 +19,7 @@ import { DEMO_PASSWORD, DEMO_USERS } from '../../src/demo/scenario';
 import { openConsoles, signIn } from './feed/consoles';
 import { DeskConsole } from './feed/desk-console';
 import { compareThroughput } from './feed/throughput';
+import { openBrowserProbe, type BrowserProbe } from './feed/browser-probe';
 import { HoldLedger } from './feed/hold-ledger';
 import { cpuSeconds } from './feed/proc-stats';
 import { createStationKeys, ensureFlights, forecastComputedAt, loadBenchFlights } from './feed/fixture';
@@ -74,11 +75,14 @@ async function main() {
   await db.initialize();
   let consoles: Awaited<ReturnType<typeof openConsoles>> | null = null;
   try {
-    const flightIds = await ensureFlights(db, settings.flights);
+    // One flight more than the load drives, for the browser's own samples.
+    const allIds = await ensureFlights(db, settings.flights + (settings.browser ? 1 : 0));
+    const flightIds = allIds.slice(0, settings.flights);
+    const probeFlight = settings.browser ? (await loadBenchFlights(db, allIds.slice(settings.flights)))[0] : null;
     const flights = await loadBenchFlights(db, flightIds);
     const empty = flights.find((f) => f.passengers.length < 2);
     if (empty) throw new Error(`flight ${empty.carrier}${empty.number} has fewer than 2 passengers an event can move`);
-    const keys = await createStationKeys(db, flights.map((f) => f.stationId));
+    const keys = await createStationKeys(db, [...flights, ...(probeFlight ? [probeFlight] : [])].map((f) => f.stationId));
     const cookies: string[] = [];
     for (let i = 0; i < settings.sessions; i++) cookies.push(await signIn(settings.appUrl, DEMO_AGENT.email, DEMO_PASSWORD));
     log(`${flights.length} flights (${flights.reduce((s, f) => s + f.passengers.length, 0)} passengers in play), ${cookies.length} sessions`);
@@ -131,12 +135,24 @@ async function main() {
     const loopDelay = monitorEventLoopDelay({ resolution: 10 });
     loopDelay.enable();
 
+    let probe: BrowserProbe | null = null;
+    if (probeFlight) {
+      try {
+        probe = await openBrowserProbe({ appUrl: settings.appUrl, cookie: cookies[0], flight: probeFlight, feed: createFeed(settings.appUrl, keys, `${settings.runId}-browser`) });
+      } catch (err) {
+        log(`the browser could not open the desk (${err instanceof Error ? err.message : String(err)}): no browser figures`);
+      }
+    }
     log(`load: ${settings.rate} events/s for ${settings.seconds} s`);
+    const browserRun = probe?.run(Date.now() + settings.seconds * 1000, 20) ?? Promise.resolve(null);
     const load = await runLoad({
       appUrl: settings.appUrl, flights, keys, rate: settings.rate, seconds: settings.seconds, runId: settings.runId, ledger,
       onApplied: (flightId, sentAt, answeredAt) => holds.answered(flightId, sentAt, answeredAt),
       onProgress: (sent, planned) => log(`${sent} / ${planned} events sent`),
     });
+
+    const browser = await browserRun.catch(() => null);
+    await probe?.close();
 
     // Re-announce one passenger per flight as they already stand (counts do not move): a last recompute covers events
     // whose POST answered after the previous recompute had started. These events are not measured.
@@ -175,7 +191,7 @@ async function main() {
 
     const partial = {
       settings: { rate: settings.rate, seconds: settings.seconds, flights: flights.length, clients: consoles.sockets.length, sessions: cookies.length },
-      load, latency, counts, throughput,
+      load, latency, counts, throughput, browser,
       holds: held,
       perEvent: {
         requestsPerConsole: traffic.requests / pairsExpected,

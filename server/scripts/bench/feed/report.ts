@@ -3,6 +3,7 @@ import type { CountCheck } from './verify';
 import type { LatencyFigures } from './ledger';
 import type { HoldFigures } from './hold-ledger';
 import type { ThroughputFigures } from './throughput';
+import type { BrowserFigures } from './browser-probe';
 import type { LoadFigures } from './load';
 import type { CpuReport, Memory } from './proc-stats';
 import { ms } from './stats';
@@ -18,6 +19,7 @@ export interface FeedBenchResult {
   counts: CountCheck;
   holds: HoldFigures;
   throughput: ThroughputFigures | null;
+  browser: BrowserFigures | null;
   perEvent: { requestsPerConsole: number; bytesPerConsole: number; serverCpuMs: number; sqlStatements: number };
   traffic: {
     requests: number; bytes: number; notices: number; noticeBytes: number; discarded: number; aborted: number; patched: number;
@@ -70,6 +72,9 @@ export function printFigures(r: FeedBenchResult): void {
     'notices received / patched without a request': `${r.traffic.notices} / ${r.traffic.patched}`,
     'answers thrown away / requests aborted': `${r.traffic.discarded} / ${r.traffic.aborted}`,
     ...Object.fromEntries(Object.entries(r.traffic.byPath).map(([path, v]) => [`  GET ${path}`, `${v.requests} requests, ${(v.bytes / Math.max(1, v.requests) / 1024).toFixed(1)} KiB each`])),
+    ...(r.browser ? {
+      'browser: POST -> count changes in the DOM p50 / max': `${ms(r.browser.p50)} / ${ms(r.browser.max)} (${r.browser.samples.length} samples, ${r.browser.timeouts} over 30 s)`,
+    } : {}),
     ...(r.throughput ? {
       'desk GET at 50 connections': `${r.throughput.desk.requestsPerSecond.toFixed(0)} req/s, p99 ${ms(r.throughput.desk.p99Ms)}, ${r.throughput.desk.non2xx} not 2xx`,
       'same middleware, constant body (GET /api/auth/session)': `${r.throughput.reference.requestsPerSecond.toFixed(0)} req/s, p99 ${ms(r.throughput.reference.p99Ms)}`,

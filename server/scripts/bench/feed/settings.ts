@@ -14,6 +14,8 @@ export interface FeedBenchSettings {
   resultFile?: string;
   /** How the consoles react to notices: as today's client (patch) or as the client before (refetch everything). */
   clientModel: 'patch' | 'refetch';
+  /** One headless Chromium on the desk of an extra flight, timing POST to the count changing in its DOM. */
+  browser: boolean;
   /** Seconds of each read-throughput run after the load (0 skips it). */
   throughputSeconds: number;
   /** Keeps event ids unique when the bench runs twice against one database. */
@@ -57,7 +59,7 @@ export function readSettings(env: NodeJS.ProcessEnv): FeedBenchSettings {
   return {
     appUrl,
     databaseUrl,
-    seconds: whole(env, 'BENCH_SECONDS', 30, 1, 600),
+    seconds: whole(env, 'BENCH_SECONDS', 60, 1, 600),
     rate: whole(env, 'BENCH_RATE', 200, 1, 5000),
     flights: whole(env, 'BENCH_FLIGHTS', 20, 1, 200),
     clients: whole(env, 'BENCH_CLIENTS', 300, 1, 5000),
@@ -66,6 +68,7 @@ export function readSettings(env: NodeJS.ProcessEnv): FeedBenchSettings {
     dbPid: optionalPid(env, 'BENCH_DB_PID'),
     resultFile: env.BENCH_RESULT_FILE || undefined,
     clientModel: clientModel(env.BENCH_CLIENT_MODEL),
+    browser: whole(env, 'BENCH_BROWSER', 1, 0, 1) === 1,
     throughputSeconds: whole(env, 'BENCH_THROUGHPUT_SECONDS', 5, 0, 60),
     runId: `${Date.now().toString(36)}${randomBytes(3).toString('hex')}`,
   };
