@@ -8,6 +8,7 @@ import { startPrivateMariadb } from './lib/mariadb.mjs';
 import { migrateAndLoadDemo, serviceEnv } from './lib/stack.mjs';
 import { startChild, stopChildren, waitForHttp } from './lib/processes.mjs';
 import { say } from './lib/log.mjs';
+import { buildClientIfStale } from './lib/client-build.mjs';
 import { finishedChild } from './bench/finished-child.mjs';
 import { printSummary } from './bench/summary.mjs';
 
@@ -77,6 +78,8 @@ async function main() {
   let env;
   let server;
   const stackUp = await step('bench stack (MariaDB, migrations, demo, server)', async () => {
+    // The browser sample loads the desk from the built client the server serves.
+    if (process.env.BENCH_BROWSER !== '0') buildClientIfStale();
     db = await startPrivateMariadb({ baseDir: `${local}/db`, port: ports.db });
     db.resetDatabase();
     migrateAndLoadDemo(db.url, { local });

@@ -66,7 +66,7 @@ export function createApp(deps: AppDeps) {
   app.use('/api/health', healthRouter(deps));
 
   const publisher = deps.publisher ?? silentPublisher;
-  const forecast = deps.forecast ?? createForecastScheduler(deps.db, (o) => publisher.flightChanged(o.flightId, o.stationId, ['forecast', 'counts', 'events']));
+  const forecast = deps.forecast ?? createForecastScheduler(deps.db, (o) => publisher.flightChanged(o.flightId, o.stationId, ['forecast', 'counts', 'events'], o.notice));
   // The feed authenticates with an API key, not a session: mounted before the session and CSRF middleware.
   const changed = (flightId: number, stationId: number, topics: string[]) => {
     publisher.flightChanged(flightId, stationId, topics);
@@ -101,7 +101,7 @@ export function createApp(deps: AppDeps) {
   api.use('/stations/:stationId/show-up-profile', showUpProfilesRouter({ db: deps.db, onFlightsChanged: (ids) => ids.forEach((id) => forecast.markDirty(id)) }));
   api.use('/stations', stationsRouter(deps));
   api.use('/flights/:flightId/notices', noticesRouter({ db: deps.db }));
-  api.use('/flights', flightDeskRouter({ db: deps.db, onFlightChanged: (id, stationId) => publisher.flightChanged(id, stationId, ['forecast', 'shock']) }));
+  api.use('/flights', flightDeskRouter({ db: deps.db, onFlightChanged: (id, stationId, data) => publisher.flightChanged(id, stationId, ['forecast', 'shock'], data) }));
   api.use('/departures', departuresRouter(deps));
   api.use('/plans', plansRouter(deps));
   api.use((req) => {

@@ -18,7 +18,7 @@ await db.initialize();
 const session = createSessionSetup(env);
 const ioRef: { io?: AppIo } = {};
 const publisher = socketPublisher(() => ioRef.io);
-const forecast = createForecastScheduler(db, (o) => publisher.flightChanged(o.flightId, o.stationId, ['forecast', 'counts', 'events']));
+const forecast = createForecastScheduler(db, (o) => publisher.flightChanged(o.flightId, o.stationId, ['forecast', 'counts', 'events'], o.notice));
 forecast.startClock();
 const mailTransport = createMailTransport(env);
 const outbox = createOutboxWorker(db, mailTransport);

@@ -30,7 +30,11 @@ export const forecastSchema = z.object({
 });
 export type Forecast = z.infer<typeof forecastSchema>;
 
+/** The flight's forecast version the payload was built at: notices carry the next one (see shared/events). */
+const versionField = z.number().int().min(0);
+
 export const flightDeskSchema = z.object({
+  version: versionField,
   flight: z.object({
     id: z.number(), carrierCode: z.string(), flightNumber: z.string(), serviceDate: z.string(), origin: z.string(), destination: z.string(),
     scheduledDeparture: z.string(), scheduledArrival: z.string(), gate: z.string().nullable(), state: flightStateSchema, aircraftType: z.string().nullable(),
@@ -56,10 +60,10 @@ export const deskPassengerSchema = z.object({
   showProbability: z.number(), why: z.string(),
 });
 export type DeskPassenger = z.infer<typeof deskPassengerSchema>;
-export const deskPassengersSchema = z.object({ passengers: z.array(deskPassengerSchema) });
+export const deskPassengersSchema = z.object({ version: versionField, passengers: z.array(deskPassengerSchema) });
 
 export const forecastPointSchema = z.object({ at: z.string(), pOversale: z.number(), expectedDenied: z.number(), checkedIn: z.number(), booked: z.number() });
-export const forecastHistorySchema = z.object({ points: z.array(forecastPointSchema) });
+export const forecastHistorySchema = z.object({ version: versionField, points: z.array(forecastPointSchema) });
 
 export const flightEventRowSchema = z.object({ id: z.number(), eventId: z.string(), type: z.string(), occurredAt: z.string(), receivedAt: z.string(), status: z.string(), summary: z.string() });
-export const flightEventTrailSchema = z.object({ events: z.array(flightEventRowSchema) });
+export const flightEventTrailSchema = z.object({ version: versionField, events: z.array(flightEventRowSchema) });

@@ -4,6 +4,7 @@ import tseslint from 'typescript-eslint';
 import reactHooks from 'eslint-plugin-react-hooks';
 import pluginQuery from '@tanstack/eslint-plugin-query';
 import globals from 'globals';
+import boundaries from 'eslint-plugin-boundaries';
 
 export default tseslint.config(
   { ignores: ['dist/**', 'node_modules/**', '.local/**', 'test-results/**'] },
@@ -26,11 +27,36 @@ export default tseslint.config(
     },
   },
   {
-    // Features stay independent: a feature may use shared code and ui components, never another feature.
-    files: ['client/src/features/**/*.{ts,tsx}'],
+    // One-way layers on the client: app composes features; a feature uses lib/, components/ui/ and @shared, never
+    // another feature or the app; lib/ and ui/ know no feature. Checked on resolved paths, so any import spelling counts.
+    files: ['client/src/**/*.{ts,tsx}'],
+    plugins: { boundaries },
+    settings: {
+      'import/resolver': { node: { extensions: ['.ts', '.tsx', '.js'] } },
+      'boundaries/elements': [
+        { type: 'feature', pattern: 'client/src/features/*', capture: ['name'] },
+        { type: 'app', pattern: 'client/src/app' },
+        { type: 'lib', pattern: 'client/src/lib' },
+        { type: 'ui', pattern: 'client/src/components/ui' },
+        { type: 'shared', pattern: 'shared' },
+      ],
+    },
     rules: {
-      // From features/<a>/<dir>/file, "../../<b>/…" reaches another feature; "../../../lib" is the shared layer.
-      'no-restricted-imports': ['error', { patterns: [{ regex: '^\\.\\./\\.\\./(?!\\.\\./)', message: 'A feature must not import another feature; move shared code to lib/ or components/.' }] }],
+      'boundaries/dependencies': [2, {
+        default: 'allow',
+        policies: [
+          {
+            from: { element: { type: 'feature' } },
+            disallow: { to: { element: { types: { anyOf: ['feature', 'app'] } } } },
+            message: 'A feature must not import another feature or the app; move shared code to lib/ or components/ui/.',
+          },
+          {
+            from: { element: { types: { anyOf: ['lib', 'ui', 'shared'] } } },
+            disallow: { to: { element: { types: { anyOf: ['feature', 'app'] } } } },
+            message: 'lib/, components/ui/ and shared/ sit below the features and know none of them.',
+          },
+        ],
+      }],
     },
   },
   {

@@ -28,11 +28,11 @@ export function onUnauthenticated(listener: Listener) {
   };
 }
 
-export async function apiRequest<S extends ZodType>(method: string, path: string, schema: S | null, body?: unknown): Promise<z.infer<S>> {
+export async function apiRequest<S extends ZodType>(method: string, path: string, schema: S | null, body?: unknown, signal?: AbortSignal): Promise<z.infer<S>> {
   const headers: Record<string, string> = { Accept: 'application/json' };
   if (body !== undefined) headers['Content-Type'] = 'application/json';
   if (method !== 'GET') headers['X-CSRF-Token'] = csrfToken;
-  const res = await fetch(`/api${path}`, { method, headers, body: body === undefined ? undefined : JSON.stringify(body), credentials: 'same-origin' });
+  const res = await fetch(`/api${path}`, { method, headers, body: body === undefined ? undefined : JSON.stringify(body), credentials: 'same-origin', signal });
   if (res.status === 204) return undefined as z.infer<S>;
   const json: unknown = await res.json().catch(() => ({ error: 'bad_response', message: `The server answered ${res.status} without a readable body.` }));
   if (!res.ok) {
@@ -45,7 +45,8 @@ export async function apiRequest<S extends ZodType>(method: string, path: string
 }
 
 export const api = {
-  get: <S extends ZodType>(path: string, schema: S) => apiRequest('GET', path, schema),
+  /** `signal`: TanStack Query's, so a query replaced or unmounted stops its request instead of letting it run on. */
+  get: <S extends ZodType>(path: string, schema: S, signal?: AbortSignal) => apiRequest('GET', path, schema, undefined, signal),
   post: <S extends ZodType>(path: string, schema: S | null, body?: unknown) => apiRequest('POST', path, schema, body ?? {}),
   patch: <S extends ZodType>(path: string, schema: S | null, body?: unknown) => apiRequest('PATCH', path, schema, body ?? {}),
   del: <S extends ZodType>(path: string, schema: S | null) => apiRequest('DELETE', path, schema),

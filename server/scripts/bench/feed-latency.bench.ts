@@ -17,6 +17,11 @@ import { monitorEventLoopDelay } from 'node:perf_hooks';
 import { createDataSource } from '../../src/db/data-source';
 import { DEMO_PASSWORD, DEMO_USERS } from '../../src/demo/scenario';
 import { openConsoles, signIn } from './feed/consoles';
+import { DeskConsole } from './feed/desk-console';
+import { compareThroughput } from './feed/throughput';
+import { openBrowserProbe, type BrowserProbe } from './feed/browser-probe';
+import { HoldLedger } from './feed/hold-ledger';
+import { cpuSeconds } from './feed/proc-stats';
 import { createStationKeys, ensureFlights, forecastComputedAt, loadBenchFlights } from './feed/fixture';
 import { Ledger } from './feed/ledger';
 import { createFeed, runLoad } from './feed/load';
@@ -24,6 +29,36 @@ import { memory, pidListeningOn, sampleCpu, sampleMachine, type CpuReport } from
 import { goalOf, printFigures, type FeedBenchResult } from './feed/report';
 import { readSettings } from './feed/settings';
 import { verifyCounts } from './feed/verify';
+import { expectedCheckedIn } from './feed/fixture';
+import type { ConsoleCounters } from './feed/desk-console';
+import type { DataSource } from 'typeorm';
+
+/** Statements the database server has received so far (its own counter, all clients). */
+async function questions(db: DataSource): Promise<number> {
+  const rows: { Value: string }[] = await db.query(`SHOW GLOBAL STATUS LIKE 'Questions'`);
+  return Number(rows[0]?.Value ?? NaN);
+}
+
+/** What the consoles asked and received during the load: totals, and per path. */
+function trafficOf(now: ConsoleCounters[], before: ConsoleCounters[]) {
+  const sum = (pick: (c: ConsoleCounters) => number) => now.reduce((a, c, i) => a + pick(c) - pick(before[i]), 0);
+  const byPath = new Map<string, { requests: number; bytes: number }>();
+  now.forEach((c, i) => {
+    for (const [path, v] of c.byPath) {
+      const key = path.replace(/\/\d+/g, '/:id');
+      const was = before[i].byPath.get(path) ?? { requests: 0, bytes: 0 };
+      const t = byPath.get(key) ?? { requests: 0, bytes: 0 };
+      t.requests += v.requests - was.requests;
+      t.bytes += v.bytes - was.bytes;
+      byPath.set(key, t);
+    }
+  });
+  return {
+    requests: sum((c) => c.requests), bytes: sum((c) => c.bytes), notices: sum((c) => c.notices), noticeBytes: sum((c) => c.noticeBytes),
+    discarded: sum((c) => c.discarded), aborted: sum((c) => c.aborted), patched: sum((c) => c.patched),
+    byPath: Object.fromEntries(byPath),
+  };
+}
 
 const QUIET_MS = 600;
 /** Consoles sign in as the demo's gate agent, who works every demo station. */
@@ -40,16 +75,26 @@ async function main() {
   await db.initialize();
   let consoles: Awaited<ReturnType<typeof openConsoles>> | null = null;
   try {
-    const flightIds = await ensureFlights(db, settings.flights);
+    // One flight more than the load drives, for the browser's own samples.
+    const allIds = await ensureFlights(db, settings.flights + (settings.browser ? 1 : 0));
+    const flightIds = allIds.slice(0, settings.flights);
+    const probeFlight = settings.browser ? (await loadBenchFlights(db, allIds.slice(settings.flights)))[0] : null;
     const flights = await loadBenchFlights(db, flightIds);
     const empty = flights.find((f) => f.passengers.length < 2);
     if (empty) throw new Error(`flight ${empty.carrier}${empty.number} has fewer than 2 passengers an event can move`);
-    const keys = await createStationKeys(db, flights.map((f) => f.stationId));
+    const keys = await createStationKeys(db, [...flights, ...(probeFlight ? [probeFlight] : [])].map((f) => f.stationId));
     const cookies: string[] = [];
     for (let i = 0; i < settings.sessions; i++) cookies.push(await signIn(settings.appUrl, DEMO_AGENT.email, DEMO_PASSWORD));
     log(`${flights.length} flights (${flights.reduce((s, f) => s + f.passengers.length, 0)} passengers in play), ${cookies.length} sessions`);
 
-    const ledger = new Ledger(flightIds, (id) => forecastComputedAt(db, id));
+    // The bench's own look-ups are subtracted from the server's SQL statement count.
+    let ownStatements = 0;
+    const ledger = new Ledger(flightIds, (id) => {
+      ownStatements++;
+      return forecastComputedAt(db, id);
+    });
+    const consolesOf = new Map<number, number[]>();
+    const holds = new HoldLedger((id) => consolesOf.get(id) ?? []);
     let lastMessageAt = Date.now();
     consoles = await openConsoles({
       appUrl: settings.appUrl, cookies, flightIds, clients: settings.clients,
@@ -58,16 +103,31 @@ async function main() {
         ledger.received(client, flightId, at);
       },
     });
-    log(`${consoles.sockets.length} consoles connected and watching`);
+    const desks = consoles.sockets.map((socket, i) => {
+      const flightId = flightIds[i % flightIds.length];
+      consolesOf.set(flightId, [...(consolesOf.get(flightId) ?? []), i]);
+      return new DeskConsole({
+        model: settings.clientModel, appUrl: settings.appUrl, cookie: cookies[i % cookies.length], flightId, socket,
+        onHeld: (held, at) => holds.held(i, flightId, held.computedAt, at),
+      });
+    });
+    desks.forEach((d) => d.load());
+    // Every console first holds the desk as it opens, as an agent's screen would, before anything is counted.
+    for (const until = Date.now() + 60_000; desks.some((d) => !d.idle()) && Date.now() < until; ) await sleep(50);
+    log(`${consoles.sockets.length} consoles connected and watching, each behaving like the desk (client model "${settings.clientModel}")`);
     // Start-up recomputes may still be reaching some consoles: start counting updates only once all is quiet.
     for (const until = Date.now() + 10_000; Date.now() - lastMessageAt < QUIET_MS && Date.now() < until; ) await sleep(50);
     await ledger.settle();
     ledger.reset();
+    const countersBefore = desks.map((d) => ({ ...d.counters, byPath: new Map([...d.counters.byPath].map(([k, v]) => [k, { ...v }])) }));
+    const statementsBefore = await questions(db);
+    holds.start();
 
     const serverPid = pidListeningOn(Number(new URL(settings.appUrl).port || 80), settings.serverPid);
     if (!serverPid) log('could not find the server process by its port: CPU and memory are not reported');
     const memoryBefore = serverPid ? memory(serverPid) : null;
     const serverCpu = serverPid ? sampleCpu(serverPid) : null;
+    const serverCpuStart = serverPid ? cpuSeconds(serverPid) : NaN;
     const dbCpu = settings.dbPid ? sampleCpu(settings.dbPid) : null;
     const machine = sampleMachine();
     const benchCpuStart = process.cpuUsage();
@@ -75,11 +135,24 @@ async function main() {
     const loopDelay = monitorEventLoopDelay({ resolution: 10 });
     loopDelay.enable();
 
+    let probe: BrowserProbe | null = null;
+    if (probeFlight) {
+      try {
+        probe = await openBrowserProbe({ appUrl: settings.appUrl, cookie: cookies[0], flight: probeFlight, feed: createFeed(settings.appUrl, keys, `${settings.runId}-browser`) });
+      } catch (err) {
+        log(`the browser could not open the desk (${err instanceof Error ? err.message : String(err)}): no browser figures`);
+      }
+    }
     log(`load: ${settings.rate} events/s for ${settings.seconds} s`);
+    const browserRun = probe?.run(Date.now() + settings.seconds * 1000, 20) ?? Promise.resolve(null);
     const load = await runLoad({
       appUrl: settings.appUrl, flights, keys, rate: settings.rate, seconds: settings.seconds, runId: settings.runId, ledger,
+      onApplied: (flightId, sentAt, answeredAt) => holds.answered(flightId, sentAt, answeredAt),
       onProgress: (sent, planned) => log(`${sent} / ${planned} events sent`),
     });
+
+    const browser = await browserRun.catch(() => null);
+    await probe?.close();
 
     // Re-announce one passenger per flight as they already stand (counts do not move): a last recompute covers events
     // whose POST answered after the previous recompute had started. These events are not measured.
@@ -88,10 +161,12 @@ async function main() {
     await Promise.all(flights.map((f) => sweep.post(f, f.passengers[0], f.passengers[0].checkedIn, Date.now())));
     for (const until = Date.now() + drainTimeoutMs(settings.seconds); Date.now() < until; ) {
       await ledger.settle();
-      if (ledger.uncovered() === 0 && Date.now() - lastMessageAt >= QUIET_MS) break;
+      if (ledger.uncovered() === 0 && holds.behind() === 0 && Date.now() - lastMessageAt >= QUIET_MS) break;
       await sleep(50);
     }
     await ledger.settle();
+    const serverCpuSeconds = serverPid ? cpuSeconds(serverPid) - serverCpuStart : NaN;
+    const statements = (await questions(db)) - statementsBefore - ownStatements - 1;
     loopDelay.disable();
     const cpu: { server: CpuReport | null; db: CpuReport | null } = { server: serverCpu?.stop() ?? null, db: dbCpu?.stop() ?? null };
     const machineLoad = machine.stop();
@@ -99,12 +174,32 @@ async function main() {
     const benchCpuPercent = ((benchUsage.user + benchUsage.system) / 1000 / (Date.now() - benchStart)) * 100;
 
     const latency = ledger.figures();
+    const held = holds.figures();
+    const traffic = trafficOf(desks.map((d) => d.counters), countersBefore);
+    const applied = load.statuses.applied + load.statuses.superseded;
+    const pairsExpected = [...consolesOf.values()].reduce((a, list) => a + list.length, 0) / Math.max(1, consolesOf.size) * applied;
+    const finalHeld = desks.filter((d, i) => {
+      const f = flights[i % flights.length];
+      return d.held?.checkedIn === expectedCheckedIn(f);
+    }).length;
     const counts = await verifyCounts(db, settings.appUrl, cookies[0], flights);
     const memoryAfter = serverPid ? memory(serverPid) : null;
 
+    // After the load and its drain: the desk read at 50 connections against a constant route behind the same middleware.
+    consoles.closeAll();
+    const throughput = settings.throughputSeconds > 0 ? await compareThroughput(settings.appUrl, cookies[0], flights[0].id, settings.throughputSeconds) : null;
+
     const partial = {
       settings: { rate: settings.rate, seconds: settings.seconds, flights: flights.length, clients: consoles.sockets.length, sessions: cookies.length },
-      load, latency, counts,
+      load, latency, counts, throughput, browser,
+      holds: held,
+      perEvent: {
+        requestsPerConsole: traffic.requests / pairsExpected,
+        bytesPerConsole: (traffic.bytes + traffic.noticeBytes) / pairsExpected,
+        serverCpuMs: (serverCpuSeconds * 1000) / Math.max(1, applied),
+        sqlStatements: statements / Math.max(1, applied),
+      },
+      traffic: { ...traffic, consolesHoldingExactCount: finalHeld },
       server: { pid: serverPid, cpu: cpu.server, memoryBefore, memoryAfter },
       database: { pid: settings.dbPid ?? null, cpu: cpu.db },
       machine: machineLoad,

@@ -12,7 +12,10 @@ function feedLines(r) {
   const lost = r.latency.eventsNeverCovered + s.rejected + s.failed;
   return [
     `${r.settings.rate}/s x ${r.settings.seconds} s, ${r.settings.flights} flights, ${r.settings.clients} consoles`,
-    `POST -> console p50 ${ms(r.latency.deliveries.p50)}, p99 ${ms(r.latency.deliveries.p99)} (goal < ${r.goal.p99UnderMs} ms: ${r.goal.latencyMet ? 'met' : 'NOT met'}), max ${ms(r.latency.deliveries.max)}`,
+    `POST -> console holds the data p50 ${ms(r.holds.pairs.p50)}, p95 ${ms(r.holds.pairs.p95)}, p99 ${ms(r.holds.pairs.p99)} (goal < ${r.goal.p99UnderMs} ms: ${r.goal.latencyMet ? 'met' : 'NOT met'}), max ${ms(r.holds.pairs.max)}`,
+    `per event: ${r.perEvent.serverCpuMs.toFixed(2)} ms server CPU (goal <= 1.5), ${r.perEvent.sqlStatements.toFixed(1)} SQL statements (goal <= 4), ${r.perEvent.requestsPerConsole.toFixed(2)} requests and ${Math.round(r.perEvent.bytesPerConsole)} B per console (goal <= 2048 B)`,
+    ...(r.browser ? [`browser on the desk: POST -> count in the DOM p50 ${ms(r.browser.p50)}, max ${ms(r.browser.max)} (${r.browser.samples.length} samples)`] : []),
+    ...(r.throughput ? [`desk GET ${Math.round(r.throughput.desk.requestsPerSecond)} req/s vs ${Math.round(r.throughput.reference.requestsPerSecond)} req/s for a constant route behind the same middleware: ${r.throughput.ratio.toFixed(2)} (goal >= 0.5)`] : []),
     `events ${r.load.sent} sent, ${s.applied + s.superseded} applied, ${lost} lost; counts exact on ${Math.min(r.counts.exactStored, r.counts.exactShown)}/${r.settings.flights} flights (${r.goal.nothingLost ? 'nothing lost' : 'SOMETHING LOST'})`,
     `server CPU ${pct(r.server.cpu)} of one core; RSS ${mib(r.server.memoryAfter, 'rssMiB')}, peak ${mib(r.server.memoryAfter, 'peakRssMiB')}; MariaDB CPU ${pct(r.database.cpu)}`,
     `whole machine ${r.machine.busyPercent.toFixed(0)} % busy of ${r.machine.cores * 100} %, ${others(r).toFixed(0)} % of it by other processes${others(r) > 25 ? ' (figures disturbed: rerun on a quiet machine)' : ''}`,

@@ -13,6 +13,8 @@ export interface LoadOptions {
   seconds: number;
   runId: string;
   ledger: Ledger;
+  /** Told of every applied event with its send and answer times. */
+  onApplied?: (flightId: number, sentAt: number, answeredAt: number) => void;
   onProgress?: (sent: number, planned: number) => void;
 }
 
@@ -95,6 +97,7 @@ export async function runLoad(opts: LoadOptions): Promise<LoadFigures> {
         statuses[key]++;
         if (key !== 'applied' && key !== 'superseded') firstRejection ??= `${key}: ${r.message}`;
         done(key === 'applied' || key === 'superseded', r.answeredAt);
+        if (key === 'applied' || key === 'superseded') opts.onApplied?.(flight.id, sentAt, r.answeredAt);
       },
       (err: unknown) => {
         statuses.failed++;

@@ -8,6 +8,12 @@ describe('readSettings', () => {
     expect(readSettings({ DATABASE_URL: db })).toMatchObject({ appUrl: 'http://127.0.0.1:4900', seconds: 60, rate: 200, flights: 20, clients: 300 });
   });
 
+  it('drives consoles as today’s client, with the browser sample and the throughput runs, unless told otherwise', () => {
+    expect(readSettings({ DATABASE_URL: db })).toMatchObject({ clientModel: 'patch', browser: true, throughputSeconds: 5 });
+    expect(readSettings({ DATABASE_URL: db, BENCH_CLIENT_MODEL: 'refetch', BENCH_BROWSER: '0', BENCH_THROUGHPUT_SECONDS: '0' })).toMatchObject({ clientModel: 'refetch', browser: false, throughputSeconds: 0 });
+    expect(() => readSettings({ DATABASE_URL: db, BENCH_CLIENT_MODEL: 'poll' })).toThrow('BENCH_CLIENT_MODEL must be "patch" or "refetch" (got "poll")');
+  });
+
   it('names the variable and the rule for a bad number', () => {
     expect(() => readSettings({ DATABASE_URL: db, BENCH_SECONDS: '0' })).toThrow('BENCH_SECONDS must be a whole number from 1 to 600 (got "0")');
     expect(() => readSettings({ DATABASE_URL: db, BENCH_RATE: '2.5' })).toThrow(/^BENCH_RATE must be a whole number/);

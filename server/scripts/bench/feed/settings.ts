@@ -12,6 +12,12 @@ export interface FeedBenchSettings {
   serverPid?: number;
   dbPid?: number;
   resultFile?: string;
+  /** How the consoles react to notices: as today's client (patch) or as the client before (refetch everything). */
+  clientModel: 'patch' | 'refetch';
+  /** One headless Chromium on the desk of an extra flight, timing POST to the count changing in its DOM. */
+  browser: boolean;
+  /** Seconds of each read-throughput run after the load (0 skips it). */
+  throughputSeconds: number;
   /** Keeps event ids unique when the bench runs twice against one database. */
   runId: string;
 }
@@ -28,6 +34,12 @@ function whole(env: NodeJS.ProcessEnv, name: string, fallback: number, min: numb
 
 function optionalPid(env: NodeJS.ProcessEnv, name: string): number | undefined {
   return env[name] ? whole(env, name, 0, 1, 2 ** 22) : undefined;
+}
+
+function clientModel(raw: string | undefined): 'patch' | 'refetch' {
+  if (raw === undefined || raw === '' || raw === 'patch') return 'patch';
+  if (raw === 'refetch') return 'refetch';
+  throw new Error(`BENCH_CLIENT_MODEL must be "patch" or "refetch" (got "${raw}")`);
 }
 
 export function readSettings(env: NodeJS.ProcessEnv): FeedBenchSettings {
@@ -55,6 +67,9 @@ export function readSettings(env: NodeJS.ProcessEnv): FeedBenchSettings {
     serverPid: optionalPid(env, 'BENCH_SERVER_PID'),
     dbPid: optionalPid(env, 'BENCH_DB_PID'),
     resultFile: env.BENCH_RESULT_FILE || undefined,
+    clientModel: clientModel(env.BENCH_CLIENT_MODEL),
+    browser: whole(env, 'BENCH_BROWSER', 1, 0, 1) === 1,
+    throughputSeconds: whole(env, 'BENCH_THROUGHPUT_SECONDS', 5, 0, 60),
     runId: `${Date.now().toString(36)}${randomBytes(3).toString('hex')}`,
   };
 }

@@ -1,5 +1,5 @@
 import { Column, Entity, Index, PrimaryColumn, PrimaryGeneratedColumn } from 'typeorm';
-import type { Forecast } from '@shared/schemas/flight-desk';
+import type { CompactForecast } from '@shared/events';
 
 /** The latest figures per flight, read by every console; replaced on each recompute. */
 @Entity({ name: 'flight_forecasts' })
@@ -10,16 +10,21 @@ export class FlightForecastEntity {
   @Column({ type: 'datetime', precision: 3, name: 'computed_at' })
   computedAt!: Date;
 
+  /** Rises by one on every write; a write never goes to a row whose figures were computed later (see forecast.service). */
+  @Column({ type: 'int', unsigned: true, default: 0 })
+  version!: number;
+
   @Column({ type: 'double', name: 'p_oversale' })
   pOversale!: number;
 
   @Column({ type: 'double', name: 'expected_denied' })
   expectedDenied!: number;
 
+  /** The figures, with the distribution as its window (a few KB instead of tens). */
   @Column({ type: 'json' })
-  forecast!: Forecast;
+  forecast!: CompactForecast;
 
-  /** Per-cabin figures and per-passenger probabilities with their reasons, as last computed. */
+  /** Per-cabin figures as last computed (each passenger's probability and reason are computed when asked for). */
   @Column({ type: 'json' })
   detail!: object;
 }

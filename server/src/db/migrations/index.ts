@@ -14,6 +14,7 @@ import { CompensationAmountCleared1796220100000 } from './1796220100000-Compensa
 import { RefusalsAndRecordedDenials1796240000000 } from './1796240000000-RefusalsAndRecordedDenials';
 import { JourneyAndBookingLimit1796250000000 } from './1796250000000-JourneyAndBookingLimit';
 import { AlertsAndCabinChanges1796260000000 } from './1796260000000-AlertsAndCabinChanges';
+import { ForecastVersion1796270000000 } from './1796270000000-ForecastVersion';
 import { ForeignKeys1796290000000 } from './1796290000000-ForeignKeys';
 
 export const migrations = [
@@ -32,5 +33,6 @@ export const migrations = [
   RefusalsAndRecordedDenials1796240000000,
   JourneyAndBookingLimit1796250000000,
   AlertsAndCabinChanges1796260000000,
+  ForecastVersion1796270000000,
   ForeignKeys1796290000000,
 ];

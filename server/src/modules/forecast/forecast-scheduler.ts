@@ -1,9 +1,10 @@
-// Coalesces bursts: a batch of 200 check-ins marks a flight dirty 200 times and recomputes it once. A recompute
-// starts at most `delayMs` after the first change, so figures are never stale for longer than that plus the work.
+// Coalesces recomputes per flight: at most one runs per flight at a time, and changes that arrive meanwhile are
+// taken together by the next one (the latest state wins). When idle a change is recomputed at once; under load the
+// batches grow by themselves, because a flight's next recompute starts only when its last one has finished.
 import type { DataSource } from 'typeorm';
 import { LessThan, MoreThan, Not, In } from 'typeorm';
 import { FlightEntity } from '../../db/entities';
-import { recomputeFlight, type RecomputeOutcome } from './forecast.service';
+import { recomputeFlightDetailed, type RecomputeOutcome, type RecomputeResult } from './forecast.service';
 
 export interface ForecastScheduler {
   markDirty(flightId: number): void;
@@ -11,8 +12,12 @@ export interface ForecastScheduler {
   flush(): Promise<void>;
   recomputeCount(): number;
   startClock(intervalMs?: number): void;
+  /** One tick of the clock now: flight states moved along, every open flight recomputed if its figures moved. */
+  tick(): Promise<void>;
   stop(): void;
 }
+
+export type Recompute = (flightId: number, opts: { onlyIfMoved: boolean }) => Promise<RecomputeResult>;
 
 /**
  * Moves flight states along the clock until the departure-control feed sends states of its own: boarding from
@@ -24,75 +29,102 @@ async function advanceFlightStates(db: DataSource, now: Date) {
   await repo.update({ state: In(['scheduled', 'check-in-open', 'boarding', 'closed']), scheduledDeparture: LessThan(new Date(now.getTime() - 10 * 60_000)) }, { state: 'departed' });
 }
 
-export function createForecastScheduler(db: DataSource, onRecomputed: (o: RecomputeOutcome) => void, delayMs = 150, parallel = 4): ForecastScheduler {
-  const dirty = new Set<number>();
-  let timer: NodeJS.Timeout | null = null;
-  let running: Promise<void> | null = null;
+export interface SchedulerOptions {
+  /** Recomputes running at once across flights. */
+  parallel?: number;
+  /** The recompute itself; tests pass their own. */
+  recompute?: Recompute;
+}
+
+export function createForecastScheduler(db: DataSource, onRecomputed: (o: RecomputeOutcome) => void, options: SchedulerOptions = {}): ForecastScheduler {
+  const parallel = options.parallel ?? 4;
+  const recompute: Recompute = options.recompute ?? ((id, opts) => recomputeFlightDetailed(db, id, opts));
+  /** Flights waiting, with whether only the clock asked (then an unmoved flight is skipped). */
+  const dirty = new Map<number, { onlyIfMoved: boolean }>();
+  const running = new Set<number>();
+  let active: Promise<void> | null = null;
   let count = 0;
   let clock: NodeJS.Timeout | null = null;
+  let scheduled = false;
 
-  const recompute = async (id: number) => {
+  const runOne = async (id: number, onlyIfMoved: boolean) => {
+    running.add(id);
     try {
-      const outcome = await recomputeFlight(db, id);
+      const r = await recompute(id, { onlyIfMoved });
       count++;
-      if (outcome) onRecomputed(outcome);
+      if (r.status === 'written') onRecomputed(r.outcome);
+      // A recompute that read later won the write; this one may have read a change that one missed (the same
+      // millisecond): one more pass makes sure nothing committed is left out.
+      if (r.status === 'stale' && !dirty.has(id)) dirty.set(id, { onlyIfMoved: false });
     } catch (err) {
       console.error(`[forecast] recompute of flight ${id} failed: ${err instanceof Error ? err.message : err}`);
+    } finally {
+      running.delete(id);
     }
   };
 
-  // One drain loop at a time: it takes every flight dirty *now*, recomputes them (a few in parallel), and goes round
-  // again while new changes arrived meanwhile. Under load the batches grow instead of queueing behind each other.
-  const drain = async () => {
-    while (dirty.size) {
-      const ids = [...dirty];
-      dirty.clear();
-      for (let i = 0; i < ids.length; i += parallel) await Promise.all(ids.slice(i, i + parallel).map(recompute));
+  // One loop at a time: it starts every waiting flight that is not already running (up to `parallel`), and goes
+  // round again as each finishes, so a flight changed during its own recompute is taken again right after it.
+  const pump = async () => {
+    const inFlight = new Set<Promise<void>>();
+    for (;;) {
+      for (const [id, why] of dirty) {
+        if (inFlight.size >= parallel) break;
+        if (running.has(id)) continue;
+        dirty.delete(id);
+        const p: Promise<void> = runOne(id, why.onlyIfMoved).finally(() => inFlight.delete(p));
+        inFlight.add(p);
+      }
+      if (!inFlight.size) return;
+      await Promise.race(inFlight);
     }
   };
-  const runPending = () => {
-    timer = null;
-    if (running) return; // the loop in progress will pick the new changes up
-    running = drain().finally(() => {
-      running = null;
-      // A change that slipped in as the loop was finishing still gets its recompute.
-      if (dirty.size) timer ??= setTimeout(runPending, delayMs);
+  const start = () => {
+    scheduled = false;
+    if (active) return;
+    active = pump().finally(() => {
+      active = null;
+      if (dirty.size) schedule();
     });
+  };
+  const schedule = () => {
+    if (scheduled || active) return;
+    scheduled = true;
+    setImmediate(start);
+  };
+
+  const mark = (flightId: number, onlyIfMoved: boolean) => {
+    const waiting = dirty.get(flightId);
+    dirty.set(flightId, { onlyIfMoved: onlyIfMoved && (waiting?.onlyIfMoved ?? true) });
+    if (active) return; // the loop in progress picks it up as soon as a slot frees
+    schedule();
   };
 
   const scheduler: ForecastScheduler = {
-    markDirty(flightId) {
-      dirty.add(flightId);
-      if (!running) timer ??= setTimeout(runPending, delayMs);
-    },
+    markDirty: (flightId) => mark(flightId, false),
     async flush() {
-      if (timer) {
-        clearTimeout(timer);
-        runPending();
-      }
-      while (running || dirty.size) {
-        if (!running) runPending();
-        await running;
+      while (active || dirty.size || scheduled) {
+        if (!active) start();
+        await active;
       }
     },
     recomputeCount: () => count,
+    async tick() {
+      await advanceFlightStates(db, new Date());
+      const open = await db.getRepository(FlightEntity).find({
+        select: { id: true },
+        where: { scheduledDeparture: MoreThan(new Date(Date.now() - 15 * 60_000)), state: Not(In(['departed', 'cancelled'])) },
+      });
+      for (const f of open) mark(f.id, true);
+    },
     // Without events the figures still move: people not yet checked in become less likely to show as time passes.
     startClock(intervalMs = 60_000) {
-      const tick = async () => {
-        await advanceFlightStates(db, new Date());
-        const open = await db.getRepository(FlightEntity).find({
-          select: { id: true },
-          where: { scheduledDeparture: MoreThan(new Date(Date.now() - 15 * 60_000)), state: Not(In(['departed', 'cancelled'])) },
-        });
-        for (const f of open) scheduler.markDirty(f.id);
-      };
-      void tick().catch(() => undefined);
-      clock = setInterval(() => void tick().catch(() => undefined), intervalMs);
+      void scheduler.tick().catch(() => undefined);
+      clock = setInterval(() => void scheduler.tick().catch(() => undefined), intervalMs);
       clock.unref();
     },
     stop() {
       if (clock) clearInterval(clock);
-      if (timer) clearTimeout(timer);
     },
   };
   return scheduler;

@@ -105,7 +105,8 @@ export async function applyEvent(em: EntityManager, stationId: number, e: Integr
     p.statusChangedAt = at;
     moved.push(p);
   }
-  if (moved.length) await em.save(moved);
+  // Guarded, column by column: no read-back before the write, as a save() of the entity would do.
+  for (const p of moved) await em.update(PassengerEntity, { id: p.id }, { status: p.status, statusChangedAt: p.statusChangedAt, checkedInAt: p.checkedInAt, boardedAt: p.boardedAt });
   const who = e.sequence === undefined ? `${e.pnr} (${passengers.length})` : `${e.pnr}/${e.sequence}`;
   const newest = moved.some((p) => p.statusChangedAt?.getTime() === at.getTime());
   return { flightId: flight.id, status: newest ? 'applied' : 'superseded', summary: newest ? `${who} ${rule.words}` : `${who} ${rule.words}: older than the latest change, kept the newer status` };

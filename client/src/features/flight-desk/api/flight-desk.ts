@@ -3,7 +3,7 @@ import { z } from 'zod';
 import { deskPassengersSchema, flightDeskSchema, flightEventTrailSchema, forecastHistorySchema, type setShockBodySchema } from '@shared/schemas/flight-desk';
 import { api, apiRequest } from '../../../lib/api-client';
 
-/** One key tree per flight, so a change notice invalidates everything the desk shows with a single prefix. */
+/** One key tree per flight, so a change notice reaches everything the desk shows with a single prefix. */
 export const flightKeys = {
   all: ['flights'] as const,
   detail: (id: number) => [...flightKeys.all, 'detail', id] as const,
@@ -12,20 +12,37 @@ export const flightKeys = {
   events: (id: number) => [...flightKeys.detail(id), 'events'] as const,
 };
 
-/** A slow safety net under the socket: a missed notice still shows up within a minute. */
+/** A slow safety net under the socket: a missed notice still shows up within a minute (a 304 when nothing moved). */
 const SAFETY_REFETCH_MS = 60_000;
+/**
+ * Notices keep a mounted desk current, and a patch counts as fresh data. Opening the desk again asks at once: notices
+ * went unheard while it was closed, and the answer is a 304 when nothing moved.
+ */
+const LIVE_STALE_MS = 0;
 
 export const flightDeskQueryOptions = (id: number) =>
-  queryOptions({ queryKey: flightKeys.detail(id), queryFn: () => api.get(`/flights/${id}`, flightDeskSchema), refetchInterval: SAFETY_REFETCH_MS });
+  queryOptions({
+    queryKey: flightKeys.detail(id), staleTime: LIVE_STALE_MS, refetchInterval: SAFETY_REFETCH_MS,
+    queryFn: ({ signal }) => api.get(`/flights/${id}`, flightDeskSchema, signal),
+  });
 
 export const deskPassengersQueryOptions = (id: number) =>
-  queryOptions({ queryKey: flightKeys.passengers(id), queryFn: () => api.get(`/flights/${id}/passengers`, deskPassengersSchema), refetchInterval: SAFETY_REFETCH_MS });
+  queryOptions({
+    queryKey: flightKeys.passengers(id), staleTime: LIVE_STALE_MS, refetchInterval: SAFETY_REFETCH_MS,
+    queryFn: ({ signal }) => api.get(`/flights/${id}/passengers`, deskPassengersSchema, signal),
+  });
 
 export const forecastHistoryQueryOptions = (id: number) =>
-  queryOptions({ queryKey: flightKeys.forecastHistory(id), queryFn: () => api.get(`/flights/${id}/forecast-history`, forecastHistorySchema), refetchInterval: SAFETY_REFETCH_MS });
+  queryOptions({
+    queryKey: flightKeys.forecastHistory(id), staleTime: LIVE_STALE_MS, refetchInterval: SAFETY_REFETCH_MS,
+    queryFn: ({ signal }) => api.get(`/flights/${id}/forecast-history`, forecastHistorySchema, signal),
+  });
 
 export const flightEventsQueryOptions = (id: number) =>
-  queryOptions({ queryKey: flightKeys.events(id), queryFn: () => api.get(`/flights/${id}/events`, flightEventTrailSchema), refetchInterval: SAFETY_REFETCH_MS });
+  queryOptions({
+    queryKey: flightKeys.events(id), staleTime: LIVE_STALE_MS, refetchInterval: SAFETY_REFETCH_MS,
+    queryFn: ({ signal }) => api.get(`/flights/${id}/events`, flightEventTrailSchema, signal),
+  });
 
 export type SetShockBody = z.infer<typeof setShockBodySchema>;
 
@@ -33,10 +50,7 @@ export function useSetShock(flightId: number) {
   const qc = useQueryClient();
   return useMutation({
     mutationFn: (body: SetShockBody) => apiRequest('PUT', `/flights/${flightId}/shock`, flightDeskSchema, body),
-    onSuccess: (desk) => {
-      qc.setQueryData(flightKeys.detail(flightId), desk);
-      // The odds history and the trail gained a point each; the passengers' figures may have moved too.
-      return qc.invalidateQueries({ queryKey: flightKeys.detail(flightId), predicate: (q) => q.queryKey.length > flightKeys.detail(flightId).length });
-    },
+    // The answer is the desk at the new version; the notice of that version patches the lists (or they refetch).
+    onSuccess: (desk) => qc.setQueryData(flightDeskQueryOptions(flightId).queryKey, (held) => (held && held.version > desk.version ? held : desk)),
   });
 }
