@@ -47,7 +47,7 @@ beforeAll(async () => {
 });
 
 afterAll(async () => {
-  await settle();
+  await settle(t);
   await removeFlights(t.db, flightIds);
   await removeRunUsers(t.db);
   await t.close();

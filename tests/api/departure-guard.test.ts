@@ -23,7 +23,7 @@ beforeAll(async () => {
 });
 
 afterAll(async () => {
-  await settle();
+  await settle(t);
   await t.db.query('DELETE FROM denials WHERE flight_id IN (?)', [flightIds]);
   await t.db.query('DELETE FROM denial_proposals WHERE flight_id IN (?)', [flightIds]);
   await removeFlights(t.db, flightIds);

@@ -22,7 +22,7 @@ beforeAll(async () => {
 });
 
 afterAll(async () => {
-  await settle();
+  await settle(t);
   await removeFlights(t.db, [flight.id]);
   await t.close();
 });

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { volunteerDisclosure } from './disclosure';
 
-const policy = { currency: 'USD', ladderMinor: [20_000], agentLimitMinor: 60_000, sealedBidPricing: 'own-ask' as const, extras: [], voucherRestrictions: [] };
+const policy = { currency: 'USD', ladderMinor: [20_000], agentLimitMinor: 60_000, supervisorLimitMinor: null, raisePolicy: 'lift-to-new-offer' as const, sealedBidPricing: 'own-ask' as const, extras: [], voucherRestrictions: [] };
 
 describe('what a volunteer is told they would be owed if bumped', () => {
   it('states the US caps in force on the day of the offer, from the rules table', () => {
