@@ -33,7 +33,7 @@ beforeEach(() => {
       posts.push({ path, body: JSON.parse(String(init.body ?? '{}')) });
       return json({ id: 1 }, 201);
     }
-    if (path === '/flights/4/passengers') return json({ passengers: PASSENGERS });
+    if (path === '/flights/4/passengers') return json({ version: 1, passengers: PASSENGERS });
     if (path === '/flights/4/alternates') return json({ alternates: [{ id: 9, label: 'ZZ 107', departure: '2026-12-02T02:05:00.000Z', arrival: '2026-12-02T04:50:00.000Z', freeSeats: 0, plannedArrivalDelayMinutes: 320 }] });
     return json({ error: 'not_found', message: 'no stub' }, 404);
   });
