@@ -79,7 +79,8 @@ export function authRouter(deps: AuthRouterDeps) {
       req.session.destroy((destroyErr) => {
         if (destroyErr) return next(destroyErr);
         if (userId) deps.onSignOut?.(userId);
-        res.clearCookie(deps.cookieName, { path: '/' });
+        // A browser drops a `__Host-` cookie only when told so with the same Secure, path-wide attributes.
+        res.clearCookie(deps.cookieName, { path: '/', httpOnly: true, sameSite: 'lax', secure: deps.cookieName.startsWith('__Host-') });
         res.status(204).end();
       });
     });
