@@ -33,8 +33,9 @@ async function raisesStation(): Promise<StationEntity> {
 beforeAll(async () => {
   t = await startTestApp();
   station = await raisesStation();
-  [agent, admin] = [await as('agent'), await as('admin')];
-});
+  // Two password hashes and sign-ins: slow on a busy machine, so the set-up has two minutes.
+  [agent, admin] = await Promise.all([as('agent'), as('admin')]);
+}, 120_000);
 
 afterAll(async () => {
   await settle(t);

@@ -1,7 +1,7 @@
 // The one check every path that fixes a compensation amount goes through: an opening offer, a raise, a sealed-bid
 // accept, issuing a compensation and a denial override. Within the user's limit the path goes on; above it the
 // amount waits for a supervisor of the station (never the one who asked), and the path stops there.
-import type { EntityManager } from 'typeorm';
+import { In, type EntityManager } from 'typeorm';
 import type { SessionUser } from '@shared/schemas/auth';
 import { limitForRole, withinLimit, type ApprovalKind } from '@shared/schemas/approvals';
 import type { VolunteerPolicy } from '@shared/schemas/volunteers';
@@ -41,7 +41,9 @@ export async function gateAmount(em: EntityManager, user: SessionUser, req: Amou
   const subject = req.subjectId != null ? { kind: req.kind, subjectId: req.subjectId } : { kind: req.kind, roundId: req.roundId ?? undefined };
   const granted = await em.findOneBy(OfferApprovalEntity, { ...subject, status: 'approved', offerMinor: req.amountMinor });
   if (granted) return { approved: true, approval: granted };
-  const pending = await em.findOne(OfferApprovalEntity, { where: { ...subject, status: 'pending' }, lock: { mode: 'pessimistic_write' } });
+  // A round's offer is one amount, whichever path asked for it: an opening offer and a raise never wait side by side.
+  const waitingOn = req.kind === 'raise' || req.kind === 'opening-offer' ? { ...subject, kind: In(['raise', 'opening-offer']) } : subject;
+  const pending = await em.findOne(OfferApprovalEntity, { where: { ...waitingOn, status: 'pending' }, lock: { mode: 'pessimistic_write' } });
   if (pending) throw conflict('approval_pending', 'An amount already waits for a supervisor here; it must be decided first.');
   const approval = await em.save(em.create(OfferApprovalEntity, {
     kind: req.kind, roundId: req.roundId ?? null, stationId: req.stationId, flightId: req.flightId, subjectId: req.subjectId ?? null,
