@@ -18,6 +18,14 @@ describe('describeRules', () => {
     }
   });
 
+  it('under Canada\'s rules the groups are an order of priority, not "never selected" (SOR/2019-150 s.15, from memory)', () => {
+    const text = describeRules([{ factor: 'check-in-time', direction: 'latest-first' }], 'ca-appr').join(' ');
+    expect(text).toContain('selected only after everyone else');
+    expect(text).toMatch(/\(a\) unaccompanied minors; \(b\) passengers with a disability and their support person or companion; \(c\) passengers travelling with family members; \(d\) passengers already denied boarding on the same ticket/);
+    expect(text).not.toContain('Never selected: unaccompanied minors');
+    expect(text).toContain('did not check in in time is a no-show');
+  });
+
   it('refuses an invalid rules list like the ranking does', () => {
     expect(() => describeRules([{ factor: 'lottery' } as never])).toThrow(/^rules\[0\]\.factor:/);
   });

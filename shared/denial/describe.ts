@@ -7,7 +7,7 @@ function ruleSentence(rule: PriorityRule): string {
   switch (rule.factor) {
     case 'check-in-time':
       return rule.direction === 'latest-first'
-        ? 'Check-in time: passengers who checked in latest are selected first; a passenger not checked in counts as latest.'
+        ? 'Check-in time: passengers who checked in latest are selected first.'
         : 'Check-in time: passengers who checked in earliest are selected first.';
     case 'fare-paid':
       return rule.direction === 'lowest-first'

@@ -58,7 +58,7 @@ export function yourCaseSection(input: StatementInput): StatementSection {
 }
 
 export function prioritiesSection(input: StatementInput, heading: string): StatementSection {
-  const [volunteers, ...rest] = describeRules(input.priorityRules);
+  const [volunteers, ...rest] = describeRules(input.priorityRules, input.regime);
   return {
     heading,
     body: [volunteers, ...rest.map((line) => (/^\d+\. /.test(line) ? `- ${line}` : line))].join('\n'),

@@ -8,7 +8,7 @@ import {
   authorizeDenialsBodySchema, changeDenialsBodySchema, priorityRulesBodySchema, proposeDenialsBodySchema, rebookDenialBodySchema, recordDenialAfterBodySchema,
   recordRefusalBodySchema, withdrawDenialsBodySchema,
 } from '@shared/schemas/denials';
-import { FlightEntity } from '../../db/entities';
+import { FlightEntity, StationEntity } from '../../db/entities';
 import { notFound } from '../../http/errors';
 import { canSeeStation, currentUser, requireRole } from '../../http/require-role';
 import { parse } from '../../http/validate';
@@ -43,6 +43,7 @@ export function denialsRouter(deps: DenialDeps) {
     if (!canSeeStation(currentUser(req), stationId)) throw notFound('Station');
     return stationId;
   };
+  const regimeOf = async (stationId: number) => (await deps.db.getRepository(StationEntity).findOneByOrFail({ id: stationId })).regime;
   const proposalOf = async (flightId: number, proposalId: number) => {
     const flight = await deps.db.getRepository(FlightEntity).findOneByOrFail({ id: flightId });
     return (await presentProposals(deps.db, flight)).proposals.find((p) => p.id === proposalId)!;
@@ -50,13 +51,13 @@ export function denialsRouter(deps: DenialDeps) {
 
   r.get('/stations/:stationId/priority-rules', desk, async (req, res) => {
     const stationId = stationOf(req);
-    res.json(presentPriorityRules(stationId, await priorityRulesFor(deps.db, stationId)));
+    res.json(presentPriorityRules(stationId, await priorityRulesFor(deps.db, stationId), await regimeOf(stationId)));
   });
 
   r.put('/stations/:stationId/priority-rules', requireRole('admin'), async (req, res) => {
     const stationId = stationOf(req);
     const body = parse(priorityRulesBodySchema, req.body);
-    res.json(presentPriorityRules(stationId, await savePriorityRules(deps.db, currentUser(req), stationId, body)));
+    res.json(presentPriorityRules(stationId, await savePriorityRules(deps.db, currentUser(req), stationId, body), await regimeOf(stationId)));
   });
 
   r.get('/stations/:stationId/denial-proposals', supervisors, async (req, res) => {

@@ -1,4 +1,5 @@
 // The station's boarding-priority rules: stored per station, with a default until an admin sets them.
+import type { Regime } from '@shared/compensation/types';
 import type { DataSource, EntityManager } from 'typeorm';
 import type { SessionUser } from '@shared/schemas/auth';
 import { describeRules, parsePriorityRules, type PriorityRule } from '@shared/denial';
@@ -32,14 +33,15 @@ export async function priorityRulesFor(em: DataSource | EntityManager, stationId
   return { rules: parsePriorityRules(row.rules), tierOrder: row.tierOrder, isDefault: false, updatedAt: row.updatedAt };
 }
 
-export function presentPriorityRules(stationId: number, rules: StationRules): StationPriorityRules {
+/** The description follows the station's regime: it says whether protected groups are left out or selected last. */
+export function presentPriorityRules(stationId: number, rules: StationRules, regime?: Regime): StationPriorityRules {
   return {
     stationId,
     rules: rules.rules,
     tierOrder: rules.tierOrder,
     isDefault: rules.isDefault,
     updatedAt: rules.updatedAt?.toISOString() ?? null,
-    description: describeRules(rules.rules),
+    description: describeRules(rules.rules, regime),
   };
 }
 
