@@ -158,7 +158,10 @@ async function main() {
     // whose POST answered after the previous recompute had started. These events are not measured.
     await sleep(200);
     const sweep = createFeed(settings.appUrl, keys, `${settings.runId}-sweep`);
-    await Promise.all(flights.map((f) => sweep.post(f, f.passengers[0], f.passengers[0].checkedIn, Date.now())));
+    // A sweep POST that times out on an overloaded machine costs only that flight's last recompute, not the figures.
+    const swept = await Promise.allSettled(flights.map((f) => sweep.post(f, f.passengers[0], f.passengers[0].checkedIn, Date.now())));
+    const unswept = swept.filter((r) => r.status === 'rejected').length;
+    if (unswept) log(`${unswept} sweep POSTs failed (the server is overloaded); their flights may end a recompute behind`);
     for (const until = Date.now() + drainTimeoutMs(settings.seconds); Date.now() < until; ) {
       await ledger.settle();
       if (ledger.uncovered() === 0 && holds.behind() === 0 && Date.now() - lastMessageAt >= QUIET_MS) break;
