@@ -1,7 +1,8 @@
 // Flights, bookings and passengers of our own for the denied-boarding API tests, written straight to the shared
 // test database. Flight numbers 8xxx on a service date far ahead keep them off every demo departures board, and
 // removeDenialFixtures() deletes exactly what a run created (audit rows stay: the log is append-only).
-import { In, type DataSource } from 'typeorm';
+import { removeFlights } from './volunteers-fixtures';
+import type { DataSource } from 'typeorm';
 import type { SessionUser } from '@shared/schemas/auth';
 import type { PriorityRulesBody } from '@shared/schemas/denials';
 import { BookingEntity, DenialEntity, DenialProposalEntity, FlightEntity, PassengerEntity, StationEntity, UserEntity } from '../../server/src/db/entities';
@@ -129,18 +130,7 @@ export async function removeDenialFixtures(db: DataSource): Promise<void> {
     foreignProposals.length = 0;
   }
   if (created.length === 0) return;
-  const ids = [...created];
-  await db.query('DELETE FROM outbox_messages WHERE flight_id IN (?)', [ids]);
-  await db.query('DELETE FROM compensations WHERE flight_id IN (?)', [ids]);
-  await db.query('DELETE FROM rebookings WHERE original_flight_id IN (?) OR alternate_flight_id IN (?)', [ids, ids]);
-  await db.query('DELETE FROM boarding_refusals WHERE flight_id IN (?)', [ids]);
-  await db.query('DELETE FROM denials WHERE flight_id IN (?)', [ids]);
-  await db.query('DELETE FROM denial_proposals WHERE flight_id IN (?)', [ids]);
-  await db.query('DELETE FROM volunteers WHERE flight_id IN (?)', [ids]);
-  await db.query('DELETE FROM volunteer_rounds WHERE flight_id IN (?)', [ids]);
-  await db.query('DELETE FROM forecast_snapshots WHERE flight_id IN (?)', [ids]);
-  await db.query('DELETE FROM flight_forecasts WHERE flight_id IN (?)', [ids]);
-  await db.getRepository(FlightEntity).delete({ id: In(ids) });
+  await removeFlights(db, [...created]);
   created.length = 0;
 }
 

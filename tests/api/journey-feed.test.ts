@@ -2,11 +2,11 @@
 // runs in UTC. Runs on a station and flights of its own.
 // Outside sources: ISO 8601 offsets (an instant with +01:00 is one hour ahead of UTC); MariaDB documents
 // @@session.time_zone as the zone NOW() and TIMESTAMP values use (from memory).
+import { removeFlights } from './volunteers-fixtures';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { In } from 'typeorm';
 import request from 'supertest';
 import { createdIntegrationKeySchema, eventBatchResponseSchema } from '@shared/schemas/integration-events';
-import { BookingEntity, FlightEntity, FlightForecastEntity, StationEntity } from '../../server/src/db/entities';
+import { BookingEntity, FlightEntity, StationEntity } from '../../server/src/db/entities';
 import { Client, startTestApp, type TestApp } from './harness';
 import { RUN_ID, TEST_PASSWORD, insertUser, removeRunUsers } from './helpers';
 
@@ -51,9 +51,7 @@ beforeAll(async () => {
 });
 afterAll(async () => {
   if (flightIds.length) {
-    await t.db.getRepository(FlightForecastEntity).delete({ flightId: In(flightIds) });
-    await t.db.query('DELETE FROM forecast_snapshots WHERE flight_id IN (?)', [flightIds]);
-    await t.db.getRepository(FlightEntity).delete({ id: In(flightIds) });
+    await removeFlights(t.db, flightIds);
   }
   await removeRunUsers(t.db);
   await t.close();

@@ -1,10 +1,11 @@
 // For the payments and finance API tests: the payments stand-in in-process on port 0, an app instance wired to it
 // (which can be "crashed" and replaced on the same port), and rows of a test station made straight in the database.
+import { removeFlights as removeTestFlights } from './volunteers-fixtures';
 import 'reflect-metadata';
 import { randomBytes } from 'node:crypto';
 import { createServer, type Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
-import { In, type DataSource } from 'typeorm';
+import type { DataSource } from 'typeorm';
 import { vi } from 'vitest';
 import { createPaymentsFake, type PaymentsFake, type PaymentsFakeOptions } from '../../payments-fake/src/app';
 import { loadEnv } from '../../server/src/config/env';
@@ -184,21 +185,11 @@ export async function insertCompensations(
   return repo.save(rows, { chunk: 200 });
 }
 
-/** Removes what a test made on its flights; audit rows stay, the log is append-only. */
+/** Removes what a test made on its flights, with the provider's card mirror; audit rows stay, the log is append-only. */
 export async function removeFlights(db: DataSource, flightIds: number[]): Promise<void> {
   if (!flightIds.length) return;
-  const ids: { id: number }[] = await db.query('SELECT id FROM compensations WHERE flight_id IN (?)', [flightIds]);
-  const compensationIds = ids.map((r) => r.id);
-  if (compensationIds.length) {
-    await db.query('DELETE FROM provider_cards WHERE compensation_id IN (?)', [compensationIds]);
-    await db.query('DELETE FROM voucher_offers WHERE compensation_id IN (?)', [compensationIds]);
-    await db.query('DELETE FROM payment_issuances WHERE compensation_id IN (?)', [compensationIds]);
-    await db.query('DELETE FROM compensations WHERE id IN (?)', [compensationIds]);
-  }
-  await db.query('DELETE FROM outbox_messages WHERE flight_id IN (?)', [flightIds]);
-  await db.query('DELETE FROM alerts WHERE flight_id IN (?)', [flightIds]);
-  await db.query('DELETE FROM cabin_changes WHERE flight_id IN (?)', [flightIds]);
-  await db.getRepository(FlightEntity).delete({ id: In(flightIds) });
+  await db.query('DELETE FROM provider_cards WHERE compensation_id IN (SELECT id FROM compensations WHERE flight_id IN (?))', [flightIds]);
+  await removeTestFlights(db, flightIds);
 }
 
 /** Waits until the condition holds; bounded, so a broken run fails instead of hanging. */

@@ -20,6 +20,7 @@ const NOT_REFERENCES: Record<string, string> = {
   'audit_log.actor_user_id': 'the append-only log keeps the actor by value, with the label beside it',
   'audit_log.station_id': 'the append-only log keeps the station by value',
   'compensations.source_id': 'a volunteer or a denial by source_kind; the passenger, booking and flight keys hold the row',
+  'offer_approvals.subject_id': 'a round, volunteer, compensation or denial by kind; the flight and station keys hold the row',
   // The provider's word, kept even when it names no ledger row: that is exactly what reconciliation must report.
   'provider_cards.compensation_id': 'mirrors the card metadata at the payment provider',
   'provider_events.compensation_id': 'mirrors the event received from the payment provider',

@@ -1,8 +1,9 @@
 // Rows the volunteer-round API tests stand on: flights of their own (far in the future, on routes nobody else
 // flies, so the demo flights other tests use stay untouched), bookings with passengers, and exact cleanup.
 import { randomInt } from 'node:crypto';
-import { In, type DataSource } from 'typeorm';
-import { BookingEntity, FlightEntity, OutboxMessageEntity, PassengerEntity, StationEntity, VolunteerEntity, VolunteerRoundEntity } from '../../server/src/db/entities';
+import type { DataSource } from 'typeorm';
+import { BookingEntity, FlightEntity, OutboxMessageEntity, PassengerEntity, StationEntity } from '../../server/src/db/entities';
+import { deleteInDependencyOrder } from '../../server/src/demo/delete-in-order';
 import { RUN_ID } from './helpers';
 
 const MINUTE = 60_000;
@@ -92,21 +93,15 @@ export const settle = (t: { forecast: { flush(): Promise<void> } }) => t.forecas
  */
 export async function removeFlights(db: DataSource, flightIds: number[]): Promise<void> {
   if (!flightIds.length) return;
-  const rounds = await db.getRepository(VolunteerRoundEntity).findBy({ flightId: In(flightIds) });
-  const volunteers = await db.getRepository(VolunteerEntity).findBy({ flightId: In(flightIds) });
+  // The app never deletes money rows; a test removes its own first, then lets the declared keys order the rest.
+  const comps: { id: number }[] = await db.query('SELECT id FROM compensations WHERE flight_id IN (?)', [flightIds]);
+  const compIds = comps.map((c) => c.id);
   await db.query('DELETE FROM outbox_messages WHERE flight_id IN (?)', [flightIds]);
-  await db.query('DELETE FROM voucher_offers WHERE compensation_id IN (SELECT id FROM compensations WHERE flight_id IN (?))', [flightIds]);
-  await db.query('DELETE FROM compensations WHERE flight_id IN (?)', [flightIds]);
-  await db.query('DELETE FROM rebookings WHERE original_flight_id IN (?) OR alternate_flight_id IN (?)', [flightIds, flightIds]);
-  if (volunteers.length) await db.query('DELETE FROM volunteers WHERE id IN (?)', [volunteers.map((v) => v.id)]);
-  if (rounds.length) {
-    await db.query('DELETE FROM offer_approvals WHERE round_id IN (?)', [rounds.map((r) => r.id)]);
-    await db.query('DELETE FROM volunteer_rounds WHERE id IN (?)', [rounds.map((r) => r.id)]);
+  if (compIds.length) {
+    for (const table of ['alerts', 'voucher_offers', 'payment_issuances']) await db.query(`DELETE FROM ${table} WHERE compensation_id IN (?)`, [compIds]);
+    await db.query('DELETE FROM compensations WHERE id IN (?)', [compIds]);
   }
-  await db.query('DELETE FROM forecast_snapshots WHERE flight_id IN (?)', [flightIds]);
-  await db.query('DELETE FROM flight_forecasts WHERE flight_id IN (?)', [flightIds]);
-  await db.query('DELETE FROM flight_events WHERE flight_id IN (?)', [flightIds]);
-  await db.query('DELETE FROM flights WHERE id IN (?)', [flightIds]);
+  await deleteInDependencyOrder(db.manager, 'flights', flightIds);
 }
 
 /** The signed flight link's token, from the bid link the rounds list hands the agent. */

@@ -78,6 +78,20 @@ export const REFERENCES: Reference[] = [
   r('reconciliation_runs', 'started_by_user_id', 'users'),
   r('reconciliation_differences', 'run_id', 'reconciliation_runs', 'CASCADE'),
   r('reconciliation_differences', 'resolved_by_user_id', 'users'),
+  // `subject_id` names a round, a volunteer, a compensation or a denial by `kind`, so it cannot be one key.
+  r('offer_approvals', 'flight_id', 'flights'),
+  r('cabin_changes', 'station_id', 'stations'),
+  r('cabin_changes', 'flight_id', 'flights'),
+  r('cabin_changes', 'passenger_id', 'passengers'),
+  r('cabin_changes', 'recorded_by_user_id', 'users'),
+  r('alerts', 'station_id', 'stations'),
+  r('alerts', 'flight_id', 'flights'),
+  r('alerts', 'compensation_id', 'compensations'),
+  r('alerts', 'acknowledged_by_user_id', 'users'),
+  r('boarding_refusals', 'flight_id', 'flights'),
+  r('boarding_refusals', 'station_id', 'stations'),
+  r('boarding_refusals', 'booking_id', 'bookings'),
+  r('boarding_refusals', 'refused_by_user_id', 'users'),
 ];
 
 
