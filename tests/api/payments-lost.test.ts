@@ -9,7 +9,7 @@ import Stripe from 'stripe';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { CompensationEntity, type FlightEntity, type StationEntity } from '../../server/src/db/entities';
 import { Client } from './harness';
-import { insertUser, removeRunUsers, TEST_PASSWORD } from './helpers';
+import { DEMO, insertUser, removeRunUsers, TEST_PASSWORD } from './helpers';
 import { insertCompensations, paymentsTestStation, removeFlights, seedFlight, startFake, startPaymentsApp, until, WEBHOOK_SECRET, type PaymentsApp, type RunningFake } from './payments-harness';
 
 let fake: RunningFake;
@@ -38,6 +38,7 @@ beforeAll(async () => {
   const other = await paymentsTestStation(app.db, 'BGR');
   const stale: { id: number }[] = await app.db.query('SELECT id FROM flights WHERE station_id = ?', [alb.id]);
   await app.db.query('DELETE FROM denials WHERE station_id = ?', [alb.id]);
+  await app.db.query('DELETE FROM denial_proposals WHERE station_id = ?', [alb.id]);
   await app.db.query('DELETE FROM alerts WHERE station_id = ?', [alb.id]);
   await removeFlights(app.db, stale.map((f) => f.id));
   agent = await client('agent', [alb.id]);
@@ -60,10 +61,17 @@ async function deniedPassenger(amountMinor: number): Promise<{ flight: FlightEnt
   const { flight, passengers } = await seedFlight(app.db, alb, { passengers: 1, serviceDate: '2027-02-10' });
   flightIds.push(flight.id);
   const [comp] = await insertCompensations(app.db, flight, passengers, () => ({ voluntary: false, sourceKind: 'denial', band: 'us-200pct', amountMinor }));
+  // A real proposal and supervisor behind the denial: the keys refuse a denial that points at nothing.
+  const [{ id: supervisorId }] = await app.db.query('SELECT id FROM users WHERE email = ?', [DEMO.supervisor]);
+  const proposal = await app.db.query(
+    `INSERT INTO denial_proposals (flight_id, station_id, status, seats_needed, proposed_by_user_id, proposed_by_label, reason)
+     VALUES (?, ?, 'authorized', 1, ?, 'API test', 'payments test')`,
+    [flight.id, alb.id, supervisorId],
+  );
   const result = await app.db.query(
     `INSERT INTO denials (proposal_id, flight_id, station_id, booking_id, passenger_ids, position, reasons, status, selected_by_user_id, category)
-     VALUES (0, ?, ?, ?, ?, 1, '[]', 'authorized', 0, '1a')`,
-    [flight.id, alb.id, comp.bookingId, JSON.stringify([comp.passengerId])],
+     VALUES (?, ?, ?, ?, ?, 1, '[]', 'authorized', ?, '1a')`,
+    [proposal.insertId, flight.id, alb.id, comp.bookingId, JSON.stringify([comp.passengerId]), supervisorId],
   );
   await app.db.query('UPDATE compensations SET source_id = ? WHERE id = ?', [result.insertId, comp.id]);
   return { flight, comp };

@@ -19,6 +19,14 @@ export function decimalAmount(amountMinor: number, currency: string): string {
   return `${sign}${digits.slice(0, -exponent)}.${digits.slice(-exponent)}`;
 }
 
+/**
+ * "USD 600.00" for alerts and messages. A currency whose minor unit we cannot settle (the case a refused payment may
+ * be about) is shown in minor units rather than failing: the message that reports a problem must not be one.
+ */
 export function moneyText(amountMinor: number, currency: string): string {
-  return `${currency} ${decimalAmount(amountMinor, currency)}`;
+  try {
+    return `${currency} ${decimalAmount(amountMinor, currency)}`;
+  } catch {
+    return `${amountMinor} minor units of ${currency}`;
+  }
 }
