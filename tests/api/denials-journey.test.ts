@@ -33,9 +33,11 @@ interface Setup {
 }
 
 async function authorizedCase(s: Setup) {
-  const flight = await createFlight(t.db, { station: s.station, destination: s.destination, seats: 150 });
+  // A 150-seat aircraft (in every rule's scope) whose economy cabin has two seats for three passengers present: a
+  // real shortfall of one, which a proposal needs.
+  const flight = await createFlight(t.db, { station: s.station, destination: s.destination, cabins: { J: 148, Y: 2 } });
   await addSingles(t.db, flight, 2, { fareMinor: 20_000, fareCurrency: s.currency });
-  const { booking, passengers } = await addBooking(t.db, flight, [{ checkedInBefore: 30, fareCurrency: s.currency, ...s.denied }]);
+  const { booking, passengers } = await addBooking(t.db, flight, [{ checkedInBefore: 60, fareCurrency: s.currency, ...s.denied }]);
   if (s.onward) {
     const itinerary = [{ carrier: 'ZZ', number: '4410', origin: s.destination, destination: s.onward.to, departure: at(flight.scheduledArrival, s.onward.leavesAfter), arrival: at(flight.scheduledArrival, s.onward.leavesAfter + s.onward.block) }];
     await t.db.getRepository(BookingEntity).update({ id: booking.id }, { itinerary });
