@@ -8,6 +8,7 @@
 import Stripe from 'stripe';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { CompensationEntity, type FlightEntity, type StationEntity } from '../../server/src/db/entities';
+import { raisePaymentLost } from '../../server/src/modules/alerts/alerts.service';
 import { Client } from './harness';
 import { DEMO, insertUser, removeRunUsers, TEST_PASSWORD } from './helpers';
 import { insertCompensations, paymentsTestStation, removeFlights, seedFlight, startFake, startPaymentsApp, until, WEBHOOK_SECRET, type PaymentsApp, type RunningFake } from './payments-harness';
@@ -129,6 +130,21 @@ describe('a voided payment', () => {
     const paid = await report();
     expect(paid.line['4'].count).toBe(1);
     expect(paid.line['8a'].amounts).toEqual([{ currency: 'USD', amountMinor: 50_000 }]);
+  });
+});
+
+describe('finance voids while the provider reports the cancellation it caused', () => {
+  it('keeps one alert, in finance\'s words with its reason, whichever arrives first', async () => {
+    const { comp } = await deniedPassenger(30_000);
+    await agent.post(`/api/compensations/${comp.id}/issue`).expect(200);
+    const row = await app.db.getRepository(CompensationEntity).findOneByOrFail({ id: comp.id });
+    // The webhook of the cancellation lands first, then the void's own transaction records the loss.
+    await app.db.transaction((em) => raisePaymentLost(em, row, 'payment-canceled', null));
+    await app.db.transaction((em) => raisePaymentLost(em, row, 'payment-voided', 'Issued to the wrong passenger'));
+    const alerts = await openAlerts(finance, comp.id);
+    expect(alerts).toHaveLength(1);
+    expect(alerts[0].kind).toBe('payment-voided');
+    expect(alerts[0].message).toMatch(/Issued to the wrong passenger/);
   });
 });
 

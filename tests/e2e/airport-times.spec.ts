@@ -7,7 +7,7 @@
 // 250.5(a)(2): a domestic alternate more than 1 h and less than 2 h late -> 200 % of the one-way fare.
 import { expect, test, type Browser } from '@playwright/test';
 import mysql from 'mysql2/promise';
-import { DEMO_PASSWORD, shot } from './helpers';
+import { DEMO_PASSWORD, removeTestFlights, shot } from './helpers';
 
 const DATABASE_URL = process.env.DATABASE_URL ?? '';
 const RUN = `${Date.now().toString(36)}${Math.random().toString(36).slice(2, 6)}`.toUpperCase().replace(/[^A-Z0-9]/g, 'X');
@@ -60,9 +60,7 @@ test.beforeAll(async () => {
 });
 test.afterAll(async () => {
   if (flightIds.length) {
-    for (const table of ['outbox_messages', 'compensations', 'denials', 'denial_proposals', 'flight_forecasts', 'forecast_snapshots']) await db.query(`DELETE FROM ${table} WHERE flight_id IN (?)`, [flightIds]);
-    await db.query('DELETE FROM rebookings WHERE original_flight_id IN (?)', [flightIds]);
-    await db.query('DELETE FROM flights WHERE id IN (?)', [flightIds]);
+    await removeTestFlights(db, flightIds);
   }
   await db?.end();
 });

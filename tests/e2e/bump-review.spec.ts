@@ -4,7 +4,7 @@
 // the same database (the test writes its own flight, 8xxx on a far-off date, and removes it afterwards).
 import { expect, test, type Browser, type Page } from '@playwright/test';
 import mysql from 'mysql2/promise';
-import { SCREENSHOTS, mailFromCatcher, shot, signIn, staffApi } from './helpers';
+import { SCREENSHOTS, mailFromCatcher, removeTestFlights, shot, signIn, staffApi } from './helpers';
 
 const DATABASE_URL = process.env.DATABASE_URL ?? '';
 const RUN = `${Date.now().toString(36)}${Math.random().toString(36).slice(2, 6)}`;
@@ -64,11 +64,7 @@ async function createFixture(): Promise<Fixture> {
 
 async function removeFixture(f: Fixture) {
   const ids = [f.flightId, f.alternateId];
-  for (const table of ['outbox_messages', 'compensations', 'denials', 'denial_proposals', 'flight_forecasts', 'forecast_snapshots']) {
-    await db.query(`DELETE FROM ${table} WHERE flight_id IN (?)`, [ids]);
-  }
-  await db.query('DELETE FROM rebookings WHERE original_flight_id IN (?) OR alternate_flight_id IN (?)', [ids, ids]);
-  await db.query('DELETE FROM flights WHERE id IN (?)', [ids]);
+  await removeTestFlights(db, ids);
 }
 
 test.beforeAll(async () => {

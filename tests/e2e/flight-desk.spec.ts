@@ -72,7 +72,7 @@ async function openDeskFromDepartures(page: Page) {
   await expect(page.getByRole('status').filter({ hasText: 'Live' })).toBeVisible();
   await page.getByRole('link', { name: FLIGHT.label }).click();
   await expect(page.getByRole('heading', { level: 1, name: FLIGHT.label })).toBeVisible();
-  const flightId = Number(/\/flights\/(\d+)$/.exec(page.url())?.[1]);
+  const flightId = Number(/\/flights\/(\d+)(\?station=[A-Z]{3})?$/.exec(page.url())?.[1]);
   expect(flightId).toBeGreaterThan(0);
   return flightId;
 }

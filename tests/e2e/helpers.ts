@@ -1,4 +1,7 @@
 import { expect, request, type APIRequestContext, type Page } from '@playwright/test';
+import type { Connection, RowDataPacket } from 'mysql2/promise';
+import type { EntityManager } from 'typeorm';
+import { deleteInDependencyOrder } from '../../server/src/demo/delete-in-order';
 
 export const DEMO_PASSWORD = 'bumpboard-demo-2026';
 export const SCREENSHOTS = 'test-results/screenshots';
@@ -67,4 +70,21 @@ export async function mailFromCatcher<T>(query: string, pick: (messages: CaughtM
   } finally {
     await catcher.dispose();
   }
+}
+
+/**
+ * Removes a spec's own flights and all that hangs off them. The app never deletes money rows, so the spec removes its
+ * own first; the rest goes children first by the foreign keys the database declares.
+ */
+export async function removeTestFlights(db: Connection, flightIds: number[]): Promise<void> {
+  if (!flightIds.length) return;
+  const [comps] = await db.query<RowDataPacket[]>('SELECT id FROM compensations WHERE flight_id IN (?)', [flightIds]);
+  const compIds = comps.map((c) => Number(c.id));
+  await db.query('DELETE FROM outbox_messages WHERE flight_id IN (?)', [flightIds]);
+  if (compIds.length) {
+    for (const table of ['alerts', 'voucher_offers', 'payment_issuances', 'provider_cards']) await db.query(`DELETE FROM ${table} WHERE compensation_id IN (?)`, [compIds]);
+    await db.query('DELETE FROM compensations WHERE id IN (?)', [compIds]);
+  }
+  const asManager = { query: async (sql: string, params?: unknown[]) => (await db.query(sql, params))[0] } as unknown as EntityManager;
+  await deleteInDependencyOrder(asManager, 'flights', flightIds);
 }

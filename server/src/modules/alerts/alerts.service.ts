@@ -26,8 +26,12 @@ export async function raisePaymentLost(em: EntityManager, row: CompensationEntit
   const view = await compensationRow(em, row.id);
   const attempt = row.idempotencyKey ?? 'never-issued';
   const message = `${view.carrier_code} ${view.flight_number} on ${view.service_date}: the payment of ${moneyText(row.amountMinor, row.currency)} to ${passengerNameOf(view)} ${WHAT[kind]}${detail ? ` (${detail})` : ''}. The passenger is owed it again; finance can re-issue it.`;
+  // Finance's void cancels the card first, so the provider's webhook may record the same loss a moment earlier: the
+  // void's words (with its reason) then replace the provider's, since finance, not the provider, ended the payment.
   await em.query(
-    `INSERT IGNORE INTO alerts (station_id, flight_id, compensation_id, kind, message, dedupe_key) VALUES (?, ?, ?, ?, ?, ?)`,
+    `INSERT INTO alerts (station_id, flight_id, compensation_id, kind, message, dedupe_key) VALUES (?, ?, ?, ?, ?, ?)
+     ON DUPLICATE KEY UPDATE message = IF(VALUES(kind) = 'payment-voided', VALUES(message), message),
+       kind = IF(VALUES(kind) = 'payment-voided', VALUES(kind), kind)`,
     [row.stationId, row.flightId, row.id, kind, message.slice(0, 400), `payment-lost:${row.id}:${attempt}`.slice(0, 160)],
   );
 }
