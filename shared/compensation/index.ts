@@ -20,6 +20,7 @@ export {
   type JourneyScope, type JourneySegment, type JourneyAirport, type AirportResolver,
 } from './journey';
 export { FARE_TYPES, FARE_TYPE_NAMES, TICKET_KINDS, ticketKindOf, lowestCashFare, isZeroFareTicket, type FareType, type TicketKind, type FareOnBoard } from './tickets';
+export { MEDIA, isMedium, type Medium } from './media';
 export { US_DBC_CAPS, US_DELAY_BANDS, CPI_U_AUGUST_2011, CPI_U_JULY, reviseUsCaps, type UsCapRow, type RevisedCaps } from './us-dot-rules';
 export { EU_STYLE_AMOUNTS, EXACTLY_3500_KM_POLICY, REDUCTION_MAX_DELAY_MINUTES, type EuStyleAmountRow } from './eu-uk-rules';
 export {

@@ -1,3 +1,4 @@
+import type { Medium } from '@shared/compensation/media';
 import { Column, CreateDateColumn, Entity, Index, PrimaryGeneratedColumn, UpdateDateColumn } from 'typeorm';
 
 export type CompensationState = 'due' | 'issuing' | 'issued' | 'settled' | 'failed' | 'voided' | 'canceled';
@@ -57,6 +58,10 @@ export class CompensationEntity {
   /** prepaid-card (cash equivalent, the default) or voucher (only with the passenger's recorded agreement). */
   @Column({ type: 'varchar', length: 16, default: 'prepaid-card' })
   form!: 'prepaid-card' | 'voucher';
+
+  /** How the money reaches the passenger; which media a rule allows is decided by the regime's payment terms. */
+  @Column({ type: 'varchar', length: 16, default: 'prepaid-card' })
+  medium!: Medium;
 
   @Column({ type: 'datetime', precision: 3, name: 'voucher_agreed_at', nullable: true })
   voucherAgreedAt!: Date | null;
