@@ -26,6 +26,7 @@ import { createForecastScheduler, type ForecastScheduler } from './modules/forec
 import { silentPublisher, type Publisher } from './realtime/publisher';
 import { volunteersRouter } from './modules/volunteers/volunteers.routes';
 import { approvalsRouter } from './modules/approvals/approvals.routes';
+import { heldRankingsOf } from './modules/denials/candidates-held';
 import { denialsRouter } from './modules/denials/denials.routes';
 import { configureCarrierName } from './modules/denials/statement';
 import { carrierNameFrom } from './config/carrier';
@@ -69,6 +70,8 @@ export function createApp(deps: AppDeps) {
   const forecast = deps.forecast ?? createForecastScheduler(deps.db, (o) => publisher.flightChanged(o.flightId, o.stationId, ['forecast', 'counts', 'events'], o.notice));
   // The feed authenticates with an API key, not a session: mounted before the session and CSRF middleware.
   const changed = (flightId: number, stationId: number, topics: string[]) => {
+    // Rounds, proposals and denials feed the held denial ranking: the next read builds it anew.
+    heldRankingsOf(deps.db).flightMoved(flightId);
     publisher.flightChanged(flightId, stationId, topics);
     if (topics.includes('forecast')) forecast.markDirty(flightId);
   };

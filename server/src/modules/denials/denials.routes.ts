@@ -4,6 +4,7 @@ import { Router, type Request } from 'express';
 import type { DataSource } from 'typeorm';
 import { z } from 'zod';
 import { idParamSchema } from '@shared/schemas/common';
+import { candidatesSinceQuerySchema } from '@shared/schemas/denial-candidates-patch';
 import {
   authorizeDenialsBodySchema, changeDenialsBodySchema, priorityRulesBodySchema, proposeDenialsBodySchema, rebookDenialBodySchema, recordDenialAfterBodySchema,
   recordRefusalBodySchema, withdrawDenialsBodySchema,
@@ -14,7 +15,7 @@ import { canSeeStation, currentUser, requireRole } from '../../http/require-role
 import { parse } from '../../http/validate';
 import { flightForUser } from '../flights/flight-desk.service';
 import { notifyOutbox } from '../outbox/outbox-signal';
-import { rankFlight } from './candidates.service';
+import { heldRankingsOf } from './candidates-held';
 import { priorityRulesFor, presentPriorityRules, savePriorityRules } from './priority-rules.service';
 import { presentProposals, waitingProposals } from './proposals.presenter';
 import { authorizeDenials, changeDenials, proposeDenials, withdrawProposal } from './proposals.service';
@@ -57,16 +58,32 @@ export function denialsRouter(deps: DenialDeps) {
   r.put('/stations/:stationId/priority-rules', requireRole('admin'), async (req, res) => {
     const stationId = stationOf(req);
     const body = parse(priorityRulesBodySchema, req.body);
-    res.json(presentPriorityRules(stationId, await savePriorityRules(deps.db, currentUser(req), stationId, body), await regimeOf(stationId)));
+    const saved = await savePriorityRules(deps.db, currentUser(req), stationId, body);
+    heldRankingsOf(deps.db).stationMoved(stationId);
+    res.json(presentPriorityRules(stationId, saved, await regimeOf(stationId)));
   });
 
   r.get('/stations/:stationId/denial-proposals', supervisors, async (req, res) => {
     res.json({ proposals: await waitingProposals(deps.db, stationOf(req)) });
   });
 
+  // One ranking per state of the flight, held in memory: its tag is the ETag, and a console naming the tag it holds
+  // (`since`) gets only what changed.
   r.get('/flights/:flightId/denial-candidates', desk, async (req, res) => {
-    const { passengersById: _internal, ...ranking } = await rankFlight(deps.db, await flightOf(req));
-    res.json(ranking);
+    const { flightId } = parse(flightParams, req.params, 'params');
+    const { since } = parse(candidatesSinceQuerySchema, req.query, 'query');
+    const rankings = heldRankingsOf(deps.db);
+    const held = await rankings.current(currentUser(req), flightId);
+    res.set('Cache-Control', 'private, no-cache');
+    if (since === undefined) {
+      const etag = `"${held.ranking.tag}"`;
+      res.set('ETag', etag);
+      if (req.get('if-none-match') === etag) {
+        res.status(304).end();
+        return;
+      }
+    }
+    res.type('application/json').send(rankings.answer(held, since));
   });
 
   r.get('/flights/:flightId/denial-proposals', desk, async (req, res) => {

@@ -4,6 +4,7 @@
 import type { DataSource } from 'typeorm';
 import { LessThan, MoreThan, Not, In } from 'typeorm';
 import { FlightEntity } from '../../db/entities';
+import { liveStoreOf } from './live-store';
 import { recomputeFlightDetailed, type RecomputeOutcome, type RecomputeResult } from './forecast.service';
 
 export interface ForecastScheduler {
@@ -116,6 +117,7 @@ export function createForecastScheduler(db: DataSource, onRecomputed: (o: Recomp
         where: { scheduledDeparture: MoreThan(new Date(Date.now() - 15 * 60_000)), state: Not(In(['departed', 'cancelled'])) },
       });
       for (const f of open) mark(f.id, true);
+      liveStoreOf(db).keepOnly(new Set(open.map((f) => f.id)));
     },
     // Without events the figures still move: people not yet checked in become less likely to show as time passes.
     startClock(intervalMs = 60_000) {

@@ -75,8 +75,32 @@ export class LiveStore {
   private readonly entries = new Map<number, LiveEntry>();
   private readonly loading = new Map<number, Promise<LiveEntry | null>>();
   private readonly lastSnapshot = new Map<number, { at: Date; pOversale: number } | null>();
+  private readonly evictListeners = new Set<(flightId: number) => void>();
 
   constructor(private readonly db: DataSource) {}
+
+  /** Called with each flight dropped from memory, so what is built from its payloads goes too. */
+  onEvict(listener: (flightId: number) => void) {
+    this.evictListeners.add(listener);
+  }
+
+  /**
+   * Keeps only these flights (the open ones): a departed flight's payloads leave memory, and are read again from the
+   * database if someone still asks for them.
+   */
+  keepOnly(open: ReadonlySet<number>) {
+    for (const flightId of [...this.entries.keys()]) {
+      if (open.has(flightId)) continue;
+      this.entries.delete(flightId);
+      this.lastSnapshot.delete(flightId);
+      this.evictListeners.forEach((l) => l(flightId));
+    }
+  }
+
+  /** Flights held in memory. */
+  size(): number {
+    return this.entries.size;
+  }
 
   get(flightId: number): LiveEntry | undefined {
     return this.entries.get(flightId);

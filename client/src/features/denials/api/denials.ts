@@ -1,9 +1,10 @@
 import { queryOptions, useMutation, useQueryClient } from '@tanstack/react-query';
 import {
-  boardingRefusalListSchema, boardingRefusalSchema, denialCandidatesSchema, denialProposalListSchema, denialProposalSchema, rebookDenialResultSchema,
+  boardingRefusalListSchema, boardingRefusalSchema, denialProposalListSchema, denialProposalSchema, rebookDenialResultSchema,
   stationPriorityRulesSchema, waitingProposalListSchema,
   type ChangeDenialsBody, type PriorityRulesBody, type ProposeDenialsBody, type RebookDenialBody, type RecordDenialAfterBody, type RecordRefusalBody,
 } from '@shared/schemas/denials';
+import { applyCandidatesPatch, candidatesAnswerSchema, taggedCandidatesSchema, type TaggedCandidates } from '@shared/schemas/denial-candidates-patch';
 import { alternateListSchema } from '@shared/schemas/volunteers';
 import type { z } from 'zod';
 import { api, apiRequest } from '../../../lib/api-client';
@@ -26,8 +27,25 @@ type DenialProposalList = z.infer<typeof denialProposalListSchema>;
 /** A slow safety net under the socket: a missed notice still shows up within a minute. */
 const SAFETY_REFETCH_MS = 60_000;
 
+/**
+ * The ranking: whole on the first fetch, then only what changed since the one held (by its tag), so a check-in costs
+ * each console a few hundred bytes instead of the whole list.
+ */
+async function fetchCandidates(flightId: number, held: TaggedCandidates | undefined, signal: AbortSignal): Promise<TaggedCandidates> {
+  const path = `/flights/${flightId}/denial-candidates`;
+  if (!held?.tag) return api.get(path, taggedCandidatesSchema, signal);
+  const answer = await api.get(`${path}?since=${encodeURIComponent(held.tag)}`, candidatesAnswerSchema, signal);
+  if (answer.kind === 'full') return answer;
+  if (answer.kind === 'same') return held;
+  return applyCandidatesPatch(held, answer) ?? api.get(path, taggedCandidatesSchema, signal);
+}
+
 export const denialCandidatesQueryOptions = (flightId: number) =>
-  queryOptions({ queryKey: denialKeys.candidates(flightId), queryFn: () => api.get(`/flights/${flightId}/denial-candidates`, denialCandidatesSchema), refetchInterval: SAFETY_REFETCH_MS });
+  queryOptions({
+    queryKey: denialKeys.candidates(flightId),
+    queryFn: ({ client, queryKey, signal }) => fetchCandidates(flightId, client.getQueryData<TaggedCandidates>(queryKey), signal),
+    refetchInterval: SAFETY_REFETCH_MS,
+  });
 
 /** The outbox sends after the commit and tells no console, so a statement still being sent is looked at again soon. */
 const SENDING_REFETCH_MS = 3_000;
@@ -37,7 +55,7 @@ const statementsSending = (list: DenialProposalList | undefined) =>
 export const denialProposalsQueryOptions = (flightId: number) =>
   queryOptions({
     queryKey: denialKeys.proposals(flightId),
-    queryFn: () => api.get(`/flights/${flightId}/denial-proposals`, denialProposalListSchema),
+    queryFn: ({ signal }) => api.get(`/flights/${flightId}/denial-proposals`, denialProposalListSchema, signal),
     refetchInterval: (query) => (statementsSending(query.state.data) ? SENDING_REFETCH_MS : SAFETY_REFETCH_MS),
   });
 
