@@ -8,8 +8,9 @@
 //    aborts the one in flight (the query functions pass TanStack Query's `signal`);
 //  - `refetch` (the client before notices carried data, kept to compare): every notice refetches the four desk
 //    queries; the request in flight runs on and its answer is thrown away;
-//  - either way the denied-boarding panel refetches its candidates and proposals on every notice (its hook's rule),
-//    without a signal.
+//  - the denied-boarding panel (`patch`): a notice without a version refetches its candidates and proposals; a
+//    forecast notice refetches only the candidates, only when passengers moved, naming the ranking it holds
+//    (`?since=tag`) to get a patch; in `refetch` it refetches both whole on every notice, without a signal.
 import type { ConsoleSocket } from './consoles';
 
 export interface Held {
@@ -37,6 +38,7 @@ interface DeskNotice {
   id: number;
   version?: number;
   topics?: string[];
+  passengers?: unknown[] | null;
   desk?: { version: number; forecast: { computedAt: string } | null; totals: { checkedIn: number } };
 }
 
@@ -45,7 +47,7 @@ class QuerySlot {
   controller: AbortController | null = null;
   private serial = 0;
   constructor(
-    private readonly path: string,
+    private readonly path: string | (() => string),
     private readonly fetchJson: (path: string, signal: AbortSignal) => Promise<{ body: unknown; bytes: number }>,
     private readonly counters: ConsoleCounters,
     private readonly onData: (body: unknown) => void,
@@ -63,12 +65,15 @@ class QuerySlot {
     const controller = new AbortController();
     this.controller = controller;
     this.counters.refetches++;
-    this.fetchJson(this.path, controller.signal).then(
+    const path = typeof this.path === 'string' ? this.path : this.path();
+    // Counted by route, whatever the query string.
+    const route = path.split('?')[0];
+    this.fetchJson(path, controller.signal).then(
       ({ body, bytes }) => {
-        const stats = this.counters.byPath.get(this.path) ?? { requests: 0, bytes: 0 };
+        const stats = this.counters.byPath.get(route) ?? { requests: 0, bytes: 0 };
         stats.requests++;
         stats.bytes += bytes;
-        this.counters.byPath.set(this.path, stats);
+        this.counters.byPath.set(route, stats);
         if (mine !== this.serial) {
           this.counters.discarded++;
           return;
@@ -100,10 +105,13 @@ export class DeskConsole {
   private readonly desk: QuerySlot;
   private readonly others: QuerySlot[];
   private readonly denials: QuerySlot[];
+  private readonly candidates: QuerySlot;
+  private readonly proposals: QuerySlot;
+  private rankingTag: string | null = null;
 
   constructor(private readonly opts: DeskConsoleOptions) {
     const base = `/api/flights/${opts.flightId}`;
-    const slot = (path: string, onData: (b: unknown) => void, aborts: boolean) => new QuerySlot(path, (p, s) => this.get(p, s), this.counters, onData, aborts);
+    const slot = (path: string | (() => string), onData: (b: unknown) => void, aborts: boolean) => new QuerySlot(path, (p, s) => this.get(p, s), this.counters, onData, aborts);
     const aborts = opts.model === 'patch';
     this.desk = slot(base, (b) => this.hold(b as DeskNotice['desk']), aborts);
     this.others = [
@@ -111,7 +119,16 @@ export class DeskConsole {
       slot(`${base}/forecast-history`, () => undefined, aborts),
       slot(`${base}/events`, () => undefined, aborts),
     ];
-    this.denials = [slot(`${base}/denial-candidates`, () => undefined, false), slot(`${base}/denial-proposals`, () => undefined, false)];
+    const candidates = `${base}/denial-candidates`;
+    const patching = opts.model === 'patch';
+    // The ranking's tag: kept from the last answer, named in the next request as the client does.
+    const keepTag = (b: unknown) => {
+      const tag = (b as { tag?: unknown } | null)?.tag;
+      if (patching && typeof tag === 'string') this.rankingTag = tag;
+    };
+    this.candidates = slot(() => (this.rankingTag ? `${candidates}?since=${this.rankingTag}` : candidates), keepTag, patching);
+    this.proposals = slot(`${base}/denial-proposals`, () => undefined, patching);
+    this.denials = [this.candidates, this.proposals];
     opts.socket.on('flight:changed', (p) => this.onNotice(p as DeskNotice));
   }
 
@@ -147,7 +164,8 @@ export class DeskConsole {
   private onNotice(p: DeskNotice) {
     this.counters.notices++;
     this.counters.noticeBytes += JSON.stringify(p).length;
-    this.denials.forEach((s) => s.refetch());
+    if (this.opts.model === 'refetch' || p.version === undefined) this.denials.forEach((s) => s.refetch());
+    else if (p.passengers === undefined || p.passengers === null || p.passengers.length > 0) this.candidates.refetch();
     if (this.opts.model === 'patch' && p.desk && this.held) {
       if (p.desk.version === this.held.version + 1) {
         this.counters.patched++;

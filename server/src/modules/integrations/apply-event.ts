@@ -15,10 +15,22 @@ export interface Applied {
 
 const rejected = (field: string, rule: string) => new HttpError(422, 'event_rejected', `${field}: ${rule}`, [{ field, rule }]);
 
-async function findFlight(em: EntityManager, stationId: number, e: IntegrationEvent) {
-  const flight = await em.findOneBy(FlightEntity, { stationId, carrierCode: e.flight.carrier, flightNumber: e.flight.number, serviceDate: e.flight.date });
-  if (!flight) throw rejected('flight', `no flight ${e.flight.carrier}${e.flight.number} on ${e.flight.date} departs from this station`);
-  return flight;
+/** Flights looked up once per batch: a burst of check-ins names the same few flights again and again. */
+export class BatchFlights {
+  private readonly flights = new Map<string, Promise<FlightEntity | null>>();
+  constructor(private readonly em: EntityManager, private readonly stationId: number) {}
+
+  async of(e: IntegrationEvent): Promise<FlightEntity> {
+    const key = `${e.flight.carrier}|${e.flight.number}|${e.flight.date}`;
+    let found = this.flights.get(key);
+    if (!found) {
+      found = this.em.findOneBy(FlightEntity, { stationId: this.stationId, carrierCode: e.flight.carrier, flightNumber: e.flight.number, serviceDate: e.flight.date });
+      this.flights.set(key, found);
+    }
+    const flight = await found;
+    if (!flight) throw rejected('flight', `no flight ${e.flight.carrier}${e.flight.number} on ${e.flight.date} departs from this station`);
+    return flight;
+  }
 }
 
 async function targets(em: EntityManager, flightId: number, pnr: string, sequence: number | undefined) {
@@ -30,17 +42,60 @@ async function targets(em: EntityManager, flightId: number, pnr: string, sequenc
   return { booking, passengers: chosen };
 }
 
-type StatusChange = (p: PassengerEntity, at: Date) => void;
-
-const STATUS_CHANGES: Record<string, { to: PassengerStatus; change: StatusChange; words: string }> = {
-  'passenger.checked-in': { to: 'checked-in', words: 'checked in', change: (p, at) => { p.checkedInAt = at; p.boardedAt = null; } },
-  'check-in.cancelled': { to: 'booked', words: 'check-in cancelled', change: (p) => { p.checkedInAt = null; p.boardedAt = null; } },
-  'passenger.boarded': { to: 'boarded', words: 'boarded', change: (p, at) => { p.checkedInAt ??= at; p.boardedAt = at; } },
-  'passenger.offloaded': { to: 'offloaded', words: 'offloaded', change: (p) => { p.boardedAt = null; } },
+/**
+ * Each status event as one guarded UPDATE of the booking's passengers: the new status, and the check-in and boarding
+ * times as the event sets them (`?` is the event's time). The guard in the WHERE clause keeps a newer status.
+ */
+const STATUS_CHANGES: Record<string, { to: PassengerStatus; set: string; times: number; words: string }> = {
+  'passenger.checked-in': { to: 'checked-in', words: 'checked in', set: 'checked_in_at = ?, boarded_at = NULL', times: 1 },
+  'check-in.cancelled': { to: 'booked', words: 'check-in cancelled', set: 'checked_in_at = NULL, boarded_at = NULL', times: 0 },
+  'passenger.boarded': { to: 'boarded', words: 'boarded', set: 'checked_in_at = COALESCE(checked_in_at, ?), boarded_at = ?', times: 2 },
+  'passenger.offloaded': { to: 'offloaded', words: 'offloaded', set: 'boarded_at = NULL', times: 0 },
 };
 
-export async function applyEvent(em: EntityManager, stationId: number, e: IntegrationEvent): Promise<Applied> {
-  const flight = await findFlight(em, stationId, e);
+type StatusEvent = Extract<IntegrationEvent, { type: 'passenger.checked-in' | 'check-in.cancelled' | 'passenger.boarded' | 'passenger.offloaded' }>;
+
+interface HeldRow {
+  id: number;
+  seq: number;
+  status: string;
+  changed: Date | string | null;
+  checked_in: Date | string | null;
+}
+
+/**
+ * A status event in two statements: the booking's passengers read and locked (one join), then one guarded UPDATE.
+ * Every check comes before the write, so a rejected event has changed nothing and needs no savepoint.
+ */
+async function applyStatus(em: EntityManager, flight: FlightEntity, e: StatusEvent, at: Date): Promise<Applied> {
+  const rule = STATUS_CHANGES[e.type];
+  const rows: HeldRow[] = await em.query(
+    `SELECT p.id, p.pnr_sequence AS seq, p.status, p.status_changed_at AS changed, p.checked_in_at AS checked_in
+       FROM passengers p JOIN bookings b ON b.id = p.booking_id WHERE b.flight_id = ? AND b.pnr = ? ORDER BY p.pnr_sequence FOR UPDATE`,
+    [flight.id, e.pnr],
+  );
+  if (!rows.length) throw rejected('pnr', `no booking ${e.pnr} on this flight`);
+  const chosen = e.sequence === undefined ? rows : rows.filter((p) => Number(p.seq) === e.sequence);
+  if (!chosen.length) throw rejected('sequence', `booking ${e.pnr} has no passenger ${e.sequence}`);
+  if (chosen.some((p) => p.status === 'cancelled')) throw rejected('pnr', `booking ${e.pnr} is cancelled`);
+  const newer = (p: HeldRow) => p.changed !== null && new Date(p.changed).getTime() > at.getTime();
+  const moved = chosen.filter((p) => !newer(p)).map((p) => Number(p.id));
+  // Out of order: the newer status stays, but a check-in time history did not have is filled in.
+  const filled = e.type === 'passenger.checked-in' ? chosen.filter((p) => newer(p) && p.checked_in === null).map((p) => Number(p.id)) : [];
+  if (moved.length) {
+    await em.query(
+      `UPDATE passengers SET status = ?, status_changed_at = ?, ${rule.set} WHERE id IN (?) AND (status_changed_at IS NULL OR status_changed_at <= ?)`,
+      [rule.to, at, ...Array<Date>(rule.times).fill(at), moved, at],
+    );
+  }
+  if (filled.length) await em.query('UPDATE passengers SET checked_in_at = ? WHERE id IN (?) AND checked_in_at IS NULL', [at, filled]);
+  const who = e.sequence === undefined ? `${e.pnr} (${chosen.length})` : `${e.pnr}/${e.sequence}`;
+  const newest = moved.length > 0;
+  return { flightId: flight.id, status: newest ? 'applied' : 'superseded', summary: newest ? `${who} ${rule.words}` : `${who} ${rule.words}: older than the latest change, kept the newer status` };
+}
+
+export async function applyEvent(em: EntityManager, flights: BatchFlights, e: IntegrationEvent): Promise<Applied> {
+  const flight = await flights.of(e);
   const at = new Date(e.occurredAt);
   const label = `${flight.carrierCode}${flight.flightNumber}`;
 
@@ -87,27 +142,5 @@ export async function applyEvent(em: EntityManager, stationId: number, e: Integr
     return { flightId: flight.id, status: 'applied', summary: `Booking ${e.pnr} cancelled` };
   }
 
-  const rule = STATUS_CHANGES[e.type];
-  const { passengers } = await targets(em, flight.id, e.pnr, e.sequence);
-  const moved: PassengerEntity[] = [];
-  for (const p of passengers) {
-    if (p.status === 'cancelled') throw rejected('pnr', `booking ${e.pnr} is cancelled`);
-    if (p.statusChangedAt && p.statusChangedAt > at) {
-      // Out of order: keep the newer status, but fill in a check-in time history did not have.
-      if (e.type === 'passenger.checked-in' && !p.checkedInAt) {
-        p.checkedInAt = at;
-        moved.push(p);
-      }
-      continue;
-    }
-    rule.change(p, at);
-    p.status = rule.to;
-    p.statusChangedAt = at;
-    moved.push(p);
-  }
-  // Guarded, column by column: no read-back before the write, as a save() of the entity would do.
-  for (const p of moved) await em.update(PassengerEntity, { id: p.id }, { status: p.status, statusChangedAt: p.statusChangedAt, checkedInAt: p.checkedInAt, boardedAt: p.boardedAt });
-  const who = e.sequence === undefined ? `${e.pnr} (${passengers.length})` : `${e.pnr}/${e.sequence}`;
-  const newest = moved.some((p) => p.statusChangedAt?.getTime() === at.getTime());
-  return { flightId: flight.id, status: newest ? 'applied' : 'superseded', summary: newest ? `${who} ${rule.words}` : `${who} ${rule.words}: older than the latest change, kept the newer status` };
+  return applyStatus(em, flight, e, at);
 }
