@@ -17,6 +17,7 @@ import { createSessionSetup } from '../../server/src/http/session';
 import { createSignInThrottle } from '../../server/src/modules/auth/throttle';
 import { heldRankingsOf } from '../../server/src/modules/denials/candidates-held';
 import { createForecastScheduler, type ForecastScheduler } from '../../server/src/modules/forecast/forecast-scheduler';
+import { liveStoreOf } from '../../server/src/modules/forecast/live-store';
 import { createIntegrationKey } from '../../server/src/modules/integrations/integration-keys.service';
 import { addBooking, createFlight, removeDenialFixtures } from './denials-fixtures';
 import { Client } from './harness';
@@ -127,5 +128,16 @@ describe('the denial ranking served from memory', () => {
   it('answers "not found" for a flight of another station, as for one that does not exist', async () => {
     const flight = await createFlight(db, { station: 'BOS', destination: 'ORD', seats: 1 });
     await agent.get(`/api/flights/${flight.id + 1_000_000}/denial-candidates`).expect(404);
+  });
+
+  it('a departed flight leaves memory at the clock tick, and is read again if someone still asks', async () => {
+    const flight = await createFlight(db, { station: 'BOS', destination: 'ORD', seats: 1, departure: new Date(Date.now() - 3 * 3_600_000) });
+    const before = await full(agent, flight);
+    expect(liveStoreOf(db).get(flight.id)).toBeDefined();
+    await scheduler.tick();
+    expect(liveStoreOf(db).get(flight.id)).toBeUndefined();
+    const after = await full(agent, flight);
+    expect(after.flight).toEqual(before.flight);
+    expect(after.tag).not.toBe(before.tag);
   });
 });
