@@ -4,6 +4,7 @@
 import type { DataSource } from 'typeorm';
 import { LessThan, MoreThan, Not, In } from 'typeorm';
 import { FlightEntity } from '../../db/entities';
+import { namedLockLeader, type Leadership } from './clock-leader';
 import { liveStoreOf } from './live-store';
 import { recomputeFlightDetailed, type RecomputeOutcome, type RecomputeResult } from './forecast.service';
 
@@ -35,6 +36,8 @@ export interface SchedulerOptions {
   parallel?: number;
   /** The recompute itself; tests pass their own. */
   recompute?: Recompute;
+  /** Who ticks the clock when several processes share the database (default: a named lock in MariaDB). */
+  leader?: Leadership;
 }
 
 export function createForecastScheduler(db: DataSource, onRecomputed: (o: RecomputeOutcome) => void, options: SchedulerOptions = {}): ForecastScheduler {
@@ -47,6 +50,7 @@ export function createForecastScheduler(db: DataSource, onRecomputed: (o: Recomp
   let count = 0;
   let clock: NodeJS.Timeout | null = null;
   let scheduled = false;
+  let leader: Leadership | null = null;
 
   const runOne = async (id: number, onlyIfMoved: boolean) => {
     running.add(id);
@@ -120,13 +124,20 @@ export function createForecastScheduler(db: DataSource, onRecomputed: (o: Recomp
       liveStoreOf(db).keepOnly(new Set(open.map((f) => f.id)));
     },
     // Without events the figures still move: people not yet checked in become less likely to show as time passes.
+    // Only the leader ticks: every process would otherwise recompute every open flight each minute.
     startClock(intervalMs = 60_000) {
-      void scheduler.tick().catch(() => undefined);
-      clock = setInterval(() => void scheduler.tick().catch(() => undefined), intervalMs);
+      leader = options.leader ?? namedLockLeader(db);
+      const held = leader;
+      const beat = () => void held.isLeader().then((lead) => (lead ? scheduler.tick() : undefined)).catch(() => undefined);
+      beat();
+      clock = setInterval(beat, intervalMs);
       clock.unref();
     },
     stop() {
       if (clock) clearInterval(clock);
+      clock = null;
+      void leader?.release();
+      leader = null;
     },
   };
   return scheduler;
