@@ -23,8 +23,8 @@ export async function signIn(appUrl: string, email: string, password: string): P
   const first = await fetch(`${appUrl}/api/auth/session`);
   if (!first.ok) throw new Error(`GET /api/auth/session answered ${first.status}`);
   const { csrfToken } = (await first.json()) as { csrfToken: string };
-  const anonymous = sessionCookie(first);
-  if (!anonymous) throw new Error('GET /api/auth/session set no session cookie');
+  // Whatever the first answer sets (the CSRF token's binding; no session is stored before sign-in) goes back with it.
+  const anonymous = first.headers.getSetCookie().map((h) => h.split(';')[0]).join('; ');
   const res = await fetch(`${appUrl}/api/auth/sign-in`, {
     method: 'POST',
     headers: { 'Content-Type': 'application/json', 'X-CSRF-Token': csrfToken, Cookie: anonymous },
