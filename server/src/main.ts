@@ -7,6 +7,7 @@ import { createSessionSetup } from './http/session';
 import { createSignInThrottle } from './modules/auth/throttle';
 import { createSocketServer, disconnectUserSockets, refreshUserSockets, type AppIo } from './realtime/socket-server';
 import { socketPublisher } from './realtime/publisher';
+import { followPeers, shareThroughRedis } from './realtime/peers';
 import { createForecastScheduler } from './modules/forecast/forecast-scheduler';
 import { createMailTransport } from './integrations/mail/mail-transport';
 import { createOutboxWorker } from './modules/outbox/outbox-worker';
@@ -43,6 +44,9 @@ const app = createApp({
 });
 const http = createServer(app);
 ioRef.io = createSocketServer(http, { db, sessionMiddleware: session.middleware });
+// Several processes: rooms and the flights' news shared through Redis (one process alone needs neither).
+const closeRedis = env.REDIS_URL ? await shareThroughRedis(ioRef.io, env.REDIS_URL) : async () => undefined;
+followPeers(ioRef.io, db);
 http.listen(env.PORT, env.HOST, () => {
   console.log(`[server] listening on http://${env.HOST}:${env.PORT}`);
 });
@@ -54,6 +58,7 @@ async function stop(signal: string) {
   console.log(`[server] ${signal}: stopping`);
   forecast.stop();
   ioRef.io?.close();
+  await closeRedis();
   // Requests already being handled finish before the database goes away (bounded, so a stuck client cannot hold us).
   await new Promise<void>((resolve) => {
     http.close(() => resolve());

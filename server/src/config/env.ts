@@ -30,6 +30,8 @@ const envSchema = z
     APP_BASE_URL: z.url().default('http://127.0.0.1:4600'),
     SESSION_IDLE_MINUTES: z.coerce.number().int().positive().default(30),
     SESSION_ABSOLUTE_HOURS: z.coerce.number().int().positive().default(12),
+    /** Set to run several app processes: socket.io's notices and the server-to-server messages go through Redis. */
+    REDIS_URL: z.string().regex(/^redis:\/\/[^\s]+$/, 'REDIS_URL must look like redis://127.0.0.1:6379').optional(),
     TRUST_PROXY: trustProxySchema,
     SMTP_HOST: z.string().default('127.0.0.1'),
     SMTP_PORT: z.coerce.number().int().positive().default(4625),

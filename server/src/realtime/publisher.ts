@@ -1,7 +1,7 @@
 // The one place the server tells consoles that something changed. Called only after the change has committed. A
 // forecast's notice carries the flight's new version and what changed with it, so consoles patch instead of refetching.
 import { flightRoom, stationRoom, type ChangedPayload } from '@shared/events';
-import type { AppIo } from './socket-server';
+import { sharedServers, type AppIo } from './socket-server';
 
 export type NoticeData = Omit<ChangedPayload, 'id' | 'topics'>;
 
@@ -18,6 +18,8 @@ export function socketPublisher(getIo: () => AppIo | undefined): Publisher {
       if (!io) return;
       io.to(flightRoom(flightId)).emit('flight:changed', { id: flightId, topics, ...data });
       io.to(stationRoom(stationId)).emit('station:changed', { id: stationId, topics: ['departures'] });
+      // The other server processes drop what they hold of this flight from an older state (see peers.ts).
+      if (sharedServers.has(io)) io.serverSideEmit('flight:moved', flightId, data?.version ?? null);
     },
   };
 }

@@ -16,8 +16,15 @@ interface SocketData {
   /** The station behind each flight room joined, so a change of stations knows which flight rooms to leave. */
   flightStations: Record<number, number>;
 }
-type AppSocket = Socket<ClientToServerEvents, ServerToClientEvents, Record<string, never>, SocketData>;
-export type AppIo = Server<ClientToServerEvents, ServerToClientEvents, Record<string, never>, SocketData>;
+/** Between server processes (through the Redis adapter): a flight moved, with its new version when the forecast's. */
+export interface InterServerEvents {
+  'flight:moved': (flightId: number, version: number | null) => void;
+}
+/** Servers whose adapter reaches other processes (the Redis adapter); the in-memory one refuses server-side emits. */
+export const sharedServers = new WeakSet<AppIo>();
+
+type AppSocket = Socket<ClientToServerEvents, ServerToClientEvents, InterServerEvents, SocketData>;
+export type AppIo = Server<ClientToServerEvents, ServerToClientEvents, InterServerEvents, SocketData>;
 
 const userRoom = (userId: number) => `user:${userId}`;
 

@@ -97,6 +97,12 @@ export class LiveStore {
     }
   }
 
+  /** Another process stored `version`: a held older one is dropped and read again from the database when asked. */
+  dropOlder(flightId: number, version: number) {
+    const held = this.entries.get(flightId);
+    if (held && held.version < version) this.entries.delete(flightId);
+  }
+
   /** Flights held in memory. */
   size(): number {
     return this.entries.size;
