@@ -5,6 +5,7 @@ import { buildClientIfStale } from './lib/client-build.mjs';
 import { migrateAndLoadDemo, serviceEnv, startDatabase, startServices } from './lib/stack.mjs';
 import { startChild, stopChildren } from './lib/processes.mjs';
 import { say } from './lib/log.mjs';
+import { startPrivateRedis } from './lib/redis.mjs';
 import { demoDataIn, productionEnvProblems } from './lib/production.mjs';
 
 const dev = process.argv.includes('--dev');
@@ -54,6 +55,8 @@ try {
   if (!dev) buildClientIfStale();
   // In production every secret and address comes from the environment; the stand-ins and the simulator stay off.
   const env = production ? { ...process.env, PORT: String(appPort), SIMULATOR: 'off' } : serviceEnv({ local, ports, databaseUrl: db.url });
+  // CLUSTER=1 without REDIS_URL: a private Redis on loopback, for app processes started beside this one (README).
+  if (process.env.CLUSTER === '1' && !process.env.REDIS_URL) env.REDIS_URL = (await startPrivateRedis({ port: appPort + 30, dir: `${local}/redis` })).url;
   await startServices(env, { dev, standIns: !production });
   if (dev) startChild('vite', 'node_modules/.bin/vite', ['--strictPort'], { env: { BUMPBOARD_API_URL: `http://127.0.0.1:${ports.app}` } });
   const appUrl = dev ? 'http://127.0.0.1:5173' : `http://127.0.0.1:${ports.app}`;
