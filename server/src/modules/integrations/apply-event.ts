@@ -6,6 +6,7 @@ import { BookingEntity, FlightEntity, PassengerEntity } from '../../db/entities'
 import type { PassengerStatus } from '../../db/entities/passenger.entity';
 import { HttpError } from '../../http/errors';
 import { feedBookingProblem } from '../manifests/booking-guard';
+import { driverErrorCode } from '../../db/driver-errors';
 
 export interface Applied {
   flightId: number;
@@ -39,6 +40,19 @@ const STATUS_CHANGES: Record<string, { to: PassengerStatus; change: StatusChange
   'passenger.offloaded': { to: 'offloaded', words: 'offloaded', change: (p) => { p.boardedAt = null; } },
 };
 
+/**
+ * A booking sent again gets the passengers the feed names now. Its earlier passengers go, unless a record names one
+ * (a volunteer, a denial, a compensation): those rows outlive any booking change, so the feed is told to use a new PNR.
+ */
+async function replacePassengersOf(em: EntityManager, bookingId: number, pnr: string): Promise<void> {
+  try {
+    await em.delete(PassengerEntity, { bookingId });
+  } catch (err) {
+    if (driverErrorCode(err) !== 'ER_ROW_IS_REFERENCED_2') throw err;
+    throw rejected('pnr', `${pnr} was cancelled after a volunteer, denial or compensation record named its passengers; send it again under a new PNR`);
+  }
+}
+
 export async function applyEvent(em: EntityManager, stationId: number, e: IntegrationEvent): Promise<Applied> {
   const flight = await findFlight(em, stationId, e);
   const at = new Date(e.occurredAt);
@@ -60,7 +74,7 @@ export async function applyEvent(em: EntityManager, stationId: number, e: Integr
     booking.status = 'active';
     booking.contactEmail = e.contactEmail;
     await em.save(booking);
-    await em.delete(PassengerEntity, { bookingId: booking.id });
+    await replacePassengersOf(em, booking.id, e.pnr);
     await em.insert(PassengerEntity, e.passengers.map((p, i) => ({
       ...p,
       bookingId: booking.id,
