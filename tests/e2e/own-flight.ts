@@ -27,10 +27,10 @@ async function insertFlight(db: mysql.Connection, stationId: number, number: str
 }
 
 /**
- * `checkedIn` solo travellers checked in on `seats` seats (default 33 on 30: three over), each with a booking of
- * their own and a contact address under .test (RFC 2606), on a date far ahead so no departures board of today lists it.
+ * `checkedIn` solo travellers checked in on `seats` seats (default 33 on 30: three over), and `booked` more not yet
+ * checked in, each with a booking of their own and a contact address under .test (RFC 2606), on a date far ahead so no departures board of today lists it.
  */
-export async function ownFlight(tag: string, opts: { seats?: number; checkedIn?: number } = {}): Promise<OwnFlight> {
+export async function ownFlight(tag: string, opts: { seats?: number; checkedIn?: number; booked?: number } = {}): Promise<OwnFlight> {
   expect(DATABASE_URL, 'DATABASE_URL of the database the app uses').not.toBe('');
   const db = await mysql.createConnection({ uri: DATABASE_URL.replace(/^mariadb:/, 'mysql:'), timezone: 'Z' });
   try {
@@ -41,15 +41,17 @@ export async function ownFlight(tag: string, opts: { seats?: number; checkedIn?:
     const flightId = await insertFlight(db, station.id, number, departure, opts.seats ?? 30);
     const alternateId = await insertFlight(db, station.id, String(6000 + ((Number(number) - 6000 + 500) % 1000)), new Date(departure.getTime() + 3 * 3_600_000), 150);
     const checkedIn = opts.checkedIn ?? 33;
-    for (let i = 1; i <= checkedIn; i++) {
+    // The first `checkedIn` have checked in; `booked` more have not yet (the feed can check them in).
+    for (let i = 1; i <= checkedIn + (opts.booked ?? 0); i++) {
+      const arrived = i <= checkedIn;
       const pnr = `F${RUN.slice(-3)}${String(i).padStart(2, '0')}`.toUpperCase().replace(/[^A-Z0-9]/g, 'X').slice(0, 6);
       const [booking] = await db.execute<mysql.ResultSetHeader>(`INSERT INTO bookings (flight_id, pnr, contact_email, travels_together, status) VALUES (?, ?, ?, 1, 'active')`,
         [flightId, pnr, `e2e-${tag}-${RUN}-${i}@passengers.bumpboard.test`]);
       const at = new Date(departure.getTime() - (240 - i) * 60_000);
       await db.execute(
         `INSERT INTO passengers (booking_id, flight_id, pnr_sequence, first_name, last_name, cabin, fare_minor, fare_currency, fare_type, ssr_codes, is_child, status, checked_in_at, status_changed_at)
-         VALUES (?, ?, 1, ?, ?, 'Y', 24900, 'USD', 'standard', '[]', 0, 'checked-in', ?, ?)`,
-        [booking.insertId, flightId, ['Ada', 'Bruno', 'Chloé', 'Dev', 'Eun-ji', 'Farah'][i % 6], `Traveller${i}`, at, at],
+         VALUES (?, ?, 1, ?, ?, 'Y', 24900, 'USD', 'standard', '[]', 0, ?, ?, ?)`,
+        [booking.insertId, flightId, ['Ada', 'Bruno', 'Chloé', 'Dev', 'Eun-ji', 'Farah'][i % 6], `Traveller${i}`, arrived ? 'checked-in' : 'booked', arrived ? at : null, at],
       );
     }
     return {
