@@ -28,15 +28,19 @@ async function insertFlight(db: mysql.Connection, stationId: number, number: str
 
 /**
  * `checkedIn` solo travellers checked in on `seats` seats (default 33 on 30: three over), and `booked` more not yet
- * checked in, each with a booking of their own and a contact address under .test (RFC 2606), on a date far ahead so no departures board of today lists it.
+ * checked in, each with a booking of their own and a contact address under .test (RFC 2606); by default on a date far
+ * ahead, so no departures board of today lists it.
  */
-export async function ownFlight(tag: string, opts: { seats?: number; checkedIn?: number; booked?: number } = {}): Promise<OwnFlight> {
+export async function ownFlight(tag: string, opts: { seats?: number; checkedIn?: number; booked?: number; departsInMinutes?: number } = {}): Promise<OwnFlight> {
   expect(DATABASE_URL, 'DATABASE_URL of the database the app uses').not.toBe('');
   const db = await mysql.createConnection({ uri: DATABASE_URL.replace(/^mariadb:/, 'mysql:'), timezone: 'Z' });
   try {
     const [[station]] = await db.query<mysql.RowDataPacket[]>(`SELECT id FROM stations WHERE iata = 'BOS'`);
-    const departure = new Date(Date.now() + (100 + Math.floor(Math.random() * 600)) * 86_400_000);
-    departure.setUTCHours(14, 0, 0, 0);
+    // Far ahead unless the spec needs check-in open now (the feed refuses check-ins long before departure).
+    const departure = opts.departsInMinutes !== undefined
+      ? new Date(Math.floor(Date.now() / 60_000) * 60_000 + opts.departsInMinutes * 60_000)
+      : new Date(Date.now() + (100 + Math.floor(Math.random() * 600)) * 86_400_000);
+    if (opts.departsInMinutes === undefined) departure.setUTCHours(14, 0, 0, 0);
     const number = String(6000 + Math.floor(Math.random() * 1000));
     const flightId = await insertFlight(db, station.id, number, departure, opts.seats ?? 30);
     const alternateId = await insertFlight(db, station.id, String(6000 + ((Number(number) - 6000 + 500) % 1000)), new Date(departure.getTime() + 3 * 3_600_000), 150);
@@ -51,7 +55,7 @@ export async function ownFlight(tag: string, opts: { seats?: number; checkedIn?:
       await db.execute(
         `INSERT INTO passengers (booking_id, flight_id, pnr_sequence, first_name, last_name, cabin, fare_minor, fare_currency, fare_type, ssr_codes, is_child, status, checked_in_at, status_changed_at)
          VALUES (?, ?, 1, ?, ?, 'Y', 24900, 'USD', 'standard', '[]', 0, ?, ?, ?)`,
-        [booking.insertId, flightId, ['Ada', 'Bruno', 'Chloé', 'Dev', 'Eun-ji', 'Farah'][i % 6], `Traveller${i}`, arrived ? 'checked-in' : 'booked', arrived ? at : null, at],
+        [booking.insertId, flightId, ['Ada', 'Bruno', 'Chloé', 'Dev', 'Eun-ji', 'Farah'][i % 6], `Traveller${i}`, arrived ? 'checked-in' : 'booked', arrived ? at : null, arrived ? at : null],
       );
     }
     return {
