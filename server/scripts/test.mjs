@@ -17,6 +17,13 @@ const base = Number(process.env.TEST_PORT ?? 4700);
 const ports = { app: base, mail: base + 1, payments: base + 2, smtp: base + 25, db: base + 10 };
 const results = [];
 let db;
+// `npm test -- e2e tests/e2e/a.spec.ts` runs the set-up and the named steps only (lint, typecheck, unit, api, e2e),
+// the files after them passed to that runner: for working on one part; CI runs everything.
+const argv = process.argv.slice(2);
+const STEPS = ['lint', 'typecheck', 'unit', 'api', 'e2e'];
+const onlySteps = argv.filter((a) => STEPS.includes(a));
+const runnerFiles = argv.filter((a) => !STEPS.includes(a));
+const wanted = (name) => onlySteps.length === 0 || onlySteps.includes(name);
 // Each test runner writes its JSON report here; the last line of the run adds them all up.
 const reports = resolve(local, 'reports');
 const report = (name) => resolve(reports, `${name}.json`);
@@ -53,20 +60,20 @@ async function main() {
     rmSync(`${local}/payments-fake`, { recursive: true, force: true });
     migrateAndLoadDemo(db.url, { local });
   });
-  await step('lint (ESLint)', () => run('node_modules/.bin/eslint', ['--config', 'tests/lint/eslint.config.js', '.']) === 0);
-  await step('type-check (tsc)', () => run('node_modules/.bin/tsc', ['-p', 'tsconfig.json', '--noEmit']) === 0);
-  await step('unit tests (vitest)', () => run('node_modules/.bin/vitest', ['run', '--project', 'unit', '--project', 'client', ...vitestJson('unit')]) === 0, 'unit');
+  if (wanted('lint')) await step('lint (ESLint)', () => run('node_modules/.bin/eslint', ['--config', 'tests/lint/eslint.config.js', '.']) === 0);
+  if (wanted('typecheck')) await step('type-check (tsc)', () => run('node_modules/.bin/tsc', ['-p', 'tsconfig.json', '--noEmit']) === 0);
+  if (wanted('unit')) await step('unit tests (vitest)', () => run('node_modules/.bin/vitest', ['run', '--project', 'unit', '--project', 'client', ...vitestJson('unit'), ...runnerFiles]) === 0, 'unit');
   if (!setupOk) return;
   const env = { ...serviceEnv({ local, ports, databaseUrl: db.url }), NODE_ENV: 'test', SIMULATOR: 'off' };
-  await step('API tests against MariaDB (vitest)', () => run('node_modules/.bin/vitest', ['run', '--project', 'api', ...vitestJson('api')], env) === 0, 'api');
-  await step('end-to-end tests in Chromium (Playwright)', async () => {
+  if (wanted('api')) await step('API tests against MariaDB (vitest)', () => run('node_modules/.bin/vitest', ['run', '--project', 'api', ...vitestJson('api'), ...runnerFiles], env) === 0, 'api');
+  if (wanted('e2e')) await step('end-to-end tests in Chromium (Playwright)', async () => {
     ensureChromium();
     buildClientIfStale();
     // The API tests changed data; the browser tests start from a fresh demo.
     if (!process.env.DATABASE_URL) db.resetDatabase();
     migrateAndLoadDemo(db.url, { local });
     await startServices(env, { quiet: !process.env.VERBOSE });
-    return run('node_modules/.bin/playwright', ['test', '--config', 'tests/e2e/playwright.config.ts'], { ...env, E2E_JSON_REPORT: report('e2e') }) === 0;
+    return run('node_modules/.bin/playwright', ['test', '--config', 'tests/e2e/playwright.config.ts', ...runnerFiles], { ...env, E2E_JSON_REPORT: report('e2e') }) === 0;
   }, 'e2e');
 }
 

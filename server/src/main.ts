@@ -22,7 +22,7 @@ const publisher = socketPublisher(() => ioRef.io);
 const forecast = createForecastScheduler(db, (o) => publisher.flightChanged(o.flightId, o.stationId, ['forecast', 'counts', 'events'], o.notice));
 forecast.startClock();
 const mailTransport = createMailTransport(env);
-const outbox = createOutboxWorker(db, mailTransport);
+const outbox = createOutboxWorker(db, mailTransport, { leaseMs: env.OUTBOX_LEASE_SECONDS * 1000 });
 outbox.start();
 // Its first pass retries every compensation a stopped server left 'issuing', with the keys fixed on each row.
 const payments = createPaymentsRuntime({ db, env, changed: (flightId, stationId, topics) => publisher.flightChanged(flightId, stationId, topics) });

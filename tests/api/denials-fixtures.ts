@@ -11,10 +11,10 @@ import { presentSessionUser } from '../../server/src/modules/auth/session-user';
 import { priorityRulesFor } from '../../server/src/modules/denials/priority-rules.service';
 import { authorizeDenials, proposeDenials } from '../../server/src/modules/denials/proposals.service';
 import { rebookDenial } from '../../server/src/modules/denials/rebook.service';
+import { withFreeFlightNumber } from './free-flight-number';
 
 const created: number[] = [];
 const foreignProposals: number[] = [];
-let sequence = 0;
 
 /** A random far-future day (60-700 days ahead) so parallel runs and the demo never share a flight key. */
 function farDate(): Date {
@@ -42,22 +42,13 @@ export async function createFlight(db: DataSource, spec: FlightSpec): Promise<Fl
   const station = await db.getRepository(StationEntity).findOneByOrFail({ iata: spec.station });
   const departure = spec.departure ?? (spec.after ? new Date(spec.after.scheduledDeparture.getTime() + (spec.laterBy ?? 120) * 60_000) : farDate());
   const block = spec.blockMinutes ?? 150;
-  for (let attempt = 0; attempt < 20; attempt++) {
-    sequence += 1;
-    const number = String(8000 + ((Math.floor(Math.random() * 1000) + sequence) % 1000));
-    try {
-      const flight = await db.getRepository(FlightEntity).save(db.getRepository(FlightEntity).create({
-        stationId: station.id, carrierCode: 'ZZ', flightNumber: number, serviceDate: departure.toISOString().slice(0, 10), origin: spec.station,
-        destination: spec.destination, scheduledDeparture: departure, scheduledArrival: new Date(departure.getTime() + block * 60_000),
-        aircraftType: '320', seatsByCabin: spec.cabins ?? { Y: spec.seats ?? 4 }, gate: 'T1', state: 'check-in-open', shock: null,
-      }));
-      created.push(flight.id);
-      return flight;
-    } catch (err) {
-      if ((err as { driverError?: { code?: string } }).driverError?.code !== 'ER_DUP_ENTRY') throw err;
-    }
-  }
-  throw new Error('could not find a free 8xxx flight number');
+  const flight = await withFreeFlightNumber({ from: 8000, size: 1000 }, (flightNumber) => db.getRepository(FlightEntity).save(db.getRepository(FlightEntity).create({
+    stationId: station.id, carrierCode: 'ZZ', flightNumber, serviceDate: departure.toISOString().slice(0, 10), origin: spec.station,
+    destination: spec.destination, scheduledDeparture: departure, scheduledArrival: new Date(departure.getTime() + block * 60_000),
+    aircraftType: '320', seatsByCabin: spec.cabins ?? { Y: spec.seats ?? 4 }, gate: 'T1', state: 'check-in-open', shock: null,
+  })));
+  created.push(flight.id);
+  return flight;
 }
 
 export interface PassengerSpec {

@@ -77,7 +77,8 @@ export async function startTestApp(opts: TestAppOptions = {}): Promise<TestApp> 
 export class Client {
   readonly agent: ReturnType<typeof request.agent>;
   csrf = '';
-  constructor(app: TestApp['app']) {
+  /** An app in this process, or the base URL of a server running in another. */
+  constructor(app: TestApp['app'] | string) {
     this.agent = request.agent(app);
   }
   async refreshCsrf() {

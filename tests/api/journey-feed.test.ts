@@ -6,7 +6,8 @@ import { removeFlights } from './volunteers-fixtures';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
 import { createdIntegrationKeySchema, eventBatchResponseSchema } from '@shared/schemas/integration-events';
-import { BookingEntity, FlightEntity, StationEntity } from '../../server/src/db/entities';
+import { BookingEntity, FlightEntity, PassengerEntity, StationEntity } from '../../server/src/db/entities';
+import { insertCompensations } from './payments-harness';
 import { Client, startTestApp, type TestApp } from './harness';
 import { RUN_ID, TEST_PASSWORD, insertUser, removeRunUsers } from './helpers';
 
@@ -88,5 +89,31 @@ describe('the database session', () => {
   it('runs in UTC on every pooled connection, whatever the server’s own zone', async () => {
     const zones = await Promise.all(Array.from({ length: 5 }, () => t.db.query('SELECT @@session.time_zone AS tz')));
     for (const [row] of zones) expect(row.tz).toBe('+00:00');
+  });
+});
+
+describe('a cancelled booking sent again', () => {
+  it('comes back with fresh passengers when nothing names them', async () => {
+    const f = await makeFlight();
+    const cancel = { id: `journey-${RUN_ID}-${seq++}`, type: 'booking.cancelled', occurredAt: new Date().toISOString(), flight: { carrier: 'ZZ', number: f.flightNumber, date: f.serviceDate }, pnr: 'BACK01' };
+    const res = eventBatchResponseSchema.parse((await feed(booking(f, 'BACK01', {}), cancel, booking(f, 'BACK01', {}, 2)).expect(200)).body);
+    expect(res.results.map((r) => r.status)).toEqual(['applied', 'applied', 'applied']);
+    const stored = await t.db.getRepository(BookingEntity).findOneByOrFail({ flightId: f.id, pnr: 'BACK01' });
+    expect(stored.status).toBe('active');
+    expect(await t.db.getRepository(PassengerEntity).countBy({ bookingId: stored.id })).toBe(2);
+  });
+
+  it('is refused naming the PNR, and changes nothing, when a compensation names one of its passengers', async () => {
+    const f = await makeFlight();
+    expect(eventBatchResponseSchema.parse((await feed(booking(f, 'BACK02', {})).expect(200)).body).results[0].status).toBe('applied');
+    const stored = await t.db.getRepository(BookingEntity).findOneByOrFail({ flightId: f.id, pnr: 'BACK02' });
+    const passengers = await t.db.getRepository(PassengerEntity).findBy({ bookingId: stored.id });
+    await insertCompensations(t.db, f, passengers, () => ({ currency: 'NOK', regime: 'eu-261' }));
+    const cancel = { id: `journey-${RUN_ID}-${seq++}`, type: 'booking.cancelled', occurredAt: new Date().toISOString(), flight: { carrier: 'ZZ', number: f.flightNumber, date: f.serviceDate }, pnr: 'BACK02' };
+    const res = eventBatchResponseSchema.parse((await feed(cancel, booking(f, 'BACK02', {}, 2)).expect(200)).body);
+    expect(res.results.map((r) => r.status)).toEqual(['applied', 'rejected']);
+    expect(res.results[1].details?.[0]).toMatchObject({ field: 'pnr' });
+    expect((await t.db.getRepository(PassengerEntity).findBy({ bookingId: stored.id })).map((p) => p.id)).toEqual(passengers.map((p) => p.id));
+    expect((await t.db.getRepository(BookingEntity).findOneByOrFail({ id: stored.id })).status).toBe('cancelled');
   });
 });

@@ -4,6 +4,7 @@ import { randomInt } from 'node:crypto';
 import type { DataSource } from 'typeorm';
 import { BookingEntity, FlightEntity, OutboxMessageEntity, PassengerEntity, StationEntity } from '../../server/src/db/entities';
 import { deleteInDependencyOrder } from '../../server/src/demo/delete-in-order';
+import { withFreeFlightNumber } from './free-flight-number';
 import { RUN_ID } from './helpers';
 
 const MINUTE = 60_000;
@@ -32,20 +33,15 @@ export interface FlightOptions {
 /** Flight numbers 7000-7999 on carrier ZV; a clash with an earlier run's leftover is retried with another number. */
 export async function makeFlight(db: DataSource, o: FlightOptions): Promise<FlightEntity> {
   const repo = db.getRepository(FlightEntity);
-  for (let attempt = 0; attempt < 8; attempt++) {
+  return withFreeFlightNumber({ from: 7000, size: 1000 }, (flightNumber) => {
     const departure = o.departure ?? new Date(Date.UTC(2034, 0, 1, 14, 0) + randomInt(360) * 86_400_000 + randomInt(96) * 15 * MINUTE);
-    try {
-      return await repo.save(repo.create({
-        stationId: o.stationId, carrierCode: 'ZV', flightNumber: String(7000 + randomInt(1000)), serviceDate: departure.toISOString().slice(0, 10),
-        origin: o.origin, destination: o.destination, scheduledDeparture: departure,
-        scheduledArrival: new Date(departure.getTime() + (o.durationMinutes ?? 150) * MINUTE),
-        aircraftType: '320', seatsByCabin: { Y: o.seats ?? 150 }, gate: null, state: 'scheduled', shock: null,
-      }));
-    } catch (err) {
-      if ((err as { driverError?: { code?: string } }).driverError?.code !== 'ER_DUP_ENTRY') throw err;
-    }
-  }
-  throw new Error('no free ZV 7xxx flight number after 8 tries');
+    return repo.save(repo.create({
+      stationId: o.stationId, carrierCode: 'ZV', flightNumber, serviceDate: departure.toISOString().slice(0, 10),
+      origin: o.origin, destination: o.destination, scheduledDeparture: departure,
+      scheduledArrival: new Date(departure.getTime() + (o.durationMinutes ?? 150) * MINUTE),
+      aircraftType: '320', seatsByCabin: { Y: o.seats ?? 150 }, gate: null, state: 'scheduled', shock: null,
+    }));
+  });
 }
 
 export interface Booked {

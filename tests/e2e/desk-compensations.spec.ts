@@ -1,23 +1,21 @@
 // The agent issues a volunteer's compensation from the flight desk's Compensation panel.
 // Needs: the app at APP_BASE_URL talking to the payments stand-in (STRIPE_API_URL). The test makes its own
-// compensation on the demo flight ZZ 105 (BOS) through the API: a posted round, one checked-in solo volunteer,
+// compensation on a flight of its own at BOS through the API: a posted round, one checked-in solo volunteer,
 // accepted. Rounds left open are closed first, and ours is closed at the end.
 import { expect, test } from '@playwright/test';
 import { SCREENSHOTS, shot, signIn, staffApi, type Staff } from './helpers';
+import { ownFlight, type OwnFlight } from './own-flight';
 
-const FLIGHT = { carrier: 'ZZ', number: '105', label: 'ZZ 105' };
-
+/** This spec's own oversold flight (33 checked in on 30 seats at BOS) and a later one with room. */
+let flight: OwnFlight;
+test.beforeAll(async () => {
+  flight = await ownFlight('comp');
+});
+test.afterAll(async () => {
+  await flight?.remove();
+});
 
 interface Rounds { rounds: { id: number; status: string; volunteers: { bookingId: number }[] }[]; policy: { ladderMinor: number[]; currency: string } }
-
-async function demoFlightId(staff: Staff) {
-  const session = await (await staff.api.get('/api/auth/session')).json();
-  const bos = session.user.stations.find((s: { iata: string }) => s.iata === 'BOS');
-  const board = await (await staff.api.get(`/api/departures?stationId=${bos.id}`)).json();
-  const flight = board.flights.find((f: { carrierCode: string; flightNumber: string }) => f.carrierCode === FLIGHT.carrier && f.flightNumber === FLIGHT.number);
-  expect(flight, 'the demo still has ZZ 105 at BOS').toBeTruthy();
-  return flight.id as number;
-}
 
 /** One open round per flight: another left open would block ours. */
 async function closeOpenRounds(staff: Staff, flightId: number): Promise<Rounds> {
@@ -29,14 +27,14 @@ async function closeOpenRounds(staff: Staff, flightId: number): Promise<Rounds> 
 test('the agent issues an accepted volunteer’s compensation on the desk and sees it issued', async ({ page }) => {
   test.setTimeout(90_000);
   const agent = await staffApi('agent@bumpboard.test');
-  const flightId = await demoFlightId(agent);
+  const flightId = flight.flightId;
   try {
     const before = await closeOpenRounds(agent, flightId);
     const { passengers } = await (await agent.api.get(`/api/flights/${flightId}/passengers`)).json();
     const volunteered = new Set(before.rounds.flatMap((r) => r.volunteers.map((v) => v.bookingId)));
     const solo = (passengers as { id: number; bookingId: number; partySize: number; status: string; pnr: string; firstName: string; lastName: string }[])
       .filter((p) => p.partySize === 1 && p.status === 'checked-in' && !volunteered.has(p.bookingId));
-    expect(solo.length, 'the demo flight still has checked-in solo travellers who have not volunteered').toBeGreaterThan(0);
+    expect(solo.length, 'the flight still has checked-in solo travellers who have not volunteered').toBeGreaterThan(0);
     const traveller = solo[Math.floor(Math.random() * solo.length)];
 
     const offerMinor = before.policy.ladderMinor[0];
@@ -50,7 +48,7 @@ test('the agent issues an accepted volunteer’s compensation on the desk and se
 
     await signIn(page, 'agent@bumpboard.test');
     await page.goto(`/flights/${flightId}`);
-    await expect(page.getByRole('heading', { level: 1, name: FLIGHT.label })).toBeVisible();
+    await expect(page.getByRole('heading', { level: 1, name: flight.label })).toBeVisible();
     const panel = page.getByTestId('desk-compensations');
     await expect(panel.getByRole('heading', { name: 'Compensation' })).toBeVisible();
     await expect(panel.getByRole('note')).toContainText('Caution');
@@ -82,11 +80,11 @@ test('the agent issues an accepted volunteer’s compensation on the desk and se
 
 test('a supervisor’s desk has no Compensation panel: only agents handle the money', async ({ page }) => {
   const supervisor = await staffApi('supervisor@bumpboard.test');
-  const flightId = await demoFlightId(supervisor);
+  const flightId = flight.flightId;
   await supervisor.api.dispose();
   await signIn(page, 'supervisor@bumpboard.test');
   await page.goto(`/flights/${flightId}`);
-  await expect(page.getByRole('heading', { level: 1, name: FLIGHT.label })).toBeVisible();
+  await expect(page.getByRole('heading', { level: 1, name: flight.label })).toBeVisible();
   await expect(page.getByTestId('volunteer-rounds')).toBeVisible();
   await expect(page.getByTestId('desk-compensations')).toHaveCount(0);
 });

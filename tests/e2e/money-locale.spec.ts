@@ -1,23 +1,23 @@
 import { expect, test, type Browser } from '@playwright/test';
 import { shot, signIn, staffApi, type Staff } from './helpers';
+import { ownFlight, type OwnFlight } from './own-flight';
+
+/** This spec's own oversold flight (33 checked in on 30 seats at BOS) and a later one with room. */
+let flight: OwnFlight;
+test.beforeAll(async () => {
+  flight = await ownFlight('money');
+});
+test.afterAll(async () => {
+  await flight?.remove();
+});
 
 // Amounts typed in the person's own locale are read one way. Separators as CLDR publishes them: de-DE writes
 // 1.234,50 (decimal comma), en-US 1,234.50; BOS works in USD, whose ISO 4217 minor unit is 2 decimals (from memory),
 // so 275.50 USD is 27550 minor units (derived).
 const BASE_URL = process.env.APP_BASE_URL ?? 'http://127.0.0.1:4700';
-const FLIGHT = { carrier: 'ZZ', number: '105', label: 'ZZ 105' };
 
 interface RoundRow { id: number; status: string; kind: string; offerMinor: number | null; volunteers: { bookingId: number; askMinor: number | null }[] }
 interface Rounds { rounds: RoundRow[]; bidLink: string; policy: { currency: string; ladderMinor: number[]; agentLimitMinor: number } }
-
-async function demoFlightId(staff: Staff) {
-  const session = await (await staff.api.get('/api/auth/session')).json();
-  const bos = session.user.stations.find((s: { iata: string }) => s.iata === 'BOS');
-  const board = await (await staff.api.get(`/api/departures?stationId=${bos.id}`)).json();
-  const flight = board.flights.find((f: { carrierCode: string; flightNumber: string }) => f.carrierCode === FLIGHT.carrier && f.flightNumber === FLIGHT.number);
-  expect(flight, 'the demo still has ZZ 105 at BOS').toBeTruthy();
-  return flight.id as number;
-}
 
 const roundsOf = async (staff: Staff, flightId: number): Promise<Rounds> => (await staff.api.get(`/api/flights/${flightId}/rounds`)).json();
 
@@ -30,14 +30,14 @@ async function signedInDesk(browser: Browser, locale: string, flightId: number) 
   const page = await context.newPage();
   await signIn(page, 'agent@bumpboard.test');
   await page.goto(`/flights/${flightId}`);
-  await expect(page.getByRole('heading', { level: 1, name: FLIGHT.label })).toBeVisible();
+  await expect(page.getByRole('heading', { level: 1, name: flight.label })).toBeVisible();
   return { context, page };
 }
 
 test('a custom raise typed "275,50" is 275.50 in a German browser and refused, not 27,550, in an American one', async ({ browser }) => {
   test.setTimeout(90_000);
   const agent = await staffApi('agent@bumpboard.test');
-  const flightId = await demoFlightId(agent);
+  const flightId = flight.flightId;
   await closeOpenRounds(agent, flightId);
   const { policy } = await roundsOf(agent, flightId);
   expect(policy.currency).toBe('USD');
@@ -72,7 +72,7 @@ test('a custom raise typed "275,50" is 275.50 in a German browser and refused, n
 test('a passenger in a German browser names "275,50" on their own bid page and the desk records 27550', async ({ browser }) => {
   test.setTimeout(90_000);
   const agent = await staffApi('agent@bumpboard.test');
-  const flightId = await demoFlightId(agent);
+  const flightId = flight.flightId;
   await closeOpenRounds(agent, flightId);
   expect((await agent.post(`/flights/${flightId}/rounds`, { kind: 'sealed', volunteersNeeded: 1 })).status).toBe(201);
   const { passengers } = await (await agent.api.get(`/api/flights/${flightId}/passengers`)).json();
@@ -80,7 +80,7 @@ test('a passenger in a German browser names "275,50" on their own bid page and t
   const volunteered = new Set(all.flatMap((r) => r.volunteers.map((v) => v.bookingId)));
   const solo = (passengers as { bookingId: number; partySize: number; status: string; pnr: string; lastName: string }[])
     .filter((p) => p.partySize === 1 && p.status === 'checked-in' && !volunteered.has(p.bookingId));
-  expect(solo.length, 'the demo flight still has checked-in solo travellers who have not volunteered').toBeGreaterThan(0);
+  expect(solo.length, 'the flight still has checked-in solo travellers who have not volunteered').toBeGreaterThan(0);
   const traveller = solo[Math.floor(Math.random() * solo.length)];
   const { bidLink } = await roundsOf(agent, flightId);
   const context = await browser.newContext({ locale: 'de-DE', baseURL: BASE_URL, viewport: { width: 390, height: 844 }, isMobile: true, hasTouch: true });

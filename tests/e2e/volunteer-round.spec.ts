@@ -1,27 +1,25 @@
 import { expect, test, type Browser, type Page } from '@playwright/test';
 import { SCREENSHOTS, mailFromCatcher, shot, signIn, staffApi, type Staff } from './helpers';
+import { ownFlight, type OwnFlight } from './own-flight';
+
+/** This spec's own oversold flight (33 checked in on 30 seats at BOS) and a later one with room. */
+let flight: OwnFlight;
+test.beforeAll(async () => {
+  flight = await ownFlight('round');
+});
+test.afterAll(async () => {
+  await flight?.remove();
+});
 
 const BASE_URL = process.env.APP_BASE_URL ?? 'http://127.0.0.1:4700';
-/** The demo's oversold flight at BOS (165 booked on 150 seats). */
-const FLIGHT = { carrier: 'ZZ', number: '105', label: 'ZZ 105' };
 /** A phone held by a passenger at the gate. */
 const PHONE = { viewport: { width: 390, height: 844 }, deviceScaleFactor: 2, isMobile: true, hasTouch: true };
-
 
 /** As the client writes amounts: en-US currency format of minor units (BOS works in USD, two decimals). */
 const moneyText = (minor: number, currency: string) => new Intl.NumberFormat('en-US', { style: 'currency', currency }).format(minor / 100);
 
 interface RoundRow { id: number; status: string; volunteers: { bookingId: number }[] }
 interface Rounds { rounds: RoundRow[]; bidLink: string; policy: { currency: string; ladderMinor: number[]; agentLimitMinor: number } }
-
-async function demoFlightId(staff: Staff) {
-  const session = await (await staff.api.get('/api/auth/session')).json();
-  const bos = session.user.stations.find((s: { iata: string }) => s.iata === 'BOS');
-  const board = await (await staff.api.get(`/api/departures?stationId=${bos.id}`)).json();
-  const flight = board.flights.find((f: { carrierCode: string; flightNumber: string }) => f.carrierCode === FLIGHT.carrier && f.flightNumber === FLIGHT.number);
-  expect(flight, 'the demo still has ZZ 105 at BOS').toBeTruthy();
-  return flight.id as number;
-}
 
 /** Rounds left open by other tests or people would block ours: one open round per flight. */
 async function closeOpenRounds(staff: Staff, flightId: number) {
@@ -36,13 +34,13 @@ async function soloTraveller(staff: Staff, flightId: number, rounds: Rounds) {
   const volunteered = new Set(rounds.rounds.flatMap((r) => r.volunteers.map((v) => v.bookingId)));
   const solo = (passengers as { id: number; bookingId: number; partySize: number; status: string; pnr: string; firstName: string; lastName: string }[])
     .filter((p) => p.partySize === 1 && p.status === 'checked-in' && !volunteered.has(p.bookingId));
-  expect(solo.length, 'the demo flight still has checked-in solo travellers who have not volunteered').toBeGreaterThan(0);
+  expect(solo.length, 'the flight still has checked-in solo travellers who have not volunteered').toBeGreaterThan(0);
   return solo[Math.floor(Math.random() * solo.length)];
 }
 
 async function openDesk(page: Page, flightId: number) {
   await page.goto(`/flights/${flightId}`);
-  await expect(page.getByRole('heading', { level: 1, name: FLIGHT.label })).toBeVisible();
+  await expect(page.getByRole('heading', { level: 1, name: flight.label })).toBeVisible();
   await expect(page.getByTestId('volunteer-rounds')).toBeVisible();
 }
 
@@ -54,7 +52,7 @@ async function phone(browser: Browser) {
 test('a posted round runs end to end: gate QR, the passenger accepts on a phone, the agent accepts and rebooks live', async ({ page, browser }) => {
   test.setTimeout(120_000);
   const agent = await staffApi('agent@bumpboard.test');
-  const flightId = await demoFlightId(agent);
+  const flightId = flight.flightId;
   const before = await closeOpenRounds(agent, flightId);
   const first = before.policy.ladderMinor[0];
   const offer = moneyText(first, before.policy.currency);
@@ -98,7 +96,7 @@ test('a posted round runs end to end: gate QR, the passenger accepts on a phone,
 
     const p = passenger.page;
     await p.goto(link);
-    await expect(p.getByTestId('offer-flight')).toHaveText('ZZ 105 to ORD');
+    await expect(p.getByTestId('offer-flight')).toHaveText(`${flight.label} to ORD`);
     await expect(p.getByTestId('offer-amount')).toHaveText(offer);
     await expect(p.getByTestId('passenger-disclosure')).toContainText('against your will');
     await shot(p, 'offer-your-seat-start');
@@ -168,7 +166,7 @@ test('a posted round runs end to end: gate QR, the passenger accepts on a phone,
 
 test('a tampered link shows a clear page that sends the passenger to the gate agent, and keeps nothing', async ({ browser }) => {
   const agent = await staffApi('agent@bumpboard.test');
-  const flightId = await demoFlightId(agent);
+  const flightId = flight.flightId;
   const { bidLink }: Rounds = await (await agent.api.get(`/api/flights/${flightId}/rounds`)).json();
   await agent.dispose();
   // One character of the signature changed: the server refuses the link as a whole.
@@ -191,7 +189,7 @@ test('a tampered link shows a clear page that sends the passenger to the gate ag
 
 test('an agent’s raise above the limit waits for a supervisor, who approves it live from the station day', async ({ page, browser }) => {
   const agent = await staffApi('agent@bumpboard.test');
-  const flightId = await demoFlightId(agent);
+  const flightId = flight.flightId;
   const { policy } = await closeOpenRounds(agent, flightId);
   // Open at the agent limit, so the ladder's next step is above it (the default policy: $600, then $800).
   const above = policy.ladderMinor.find((step) => step > policy.agentLimitMinor);
@@ -213,7 +211,7 @@ test('an agent’s raise above the limit waits for a supervisor, who approves it
     await expect(page.getByTestId('pending-approval')).toContainText(`Awaiting approval: a supervisor must approve ${money(above!)}`, { timeout: 15_000 });
     await shot(page, 'volunteer-round-waiting-approval');
 
-    const row = queue.getByTestId('approval-row').filter({ hasText: FLIGHT.label }).filter({ hasText: money(above!) });
+    const row = queue.getByTestId('approval-row').filter({ hasText: flight.label }).filter({ hasText: money(above!) });
     await expect(row).toBeVisible({ timeout: 15_000 });
     await shot(supervisor, 'station-day-pending-approval');
     await row.getByRole('button', { name: 'Reject' }).click();
@@ -233,7 +231,7 @@ test('an agent’s raise above the limit waits for a supervisor, who approves it
 
 test('a sealed bid above the agent’s limit shows "awaiting approval" at the desk until a supervisor approves it live', async ({ page, browser }) => {
   const agent = await staffApi('agent@bumpboard.test');
-  const flightId = await demoFlightId(agent);
+  const flightId = flight.flightId;
   const before = await closeOpenRounds(agent, flightId);
   const { policy } = before;
   const money = (minor: number) => moneyText(minor, policy.currency);
@@ -288,7 +286,6 @@ test('the station’s volunteer policy editor checks each field with the shared 
   await expect(form.getByRole('alert').filter({ hasText: 'Nothing was saved.' })).toBeVisible();
   await form.screenshot({ path: `${SCREENSHOTS}/volunteer-policy-editor-errors.png` });
 });
-
 
 /** The message whose subject starts with `start` and holds `part`, once the catcher has it. */
 function mailWithSubject(part: string, start: string) {

@@ -44,6 +44,11 @@ const envSchema = z
     STRIPE_API_URL: z.string().default(''),
     STRIPE_WEBHOOK_SECRET: z.string().min(1).optional(),
     STATIC_DIR: z.string().default('dist/client'),
+    /**
+     * How long a claimed notice is reserved for the worker that claimed it. After a crash its claims wait this long
+     * before another worker (or the restarted one) sends them; too short and a slow send is sent twice.
+     */
+    OUTBOX_LEASE_SECONDS: z.coerce.number().int().min(5, 'OUTBOX_LEASE_SECONDS must be at least 5').max(3600, 'OUTBOX_LEASE_SECONDS must be at most 3600').default(120),
     LOG_REQUESTS: z.enum(['true', 'false']).default('false').transform((v) => v === 'true'),
   })
   .superRefine((v, ctx) => {

@@ -1,4 +1,5 @@
 import type { ErrorRequestHandler } from 'express';
+import { isDatabaseUnavailable } from '../db/unavailable';
 import { HttpError, RetryLaterError } from './errors';
 
 interface Known {
@@ -52,6 +53,12 @@ export function errorHandler(log: (msg: string) => void = console.error): ErrorR
       const k = known(err ?? {});
       if (k === GENERIC_4XX || k === CORRUPT_BODY) log(`[server] ${req.method} ${req.path} ${status} ${k.error}: ${String(err?.message ?? err)}`);
       res.status(status).json({ error: k.error, message: k.message, ...(k.field ? { details: [{ field: k.field, rule: k.rule }] } : {}) });
+      return;
+    }
+    if (isDatabaseUnavailable(err)) {
+      log(`[server] ${req.method} ${req.path} 503 database_unavailable: ${String(err?.message ?? err)}`);
+      res.set('Retry-After', '5');
+      res.status(503).json({ error: 'database_unavailable', message: 'The station database is not answering. Check the screen for what was saved, then try again in a few seconds.' });
       return;
     }
     log(`[server] unexpected error: ${err?.stack ?? err}`);

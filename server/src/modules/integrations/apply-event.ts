@@ -6,6 +6,7 @@ import { BookingEntity, FlightEntity, PassengerEntity } from '../../db/entities'
 import type { PassengerStatus } from '../../db/entities/passenger.entity';
 import { HttpError } from '../../http/errors';
 import { feedBookingProblem } from '../manifests/booking-guard';
+import { driverErrorCode } from '../../db/driver-errors';
 
 export interface Applied {
   flightId: number;
@@ -94,6 +95,21 @@ async function applyStatus(em: EntityManager, flight: FlightEntity, e: StatusEve
   return { flightId: flight.id, status: newest ? 'applied' : 'superseded', summary: newest ? `${who} ${rule.words}` : `${who} ${rule.words}: older than the latest change, kept the newer status` };
 }
 
+/**
+ * The earlier passengers of a booking sent again go, unless a record names one (a volunteer, a denial, a
+ * compensation): those rows outlive any booking change, so the feed is told to use a new PNR and nothing changes.
+ */
+async function replacePassengersOf(em: EntityManager, bookingId: number, pnr: string): Promise<void> {
+  try {
+    await em.delete(PassengerEntity, { bookingId });
+    await em.query('RELEASE SAVEPOINT booking_again');
+  } catch (err) {
+    if (driverErrorCode(err) !== 'ER_ROW_IS_REFERENCED_2') throw err;
+    await em.query('ROLLBACK TO SAVEPOINT booking_again');
+    throw rejected('pnr', `${pnr} was cancelled after a volunteer, denial or compensation record named its passengers; send it again under a new PNR`);
+  }
+}
+
 export async function applyEvent(em: EntityManager, flights: BatchFlights, e: IntegrationEvent): Promise<Applied> {
   const flight = await flights.of(e);
   const at = new Date(e.occurredAt);
@@ -111,11 +127,14 @@ export async function applyEvent(em: EntityManager, flights: BatchFlights, e: In
     const problem = await feedBookingProblem(em, flight, existing?.id ?? null, e.passengers.length, e.itinerary);
     if (problem) throw rejected(problem.field, problem.rule);
     const booking = existing ?? em.create(BookingEntity, { flightId: flight.id, pnr: e.pnr, travelsTogether: true });
+    // A cancelled booking sent again (rare) replaces its passengers, which a record may still name: only then a
+    // savepoint, so a refusal leaves the booking as it was.
+    if (existing) await em.query('SAVEPOINT booking_again');
     booking.itinerary = e.itinerary;
     booking.status = 'active';
     booking.contactEmail = e.contactEmail;
     await em.save(booking);
-    await em.delete(PassengerEntity, { bookingId: booking.id });
+    if (existing) await replacePassengersOf(em, booking.id, e.pnr);
     await em.insert(PassengerEntity, e.passengers.map((p, i) => ({
       ...p,
       bookingId: booking.id,

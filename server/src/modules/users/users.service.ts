@@ -7,8 +7,8 @@ import { audit } from '../audit/audit.service';
 import { hashPassword } from '../auth/password';
 import { assertMayGrantCarrierWide, assertMayGrantStations, assertMayManage, scopeOf, seesUser, type AdminScope } from './users.policy';
 import { presentUser } from './users.presenter';
+import { isDuplicateKey } from '../../db/driver-errors';
 
-const isDuplicateKey = (err: unknown) => (err as { driverError?: { code?: string } })?.driverError?.code === 'ER_DUP_ENTRY';
 
 /** The acting admin's reach, read from their own row so a grant or a removal counts from the very next request. */
 async function adminScope(em: EntityManager, admin: SessionUser): Promise<AdminScope> {
