@@ -84,7 +84,9 @@ describe('care costs in the ledger, apart from compensation', () => {
     const setup = (await admin.get(`/api/stations/${fco}/care-setup`).expect(200)).body.setup;
     // The hotel's nightly rate is suggested for the night when the wait covers one (Art. 9(1)(b)).
     const night = p.proposal.items.find((i: { kind: string }) => i.kind === 'hotel');
-    if (p.proposal.nights > 0) expect(night.suggestedMinor).toBe(setup.hotels[0].nightlyRateMinor * p.proposal.nights);
+    // Departure 14:00 UTC, alternate 17 h later: about 08:00 the next morning in Rome, so the 01:00-05:00 night is covered.
+    expect(p.proposal.nights).toBe(1);
+    expect(night.suggestedMinor).toBe(setup.hotels[0].nightlyRateMinor);
     await agent.post(`/api/compensations/${p.compensationId}/care`, { kind: 'hotel', description: 'One night', amountMinor: 12_000, hotelId: setup.hotels[0].id, providedBy: 'Hotel desk' }).expect(201);
     await agent.post(`/api/compensations/${p.compensationId}/care`, { kind: 'meal', description: 'Meal voucher', amountMinor: 1_500, providedBy: 'Gate agent' }).expect(201);
     await agent.post(`/api/compensations/${p.compensationId}/care`, { kind: 'communication', description: 'Two calls', providedBy: 'Gate agent' }).expect(201);
