@@ -71,8 +71,10 @@ test('the agent records a volunteer’s choice and the care given on the desk', 
     await signIn(page, 'agent@bumpboard.test');
     await page.goto(`/flights/${flightId}`);
     const name = `${traveller.firstName} ${traveller.lastName}`;
-    const card = page.getByRole('article', { name });
-    await expect(card).toBeVisible();
+    const card = page.getByRole('article', { name, exact: true });
+    await expect(page.getByRole('heading', { name: 'Care and the passenger’s choice' })).toBeVisible();
+    // The desk loads its panels one after another on a shared machine: allow for a slow first answer.
+    await expect(card).toBeVisible({ timeout: 20_000 });
     await expect(card).toContainText('Volunteer');
     await expect(card).toContainText('Alternate ZZ 405');
     await expect(card).toContainText('Art. 4(1)');
@@ -88,7 +90,7 @@ test('the agent records a volunteer’s choice and the care given on the desk', 
     await give.getByLabel('Cost (EUR, optional)').fill('15.00');
     await give.getByLabel('Provided by').fill('Gate agent');
     await give.getByRole('button', { name: 'Record care given' }).click();
-    await expect(card.getByRole('list', { name: `Care given to ${name}` })).toContainText('Meal voucher · €15.00 · by Gate agent');
+    await expect(card.getByRole('listitem').filter({ hasText: 'Meal voucher · €15.00 · by Gate agent' })).toBeVisible({ timeout: 15_000 });
     await expect(page.getByRole('note').filter({ hasText: 'passenger’s choice and care' })).toBeVisible();
     await card.scrollIntoViewIfNeeded();
     await card.screenshot({ path: `${SCREENSHOTS}/desk-care-card.png` });

@@ -57,7 +57,7 @@ export function PassengerCareCard({ flightId, passenger: p, data }: { flightId: 
           {p.given.length === 0 ? (
             <p className="text-ink-soft">Nothing recorded yet.</p>
           ) : (
-            <ul className="mt-1 space-y-1" aria-label={`Care given to ${p.passengerName}`}>
+            <ul role="list" className="mt-1 space-y-1" aria-label={`Care given to ${p.passengerName}`}>
               {p.given.map((g) => (
                 <li key={g.id}>
                   <strong>{KIND_WORDS[g.kind]}:</strong> {g.description}{g.hotelName ? ` at ${g.hotelName}` : ''}
