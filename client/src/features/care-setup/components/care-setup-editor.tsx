@@ -18,8 +18,8 @@ export function CareSetupEditor({ stationId }: { stationId: number }) {
 
 interface HotelDraft { id?: string; name: string; address: string; phone: string; rate: string }
 
-const draftOf = (h: PartnerHotel, currency: string): HotelDraft => ({ id: h.id, name: h.name, address: h.address, phone: h.phone, rate: moneyFieldText(h.nightlyRateMinor, currency) });
-const text = (minor: number, currency: string, configured: boolean) => (configured ? moneyFieldText(minor, currency) : '');
+const draftOf = (h: PartnerHotel, currency: string): HotelDraft => ({ id: h.id, name: h.name, address: h.address, phone: h.phone, rate: moneyFieldText(h.nightlyRateMinor, currency, { keepDecimals: true }) });
+const text = (minor: number, currency: string, configured: boolean) => (configured ? moneyFieldText(minor, currency, { keepDecimals: true }) : '');
 
 function CareSetupForm({ stationId, saved }: { stationId: number; saved: CareSetup }) {
   const { currency } = saved;
