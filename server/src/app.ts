@@ -35,6 +35,7 @@ import { createPaymentsRuntime, type PaymentsRuntime } from './modules/payments/
 import { financeRouter } from './modules/finance/finance.routes';
 import { alertsRouter } from './modules/alerts/alerts.routes';
 import { cabinChangesRouter } from './modules/cabin-changes/cabin-changes.routes';
+import { careRouter } from './modules/care/care.routes';
 
 export interface AppDeps {
   env: Env;
@@ -99,6 +100,7 @@ export function createApp(deps: AppDeps) {
   api.use('/finance', financeRouter({ db: deps.db, reconciliation: payments.reconciliation }));
   api.use('/alerts', alertsRouter({ db: deps.db }));
   api.use(cabinChangesRouter({ db: deps.db, changed }));
+  api.use(careRouter({ db: deps.db, changed }));
   api.use('/stations/:stationId/integration-keys', integrationKeysRouter(deps));
   api.use('/stations/:stationId/manifests', manifestsRouter({ db: deps.db, onFlightsChanged: (ids) => ids.forEach((id) => forecast.markDirty(id)) }));
   api.use('/stations/:stationId/show-up-profile', showUpProfilesRouter({ db: deps.db, onFlightsChanged: (ids) => ids.forEach((id) => forecast.markDirty(id)) }));

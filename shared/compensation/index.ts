@@ -100,3 +100,11 @@ function volunteerResult(regime: Regime, deniedOn: string, exemption: string | u
     rulesInForce: { effectiveFrom: row.effectiveFrom, source: row.source },
   };
 }
+export {
+  choicesFor, choiceOffer, apprRebookingCarriers, CHOICE_KINDS, CHOICE_OFFERS, APPR_OTHER_CARRIERS_AFTER_MINUTES,
+  type ChoiceKind, type ChoiceOffer, type ChoiceEffects,
+} from './choice';
+export {
+  careDue, nightsCovered, CARE_KINDS, EU_MEAL_AFTER_MINUTES, APPR_CARE_AFTER_MINUTES, NIGHT_FROM, NIGHT_UNTIL,
+  type CareInput, type CareProposal, type CareDueItem, type CareKind, type CareBasis,
+} from './care';

@@ -391,6 +391,35 @@ export const ROUTES: readonly RouteRow[] = [
     success: 201,
     otherStation: 404,
   },
+  // Care and the passenger's choice: the desk records them per compensation; admins set allowances; finance reads costs.
+  { method: 'GET', pattern: '/api/flights/:flightId/care', access: ['agent', 'supervisor'], call: (ctx, scope) => ({ url: `/api/flights/${flightOf(ctx, scope)}/care` }), success: 200, otherStation: 404 },
+  {
+    method: 'POST',
+    pattern: '/api/compensations/:id/choice',
+    access: ['agent', 'supervisor'],
+    // The same choice again answers as the first time, so every allowed role can call it on one compensation.
+    call: (ctx, scope) => ({ url: `/api/compensations/${scope === 'own' ? ctx.payments.dueId : ctx.payments.other.compensationId}/choice`, body: { kind: 'reroute-earliest' } }),
+    success: 201,
+    otherStation: 404,
+  },
+  {
+    method: 'POST',
+    pattern: '/api/compensations/:id/care',
+    access: ['agent', 'supervisor'],
+    call: (ctx, scope) => ({ url: `/api/compensations/${scope === 'own' ? ctx.payments.dueId : ctx.payments.other.compensationId}/care`, body: { kind: 'meal', description: 'Meal voucher', amountMinor: 1_200, providedBy: 'route matrix' } }),
+    success: 201,
+    otherStation: 404,
+  },
+  { method: 'GET', pattern: '/api/stations/:stationId/care-setup', access: ['admin'], call: (ctx, scope) => ({ url: `/api/stations/${stationOf(ctx, scope)}/care-setup` }), success: 200, otherStation: 404 },
+  {
+    method: 'PUT',
+    pattern: '/api/stations/:stationId/care-setup',
+    access: ['admin'],
+    call: (ctx, scope) => ({ url: `/api/stations/${stationOf(ctx, scope)}/care-setup`, body: { refreshmentMinor: 500, mealMinor: 1_500, hotels: [] } }),
+    success: 200,
+    otherStation: 404,
+  },
+  { method: 'GET', pattern: '/api/care/ledger', access: ['finance'], call: (ctx, scope) => ({ url: `/api/care/ledger?stationId=${stationOf(ctx, scope)}` }), success: 200, otherStation: 404 },
   // Alerts: everyone at a station sees and acknowledges its own.
   { method: 'GET', pattern: '/api/alerts', access: ALL_ROLES, call: (ctx, scope) => ({ url: `/api/alerts?stationId=${stationOf(ctx, scope)}` }), success: 200, otherStation: 404 },
   { method: 'POST', pattern: '/api/alerts/:id/acknowledge', access: ALL_ROLES, call: (ctx, scope) => ({ url: `/api/alerts/${scope === 'own' ? ctx.payments.alertId : ctx.payments.other.alertId}/acknowledge` }), success: 200, otherStation: 404 },

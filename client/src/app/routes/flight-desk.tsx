@@ -4,6 +4,7 @@ import { FlightDesk } from '../../features/flight-desk/components/flight-desk';
 import { VolunteerRoundsPanel } from '../../features/volunteer-rounds/components/volunteer-rounds-panel';
 import { DeniedBoardingPanel } from '../../features/denials/components/denied-boarding-panel';
 import { CompensationsPanel } from '../../features/desk-compensations/components/compensations-panel';
+import { DeskCarePanel } from '../../features/desk-care/components/desk-care-panel';
 import { useQuery } from '@tanstack/react-query';
 import { sessionQueryOptions } from '../../lib/session';
 
@@ -30,7 +31,12 @@ export default function FlightDeskPage() {
           arrival={d.flight.destinationTimeZone ? { airport: d.flight.destination, timeZone: d.flight.destinationTimeZone } : undefined}
         />
       )}
-      deniedBoarding={(d) => <DeniedBoardingPanel flightId={id} timeZone={d.station.timeZone} />}
+      deniedBoarding={(d) => (
+        <>
+          <DeniedBoardingPanel flightId={id} timeZone={d.station.timeZone} />
+          <DeskCarePanel flightId={id} />
+        </>
+      )}
       compensations={isAgent ? () => <CompensationsPanel flightId={id} /> : undefined}
     />
   );

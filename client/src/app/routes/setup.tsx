@@ -6,6 +6,7 @@ import { ManifestPanel } from '../../features/station-setup/components/manifest-
 import { IntegrationKeysPanel } from '../../features/station-setup/components/integration-keys-panel';
 import { VolunteerPolicyEditor } from '../../features/volunteer-rounds/components/volunteer-policy-editor';
 import { PriorityRulesEditor } from '../../features/denials/components/priority-rules-editor';
+import { CareSetupEditor } from '../../features/care-setup/components/care-setup-editor';
 import { useCurrentStation } from '../use-current-station';
 
 export default function SetupPage() {
@@ -42,6 +43,9 @@ export default function SetupPage() {
           </Panel>
           <Panel title={`Boarding priorities for denied boarding · ${station.iata}`}>
             <PriorityRulesEditor key={station.id} stationId={station.id} />
+          </Panel>
+          <Panel title={`Care for waiting passengers · ${station.iata}`}>
+            <CareSetupEditor key={station.id} stationId={station.id} />
           </Panel>
         </section>
       )}
