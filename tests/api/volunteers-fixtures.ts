@@ -94,7 +94,7 @@ export async function removeFlights(db: DataSource, flightIds: number[]): Promis
   const compIds = comps.map((c) => c.id);
   await db.query('DELETE FROM outbox_messages WHERE flight_id IN (?)', [flightIds]);
   if (compIds.length) {
-    for (const table of ['alerts', 'voucher_offers', 'payment_issuances']) await db.query(`DELETE FROM ${table} WHERE compensation_id IN (?)`, [compIds]);
+    for (const table of ['alerts', 'voucher_offers', 'payment_issuances', 'care_given', 'passenger_choices', 'ticket_refunds']) await db.query(`DELETE FROM ${table} WHERE compensation_id IN (?)`, [compIds]);
     await db.query('DELETE FROM compensations WHERE id IN (?)', [compIds]);
   }
   await deleteInDependencyOrder(db.manager, 'flights', flightIds);
