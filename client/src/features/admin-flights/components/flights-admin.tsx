@@ -30,7 +30,7 @@ export function FlightsAdmin({ station }: { station: { id: number; iata: string;
       <ResultMessage text={message} />
       <div className="flex flex-wrap items-end gap-3">
         <TextField label="From" type="date" value={range.from} onChange={(from) => setRange((r) => ({ ...r, from }))} error={fieldError(list.error, 'from')} />
-        <TextField label="To" type="date" value={range.to} onChange={(to) => setRange((r) => ({ ...r, to }))} error={fieldError(list.error, 'to')} hint="At most 62 days" />
+        <TextField label="To" type="date" value={range.to} onChange={(to) => setRange((r) => ({ ...r, to }))} error={fieldError(list.error, 'to')} />
         {!editing && <Button onClick={() => { setMessage(null); setEditing('new'); }}>Add a flight</Button>}
       </div>
       {editing && <FlightForm key={editing === 'new' ? 'new' : editing.id} station={station} flight={editing === 'new' ? null : editing} defaultDate={range.from} onDone={done} />}
@@ -41,7 +41,7 @@ export function FlightsAdmin({ station }: { station: { id: number; iata: string;
         <div className="overflow-x-auto">
           <table className="w-full">
             <caption className="mb-2 text-left text-ink-soft">
-              {list.data.flights.length} flight{list.data.flights.length === 1 ? '' : 's'} from {station.iata}, {range.from} to {range.to}; times in {station.iata} local time ({list.data.timeZone}).
+              {list.data.flights.length} flight{list.data.flights.length === 1 ? '' : 's'} from {station.iata}, {range.from} to {range.to} (at most 62 days at once); times in {station.iata} local time ({list.data.timeZone}).
             </caption>
             <thead className="bg-harbour-soft text-left">
               <tr>

@@ -9,7 +9,19 @@ import { auditCsvUrl, auditQueryOptions, type AuditFilters } from '../api/audit'
 /** Date and time on the station's clock, e.g. "3 Dec 2026, 07:40". */
 const when = (iso: string, timeZone: string) => new Intl.DateTimeFormat('en-GB', { timeZone, dateStyle: 'medium', timeStyle: 'short', hourCycle: 'h23' }).format(new Date(iso));
 
-const brief = (v: unknown) => (v == null ? '' : JSON.stringify(v));
+const show = (v: unknown) => (v === undefined ? '—' : typeof v === 'string' ? v : JSON.stringify(v));
+
+/** What changed, field by field: only the fields that differ when both sides are there, else every field recorded. */
+function changes(before: unknown, after: unknown): { key: string; text: string }[] {
+  const obj = (v: unknown) => (v && typeof v === 'object' && !Array.isArray(v) ? (v as Record<string, unknown>) : null);
+  const b = obj(before);
+  const a = obj(after);
+  if (!b && !a) return before == null && after == null ? [] : [{ key: 'value', text: `${show(before)} → ${show(after)}` }];
+  const keys = [...new Set([...Object.keys(b ?? {}), ...Object.keys(a ?? {})])];
+  return keys
+    .filter((k) => !(b && a) || JSON.stringify(b[k]) !== JSON.stringify(a[k]))
+    .map((k) => ({ key: k, text: b && a ? `${show(b[k])} → ${show(a[k])}` : show((a ?? b ?? {})[k]) }));
+}
 
 /** Reads a typed local time as the station's clock; an unreadable one is a problem named with its field. */
 function instant(field: string, local: string, timeZone: string): string | undefined {
@@ -45,7 +57,7 @@ export function AuditViewer({ station }: { station: { id: number; iata: string; 
   const actions = list.data?.pages[0]?.actions ?? [];
   return (
     <div className="space-y-4">
-      <form onSubmit={apply} noValidate className="grid items-end gap-3 sm:grid-cols-3 lg:grid-cols-6">
+      <form onSubmit={apply} noValidate className="grid items-start gap-3 sm:grid-cols-3 lg:grid-cols-6">
         <TextField label="Flight id" inputMode="numeric" value={form.flightId} onChange={set('flightId')} error={fieldError('flightId')} hint="The number in the flight desk's address" />
         <TextField label="Person" value={form.actor} onChange={set('actor')} error={fieldError('actor')} hint="Part of an e-mail or key name" />
         <div>
@@ -58,7 +70,7 @@ export function AuditViewer({ station }: { station: { id: number; iata: string; 
         </div>
         <TextField label="From" type="datetime-local" value={form.from} onChange={set('from')} error={fieldError('from')} hint={`${station.iata} local time`} />
         <TextField label="To" type="datetime-local" value={form.to} onChange={set('to')} error={fieldError('to')} hint={`${station.iata} local time`} />
-        <div className="flex gap-2">
+        <div className="flex gap-2 sm:mt-8">
           <Button type="submit">Show</Button>
           <a href={auditCsvUrl(station.id, filters)} download className="inline-flex min-h-11 items-center rounded-md border-2 border-harbour bg-card px-4 py-2 font-bold text-harbour hover:bg-harbour-soft">CSV</a>
         </div>
@@ -69,7 +81,7 @@ export function AuditViewer({ station }: { station: { id: number; iata: string; 
         <table className="w-full text-sm">
           <caption className="sr-only">Audit log of {station.iata}</caption>
           <thead className="bg-harbour-soft text-left">
-            <tr><th className="px-2 py-2">When ({station.iata})</th><th className="px-2 py-2">Who</th><th className="px-2 py-2">Action</th><th className="px-2 py-2">What</th><th className="px-2 py-2">Before → after</th></tr>
+            <tr><th className="px-2 py-2">When ({station.iata})</th><th className="px-2 py-2">Who</th><th className="px-2 py-2">Action</th><th className="px-2 py-2">What</th><th className="px-2 py-2">Changes (before → after)</th></tr>
           </thead>
           <tbody>
             {rows.map((r) => (
@@ -78,7 +90,13 @@ export function AuditViewer({ station }: { station: { id: number; iata: string; 
                 <td className="px-2 py-2 break-all">{r.actor}</td>
                 <td className="px-2 py-2 font-mono">{r.action}</td>
                 <td className="px-2 py-2">{r.entityType} {r.entityId}</td>
-                <td className="px-2 py-2"><code className="block max-w-xl break-all">{brief(r.before)}{r.before != null && r.after != null ? ' → ' : ''}{brief(r.after)}</code></td>
+                <td className="px-2 py-2">
+                  <ul className="max-w-xl">
+                    {changes(r.before, r.after).map((c) => (
+                      <li key={c.key} className="break-all"><span className="font-bold">{c.key}</span>: {c.text}</li>
+                    ))}
+                  </ul>
+                </td>
               </tr>
             ))}
           </tbody>
