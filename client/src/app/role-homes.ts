@@ -24,6 +24,7 @@ export const NAV_ITEMS: NavItem[] = [
   { to: '/setup', label: 'Station setup', roles: ['admin'] },
   { to: '/flights', label: 'Flights', roles: ['admin'] },
   { to: '/schedules', label: 'Schedules', roles: ['admin'] },
+  { to: '/manifest', label: 'Manifest import', roles: ['admin'] },
   { to: '/stations', label: 'Stations', roles: ['admin'] },
   { to: '/notices', label: 'Notices', roles: ['supervisor', 'admin'] },
   { to: '/audit', label: 'Audit log', roles: ['admin'] },

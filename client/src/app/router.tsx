@@ -25,6 +25,7 @@ const SchedulesPage = lazy(() => import('./routes/schedules'));
 const AdminStationsPage = lazy(() => import('./routes/admin-stations'));
 const NoticesPage = lazy(() => import('./routes/notices'));
 const AuditLogPage = lazy(() => import('./routes/audit-log'));
+const ManifestImportPage = lazy(() => import('./routes/manifest-import'));
 
 function guarded(roles: Role[], page: ReactNode) {
   return (
@@ -60,6 +61,7 @@ export function createAppRouter(queryClient: QueryClient) {
         { path: 'stations', element: guarded(['admin'], <AdminStationsPage />) },
         { path: 'notices', element: guarded(['supervisor', 'admin'], <NoticesPage />) },
         { path: 'audit', element: guarded(['admin'], <AuditLogPage />) },
+        { path: 'manifest', element: guarded(['admin'], <ManifestImportPage />) },
         { path: '*', element: <NotFoundPage /> },
       ],
     },
