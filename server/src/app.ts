@@ -21,7 +21,10 @@ import { integrationEventsRouter } from './modules/integrations/events.routes';
 import { integrationKeysRouter } from './modules/integrations/integration-keys.routes';
 import { manifestsRouter } from './modules/manifests/manifests.routes';
 import { showUpProfilesRouter } from './modules/show-up-profiles/show-up-profiles.routes';
-import { noticesRouter } from './modules/outbox/outbox.routes';
+import { noticesRouter, stationNoticesRouter } from './modules/outbox/outbox.routes';
+import { adminFlightsRouter } from './modules/flights/admin-flights.routes';
+import { schedulesRouter } from './modules/schedules/schedules.routes';
+import { auditRouter } from './modules/audit/audit.routes';
 import { createForecastScheduler, type ForecastScheduler } from './modules/forecast/forecast-scheduler';
 import { silentPublisher, type Publisher } from './realtime/publisher';
 import { volunteersRouter } from './modules/volunteers/volunteers.routes';
@@ -101,6 +104,11 @@ export function createApp(deps: AppDeps) {
   api.use('/alerts', alertsRouter({ db: deps.db }));
   api.use(cabinChangesRouter({ db: deps.db, changed }));
   api.use(careRouter({ db: deps.db, changed }));
+  // The station run from the screens: flights, schedules, notices and the audit log.
+  api.use(adminFlightsRouter({ db: deps.db, onFlightChanged: (id, stationId) => changed(id, stationId, ['forecast', 'counts']) }));
+  api.use(schedulesRouter({ db: deps.db }));
+  api.use(stationNoticesRouter({ db: deps.db }));
+  api.use(auditRouter({ db: deps.db }));
   api.use('/stations/:stationId/integration-keys', integrationKeysRouter(deps));
   api.use('/stations/:stationId/manifests', manifestsRouter({ db: deps.db, onFlightsChanged: (ids) => ids.forEach((id) => forecast.markDirty(id)) }));
   api.use('/stations/:stationId/show-up-profile', showUpProfilesRouter({ db: deps.db, onFlightsChanged: (ids) => ids.forEach((id) => forecast.markDirty(id)) }));

@@ -14,6 +14,7 @@ import { paymentsRouteContext, removePaymentsRouteFixtures, startMatrixPaymentsS
 import { FlightEntity } from '../../server/src/db/entities';
 import { createIntegrationKey } from '../../server/src/modules/integrations/integration-keys.service';
 import { enqueueMessage } from '../../server/src/modules/outbox/outbox.service';
+import { adminRouteContext, removeAdminRouteFixtures } from './admin-route-context';
 
 /** A flight at the station no demo user belongs to, made once and reused by later runs. */
 async function foreignFlight(db: TestApp['db'], stationId: number) {
@@ -62,6 +63,7 @@ beforeAll(async () => {
     denials: await denialRouteContext(t.db, otherFlight),
     volunteers: await volunteerRouteContext(t, { ownStationId, otherFlight, requesterUserId: ownUser.id }),
     payments: await paymentsRouteContext(t.db, { ownStationId, otherFlight }),
+    admin: await adminRouteContext(t.db, { own: { id: ownStationId, iata: 'BOS' }, other: { id: other.id, iata: other.iata } }),
   };
   for (const role of ROLES) asRole[role] = await signedIn(t, DEMO[role]);
 });
@@ -69,6 +71,7 @@ afterAll(async () => {
   await removeDenialFixtures(t.db);
   await removeVolunteerRouteFixtures(t.db, () => t.forecast.flush());
   await removePaymentsRouteFixtures(t.db);
+  await removeAdminRouteFixtures(t.db);
   await removeRunUsers(t.db);
   await t.close();
 });

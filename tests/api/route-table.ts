@@ -20,6 +20,7 @@ import type { DenialRouteContext } from './denials-fixtures';
 import type { VolunteerRouteContext } from './volunteers-route-context';
 import type { PaymentsRouteContext } from './payments-route-context';
 import { DEFAULT_SHOW_UP_PROFILE } from '@shared/schemas/show-up-profile';
+import { ADMIN_ROUTES, type AdminRouteContext } from './admin-route-context';
 
 export type Method = 'GET' | 'POST' | 'PATCH' | 'PUT' | 'DELETE';
 export type Scope = 'own' | 'other';
@@ -50,6 +51,8 @@ export interface RouteContext {
   volunteers: VolunteerRouteContext;
   /** Compensations in each state the money routes expect, and reconciliation runs (tests/api/payments-route-context.ts). */
   payments: PaymentsRouteContext;
+  /** Flights, schedules and notices for the admin screens' routes (tests/api/admin-route-context.ts). */
+  admin: AdminRouteContext;
 }
 
 export interface RouteCall {
@@ -442,6 +445,7 @@ export const ROUTES: readonly RouteRow[] = [
     success: 200,
     otherStation: 404,
   },
+  ...ADMIN_ROUTES,
   { method: 'GET', pattern: '/api/finance/report', access: ['finance'], call: (ctx, scope) => ({ url: `/api/finance/report?quarter=2026-Q4&stationId=${stationOf(ctx, scope)}` }), success: 200, otherStation: 404 },
   { method: 'GET', pattern: '/api/finance/report.csv', access: ['finance'], call: (ctx, scope) => ({ url: `/api/finance/report.csv?quarter=2026-Q4&stationId=${stationOf(ctx, scope)}` }), success: 200, otherStation: 404 },
 ];

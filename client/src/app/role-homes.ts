@@ -22,4 +22,10 @@ export const NAV_ITEMS: NavItem[] = [
   { to: '/report', label: 'Period report', roles: ['finance'] },
   { to: '/planner', label: 'Planner', roles: ['admin', 'supervisor'] },
   { to: '/setup', label: 'Station setup', roles: ['admin'] },
+  { to: '/flights', label: 'Flights', roles: ['admin'] },
+  { to: '/schedules', label: 'Schedules', roles: ['admin'] },
+  { to: '/manifest', label: 'Manifest import', roles: ['admin'] },
+  { to: '/stations', label: 'Stations', roles: ['admin'] },
+  { to: '/notices', label: 'Notices', roles: ['supervisor', 'admin'] },
+  { to: '/audit', label: 'Audit log', roles: ['admin'] },
 ];

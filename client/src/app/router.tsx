@@ -20,6 +20,12 @@ const ReportPage = lazy(() => import('./routes/finance-report'));
 const PlannerPage = lazy(() => import('./routes/planner'));
 const SetupPage = lazy(() => import('./routes/setup'));
 const OfferYourSeatPage = lazy(() => import('./routes/offer-your-seat'));
+const AdminFlightsPage = lazy(() => import('./routes/admin-flights'));
+const SchedulesPage = lazy(() => import('./routes/schedules'));
+const AdminStationsPage = lazy(() => import('./routes/admin-stations'));
+const NoticesPage = lazy(() => import('./routes/notices'));
+const AuditLogPage = lazy(() => import('./routes/audit-log'));
+const ManifestImportPage = lazy(() => import('./routes/manifest-import'));
 
 function guarded(roles: Role[], page: ReactNode) {
   return (
@@ -50,6 +56,12 @@ export function createAppRouter(queryClient: QueryClient) {
         { path: 'report', element: guarded(['finance'], <ReportPage />) },
         { path: 'planner', element: guarded(['admin', 'supervisor'], <PlannerPage />) },
         { path: 'setup', element: guarded(['admin'], <SetupPage />) },
+        { path: 'flights', element: guarded(['admin'], <AdminFlightsPage />) },
+        { path: 'schedules', element: guarded(['admin'], <SchedulesPage />) },
+        { path: 'stations', element: guarded(['admin'], <AdminStationsPage />) },
+        { path: 'notices', element: guarded(['supervisor', 'admin'], <NoticesPage />) },
+        { path: 'audit', element: guarded(['admin'], <AuditLogPage />) },
+        { path: 'manifest', element: guarded(['admin'], <ManifestImportPage />) },
         { path: '*', element: <NotFoundPage /> },
       ],
     },

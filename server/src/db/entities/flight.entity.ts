@@ -2,6 +2,7 @@ import { Column, CreateDateColumn, Entity, Index, JoinColumn, ManyToOne, Primary
 import type { FlightState } from '@shared/schemas/flights';
 import type { CommonShock } from '@shared/forecast';
 import { StationEntity } from './station.entity';
+import { FlightScheduleEntity } from './flight-schedule.entity';
 
 @Entity({ name: 'flights' })
 @Index('uq_flight_service', ['carrierCode', 'flightNumber', 'serviceDate', 'origin'], { unique: true })
@@ -55,6 +56,14 @@ export class FlightEntity {
   /** A common shock for disruption days (weather, a late bank of connections), set by a supervisor with a reason. */
   @Column({ type: 'json', nullable: true })
   shock!: CommonShock | null;
+
+  /** The weekly schedule that generated this flight; null for flights from the feed, a manifest or the demo. */
+  @ManyToOne(() => FlightScheduleEntity, { nullable: true, onDelete: 'SET NULL', onUpdate: 'NO ACTION' })
+  @JoinColumn({ name: 'schedule_id', foreignKeyConstraintName: 'fk_flight_schedule' })
+  schedule!: Relation<FlightScheduleEntity> | null;
+
+  @Column({ type: 'int', name: 'schedule_id', nullable: true })
+  scheduleId!: number | null;
 
   @CreateDateColumn({ type: 'datetime', precision: 3, default: () => 'CURRENT_TIMESTAMP(3)', name: 'created_at' })
   createdAt!: Date;

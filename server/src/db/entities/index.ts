@@ -17,6 +17,7 @@ import { BoardingRefusalEntity, DenialEntity, DenialProposalEntity, StationPrior
 import { AlertEntity } from './alert.entity';
 import { CabinChangeEntity } from './cabin-change.entity';
 import { CareGivenEntity, PassengerChoiceEntity, StationCareSettingsEntity, TicketRefundEntity } from './care.entity';
+import { FlightScheduleEntity } from './flight-schedule.entity';
 
 export { AuditLogEntity, BookingEntity, FlightEntity, PassengerEntity, StationEntity, UserEntity };
 export { ShowUpProfileEntity, IntegrationKeyEntity, FlightEventEntity, FlightForecastEntity, ForecastSnapshotEntity };
@@ -25,7 +26,7 @@ export { CompensationEntity };
 export { OutboxMessageEntity };
 export { PaymentIssuanceEntity, ProviderCardEntity, ProviderEventEntity, ReconciliationDifferenceEntity, ReconciliationRunEntity, VoucherOfferEntity };
 export { BoardingRefusalEntity, DenialEntity, DenialProposalEntity, StationPriorityRulesEntity };
-export { AlertEntity, CabinChangeEntity };
+export { AlertEntity, CabinChangeEntity, FlightScheduleEntity };
 export { CareGivenEntity, PassengerChoiceEntity, StationCareSettingsEntity, TicketRefundEntity };
 export type { StoredPartnerHotel } from './care.entity';
 export const entities = [StationEntity, UserEntity, FlightEntity, BookingEntity, PassengerEntity, AuditLogEntity,
@@ -33,4 +34,4 @@ export const entities = [StationEntity, UserEntity, FlightEntity, BookingEntity,
   VolunteerPolicyEntity, VolunteerRoundEntity, OfferApprovalEntity, VolunteerEntity, RebookingEntity, OutboxMessageEntity, CompensationEntity,
   StationPriorityRulesEntity, DenialProposalEntity, DenialEntity, BoardingRefusalEntity,
   ProviderEventEntity, PaymentIssuanceEntity, ProviderCardEntity, VoucherOfferEntity, ReconciliationRunEntity, ReconciliationDifferenceEntity,
-  AlertEntity, CabinChangeEntity, StationCareSettingsEntity, PassengerChoiceEntity, TicketRefundEntity, CareGivenEntity];
+  AlertEntity, CabinChangeEntity, StationCareSettingsEntity, PassengerChoiceEntity, TicketRefundEntity, CareGivenEntity, FlightScheduleEntity];

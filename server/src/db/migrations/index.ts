@@ -16,8 +16,9 @@ import { JourneyAndBookingLimit1796250000000 } from './1796250000000-JourneyAndB
 import { AlertsAndCabinChanges1796260000000 } from './1796260000000-AlertsAndCabinChanges';
 import { ForecastVersion1796270000000 } from './1796270000000-ForecastVersion';
 import { ForeignKeys1796290000000 } from './1796290000000-ForeignKeys';
-import { CareAndChoice1796320000000 } from './1796320000000-CareAndChoice';
 import { CompensationMedium1796295000000 } from './1796295000000-CompensationMedium';
+import { CareAndChoice1796320000000 } from './1796320000000-CareAndChoice';
+import { FlightSchedules1796370000000 } from './1796370000000-FlightSchedules';
 
 export const migrations = [
   Initial1796151413508,
@@ -39,4 +40,5 @@ export const migrations = [
   ForeignKeys1796290000000,
   CompensationMedium1796295000000,
   CareAndChoice1796320000000,
+  FlightSchedules1796370000000,
 ];
