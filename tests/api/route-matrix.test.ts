@@ -11,6 +11,7 @@ import { registeredRoutes } from './route-walk';
 import { denialRouteContext, removeDenialFixtures } from './denials-fixtures';
 import { removeVolunteerRouteFixtures, volunteerRouteContext } from './volunteers-route-context';
 import { paymentsRouteContext, removePaymentsRouteFixtures, startMatrixPaymentsStandIn } from './payments-route-context';
+import { learningRouteContext, removeLearningRouteFixtures } from './learning-route-context';
 import { FlightEntity } from '../../server/src/db/entities';
 import { createIntegrationKey } from '../../server/src/modules/integrations/integration-keys.service';
 import { enqueueMessage } from '../../server/src/modules/outbox/outbox.service';
@@ -62,6 +63,7 @@ beforeAll(async () => {
     denials: await denialRouteContext(t.db, otherFlight),
     volunteers: await volunteerRouteContext(t, { ownStationId, otherFlight, requesterUserId: ownUser.id }),
     payments: await paymentsRouteContext(t.db, { ownStationId, otherFlight }),
+    learning: await learningRouteContext(t.db, { ownStationId, otherStationId: other.id }),
   };
   for (const role of ROLES) asRole[role] = await signedIn(t, DEMO[role]);
 });
@@ -69,6 +71,7 @@ afterAll(async () => {
   await removeDenialFixtures(t.db);
   await removeVolunteerRouteFixtures(t.db, () => t.forecast.flush());
   await removePaymentsRouteFixtures(t.db);
+  await removeLearningRouteFixtures(t.db);
   await removeRunUsers(t.db);
   await t.close();
 });
