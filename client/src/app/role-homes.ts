@@ -21,5 +21,6 @@ export const NAV_ITEMS: NavItem[] = [
   { to: '/reconciliation', label: 'Reconciliation', roles: ['finance'] },
   { to: '/report', label: 'Period report', roles: ['finance'] },
   { to: '/planner', label: 'Planner', roles: ['admin', 'supervisor'] },
+  { to: '/calibration', label: 'Calibration', roles: ['admin', 'supervisor'] },
   { to: '/setup', label: 'Station setup', roles: ['admin'] },
 ];

@@ -19,6 +19,7 @@ const ReconciliationPage = lazy(() => import('./routes/finance-reconciliation'))
 const ReportPage = lazy(() => import('./routes/finance-report'));
 const PlannerPage = lazy(() => import('./routes/planner'));
 const SetupPage = lazy(() => import('./routes/setup'));
+const CalibrationPage = lazy(() => import('./routes/calibration'));
 const OfferYourSeatPage = lazy(() => import('./routes/offer-your-seat'));
 
 function guarded(roles: Role[], page: ReactNode) {
@@ -50,6 +51,7 @@ export function createAppRouter(queryClient: QueryClient) {
         { path: 'report', element: guarded(['finance'], <ReportPage />) },
         { path: 'planner', element: guarded(['admin', 'supervisor'], <PlannerPage />) },
         { path: 'setup', element: guarded(['admin'], <SetupPage />) },
+        { path: 'calibration', element: guarded(['admin', 'supervisor'], <CalibrationPage />) },
         { path: '*', element: <NotFoundPage /> },
       ],
     },
