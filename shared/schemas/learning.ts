@@ -67,7 +67,7 @@ export const stationLearningSchema = z.object({
 });
 export type StationLearning = z.infer<typeof stationLearningSchema>;
 
-export const learnedRouteRatesSchema = z.object({ version: z.number().nullable(), profile: showUpProfileSchema, shockRho: z.number().nullable() });
+export const learnedRouteRatesSchema = z.object({ version: z.number().nullable(), profile: showUpProfileSchema.nullable(), shockRho: z.number().nullable() });
 export type LearnedRouteRates = z.infer<typeof learnedRouteRatesSchema>;
 
 export const closedFlightSchema = z.object({
