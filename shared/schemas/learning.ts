@@ -67,7 +67,8 @@ export const stationLearningSchema = z.object({
 });
 export type StationLearning = z.infer<typeof stationLearningSchema>;
 
-export const learnedRouteRatesSchema = z.object({ version: z.number().nullable(), profile: showUpProfileSchema.nullable(), shockRho: z.number().nullable() });
+/** A route's learned rates: of the version the station uses, else of the latest (then `inUse` is false). */
+export const learnedRouteRatesSchema = z.object({ version: z.number().nullable(), inUse: z.boolean(), profile: showUpProfileSchema.nullable(), shockRho: z.number().nullable() });
 export type LearnedRouteRates = z.infer<typeof learnedRouteRatesSchema>;
 
 export const closedFlightSchema = z.object({

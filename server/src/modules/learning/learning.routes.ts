@@ -2,7 +2,7 @@ import { Router } from 'express';
 import { z } from 'zod';
 import type { DataSource } from 'typeorm';
 import { idParamSchema, iataAirportSchema } from '@shared/schemas/common';
-import { outcomeCorrectionSchema, ratesChoiceSchema } from '@shared/schemas/learning';
+import { learnedRouteRatesSchema, outcomeCorrectionSchema, ratesChoiceSchema } from '@shared/schemas/learning';
 import { canSeeStation, currentUser, requireRole } from '../../http/require-role';
 import { notFound } from '../../http/errors';
 import { parse } from '../../http/validate';
@@ -11,7 +11,7 @@ import { latestJob } from './jobs.service';
 import { stationLearning } from './learning.presenter';
 import type { LearningRuntime } from './learning-runtime';
 import { closedFlightOutcomes, correctOutcome, listClosedFlights } from './outcomes.service';
-import { putRatesChoice, routeRates, versionInUse } from './rates.service';
+import { latestVersion, putRatesChoice, routeRates, versionInUse } from './rates.service';
 import type { RatesModel } from './train';
 
 const stationParams = z.object({ stationId: z.coerce.number({ error: 'stationId must be a number' }).int().positive('stationId must be positive') });
@@ -48,10 +48,11 @@ export function learningRouter(deps: { db: DataSource; runtime: LearningRuntime;
   r.get('/stations/:stationId/routes/:destination', requireRole('admin', 'supervisor', 'agent'), async (req, res) => {
     const stationId = station(req);
     const { destination } = parse(routeParams, req.params, 'params');
-    const version = (await versionInUse(deps.db, stationId)) ?? (await deps.db.query('SELECT MAX(version) AS v FROM learned_rates'))[0]?.v ?? null;
+    const inUse = await versionInUse(deps.db, stationId);
+    const version = inUse ?? (await latestVersion(deps.db));
     const row = version === null ? null : await deps.db.getRepository(LearnedRatesEntity).findOneBy({ version: Number(version) });
     const learned = row ? routeRates(row.model as RatesModel, stationId, destination) : null;
-    res.json(learned ? { version: Number(version), profile: learned.profile, shockRho: learned.shockRho } : { version: null, profile: null, shockRho: null });
+    res.json(learnedRouteRatesSchema.parse(learned ? { version, inUse: inUse !== null, profile: learned.profile, shockRho: learned.shockRho } : { version: null, inUse: false, profile: null, shockRho: null }));
   });
   r.get('/stations/:stationId/closed-flights', requireRole('admin', 'supervisor'), async (req, res) => {
     res.json({ flights: await listClosedFlights(deps.db, [station(req)]) });

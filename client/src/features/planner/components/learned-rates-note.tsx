@@ -8,14 +8,15 @@ interface Props {
   origin: string;
   /** A valid three-letter destination, or null while none is typed. */
   destination: string | null;
-  /** True while the show rate field is empty: the learned rate is then filled in by itself. */
+  /** True while the show rate field is empty: the rates the station uses are then filled in by themselves. */
   showRateEmpty: boolean;
   onUse(showRate: string, rho: string): void;
 }
 
 /**
  * The learned booking show rate of the route (local economy passengers on a standard fare) and the learned
- * day-to-day correlation, with the version they come from. Filled into an empty show rate; offered otherwise.
+ * day-to-day correlation, with the version they come from. Filled into an empty show rate when the station uses
+ * that version; offered with a button otherwise.
  */
 export function LearnedRatesNote({ stationId, origin, destination, showRateEmpty, onUse }: Props) {
   const { data } = useQuery({ ...learnedRouteRatesQueryOptions(stationId, destination ?? ''), enabled: destination !== null });
@@ -26,18 +27,19 @@ export function LearnedRatesNote({ stationId, origin, destination, showRateEmpty
   const filledFor = useRef<string | null>(null);
   useEffect(() => {
     const key = `${destination}-${data?.version}`;
-    if (showRate && showRateEmpty && filledFor.current !== key) {
+    // Only the rates the station's forecasts use fill the form by themselves; a version not in use is offered.
+    if (showRate && data?.inUse && showRateEmpty && filledFor.current !== key) {
       filledFor.current = key;
       onUse(showRate, rho);
     }
-  }, [showRate, rho, showRateEmpty, destination, data?.version, onUse]);
+  }, [showRate, rho, showRateEmpty, destination, data?.version, data?.inUse, onUse]);
   if (!destination || !data) return null;
   if (!showRate || data.version === null) return <p className="text-sm text-ink-soft">No learned rates for {origin}–{destination} yet: type the show rate.</p>;
   return (
-    <div role="note" className="flex flex-wrap items-center gap-2 rounded-md border-l-4 border-harbour bg-harbour-soft px-3 py-2 text-sm">
+    <div className="flex flex-wrap items-center gap-2 rounded-md border-l-4 border-harbour bg-harbour-soft px-3 py-2 text-sm">
       <span>
-        Learned for {origin}–{destination} (rates version {data.version}): show rate <strong>{showRate}</strong>
-        {rho && <> , correlation <strong>{rho}</strong></>} — local economy, standard fare.
+        Learned for {origin}–{destination} (rates version {data.version}{data.inUse ? ', in use at the station' : ', not in use at the station'}): show rate{' '}
+        <strong>{showRate}</strong>{rho && <>, correlation <strong>{rho}</strong></>} — local economy, standard fare.
       </span>
       <Button variant="quiet" className="min-h-8 px-2 py-0" onClick={() => onUse(showRate, rho)}>Use learned rates</Button>
     </div>
