@@ -42,6 +42,9 @@ export async function recordClosedFlight(em: EntityManager, flightId: number): P
     em.find(VolunteerEntity, { select: { id: true, passengerIds: true }, where: { flightId, status: 'accepted' } }),
     em.find(DenialEntity, { select: { id: true, passengerIds: true }, where: { flightId, status: 'authorized' } }),
   ]);
+  // Without a single boarding scan the feed did not report boarding at all: who showed is unknown, and recording
+  // everyone as a no-show would teach the rates a falsehood. Such a flight is left out.
+  if (!passengers.some((p) => p.status === 'boarded')) return null;
   const pnrOf = new Map(bookings.map((b) => [b.id, b.pnr]));
   const volunteered = new Set(volunteers.flatMap((v) => v.passengerIds));
   const denied = new Set(denials.flatMap((d) => d.passengerIds));
