@@ -70,5 +70,6 @@ describe('learning from the demo history', () => {
       expect(c.learned.brier).toBeGreaterThan(0);
       expect(c.learned.brier).toBeLessThan(0.25);
     }
-  });
+    // Two exact forecasts for each of about 75 flights: a few seconds on a busy machine.
+  }, 60_000);
 });
