@@ -38,19 +38,22 @@ export class LearnedShowRates1796340000000 implements MigrationInterface {
       \`requests\` int NOT NULL DEFAULT 1,
       \`active\` tinyint AS (IF(\`status\` IN ('queued', 'running'), 1, NULL)) PERSISTENT,
       UNIQUE INDEX \`uq_learning_job_active\` (\`active\`),
-      PRIMARY KEY (\`id\`)
+      PRIMARY KEY (\`id\`),
+      CONSTRAINT \`fk_learning_job_user\` FOREIGN KEY (\`requested_by_user_id\`) REFERENCES \`users\`(\`id\`)
     ) ENGINE=InnoDB`);
     await q.query(`CREATE TABLE \`learned_rates\` (
       \`version\` int NOT NULL AUTO_INCREMENT, \`created_at\` datetime(3) NOT NULL DEFAULT CURRENT_TIMESTAMP(3),
       \`job_id\` int NOT NULL, \`flights_trained\` int NOT NULL, \`flights_held_out\` int NOT NULL,
       \`model\` json NOT NULL, \`calibration\` json NOT NULL,
-      PRIMARY KEY (\`version\`)
+      PRIMARY KEY (\`version\`),
+      CONSTRAINT \`fk_learned_rates_job\` FOREIGN KEY (\`job_id\`) REFERENCES \`learning_jobs\`(\`id\`)
     ) ENGINE=InnoDB`);
     await q.query(`CREATE TABLE \`station_rates_choice\` (
       \`station_id\` int NOT NULL, \`mode\` varchar(10) NOT NULL, \`pinned_version\` int NULL, \`updated_by_user_id\` int NULL,
       PRIMARY KEY (\`station_id\`),
       CONSTRAINT \`fk_rates_choice_station\` FOREIGN KEY (\`station_id\`) REFERENCES \`stations\`(\`id\`),
-      CONSTRAINT \`fk_rates_choice_version\` FOREIGN KEY (\`pinned_version\`) REFERENCES \`learned_rates\`(\`version\`)
+      CONSTRAINT \`fk_rates_choice_version\` FOREIGN KEY (\`pinned_version\`) REFERENCES \`learned_rates\`(\`version\`),
+      CONSTRAINT \`fk_rates_choice_user\` FOREIGN KEY (\`updated_by_user_id\`) REFERENCES \`users\`(\`id\`)
     ) ENGINE=InnoDB`);
     await q.query('ALTER TABLE `flight_forecasts` ADD `rates_version` int NULL');
   }
