@@ -39,6 +39,10 @@ import { financeRouter } from './modules/finance/finance.routes';
 import { alertsRouter } from './modules/alerts/alerts.routes';
 import { cabinChangesRouter } from './modules/cabin-changes/cabin-changes.routes';
 import { careRouter } from './modules/care/care.routes';
+import { learningRouter } from './modules/learning/learning.routes';
+import { createLearningRuntime, type LearningRuntime } from './modules/learning/learning-runtime';
+import { stationsOnLatestRates } from './modules/learning/rates.service';
+import { openFlightIds } from './modules/show-up-profiles/show-up-profiles.service';
 
 export interface AppDeps {
   env: Env;
@@ -56,6 +60,8 @@ export interface AppDeps {
   forecast?: ForecastScheduler;
   /** Compensation payments (provider client, issuer, worker); built from env when absent, its worker not started. */
   payments?: PaymentsRuntime;
+  /** Training runs of the learned show rates; built here (its clock not started) when absent. */
+  learning?: LearningRuntime;
 }
 
 /** Builds the whole HTTP app without listening, so tests run it in-process on port 0. */
@@ -117,6 +123,10 @@ export function createApp(deps: AppDeps) {
   api.use('/flights', flightDeskRouter({ db: deps.db, onFlightChanged: (id, stationId, data) => publisher.flightChanged(id, stationId, ['forecast', 'shock'], data) }));
   api.use('/departures', departuresRouter(deps));
   api.use('/plans', plansRouter(deps));
+  // Forecasts of a station whose rates changed are recomputed; the answer does not wait for them.
+  const recomputeStation = (stationId: number) => void openFlightIds(deps.db, stationId).then((ids) => ids.forEach((id) => forecast.markDirty(id))).catch(() => undefined);
+  const learning = deps.learning ?? createLearningRuntime(deps.db, { forecast, onNewVersion: () => void stationsOnLatestRates(deps.db).then((ids) => ids.forEach(recomputeStation)) });
+  api.use('/learning', learningRouter({ db: deps.db, runtime: learning, onChoiceChanged: recomputeStation }));
   api.use((req) => {
     throw notFound(`The API route ${req.method} ${req.path}`);
   });

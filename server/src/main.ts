@@ -12,6 +12,9 @@ import { createForecastScheduler } from './modules/forecast/forecast-scheduler';
 import { createMailTransport } from './integrations/mail/mail-transport';
 import { createOutboxWorker } from './modules/outbox/outbox-worker';
 import { createPaymentsRuntime } from './modules/payments/payments-runtime';
+import { createLearningRuntime } from './modules/learning/learning-runtime';
+import { stationsOnLatestRates } from './modules/learning/rates.service';
+import { openFlightIds } from './modules/show-up-profiles/show-up-profiles.service';
 
 const env = loadEnv();
 const db = createDataSource(env.DATABASE_URL);
@@ -27,8 +30,17 @@ outbox.start();
 // Its first pass retries every compensation a stopped server left 'issuing', with the keys fixed on each row.
 const payments = createPaymentsRuntime({ db, env, changed: (flightId, stationId, topics) => publisher.flightChanged(flightId, stationId, topics) });
 await payments.start();
+// Nightly training and the recording of departed flights; a run left unfinished by a stop is queued again.
+const learning = createLearningRuntime(db, {
+  forecast,
+  onNewVersion: () => void stationsOnLatestRates(db).then(async (stations) => {
+    for (const s of stations) (await openFlightIds(db, s)).forEach((id) => forecast.markDirty(id));
+  }).catch(() => undefined),
+});
+await learning.start();
 const app = createApp({
   payments,
+  learning,
   publisher,
   forecast,
   env,
@@ -57,6 +69,7 @@ async function stop(signal: string) {
   stopping = true;
   console.log(`[server] ${signal}: stopping`);
   forecast.stop();
+  learning.stop();
   ioRef.io?.close();
   await closeRedis();
   // Requests already being handled finish before the database goes away (bounded, so a stuck client cannot hold us).

@@ -16,3 +16,17 @@ export { betaQuadrature, type QuadratureRule } from './gauss-jacobi';
 export { betaRateTransform, quadratureNodeCount } from './shock';
 export { createSeededRandom, simulateShowUps, betaSample } from './monte-carlo';
 export { MAX_PEOPLE } from './validate';
+export {
+  learnShowRates,
+  lookupRate,
+  priorStrength,
+  CARRIER_LEVEL,
+  DEFAULT_MIN_EVIDENCE,
+  type SegmentHistory,
+  type LearnedRate,
+  type LearnOptions,
+} from './learn';
+export { brierScore, logLoss, LOG_LOSS_CLIP } from './scores';
+export { reliabilityBins, oversaleBacktest, type ReliabilityBin, type OversaleOutcome, type OversaleBacktest } from './reliability';
+export { estimateCommonShock, MAX_LEARNED_RHO, type FlightShowRecord, type ShockEstimate } from './dispersion';
+export { learnCheckInCurve, CHECK_IN_GRID, type CheckInHistory } from './check-in-curve';

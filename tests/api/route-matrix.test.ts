@@ -11,6 +11,7 @@ import { registeredRoutes } from './route-walk';
 import { denialRouteContext, removeDenialFixtures } from './denials-fixtures';
 import { removeVolunteerRouteFixtures, volunteerRouteContext } from './volunteers-route-context';
 import { paymentsRouteContext, removePaymentsRouteFixtures, startMatrixPaymentsStandIn } from './payments-route-context';
+import { learningRouteContext, removeLearningRouteFixtures } from './learning-route-context';
 import { FlightEntity } from '../../server/src/db/entities';
 import { createIntegrationKey } from '../../server/src/modules/integrations/integration-keys.service';
 import { enqueueMessage } from '../../server/src/modules/outbox/outbox.service';
@@ -64,6 +65,7 @@ beforeAll(async () => {
     volunteers: await volunteerRouteContext(t, { ownStationId, otherFlight, requesterUserId: ownUser.id }),
     payments: await paymentsRouteContext(t.db, { ownStationId, otherFlight }),
     admin: await adminRouteContext(t.db, { own: { id: ownStationId, iata: 'BOS' }, other: { id: other.id, iata: other.iata } }),
+    learning: await learningRouteContext(t.db, { ownStationId, otherStationId: other.id }),
   };
   for (const role of ROLES) asRole[role] = await signedIn(t, DEMO[role]);
 });
@@ -72,6 +74,7 @@ afterAll(async () => {
   await removeVolunteerRouteFixtures(t.db, () => t.forecast.flush());
   await removePaymentsRouteFixtures(t.db);
   await removeAdminRouteFixtures(t.db);
+  await removeLearningRouteFixtures(t.db);
   await removeRunUsers(t.db);
   await t.close();
 });

@@ -19,6 +19,7 @@ import { DEMO_PASSWORD } from './harness';
 import type { DenialRouteContext } from './denials-fixtures';
 import type { VolunteerRouteContext } from './volunteers-route-context';
 import type { PaymentsRouteContext } from './payments-route-context';
+import type { LearningRouteContext } from './learning-route-context';
 import { DEFAULT_SHOW_UP_PROFILE } from '@shared/schemas/show-up-profile';
 import { ADMIN_ROUTES, type AdminRouteContext } from './admin-route-context';
 
@@ -53,6 +54,8 @@ export interface RouteContext {
   payments: PaymentsRouteContext;
   /** Flights, schedules and notices for the admin screens' routes (tests/api/admin-route-context.ts). */
   admin: AdminRouteContext;
+  /** A closed flight with an outcome at each station (tests/api/learning-route-context.ts). */
+  learning: LearningRouteContext;
 }
 
 export interface RouteCall {
@@ -159,6 +162,29 @@ export const ROUTES: readonly RouteRow[] = [
     access: ['supervisor', 'admin'],
     call: (ctx, scope) => ({ url: '/api/plans', body: { stationId: stationOf(ctx, scope), routeKey: 'BOS-ORD', name: 'Route matrix plan', inputs: { capacity: 150, showProbability: 0.9, revenuePerBookingMinor: 20_000, costPerDenialMinor: 40_000, currency: 'USD' } } }),
     success: 201,
+    otherStation: 404,
+  },
+  { method: 'POST', pattern: '/api/learning/jobs', access: ['admin'], call: () => ({ url: '/api/learning/jobs' }), success: 202 },
+  { method: 'GET', pattern: '/api/learning/jobs/latest', access: ['admin', 'supervisor'], call: () => ({ url: '/api/learning/jobs/latest' }), success: 200 },
+  { method: 'GET', pattern: '/api/learning/stations/:stationId', access: ['admin', 'supervisor'], call: (ctx, scope) => ({ url: `/api/learning/stations/${stationOf(ctx, scope)}` }), success: 200, otherStation: 404 },
+  {
+    method: 'PUT',
+    pattern: '/api/learning/stations/:stationId/choice',
+    access: ['admin'],
+    // The hand-set profile, where every station starts: the demo's odds stay as they were.
+    call: (ctx, scope) => ({ url: `/api/learning/stations/${stationOf(ctx, scope)}/choice`, body: { mode: 'hand-set', pinnedVersion: null } }),
+    success: 200,
+    otherStation: 404,
+  },
+  { method: 'GET', pattern: '/api/learning/stations/:stationId/routes/:destination', access: GATE_ROLES, call: (ctx, scope) => ({ url: `/api/learning/stations/${stationOf(ctx, scope)}/routes/ORD` }), success: 200, otherStation: 404 },
+  { method: 'GET', pattern: '/api/learning/stations/:stationId/closed-flights', access: ['admin', 'supervisor'], call: (ctx, scope) => ({ url: `/api/learning/stations/${stationOf(ctx, scope)}/closed-flights` }), success: 200, otherStation: 404 },
+  { method: 'GET', pattern: '/api/learning/closed-flights/:id/outcomes', access: ['admin', 'supervisor'], call: (ctx, scope) => ({ url: `/api/learning/closed-flights/${ctx.learning.closedFlightId(scope)}/outcomes` }), success: 200, otherStation: 404 },
+  {
+    method: 'PATCH',
+    pattern: '/api/learning/outcomes/:id',
+    access: ['admin', 'supervisor'],
+    call: (ctx, scope) => ({ url: `/api/learning/outcomes/${ctx.learning.outcomeId(scope)}`, body: { outcome: 'no-show', reason: 'route matrix check' } }),
+    success: 200,
     otherStation: 404,
   },
   { method: 'GET', pattern: '/api/stations/:stationId/show-up-profile', access: ['supervisor', 'admin'], call: (ctx, scope) => ({ url: `/api/stations/${stationOf(ctx, scope)}/show-up-profile` }), success: 200, otherStation: 404 },

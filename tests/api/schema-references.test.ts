@@ -25,12 +25,15 @@ const NOT_REFERENCES: Record<string, string> = {
   'provider_cards.compensation_id': 'mirrors the card metadata at the payment provider',
   'provider_events.compensation_id': 'mirrors the event received from the payment provider',
   'reconciliation_differences.compensation_id': 'a difference may name a compensation the ledger does not hold',
+  // The learning history outlives the operational rows it was taken from (the demo replaces its flights every day).
+  'closed_flights.flight_id': 'a closed flight keeps the flight it was recorded from by value',
+  'booking_outcomes.passenger_id': 'an outcome keeps the passenger it was recorded from by value',
 };
 
 /** A record's own parts, which go with it; every other reference refuses the delete. */
 const OWNED_PARTS = new Set([
   'bookings.flight_id', 'passengers.booking_id', 'passengers.flight_id', 'flight_forecasts.flight_id', 'forecast_snapshots.flight_id',
-  'reconciliation_differences.run_id', 'user_stations.user_id', 'user_stations.station_id',
+  'reconciliation_differences.run_id', 'user_stations.user_id', 'user_stations.station_id', 'booking_outcomes.closed_flight_id',
 ]);
 
 let t: TestApp;

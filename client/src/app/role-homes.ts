@@ -21,6 +21,7 @@ export const NAV_ITEMS: NavItem[] = [
   { to: '/reconciliation', label: 'Reconciliation', roles: ['finance'] },
   { to: '/report', label: 'Period report', roles: ['finance'] },
   { to: '/planner', label: 'Planner', roles: ['admin', 'supervisor'] },
+  { to: '/calibration', label: 'Calibration', roles: ['admin', 'supervisor'] },
   { to: '/setup', label: 'Station setup', roles: ['admin'] },
   { to: '/flights', label: 'Flights', roles: ['admin'] },
   { to: '/schedules', label: 'Schedules', roles: ['admin'] },

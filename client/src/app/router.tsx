@@ -19,6 +19,7 @@ const ReconciliationPage = lazy(() => import('./routes/finance-reconciliation'))
 const ReportPage = lazy(() => import('./routes/finance-report'));
 const PlannerPage = lazy(() => import('./routes/planner'));
 const SetupPage = lazy(() => import('./routes/setup'));
+const CalibrationPage = lazy(() => import('./routes/calibration'));
 const OfferYourSeatPage = lazy(() => import('./routes/offer-your-seat'));
 const AdminFlightsPage = lazy(() => import('./routes/admin-flights'));
 const SchedulesPage = lazy(() => import('./routes/schedules'));
@@ -62,6 +63,7 @@ export function createAppRouter(queryClient: QueryClient) {
         { path: 'notices', element: guarded(['supervisor', 'admin'], <NoticesPage />) },
         { path: 'audit', element: guarded(['admin'], <AuditLogPage />) },
         { path: 'manifest', element: guarded(['admin'], <ManifestImportPage />) },
+        { path: 'calibration', element: guarded(['admin', 'supervisor'], <CalibrationPage />) },
         { path: '*', element: <NotFoundPage /> },
       ],
     },

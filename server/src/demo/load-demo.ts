@@ -8,6 +8,7 @@ import { createIntegrationKey } from '../modules/integrations/integration-keys.s
 import { deleteInDependencyOrder, flightsHeldByMoney } from './delete-in-order';
 import { demoManifest } from './manifest';
 import { seededRandom } from './random';
+import { insertDemoHistory } from './history';
 import { DEMO_CARRIER, DEMO_PASSWORD, DEMO_STATIONS, DEMO_USERS, type DemoFlight, type DemoStation } from './scenario';
 
 const MINUTE = 60_000;
@@ -70,6 +71,8 @@ export async function loadDemo(db: DataSource, now = new Date()) {
       await em.save(em.create(UserEntity, { ...u, passwordHash: hashes[i], active: true, stations }));
     }
     await insertFlights(em, stations, now);
+    // Closed flights to learn show rates from: kept when the day's flights are refreshed (they are not flight rows).
+    await insertDemoHistory(em, now);
     await audit(em, { actor: { label: 'demo loader' }, action: 'demo.loaded', entityType: 'demo', entityId: 'scenario', after: { at: now.toISOString() } });
   });
 }

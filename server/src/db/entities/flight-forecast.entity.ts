@@ -27,6 +27,10 @@ export class FlightForecastEntity {
   /** Per-cabin figures as last computed (each passenger's probability and reason are computed when asked for). */
   @Column({ type: 'json' })
   detail!: object;
+
+  /** The learned rates version the figures were computed with; null for the hand-set profile. */
+  @Column({ type: 'int', name: 'rates_version', nullable: true })
+  ratesVersion!: number | null;
 }
 
 /** The odds over time, for the chart since the gate opened. */

@@ -18,6 +18,7 @@ import { ForecastVersion1796270000000 } from './1796270000000-ForecastVersion';
 import { ForeignKeys1796290000000 } from './1796290000000-ForeignKeys';
 import { CompensationMedium1796295000000 } from './1796295000000-CompensationMedium';
 import { CareAndChoice1796320000000 } from './1796320000000-CareAndChoice';
+import { LearnedShowRates1796340000000 } from './1796340000000-LearnedShowRates';
 import { FlightSchedules1796370000000 } from './1796370000000-FlightSchedules';
 
 export const migrations = [
@@ -40,5 +41,6 @@ export const migrations = [
   ForeignKeys1796290000000,
   CompensationMedium1796295000000,
   CareAndChoice1796320000000,
+  LearnedShowRates1796340000000,
   FlightSchedules1796370000000,
 ];

@@ -4,7 +4,7 @@ import type { DataSource } from 'typeorm';
 import { In } from 'typeorm';
 import { BookingEntity, FlightEntity, FlightEventEntity, PassengerEntity, StationEntity, VolunteerEntity } from '../../db/entities';
 import { computeFlightForecast, type FlightForecastResult } from './flight-forecast';
-import { showUpProfileFor } from './profile.service';
+import { ratesFor } from '../learning/rates.service';
 
 /** Rows of the event trail the desk shows. */
 export const TRAIL_ROWS = 200;
@@ -19,6 +19,8 @@ export interface FlightState {
   /** Each booking's onward flights, as the desk lists them ("ZZ 123 FCO-JFK"). */
   onwardOf: Map<number, string[]>;
   result: FlightForecastResult;
+  /** The learned rates version the figures used; null for the hand-set profile. */
+  ratesVersion: number | null;
   trail: FlightEventEntity[];
 }
 
@@ -36,9 +38,9 @@ export async function readFlightState(db: DataSource, flightId: number, at?: Dat
   const when = at ?? (await databaseNow(db));
   const flight = await db.getRepository(FlightEntity).findOneBy({ id: flightId });
   if (!flight) return null;
-  const [station, profile, passengers, bookings, accepted, trail] = await Promise.all([
+  const [station, rates, passengers, bookings, accepted, trail] = await Promise.all([
     db.getRepository(StationEntity).findOneByOrFail({ id: flight.stationId }),
-    showUpProfileFor(db, flight.stationId),
+    ratesFor(db, flight.stationId, flight.destination),
     db.getRepository(PassengerEntity).find({ where: { flightId }, order: { lastName: 'ASC', firstName: 'ASC', id: 'ASC' } }),
     db.getRepository(BookingEntity).find({ select: { id: true, pnr: true, travelsTogether: true, itinerary: true }, where: { flightId } }),
     db.getRepository(VolunteerEntity).find({ select: { id: true, passengerIds: true }, where: { flightId, status: In(['accepted']) } }),
@@ -55,9 +57,10 @@ export async function readFlightState(db: DataSource, flightId: number, at?: Dat
     seatsByCabin: flight.seatsByCabin,
     departure: flight.scheduledDeparture,
     now: when,
-    profile,
+    profile: rates.profile,
     riskTolerance: station.riskToleranceBp / 10_000,
-    shock: flight.shock,
+    // A supervisor's shock for the day wins over the learned everyday one.
+    shock: flight.shock ?? rates.shock,
   });
-  return { flight, station, at: when, passengers, pnrOf: new Map(bookings.map((b) => [b.id, b.pnr])), onwardOf: new Map(bookings.map((b) => [b.id, (b.itinerary ?? []).map((seg) => `${seg.carrier} ${seg.number} ${seg.origin}-${seg.destination}`)])), result, trail };
+  return { flight, station, at: when, ratesVersion: rates.version, passengers, pnrOf: new Map(bookings.map((b) => [b.id, b.pnr])), onwardOf: new Map(bookings.map((b) => [b.id, (b.itinerary ?? []).map((seg) => `${seg.carrier} ${seg.number} ${seg.origin}-${seg.destination}`)])), result, trail };
 }

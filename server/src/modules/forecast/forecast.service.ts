@@ -57,7 +57,7 @@ async function writeOnce(db: DataSource, state: FlightState): Promise<{ version:
     const version = (row ? Number(row.version) : 0) + 1;
     await em.upsert(FlightForecastEntity, {
       flightId, computedAt: state.at, version, pOversale: forecast.pOversale, expectedDenied: forecast.expectedDenied,
-      forecast: compactForecast(forecast), detail: { cabins },
+      forecast: compactForecast(forecast), detail: { cabins }, ratesVersion: state.ratesVersion,
     }, ['flightId']);
     const due = !last || Math.abs(last.pOversale - forecast.pOversale) >= 0.01 || state.at.getTime() - last.at.getTime() >= SNAPSHOT_EVERY_MS;
     let point: HistoryPoint | null = null;

@@ -1,4 +1,4 @@
-import { useDeferredValue, useMemo, useState } from 'react';
+import { useCallback, useDeferredValue, useMemo, useState } from 'react';
 import type { Station } from '@shared/schemas/stations';
 import type { SavedPlan } from '@shared/schemas/plans';
 import { parseRouteKey } from '@shared/schemas/plans';
@@ -11,6 +11,7 @@ import { PlanResult } from './plan-result';
 import { PlanTargetFields } from './plan-target-fields';
 import { PlannerInputs } from './planner-inputs';
 import { SavedPlans } from './saved-plans';
+import { LearnedRatesNote } from './learned-rates-note';
 
 type Touched = Partial<Record<PlannerFieldName | TargetFieldName, boolean>>;
 
@@ -80,6 +81,14 @@ export function PlannerScreen({ station }: { station: Station }) {
     setServerErrors(next);
   }
 
+  const destinationOk = /^[A-Z]{3}$/.test(target.destination.trim().toUpperCase()) ? target.destination.trim().toUpperCase() : null;
+  const useLearned = useCallback((showRate: string, rho: string) => {
+    setFields((old) => {
+      const next = { ...old, showRate, rho };
+      if (checkPlannerFields(next, station.currency).ok) setValidFields(next);
+      return next;
+    });
+  }, [station.currency]);
   const capacity = check.ok ? check.input.capacity : undefined;
   const revenue = check.ok ? check.input.revenuePerBookingMinor : undefined;
   return (
@@ -93,6 +102,9 @@ export function PlannerScreen({ station }: { station: Station }) {
             <PlanTargetFields origin={station.iata} value={target} onChange={changeTarget} errors={targetErrors} />
           </Panel>
           <Panel title="Figures">
+            <div className="mb-3">
+              <LearnedRatesNote stationId={station.id} origin={station.iata} destination={destinationOk} showRateEmpty={fields.showRate.trim() === ''} onUse={useLearned} />
+            </div>
             <PlannerInputs
               currency={station.currency}
               value={fields}
