@@ -98,7 +98,7 @@ export async function removeFlights(db: DataSource, flightIds: number[]): Promis
   const compIds = comps.map((c) => c.id);
   await db.query('DELETE FROM outbox_messages WHERE flight_id IN (?)', [flightIds]);
   if (compIds.length) {
-    for (const table of ['alerts', 'voucher_offers', 'payment_issuances']) await db.query(`DELETE FROM ${table} WHERE compensation_id IN (?)`, [compIds]);
+    for (const table of ['alerts', 'voucher_offers', 'payment_issuances', 'payment_links', 'payouts']) await db.query(`DELETE FROM ${table} WHERE compensation_id IN (?)`, [compIds]);
     await db.query('DELETE FROM compensations WHERE id IN (?)', [compIds]);
   }
   await deleteInDependencyOrder(db.manager, 'flights', flightIds);

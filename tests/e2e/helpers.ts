@@ -82,7 +82,7 @@ export async function removeTestFlights(db: Connection, flightIds: number[]): Pr
   const compIds = comps.map((c) => Number(c.id));
   await db.query('DELETE FROM outbox_messages WHERE flight_id IN (?)', [flightIds]);
   if (compIds.length) {
-    for (const table of ['alerts', 'voucher_offers', 'payment_issuances', 'provider_cards']) await db.query(`DELETE FROM ${table} WHERE compensation_id IN (?)`, [compIds]);
+    for (const table of ['alerts', 'voucher_offers', 'payment_issuances', 'payment_links', 'payouts', 'provider_cards']) await db.query(`DELETE FROM ${table} WHERE compensation_id IN (?)`, [compIds]);
     await db.query('DELETE FROM compensations WHERE id IN (?)', [compIds]);
   }
   const asManager = { query: async (sql: string, params?: unknown[]) => (await db.query(sql, params))[0] } as unknown as EntityManager;
