@@ -39,9 +39,9 @@ export async function startLinkWorld(opts: { webhooks?: boolean; station?: strin
     });
   }
   const clock = { ms: Date.now() };
-  const fake = await startFake();
+  const fake = await startFake({ webhookRetry: { maxAttempts: 6, baseDelayMs: 50, maxDelayMs: 500 } });
   const app = await startPaymentsApp({ stripeApiUrl: fake.url, startWorker: false, log: (line) => logs.push(line), now: () => clock.ms });
-  if (opts.webhooks) fake.fake.store.state.webhookEndpoint = { url: app.webhookUrl, secret: WEBHOOK_SECRET };
+  if (opts.webhooks) fake.fake.webhooks.setEndpoint({ url: app.webhookUrl, secret: WEBHOOK_SECRET });
   const dataDir = mkdtempSync(path.join(os.tmpdir(), 'bumpboard-links-mail-'));
   const mail = createMailFake({ dataDir });
   const ports = await mail.listen({ smtpPort: 0, httpPort: 0 });
