@@ -20,6 +20,8 @@ const ReportPage = lazy(() => import('./routes/finance-report'));
 const PlannerPage = lazy(() => import('./routes/planner'));
 const SetupPage = lazy(() => import('./routes/setup'));
 const OfferYourSeatPage = lazy(() => import('./routes/offer-your-seat'));
+const CardDetailsPage = lazy(() => import('./routes/card-details'));
+const PayoutPage = lazy(() => import('./routes/payout'));
 
 function guarded(roles: Role[], page: ReactNode) {
   return (
@@ -64,5 +66,14 @@ export function createAppRouter(queryClient: QueryClient) {
         </Suspense>
       ),
     },
+    // The passenger's own payment pages from mailed single-use links: public, like the offer page.
+    ...[
+      { path: '/card/:token', page: <CardDetailsPage /> },
+      { path: '/payout/:token', page: <PayoutPage /> },
+    ].map(({ path, page }) => ({
+      path,
+      errorElement: <RouteError />,
+      element: <Suspense fallback={<p className="p-6 text-xl text-ink-soft">Loading…</p>}>{page}</Suspense>,
+    })),
   ]);
 }
