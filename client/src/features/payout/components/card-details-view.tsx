@@ -15,7 +15,7 @@ function Details({ details }: { details: CardDetails }) {
       <dl className="mt-3 space-y-3">
         <div>
           <dt className="text-base text-ink-soft">{W.number}</dt>
-          <dd className="font-mono text-3xl font-bold tracking-wide" data-testid="card-number">{groups(details.number)}</dd>
+          <dd className="whitespace-nowrap font-mono text-2xl font-bold sm:text-3xl" data-testid="card-number">{groups(details.number)}</dd>
         </div>
         <div className="flex gap-8">
           <div>

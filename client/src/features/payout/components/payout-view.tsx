@@ -66,7 +66,7 @@ export function PayoutView({ token }: { token: string }) {
       <label htmlFor={`${id}-${name}`} className="mb-1 block font-bold">{W[name]}</label>
       <input
         id={`${id}-${name}`}
-        className={`${BOX} ${errors[name] ? 'border-alert' : ''}`}
+        className={errors[name] ? BOX.replace('border-line', 'border-alert') : BOX}
         value={values[name]}
         onChange={(e) => setValues((v) => ({ ...v, [name]: e.target.value }))}
         aria-invalid={errors[name] ? true : undefined}
@@ -87,7 +87,7 @@ export function PayoutView({ token }: { token: string }) {
       <form onSubmit={submit} noValidate className="space-y-4 rounded-xl border-2 border-line bg-card p-5" aria-labelledby={`${id}-title`}>
         <h2 id={`${id}-title`} className="text-2xl font-bold">{W.proofTitle}</h2>
         <p>{W.proofHint}</p>
-        {field('pnr', { className: `${BOX} uppercase`, maxLength: 8, autoCapitalize: 'characters' })}
+        {field('pnr', { maxLength: 8, autoCapitalize: 'characters', style: { textTransform: 'uppercase' } })}
         {field('lastName', { maxLength: 60, autoComplete: 'family-name' })}
         <h2 className="pt-2 text-2xl font-bold">{W.accountTitle}</h2>
         {FIELDS.slice(2).map((name) => field(name, name === 'holderName' ? { maxLength: 80, autoComplete: 'name' } : { maxLength: 20 }))}

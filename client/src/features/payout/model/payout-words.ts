@@ -16,7 +16,7 @@ export const PAYOUT_WORDS = {
   accountType: 'Account type',
   checking: 'Checking',
   savings: 'Savings',
-  fixBelow: 'Please check the boxes marked below.',
+  fixBelow: 'Please check the boxes marked in red above.',
   send: 'Send my compensation to this account',
   sending: 'Saving…',
   doneTitle: 'Thank you',
