@@ -49,10 +49,9 @@ export async function spentOnEarlierCards(em: EntityManager, compensationId: num
   return Number(row?.spent ?? 0);
 }
 
-async function enqueueReceipt(em: EntityManager, compensationId: number, card: CardSnapshot, links: LinkMaker): Promise<boolean> {
+async function enqueueReceipt(em: EntityManager, compensationId: number, attemptKey: string | null, card: CardSnapshot, links: LinkMaker): Promise<boolean> {
   const row = await compensationRow(em, compensationId);
   if (!row.contact_email) return false;
-  const attemptKey = (await em.findOneByOrFail(CompensationEntity, { id: compensationId })).idempotencyKey;
   const details = attemptKey ? await createLink(em, links, { compensationId, purpose: 'card-details', attemptKey }) : null;
   const offer = row.form === 'voucher' ? await em.findOneBy(VoucherOfferEntity, { compensationId }) : null;
   const notice = compensationReceipt({
@@ -103,7 +102,7 @@ export async function recordIssued(em: EntityManager, compensationId: number, ca
     before, after: { state: 'issued', providerCardId: card.id, amountMinor: row.amountMinor, currency: row.currency, form: row.form },
   });
   await resolvePaymentAlerts(em, row.id, `Paid: card ${card.id} issued.`);
-  const mail = await enqueueReceipt(em, row.id, card, links);
+  const mail = await enqueueReceipt(em, row.id, row.idempotencyKey, card, links);
   return { mail, changed: { flightId: row.flightId, stationId: row.stationId } };
 }
 
