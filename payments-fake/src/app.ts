@@ -12,6 +12,8 @@ import { cardsRouter } from './resources/cards.js';
 import type { ResourceDeps } from './resources/context.js';
 import { EventLog } from './resources/eventLog.js';
 import { eventsRouter } from './resources/events.js';
+import { ephemeralKeysRouter } from './resources/ephemeralKeys.js';
+import { outboundPaymentHelpersRouter, outboundPaymentsRouter, paymentMethodsRouter } from './resources/outboundPayments.js';
 import { settleCard, transactionsRouter, type SettleRequest } from './resources/transactions.js';
 import { FakeStore } from './store/store.js';
 import type { TransactionObject, WebhookEndpoint } from './store/types.js';
@@ -75,6 +77,10 @@ export function createPaymentsFake(options: PaymentsFakeOptions = {}): PaymentsF
   api.use('/issuing/cards', cardsRouter(resources, runner));
   api.use('/issuing/transactions', transactionsRouter(resources, runner));
   api.use('/events', eventsRouter(resources, runner));
+  api.use('/ephemeral_keys', ephemeralKeysRouter(resources, runner));
+  api.use('/payment_methods', paymentMethodsRouter(resources, runner));
+  api.use('/treasury/outbound_payments', outboundPaymentsRouter(resources, runner));
+  api.use('/test_helpers/treasury/outbound_payments', outboundPaymentHelpersRouter(resources, runner));
   api.use(unknownRoute);
   api.use(apiErrorHandler);
 

@@ -18,4 +18,8 @@ export const ID_PREFIX = {
   event: 'evt',
   request: 'req',
   delivery: 'whd',
+  ephemeralKey: 'ephkey',
+  ephemeralSecret: 'ek_test',
+  paymentMethod: 'pm',
+  outboundPayment: 'obp',
 } as const;

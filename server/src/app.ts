@@ -90,6 +90,8 @@ export function createApp(deps: AppDeps) {
   // outside the session and CSRF middleware.
   app.use('/api/payments/webhook', payments.webhookRouter());
   // The passenger's "Offer your seat" page: no session; signed links and booking proof instead.
+  // The passenger's card-details and payout pages: single-use links, no session.
+  app.use('/api/public/payments', payments.passengerRouter());
   app.use('/api/public', publicOffersRouter({ db: deps.db, secret: deps.env.SESSION_SECRET, changed }));
   app.use('/api/integrations', integrationEventsRouter({ db: deps.db, onFlightsChanged: (ids) => ids.forEach((id) => forecast.markDirty(id)) }));
 

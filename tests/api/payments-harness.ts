@@ -75,6 +75,8 @@ export interface PaymentsAppOptions {
   startWorker?: boolean;
   stripeTimeoutMs?: number;
   log?: (line: string) => void;
+  /** Clock of the passenger's payment links (epoch ms). */
+  now?: () => number;
 }
 
 export async function startPaymentsApp(opts: PaymentsAppOptions): Promise<PaymentsApp> {
@@ -90,7 +92,7 @@ export async function startPaymentsApp(opts: PaymentsAppOptions): Promise<Paymen
   const db = createDataSource(env.DATABASE_URL);
   await db.initialize();
   const session = createSessionSetup(env);
-  const runtime = createPaymentsRuntime({ db, env, worker: opts.worker, stripeTimeoutMs: opts.stripeTimeoutMs, log: opts.log ?? (() => undefined) });
+  const runtime = createPaymentsRuntime({ db, env, worker: opts.worker, stripeTimeoutMs: opts.stripeTimeoutMs, log: opts.log ?? (() => undefined), now: opts.now });
   const app = createApp({ env, db, session, payments: runtime, throttle: createSignInThrottle({ perAccount: 1000, perAddress: 10_000 }), demo: true });
   const http = createServer(app);
   const port = await listen(http, opts.port ?? 0);

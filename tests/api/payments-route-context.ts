@@ -6,6 +6,7 @@ import type { DataSource } from 'typeorm';
 import { addSingles } from './denials-fixtures';
 import { ReconciliationDifferenceEntity, ReconciliationRunEntity, StationEntity, type FlightEntity } from '../../server/src/db/entities';
 import { insertCompensations, removeFlights, seedFlight, startFake, type RunningFake } from './payments-harness';
+import { removeCompensations } from '../cleanup/compensations';
 
 export interface PaymentsRouteContext {
   /** Already issued: asking again answers 200 without calling the provider. */
@@ -85,10 +86,7 @@ export async function removePaymentsRouteFixtures(db: DataSource): Promise<void>
   await db.query("DELETE FROM alerts WHERE message = 'Route matrix alert' OR compensation_id IN (SELECT id FROM compensations WHERE flight_id IN (?))", [made.flightIds.length ? made.flightIds : [0]]);
   await db.query('DELETE FROM cabin_changes WHERE flight_id IN (?)', [made.flightIds.length ? made.flightIds : [0]]);
   await removeFlights(db, made.flightIds);
-  if (made.compensationIds.length) {
-    for (const table of ['care_given', 'passenger_choices', 'ticket_refunds']) await db.query(`DELETE FROM ${table} WHERE compensation_id IN (?)`, [made.compensationIds]);
-    await db.query('DELETE FROM compensations WHERE id IN (?)', [made.compensationIds]);
-  }
+  await removeCompensations((sql, params) => db.query(sql, params), made.compensationIds);
   // The runs made here, and the one the matrix itself started at the own station.
   await db.query(
     "DELETE FROM reconciliation_runs WHERE id IN (?) OR (started_by_label = 'finance@bumpboard.test' AND started_at >= ? AND JSON_CONTAINS(station_ids, ?))",

@@ -387,6 +387,15 @@ export const ROUTES: readonly RouteRow[] = [
     call: (ctx) => ({ url: `/api/public/offers/${ctx.volunteers.offerToken}/status?passengerToken=${encodeURIComponent(ctx.volunteers.passengerToken)}` }),
     success: 200,
   },
+  // The passenger's own payment pages: no session; a single-use link's token in the body. Without a live link the
+  // answer is the same "link not valid" for everyone, signed in or not (the link tests cover the working path).
+  ...(['/api/public/payments/card-details/status', '/api/public/payments/card-details/reveal', '/api/public/payments/payout/status'] as const).map((pattern) => ({
+    method: 'POST' as const, pattern, access: 'public' as const, call: () => ({ url: pattern, body: { token: 'unknown-link-token-unknown-link', pnr: 'ABC123', lastName: 'Tester' } }), success: 404,
+  })),
+  {
+    method: 'POST', pattern: '/api/public/payments/payout/account', access: 'public', success: 404,
+    call: () => ({ url: '/api/public/payments/payout/account', body: { token: 'unknown-link-token-unknown-link', pnr: 'ABC123', lastName: 'Tester', holderName: 'Ana Tester', routingNumber: '110000000', accountNumber: '000123456789', accountNumberAgain: '000123456789', accountType: 'checking' } }),
+  },
   // Compensation money: agents issue and record a voucher choice, finance voids and re-issues; nobody else.
   { method: 'GET', pattern: '/api/flights/:flightId/compensations', access: ['agent'], call: (ctx, scope) => ({ url: `/api/flights/${flightOf(ctx, scope)}/compensations` }), success: 200, otherStation: 404 },
   { method: 'POST', pattern: '/api/compensations/:id/issue', access: ['agent'], call: (ctx, scope) => ({ url: `/api/compensations/${scope === 'own' ? ctx.payments.issuedId : ctx.payments.other.compensationId}/issue` }), success: 200, otherStation: 404 },

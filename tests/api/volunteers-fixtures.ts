@@ -6,6 +6,7 @@ import { BookingEntity, FlightEntity, OutboxMessageEntity, PassengerEntity, Stat
 import { deleteInDependencyOrder } from '../../server/src/demo/delete-in-order';
 import { withFreeFlightNumber } from './free-flight-number';
 import { RUN_ID } from './helpers';
+import { removeCompensations } from '../cleanup/compensations';
 
 const MINUTE = 60_000;
 const PNR_LETTERS = 'ABCDEFGHJKLMNPQRSTUVWXYZ23456789';
@@ -93,10 +94,7 @@ export async function removeFlights(db: DataSource, flightIds: number[]): Promis
   const comps: { id: number }[] = await db.query('SELECT id FROM compensations WHERE flight_id IN (?)', [flightIds]);
   const compIds = comps.map((c) => c.id);
   await db.query('DELETE FROM outbox_messages WHERE flight_id IN (?)', [flightIds]);
-  if (compIds.length) {
-    for (const table of ['alerts', 'voucher_offers', 'payment_issuances', 'care_given', 'passenger_choices', 'ticket_refunds']) await db.query(`DELETE FROM ${table} WHERE compensation_id IN (?)`, [compIds]);
-    await db.query('DELETE FROM compensations WHERE id IN (?)', [compIds]);
-  }
+  await removeCompensations((sql, params) => db.query(sql, params), compIds);
   await deleteInDependencyOrder(db.manager, 'flights', flightIds);
 }
 

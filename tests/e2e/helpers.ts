@@ -2,6 +2,7 @@ import { expect, request, type APIRequestContext, type Page } from '@playwright/
 import type { Connection, RowDataPacket } from 'mysql2/promise';
 import type { EntityManager } from 'typeorm';
 import { deleteInDependencyOrder } from '../../server/src/demo/delete-in-order';
+import { removeCompensations } from '../cleanup/compensations';
 
 export const DEMO_PASSWORD = 'bumpboard-demo-2026';
 export const SCREENSHOTS = 'test-results/screenshots';
@@ -82,10 +83,7 @@ export async function removeTestFlights(db: Connection, flightIds: number[]): Pr
   const [comps] = await db.query<RowDataPacket[]>('SELECT id FROM compensations WHERE flight_id IN (?)', [flightIds]);
   const compIds = comps.map((c) => Number(c.id));
   await db.query('DELETE FROM outbox_messages WHERE flight_id IN (?)', [flightIds]);
-  if (compIds.length) {
-    for (const table of ['alerts', 'voucher_offers', 'payment_issuances', 'provider_cards', 'care_given', 'passenger_choices', 'ticket_refunds']) await db.query(`DELETE FROM ${table} WHERE compensation_id IN (?)`, [compIds]);
-    await db.query('DELETE FROM compensations WHERE id IN (?)', [compIds]);
-  }
+  await removeCompensations(async (sql, params) => (await db.query(sql, params))[0], compIds);
   const asManager = { query: async (sql: string, params?: unknown[]) => (await db.query(sql, params))[0] } as unknown as EntityManager;
   await deleteInDependencyOrder(asManager, 'flights', flightIds);
 }

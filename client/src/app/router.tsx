@@ -27,6 +27,8 @@ const AdminStationsPage = lazy(() => import('./routes/admin-stations'));
 const NoticesPage = lazy(() => import('./routes/notices'));
 const AuditLogPage = lazy(() => import('./routes/audit-log'));
 const ManifestImportPage = lazy(() => import('./routes/manifest-import'));
+const CardDetailsPage = lazy(() => import('./routes/card-details'));
+const PayoutPage = lazy(() => import('./routes/payout'));
 
 function guarded(roles: Role[], page: ReactNode) {
   return (
@@ -78,5 +80,14 @@ export function createAppRouter(queryClient: QueryClient) {
         </Suspense>
       ),
     },
+    // The passenger's own payment pages from mailed single-use links: public, like the offer page.
+    ...[
+      { path: '/card/:token', page: <CardDetailsPage /> },
+      { path: '/payout/:token', page: <PayoutPage /> },
+    ].map(({ path, page }) => ({
+      path,
+      errorElement: <RouteError />,
+      element: <Suspense fallback={<p className="p-6 text-xl text-ink-soft">Loading…</p>}>{page}</Suspense>,
+    })),
   ]);
 }

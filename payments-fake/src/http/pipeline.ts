@@ -8,6 +8,8 @@ export interface RequestLocals {
   requestId: string;
   apiVersion: string;
   fault: ApiFault | null;
+  /** The `ek_test_…` secret when an ephemeral key authenticated the request. */
+  ephemeralKey: string | null;
 }
 
 export function locals(res: Response): RequestLocals {
@@ -37,6 +39,7 @@ export function requestContext(defaultApiVersion: string): RequestHandler {
       requestId: newId(ID_PREFIX.request),
       apiVersion: req.get('stripe-version') ?? defaultApiVersion,
       fault: null,
+      ephemeralKey: null,
     };
     Object.assign(res.locals, context);
     res.set('Request-Id', context.requestId);
@@ -74,6 +77,16 @@ export const authenticate: RequestHandler = (req, res, next) => {
   if (/^(sk|rk)_live_/.test(key)) {
     sendError(res, new StripeApiError(401, 'invalid_request_error', 'This local payments stand-in only accepts test-mode keys (sk_test_…).', 'api_key_live_mode'));
     return;
+  }
+  if (/^ek_test_\S+$/.test(key)) {
+    // An ephemeral key reads one Issuing card's details and nothing else (Stripe Issuing, "Display card details").
+    const cardRead = req.method === 'GET' && /^\/v1\/issuing\/cards\/[^/]+$/.test(fullPath(req));
+    if (!cardRead) {
+      sendError(res, new StripeApiError(403, 'invalid_request_error', 'An ephemeral key can only retrieve the Issuing card it was created for.', 'ephemeral_key_scope'));
+      return;
+    }
+    locals(res).ephemeralKey = key;
+    return next();
   }
   if (!/^(sk|rk)_test_\S+$/.test(key)) {
     const masked = key.length > 8 ? `${key.slice(0, 8)}${'*'.repeat(Math.min(key.length - 8, 12))}` : '****';

@@ -77,6 +77,7 @@ export function endpoint(operation: Operation, deps: RunnerDeps): RequestHandler
       requestId: context.requestId,
       idempotencyKey: key,
       apiVersion: context.apiVersion,
+      ephemeralKey: context.ephemeralKey,
     };
 
     if (req.method !== 'POST') {

@@ -13,6 +13,8 @@ export interface OperationInput {
   requestId: string;
   idempotencyKey: string | null;
   apiVersion: string;
+  /** Set when the request authenticated with an ephemeral key (`ek_test_…`) instead of a secret key. */
+  ephemeralKey: string | null;
 }
 
 export type Operation = (input: OperationInput) => ApiResult;

@@ -1,14 +1,16 @@
 import { randomInt } from 'node:crypto';
 import { Router } from 'express';
 import { ID_PREFIX, newId } from '../ids.js';
-import { paramInvalid, paramMissing, resourceMissing } from '../http/errors.js';
+import { paramInvalid, paramMissing, resourceMissing, StripeApiError } from '../http/errors.js';
 import { endpoint, type RunnerDeps } from '../http/runner.js';
 import type { Operation } from '../http/types.js';
 import type { CardRecord } from '../store/types.js';
 import { nowSeconds, originOf, type ResourceDeps } from './context.js';
 import { newestFirst, paginate, parseListQuery } from './list.js';
 import { applyMetadata, metadataChanges } from './metadata.js';
-import { optionalEnum, optionalString, parseCurrency, parseInteger, rejectUnknown, requiredString } from './params.js';
+import { asList, optionalEnum, optionalString, parseCurrency, parseInteger, rejectUnknown, requiredString } from './params.js';
+import { cardNumberEnding, ensureSecrets } from './cardSecrets.js';
+import { liveEphemeralKey } from './ephemeralKeys.js';
 import { renderCard, renderSpendingControls } from './render.js';
 import { parseSpendingLimits } from './spendingControls.js';
 
@@ -53,6 +55,7 @@ const create =
     if (!deps.store.state.cardholders.has(cardholderId)) throw resourceMissing('issuing.cardholder', cardholderId, 'cardholder');
 
     const issued = new Date(deps.now());
+    const number = cardNumberEnding(String(randomInt(0, 10_000)).padStart(4, '0'));
     const card: CardRecord = {
       id: newId(ID_PREFIX.card),
       object: 'issuing.card',
@@ -63,12 +66,14 @@ const create =
       currency,
       exp_month: issued.getUTCMonth() + 1,
       exp_year: issued.getUTCFullYear() + VALID_YEARS,
-      last4: String(randomInt(0, 10_000)).padStart(4, '0'),
+      last4: number.slice(-4),
       livemode: false,
       metadata,
       spending_limits: spendingLimits,
       status,
       type: 'virtual',
+      number,
+      cvc: String(randomInt(0, 1000)).padStart(3, '0'),
     };
     deps.store.state.cards.set(card.id, card);
     const body = renderCard(card, deps.store.state);
@@ -119,11 +124,34 @@ const update =
     return { status: 200, body };
   };
 
+/**
+ * `expand[]=number` / `expand[]=cvc` answer only to an ephemeral key made for this very card, the way a platform
+ * without its own card-data compliance reads card details (Stripe Issuing, "Display card details": ephemeral key
+ * plus nonce). A secret-key request for them is refused, so no server path can fetch them by accident.
+ */
 const retrieve =
   (deps: ResourceDeps): Operation =>
   (input) => {
     rejectUnknown(input.params, []);
-    return { status: 200, body: renderCard(findCard(deps, input.pathParams.id), deps.store.state) };
+    const expand = asList(input.params.expand, 'expand');
+    const secrets = expand.filter((e): e is 'number' | 'cvc' => e === 'number' || e === 'cvc');
+    if (input.ephemeralKey) {
+      const key = liveEphemeralKey(deps, input.ephemeralKey);
+      if (!key) throw new StripeApiError(401, 'authentication_error', 'This ephemeral key is unknown or has expired.', 'ephemeral_key_expired');
+      if (key.cardId !== input.pathParams.id) {
+        throw new StripeApiError(403, 'invalid_request_error', 'This ephemeral key was made for another card.', 'ephemeral_key_scope');
+      }
+    } else if (secrets.length) {
+      throw paramInvalid('expand', 'number and cvc are only given to an ephemeral key made for this card.');
+    }
+    const card = findCard(deps, input.pathParams.id);
+    const body: Record<string, unknown> = renderCard(card, deps.store.state);
+    if (secrets.length) {
+      const { number, cvc } = deps.store.mutate(() => ensureSecrets(card));
+      if (secrets.includes('number')) body.number = number;
+      if (secrets.includes('cvc')) body.cvc = cvc;
+    }
+    return { status: 200, body };
   };
 
 const list =

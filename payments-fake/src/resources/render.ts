@@ -2,7 +2,10 @@ import type { CardRecord, StoreState } from '../store/types.js';
 
 /** Cards embed their cardholder in full, as Stripe returns `issuing.card.cardholder`. */
 export function renderCard(card: CardRecord, state: StoreState) {
-  const { spending_limits: spendingLimits, cardholder, ...rest } = card;
+  // The number and security code never leave in an ordinary answer (see the card retrieve endpoint).
+  const { spending_limits: spendingLimits, cardholder, number: _number, cvc: _cvc, ...rest } = card;
+  void _number;
+  void _cvc;
   return {
     ...rest,
     cardholder: structuredClone(state.cardholders.get(cardholder) ?? null),

@@ -7,6 +7,9 @@ import type {
   StoreState,
   TransactionObject,
   WebhookEndpoint,
+  EphemeralKeyRecord,
+  PaymentMethodObject,
+  OutboundPaymentObject,
 } from './types.js';
 import { readSnapshot, writeSnapshot } from './persistence.js';
 
@@ -17,6 +20,9 @@ interface Snapshot {
   cardholders: CardholderObject[];
   cards: CardRecord[];
   transactions: TransactionObject[];
+  ephemeralKeys?: EphemeralKeyRecord[];
+  paymentMethods?: PaymentMethodObject[];
+  outboundPayments?: OutboundPaymentObject[];
   events: EventObject[];
   idempotency: IdempotencyRecord[];
   deliveries: DeliveryRecord[];
@@ -28,6 +34,9 @@ function emptyState(): StoreState {
     cardholders: new Map(),
     cards: new Map(),
     transactions: new Map(),
+    ephemeralKeys: new Map(),
+    paymentMethods: new Map(),
+    outboundPayments: new Map(),
     events: new Map(),
     idempotency: new Map(),
     deliveries: new Map(),
@@ -48,6 +57,9 @@ function fromSnapshot(raw: unknown): StoreState {
     cardholders: byId(snapshot.cardholders),
     cards: byId(snapshot.cards),
     transactions: byId(snapshot.transactions),
+    ephemeralKeys: byId(snapshot.ephemeralKeys),
+    paymentMethods: byId(snapshot.paymentMethods),
+    outboundPayments: byId(snapshot.outboundPayments),
     events: byId(snapshot.events),
     idempotency: new Map((snapshot.idempotency ?? []).map((record) => [record.key, record])),
     deliveries: byId(snapshot.deliveries),
@@ -92,6 +104,9 @@ export class FakeStore {
       cardholders: [...s.cardholders.values()],
       cards: [...s.cards.values()],
       transactions: [...s.transactions.values()],
+      ephemeralKeys: [...s.ephemeralKeys.values()],
+      paymentMethods: [...s.paymentMethods.values()],
+      outboundPayments: [...s.outboundPayments.values()],
       events: [...s.events.values()],
       idempotency: [...s.idempotency.values()],
       deliveries: [...s.deliveries.values()],

@@ -54,6 +54,60 @@ export interface CardRecord {
   spending_limits: SpendingLimit[];
   status: CardStatus;
   type: 'virtual';
+  /**
+   * The full card number and security code. Never rendered unless an ephemeral key for this card asks for them with
+   * `expand[]=number` / `expand[]=cvc`. Older state files lack them; they are made on first need.
+   */
+  number?: string;
+  cvc?: string;
+}
+
+/** Stripe's `ephemeral_key` for an Issuing card: made with a nonce, good for reading one card's details briefly. */
+export interface EphemeralKeyRecord {
+  id: string;
+  secret: string;
+  cardId: string;
+  nonce: string;
+  created: number;
+  expires: number;
+}
+
+/** A `us_bank_account` payment method: the stand-in keeps only what Stripe shows back (routing number, last four). */
+export interface PaymentMethodObject {
+  id: string;
+  object: 'payment_method';
+  billing_details: { name: string | null; email: string | null };
+  created: number;
+  livemode: false;
+  metadata: Metadata;
+  type: 'us_bank_account';
+  us_bank_account: {
+    account_holder_type: 'individual' | 'company';
+    account_type: 'checking' | 'savings';
+    bank_name: string | null;
+    last4: string;
+    routing_number: string;
+  };
+}
+
+export type OutboundPaymentStatus = 'processing' | 'posted' | 'failed' | 'returned' | 'canceled';
+
+/** Trimmed `treasury.outbound_payment` (stripe-node 23.1 Treasury.OutboundPayment). */
+export interface OutboundPaymentObject {
+  id: string;
+  object: 'treasury.outbound_payment';
+  amount: number;
+  created: number;
+  currency: string;
+  description: string | null;
+  destination_payment_method: string;
+  financial_account: string;
+  livemode: false;
+  metadata: Metadata;
+  returned_details: { code: string } | null;
+  statement_descriptor: string;
+  status: OutboundPaymentStatus;
+  status_transitions: { posted_at: number | null; failed_at: number | null; returned_at: number | null; canceled_at: number | null };
 }
 
 export interface TransactionObject {
@@ -130,6 +184,9 @@ export interface StoreState {
   cardholders: Map<string, CardholderObject>;
   cards: Map<string, CardRecord>;
   transactions: Map<string, TransactionObject>;
+  ephemeralKeys: Map<string, EphemeralKeyRecord>;
+  paymentMethods: Map<string, PaymentMethodObject>;
+  outboundPayments: Map<string, OutboundPaymentObject>;
   events: Map<string, EventObject>;
   idempotency: Map<string, IdempotencyRecord>;
   deliveries: Map<string, DeliveryRecord>;

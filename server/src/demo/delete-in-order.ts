@@ -3,7 +3,7 @@
 import type { EntityManager } from 'typeorm';
 
 /** Rows that record money paid or owed: never deleted, so a walk that reaches them stops with an error instead. */
-const MONEY_TABLES = new Set(['compensations', 'payment_issuances', 'voucher_offers', 'provider_cards', 'provider_events', 'reconciliation_runs', 'reconciliation_differences']);
+const MONEY_TABLES = new Set(['compensations', 'payment_issuances', 'payouts', 'voucher_offers', 'provider_cards', 'provider_events', 'reconciliation_runs', 'reconciliation_differences']);
 
 /** A row's id: a number, or a UUID for the outbox. */
 type Key = number | string;

@@ -19,6 +19,7 @@ import { CabinChangeEntity } from './cabin-change.entity';
 import { CareGivenEntity, PassengerChoiceEntity, StationCareSettingsEntity, TicketRefundEntity } from './care.entity';
 import { FlightScheduleEntity } from './flight-schedule.entity';
 import { BookingOutcomeEntity, ClosedFlightEntity, LearnedRatesEntity, LearningJobEntity, StationRatesChoiceEntity } from './learning.entity';
+import { PaymentLinkEntity, PayoutEntity } from './payout.entity';
 
 export { AuditLogEntity, BookingEntity, FlightEntity, PassengerEntity, StationEntity, UserEntity };
 export { ShowUpProfileEntity, IntegrationKeyEntity, FlightEventEntity, FlightForecastEntity, ForecastSnapshotEntity };
@@ -31,10 +32,12 @@ export { AlertEntity, CabinChangeEntity, FlightScheduleEntity };
 export { CareGivenEntity, PassengerChoiceEntity, StationCareSettingsEntity, TicketRefundEntity };
 export type { StoredPartnerHotel } from './care.entity';
 export { BookingOutcomeEntity, ClosedFlightEntity, LearnedRatesEntity, LearningJobEntity, StationRatesChoiceEntity };
+export { PaymentLinkEntity, PayoutEntity };
+export type { PaymentLinkPurpose, PayoutState } from './payout.entity';
 export const entities = [StationEntity, UserEntity, FlightEntity, BookingEntity, PassengerEntity, AuditLogEntity,
   ShowUpProfileEntity, IntegrationKeyEntity, FlightEventEntity, FlightForecastEntity, ForecastSnapshotEntity, SavedPlanEntity,
   VolunteerPolicyEntity, VolunteerRoundEntity, OfferApprovalEntity, VolunteerEntity, RebookingEntity, OutboxMessageEntity, CompensationEntity,
   StationPriorityRulesEntity, DenialProposalEntity, DenialEntity, BoardingRefusalEntity,
   ProviderEventEntity, PaymentIssuanceEntity, ProviderCardEntity, VoucherOfferEntity, ReconciliationRunEntity, ReconciliationDifferenceEntity,
   AlertEntity, CabinChangeEntity, StationCareSettingsEntity, PassengerChoiceEntity, TicketRefundEntity, CareGivenEntity, FlightScheduleEntity,
-  ClosedFlightEntity, BookingOutcomeEntity, LearningJobEntity, LearnedRatesEntity, StationRatesChoiceEntity];
+  ClosedFlightEntity, BookingOutcomeEntity, LearningJobEntity, LearnedRatesEntity, StationRatesChoiceEntity, PaymentLinkEntity, PayoutEntity];

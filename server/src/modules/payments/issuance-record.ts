@@ -9,6 +9,8 @@ import { enqueueMessage } from '../outbox/outbox.service';
 import { AWAITING_CARD } from './compensation-states';
 import { compensationRow, passengerNameOf } from './compensation-view';
 import { compensationReceipt } from './payment-notices';
+import { createLink } from '../payouts/payment-links';
+import type { PaymentsContext } from './payments-context';
 
 export type Actor = AuditEntry['actor'];
 
@@ -19,6 +21,9 @@ export interface Effects {
 }
 
 export const NO_EFFECTS: Effects = { mail: false, changed: null };
+
+/** What making a passenger's card-details link needs: the app's address and the clock. */
+export type LinkMaker = Pick<PaymentsContext, 'appBaseUrl' | 'now'>;
 
 /** Keeps the provider's last word on a card. A canceled card stays canceled whatever an older answer said. */
 export async function upsertProviderCard(em: EntityManager, card: CardSnapshot, compensationId: number | null): Promise<void> {
@@ -44,9 +49,10 @@ export async function spentOnEarlierCards(em: EntityManager, compensationId: num
   return Number(row?.spent ?? 0);
 }
 
-async function enqueueReceipt(em: EntityManager, compensationId: number, card: CardSnapshot): Promise<boolean> {
+async function enqueueReceipt(em: EntityManager, compensationId: number, attemptKey: string | null, card: CardSnapshot, links: LinkMaker): Promise<boolean> {
   const row = await compensationRow(em, compensationId);
   if (!row.contact_email) return false;
+  const details = attemptKey ? await createLink(em, links, { compensationId, purpose: 'card-details', attemptKey }) : null;
   const offer = row.form === 'voucher' ? await em.findOneBy(VoucherOfferEntity, { compensationId }) : null;
   const notice = compensationReceipt({
     passengerName: passengerNameOf(row),
@@ -60,6 +66,7 @@ async function enqueueReceipt(em: EntityManager, compensationId: number, card: C
     expiry: card.expMonth && card.expYear ? `${String(card.expMonth).padStart(2, '0')}/${card.expYear}` : null,
     restrictions: offer?.restrictions ?? [],
     compensationId,
+    details,
   });
   await enqueueMessage(em, {
     stationId: row.station_id,
@@ -80,7 +87,7 @@ async function enqueueReceipt(em: EntityManager, compensationId: number, card: C
  * The card exists at the provider: 'issued' with its ids, audited, and the receipt queued (once: the outbox's
  * dedupe key). A row already past 'issuing' keeps its state; it only learns ids it lacked.
  */
-export async function recordIssued(em: EntityManager, compensationId: number, card: CardSnapshot, actor: Actor): Promise<Effects> {
+export async function recordIssued(em: EntityManager, compensationId: number, card: CardSnapshot, actor: Actor, links: LinkMaker): Promise<Effects> {
   const row = await em.findOne(CompensationEntity, { where: { id: compensationId }, lock: { mode: 'pessimistic_write' } });
   if (!row) return NO_EFFECTS;
   await upsertProviderCard(em, card, compensationId);
@@ -95,7 +102,7 @@ export async function recordIssued(em: EntityManager, compensationId: number, ca
     before, after: { state: 'issued', providerCardId: card.id, amountMinor: row.amountMinor, currency: row.currency, form: row.form },
   });
   await resolvePaymentAlerts(em, row.id, `Paid: card ${card.id} issued.`);
-  const mail = await enqueueReceipt(em, row.id, card);
+  const mail = await enqueueReceipt(em, row.id, row.idempotencyKey, card, links);
   return { mail, changed: { flightId: row.flightId, stationId: row.stationId } };
 }
 

@@ -12,6 +12,7 @@ import { compensationRow, type CompensationRow } from './compensation-view';
 import { recordIssued, recordRefused, spentOnEarlierCards } from './issuance-record';
 import { applyEffects, WORKER_ACTOR, type PaymentsContext } from './payments-context';
 import { VOUCHER_CATEGORIES } from './voucher-rules';
+import { advancePayout } from '../payouts/payout.service';
 
 export interface Issuer {
   /** One attempt for a row in 'issuing'; a second call while one runs joins it. Never throws. */
@@ -22,6 +23,16 @@ export interface Issuer {
 
 function cardMetadata(row: CompensationRow): Record<string, string> {
   return { compensationId: String(row.id), stationId: String(row.station_id), flightId: String(row.flight_id), form: row.form };
+}
+
+/**
+ * What the provider does for a medium: a card (prepaid, or the restricted card of an agreed voucher) or a bank
+ * transfer. Cash, cheque and a travel credit of the carrier's own are handed over at the counter, not here.
+ */
+export function providerWork(c: Pick<CompensationEntity, 'medium' | 'form'>): 'card' | 'transfer' | null {
+  if (c.medium === 'bank-transfer') return 'transfer';
+  if (c.medium === 'prepaid-card' || c.form === 'voucher') return 'card';
+  return null;
 }
 
 export function createIssuer(ctx: PaymentsContext): Issuer {
@@ -45,10 +56,16 @@ export function createIssuer(ctx: PaymentsContext): Issuer {
   async function run(compensationId: number): Promise<void> {
     const entity = await ctx.db.getRepository(CompensationEntity).findOneBy({ id: compensationId });
     if (!entity || entity.state !== 'issuing' || !entity.idempotencyKey) return;
+    const work = providerWork(entity);
+    if (!work) {
+      ctx.log(`[payments] compensation ${compensationId}: paid as ${entity.medium} at the counter, not through the provider`);
+      return;
+    }
     if (!(await startedUnderThisAccount(compensationId))) {
       ctx.log(`[payments] compensation ${compensationId}: started under another provider account; left for a server configured for it`);
       return;
     }
+    if (work === 'transfer') return advancePayout(ctx, compensationId);
     const baseKey = entity.idempotencyKey;
     let step = 'preparing the cardholder';
     try {
@@ -85,7 +102,7 @@ export function createIssuer(ctx: PaymentsContext): Issuer {
       card ??= await createCard(row, baseKey, cardholderId);
       const issued = card;
       step = 'recording the card';
-      applyEffects(ctx, await ctx.db.transaction((em) => recordIssued(em, compensationId, issued, WORKER_ACTOR)));
+      applyEffects(ctx, await ctx.db.transaction((em) => recordIssued(em, compensationId, issued, WORKER_ACTOR, ctx)));
     } catch (error) {
       const failure = classifyProviderError(error, step);
       if (failure.retryable) {

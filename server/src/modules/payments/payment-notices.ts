@@ -15,6 +15,8 @@ export interface ReceiptInput {
   expiry: string | null;
   restrictions: readonly string[];
   compensationId: number;
+  /** The single-use link to the card's full details; the mail itself never carries them. */
+  details: { url: string; expiresAt: Date } | null;
 }
 
 export function compensationReceipt(input: ReceiptInput): Notice {
@@ -40,6 +42,12 @@ export function compensationReceipt(input: ReceiptInput): Notice {
     },
   ];
   if (voucher && input.restrictions.length) blocks.push({ kind: 'list', title: 'Conditions of the voucher:', items: input.restrictions });
+  if (input.details) {
+    blocks.push(
+      { kind: 'paragraph', text: `To see the full card number and security code, open this link on your phone: ${input.details.url}` },
+      { kind: 'paragraph', text: `For your safety the link shows them once, until ${input.details.expiresAt.toISOString().slice(0, 16).replace('T', ' ')} UTC, after you confirm your booking reference and last name. Note them down or add the card to your phone's wallet when you see them. We never send card numbers by e-mail.` },
+    );
+  }
   return renderNotice(`Your compensation for flight ${input.flight}: ${amount}`, blocks);
 }
 

@@ -1,5 +1,6 @@
 import type { DataSource } from 'typeorm';
 import type { IssuingProvider } from '../../integrations/payments/issuing-provider';
+import type { PassengerPaymentsProvider } from '../../integrations/payments/passenger-provider';
 import { notifyOutbox } from '../outbox/outbox-signal';
 import type { Effects } from './issuance-record';
 
@@ -12,6 +13,12 @@ export interface PaymentsContext {
   /** After a commit: live consoles refetch the flight's compensations. */
   changed: (flightId: number, stationId: number, topics: string[]) => void;
   log: (line: string) => void;
+  /** Card details and bank transfers, the provider's parts that serve the passenger directly. */
+  passenger: PassengerPaymentsProvider;
+  /** Where the passenger's links point (the app's public address). */
+  appBaseUrl: string;
+  /** The clock the passenger's links expire by; tests step it forward. */
+  now: () => number;
 }
 
 export function applyEffects(ctx: PaymentsContext, effects: Effects): void {
@@ -21,3 +28,4 @@ export function applyEffects(ctx: PaymentsContext, effects: Effects): void {
 
 export const WORKER_ACTOR = { label: 'payments worker' };
 export const PROVIDER_ACTOR = { label: 'payment provider (webhook)' };
+export const PASSENGER_ACTOR = { label: 'passenger (own payment link)' };

@@ -6,6 +6,8 @@ import type { DataSource } from 'typeorm';
 import type { Env } from '../../config/env';
 import { stripeIssuingProvider, type IssuingProvider } from '../../integrations/payments/issuing-provider';
 import { createStripeClient, providerAccountOf } from '../../integrations/payments/stripe-client';
+import { stripePassengerProvider } from '../../integrations/payments/passenger-provider';
+import { passengerPaymentsRouter } from '../payouts/public-payments.routes';
 import { createReconciliationRunner, markInterruptedRuns, type ReconciliationRunner } from '../finance/reconciliation.service';
 import { compensationsRouter } from './compensations.routes';
 import { createIssuer, type Issuer } from './issuer';
@@ -13,11 +15,21 @@ import type { PaymentsContext } from './payments-context';
 import { createPaymentsWorker, type PaymentsWorker, type PaymentsWorkerOptions } from './payments-worker';
 import { paymentsWebhookRouter } from './webhook.routes';
 
+/**
+ * The financial account transfers leave from until configuration names the carrier's own; the local stand-in accepts
+ * any fa_ id.
+ */
+const DEFAULT_FINANCIAL_ACCOUNT = 'fa_bumpboard_compensations';
+
 export interface PaymentsRuntimeOptions {
   db: DataSource;
   /** The SDK pointed at Stripe or the local stand-in; built from env when absent. */
   stripe?: Stripe;
-  env: Pick<Env, 'STRIPE_SECRET_KEY' | 'STRIPE_API_URL' | 'STRIPE_WEBHOOK_SECRET'>;
+  env: Pick<Env, 'STRIPE_SECRET_KEY' | 'STRIPE_API_URL' | 'STRIPE_WEBHOOK_SECRET'> & Partial<Pick<Env, 'APP_BASE_URL'>>;
+  /** The carrier's Treasury financial account that bank transfers leave from. */
+  financialAccount?: string;
+  /** Clock for the passenger's links (epoch ms); tests step it past an expiry. */
+  now?: () => number;
   changed?: PaymentsContext['changed'];
   log?: (line: string) => void;
   worker?: PaymentsWorkerOptions;
@@ -33,6 +45,8 @@ export interface PaymentsRuntime {
   reconciliation: ReconciliationRunner;
   webhookRouter(): ReturnType<typeof paymentsWebhookRouter>;
   compensationsRouter(): ReturnType<typeof compensationsRouter>;
+  /** The passenger's card-details and bank-account pages' API: no session, single-use links. */
+  passengerRouter(): ReturnType<typeof passengerPaymentsRouter>;
   /** Starts the worker (its first pass sweeps every row left 'issuing') and closes runs a stopped process left open. */
   start(): Promise<void>;
   stop(): Promise<void>;
@@ -43,7 +57,11 @@ export function createPaymentsRuntime(opts: PaymentsRuntimeOptions): PaymentsRun
   const provider = stripeIssuingProvider(stripe, opts.env.STRIPE_WEBHOOK_SECRET);
   const log = opts.log ?? ((line: string) => console.warn(line));
   const providerAccount = providerAccountOf({ apiUrl: opts.env.STRIPE_API_URL, secretKey: opts.env.STRIPE_SECRET_KEY });
-  const ctx: PaymentsContext = { db: opts.db, provider, providerAccount, changed: opts.changed ?? (() => undefined), log };
+  const passenger = stripePassengerProvider(stripe, opts.financialAccount ?? DEFAULT_FINANCIAL_ACCOUNT);
+  const ctx: PaymentsContext = {
+    db: opts.db, provider, providerAccount, changed: opts.changed ?? (() => undefined), log, passenger,
+    appBaseUrl: (opts.env.APP_BASE_URL ?? 'http://127.0.0.1:4600').replace(/\/$/, ''), now: opts.now ?? Date.now,
+  };
   const issuer = createIssuer(ctx);
   const worker = createPaymentsWorker(ctx, issuer, opts.worker);
   const reconciliation = createReconciliationRunner({ db: opts.db, provider, log });
@@ -55,6 +73,7 @@ export function createPaymentsRuntime(opts: PaymentsRuntimeOptions): PaymentsRun
     reconciliation,
     webhookRouter: () => paymentsWebhookRouter(ctx),
     compensationsRouter: () => compensationsRouter(ctx, issuer),
+    passengerRouter: () => passengerPaymentsRouter(ctx, issuer),
     async start() {
       await markInterruptedRuns(opts.db);
       worker.start();

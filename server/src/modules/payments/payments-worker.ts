@@ -4,6 +4,13 @@
 import type { Issuer } from './issuer';
 import type { PaymentsContext } from './payments-context';
 
+/**
+ * Rows the provider has something to do for: cards and transfers (see providerWork), and not a transfer that waits
+ * for the passenger to give their account, which only the passenger's page moves on.
+ */
+const PROVIDER_WORK = `(c.medium IN ('prepaid-card', 'bank-transfer') OR c.form = 'voucher')
+  AND NOT EXISTS (SELECT 1 FROM payouts po WHERE po.attempt_key = c.idempotency_key AND po.state = 'awaiting-details')`;
+
 export interface PaymentsWorkerOptions {
   /** Wait between passes when nothing was due. */
   pollMs?: number;
@@ -39,7 +46,8 @@ export function createPaymentsWorker(ctx: PaymentsContext, issuer: Issuer, opts:
     // Only issuances started under this server's provider account: elsewhere their keys would issue a second card.
     const rows: { id: number }[] = await ctx.db.query(
       `SELECT c.id FROM compensations c JOIN payment_issuances pi ON pi.compensation_id = c.id AND pi.provider_account = ?
-        WHERE c.state = 'issuing' ${age} ORDER BY c.updated_at, c.id LIMIT ?`,
+        WHERE c.state = 'issuing' ${age} AND ${PROVIDER_WORK}
+        ORDER BY c.updated_at, c.id LIMIT ?`,
       all ? [ctx.providerAccount, batchSize] : [ctx.providerAccount, retryAfterMs * 1000, batchSize],
     );
     const queue = rows.map((r) => r.id);

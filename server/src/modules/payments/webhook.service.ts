@@ -8,8 +8,10 @@ import { snapshotOf, type CardSnapshot } from '../../integrations/payments/issui
 import { raisePaymentLost } from '../alerts/alerts.service';
 import { audit } from '../audit/audit.service';
 import { AWAITING_CARD, isForward } from './compensation-states';
-import { NO_EFFECTS, recordIssued, upsertProviderCard, type Effects } from './issuance-record';
+import { NO_EFFECTS, recordIssued, upsertProviderCard, type Effects, type LinkMaker } from './issuance-record';
 import { applyEffects, PROVIDER_ACTOR, type PaymentsContext } from './payments-context';
+import { outboundSnapshotOf } from '../../integrations/payments/passenger-provider';
+import { applyTransfer } from '../payouts/payout-record';
 
 export type WebhookOutcome = { duplicate: true } | { duplicate: false; outcome: string; compensationId: number | null };
 
@@ -32,7 +34,7 @@ async function knownCard(em: EntityManager, cardId: string): Promise<{ status: s
   return known;
 }
 
-async function applyCard(em: EntityManager, card: CardSnapshot): Promise<Applied> {
+async function applyCard(em: EntityManager, card: CardSnapshot, links: LinkMaker): Promise<Applied> {
   if (card.compensationId === null) return ignored('card without a compensation id');
   const row = await lockCompensation(em, card.compensationId);
   if (!row) {
@@ -50,7 +52,7 @@ async function applyCard(em: EntityManager, card: CardSnapshot): Promise<Applied
   if (dead && known?.compensation_id === row.id && row.providerCardId !== card.id) return ignored('an earlier card of this compensation, replaced by a re-issue', row.id);
   if (!dead) {
     if (!AWAITING_CARD.includes(row.state)) return ignored(`already ${row.state}`, row.id);
-    return { outcome: 'issued', compensationId: row.id, effects: await recordIssued(em, row.id, card, PROVIDER_ACTOR) };
+    return { outcome: 'issued', compensationId: row.id, effects: await recordIssued(em, row.id, card, PROVIDER_ACTOR, links) };
   }
   if (!isForward(row.state, 'canceled')) return ignored(`already ${row.state}`, row.id);
   // Never a silent void: the provider ended the payment, not the debt. The passenger is owed again, with an alert.
@@ -60,7 +62,7 @@ async function applyCard(em: EntityManager, card: CardSnapshot): Promise<Applied
   return { outcome: 'canceled', compensationId: row.id, effects: { mail: false, changed: { flightId: row.flightId, stationId: row.stationId } } };
 }
 
-async function applyTransaction(em: EntityManager, transaction: Stripe.Issuing.Transaction, card: CardSnapshot | null): Promise<Applied> {
+async function applyTransaction(em: EntityManager, transaction: Stripe.Issuing.Transaction, card: CardSnapshot | null, links: LinkMaker): Promise<Applied> {
   const cardId = typeof transaction.card === 'string' ? transaction.card : transaction.card.id;
   if (card) await upsertProviderCard(em, card, card.compensationId);
   await em.query('UPDATE provider_cards SET spent_minor = spent_minor + ? WHERE card_id = ?', [-transaction.amount, cardId]);
@@ -71,12 +73,21 @@ async function applyTransaction(em: EntityManager, transaction: Stripe.Issuing.T
   if (!row) return ignored('no such compensation in the ledger', compensationId);
   let effects = NO_EFFECTS;
   // The spend may arrive before any news of the card itself: record the card first, receipt included.
-  if (AWAITING_CARD.includes(row.state) && card) effects = await recordIssued(em, row.id, card, PROVIDER_ACTOR);
+  if (AWAITING_CARD.includes(row.state) && card) effects = await recordIssued(em, row.id, card, PROVIDER_ACTOR, links);
   const current = await em.findOneByOrFail(CompensationEntity, { id: row.id });
   if (!isForward(current.state, 'settled')) return { ...ignored(`already ${current.state}`, row.id), effects };
   await em.update(CompensationEntity, { id: row.id }, { state: 'settled', providerCardId: current.providerCardId ?? cardId });
   await audit(em, { actor: PROVIDER_ACTOR, action: 'compensation.settled', entityType: 'compensation', entityId: row.id, stationId: row.stationId, before: { state: current.state }, after: { state: 'settled', spentMinor: -transaction.amount, currency: transaction.currency.toUpperCase(), transactionId: transaction.id } });
   return { outcome: 'settled', compensationId: row.id, effects: { mail: effects.mail, changed: { flightId: row.flightId, stationId: row.stationId } } };
+}
+
+/** A bank transfer's news: its metadata names the payment attempt (the payout row) it belongs to. */
+async function applyOutbound(em: EntityManager, payment: Stripe.Treasury.OutboundPayment): Promise<Applied> {
+  const snapshot = outboundSnapshotOf(payment);
+  const attemptKey = payment.metadata?.attemptKey;
+  if (!attemptKey) return ignored('transfer without an attempt key', snapshot.compensationId);
+  const effects = await applyTransfer(em, attemptKey, snapshot, PROVIDER_ACTOR);
+  return { outcome: `transfer ${payment.status}`, compensationId: snapshot.compensationId, effects };
 }
 
 /** For a spend on a card we have not heard of yet, the card itself says which compensation it pays. */
@@ -110,10 +121,16 @@ export async function receiveProviderEvent(ctx: PaymentsContext, event: Stripe.E
     switch (event.type) {
       case 'issuing_card.created':
       case 'issuing_card.updated':
-        applied = await applyCard(em, snapshotOf(event.data.object as Stripe.Issuing.Card));
+        applied = await applyCard(em, snapshotOf(event.data.object as Stripe.Issuing.Card), ctx);
         break;
       case 'issuing_transaction.created':
-        applied = await applyTransaction(em, event.data.object as Stripe.Issuing.Transaction, card);
+        applied = await applyTransaction(em, event.data.object as Stripe.Issuing.Transaction, card, ctx);
+        break;
+      case 'treasury.outbound_payment.created':
+      case 'treasury.outbound_payment.posted':
+      case 'treasury.outbound_payment.failed':
+      case 'treasury.outbound_payment.returned':
+        applied = await applyOutbound(em, event.data.object as Stripe.Treasury.OutboundPayment);
         break;
       default:
         applied = ignored(`type ${event.type} changes nothing in the ledger`);

@@ -1,0 +1,163 @@
+// A compensation paid by bank transfer: the passenger is mailed a payout link, enters their own account on their own
+// phone (never a staff screen), the provider keeps it as a payment method (we keep its id and last four digits),
+// and the transfer goes out as one Treasury OutboundPayment under a key fixed by the payment attempt. A worker
+// claims the row (claimed_until) before it calls, so two processes never send the same row at once, and the key
+// makes even a lost answer or a crash mid-call resolve to the one payment the provider already made.
+import type { EntityManager } from 'typeorm';
+import type { BookingProof, PayoutLink } from '@shared/schemas/payouts';
+import { CompensationEntity, PayoutEntity } from '../../db/entities';
+import { conflict, HttpError } from '../../http/errors';
+import { classifyProviderError } from '../../integrations/payments/provider-errors';
+import { audit } from '../audit/audit.service';
+import { enqueueMessage } from '../outbox/outbox.service';
+import { compensationRow, passengerNameOf } from '../payments/compensation-view';
+import { NO_EFFECTS, recordRefused, type Effects } from '../payments/issuance-record';
+import { applyEffects, PASSENGER_ACTOR, WORKER_ACTOR, type PaymentsContext } from '../payments/payments-context';
+import { countWrongTry, createLink, findLink, linkState, markUsed, proofMatches, refuseUnlessReady, wrongProof } from './payment-links';
+import { payoutLinkNotice } from './payout-notices';
+import { recordTransferSent } from './payout-record';
+
+/** How long a worker's claim holds; longer than the SDK's timeout with its retries, so a live call is never joined. */
+const CLAIM_SECONDS = 120;
+/** Treasury OutboundPayments move US dollars only (Stripe Treasury docs); other currencies need another medium. */
+const TRANSFER_CURRENCIES = ['USD'];
+
+export const transferKey = (attemptKey: string) => `${attemptKey}-transfer`;
+
+/** First step for a row in 'issuing' whose medium is a bank transfer: the payout row and the passenger's link, once. */
+async function openPayout(em: EntityManager, ctx: PaymentsContext, compensationId: number): Promise<{ effects: Effects; ready: string | null }> {
+  const comp = await em.findOne(CompensationEntity, { where: { id: compensationId }, lock: { mode: 'pessimistic_write' } });
+  if (!comp || comp.state !== 'issuing' || !comp.idempotencyKey) return { effects: NO_EFFECTS, ready: null };
+  const existing = await em.findOneBy(PayoutEntity, { attemptKey: comp.idempotencyKey });
+  if (existing) return { effects: NO_EFFECTS, ready: existing.state === 'ready' ? existing.attemptKey : null };
+  if (!TRANSFER_CURRENCIES.includes(comp.currency)) {
+    const reason = `bank transfer: the provider's outbound payments move ${TRANSFER_CURRENCIES.join(', ')} only, not ${comp.currency}; choose another medium`;
+    return { effects: await recordRefused(em, comp.id, reason, WORKER_ACTOR), ready: null };
+  }
+  const row = await compensationRow(em, comp.id);
+  if (!row.contact_email) {
+    return { effects: await recordRefused(em, comp.id, 'bank transfer: the booking has no e-mail address to send the passenger their payout link', WORKER_ACTOR), ready: null };
+  }
+  await em.insert(PayoutEntity, { compensationId: comp.id, attemptKey: comp.idempotencyKey, state: 'awaiting-details', amountMinor: comp.amountMinor, currency: comp.currency });
+  const link = await createLink(em, ctx, { compensationId: comp.id, purpose: 'payout', attemptKey: comp.idempotencyKey });
+  const notice = payoutLinkNotice({
+    passengerName: passengerNameOf(row), flight: `${row.carrier_code} ${row.flight_number}`, serviceDate: row.service_date,
+    amountMinor: comp.amountMinor, currency: comp.currency, url: link.url, expiresAt: link.expiresAt, compensationId: comp.id,
+  });
+  await enqueueMessage(em, {
+    stationId: comp.stationId, flightId: comp.flightId, passengerIds: [comp.passengerId], kind: 'compensation-receipt', to: row.contact_email,
+    subject: notice.subject, text: notice.text, html: notice.html, dedupeKey: `payout-link:${comp.id}:${comp.idempotencyKey}`,
+  });
+  await audit(em, {
+    actor: WORKER_ACTOR, action: 'compensation.payout_link_sent', entityType: 'compensation', entityId: comp.id, stationId: comp.stationId,
+    before: { state: 'issuing' }, after: { medium: 'bank-transfer', attemptKey: comp.idempotencyKey, linkExpiresAt: link.expiresAt.toISOString() },
+  });
+  return { effects: { mail: true, changed: { flightId: comp.flightId, stationId: comp.stationId } }, ready: null };
+}
+
+/** The claim: one UPDATE that only one process can win; a claim past its time (a dead worker) is free again. */
+async function claim(ctx: PaymentsContext, attemptKey: string): Promise<boolean> {
+  const result: { affectedRows?: number } = await ctx.db.query(
+    `UPDATE payouts SET claimed_until = CURRENT_TIMESTAMP(3) + INTERVAL ${CLAIM_SECONDS} SECOND
+      WHERE attempt_key = ? AND state = 'ready' AND (claimed_until IS NULL OR claimed_until < CURRENT_TIMESTAMP(3))`,
+    [attemptKey],
+  );
+  return (result.affectedRows ?? 0) === 1;
+}
+
+async function release(ctx: PaymentsContext, attemptKey: string, reason: string | null): Promise<void> {
+  await ctx.db.query('UPDATE payouts SET claimed_until = NULL, last_error = ? WHERE attempt_key = ? AND state = \'ready\'', [reason, attemptKey]);
+}
+
+async function sendTransfer(ctx: PaymentsContext, attemptKey: string): Promise<void> {
+  if (!(await claim(ctx, attemptKey))) return;
+  const payout = await ctx.db.getRepository(PayoutEntity).findOneByOrFail({ attemptKey });
+  if (!payout.paymentMethodId) return release(ctx, attemptKey, 'no payment method on record');
+  const row = await compensationRow(ctx.db, payout.compensationId);
+  let sent;
+  try {
+    sent = await ctx.passenger.createOutboundPayment(
+      {
+        amountMinor: payout.amountMinor, currency: payout.currency, paymentMethodId: payout.paymentMethodId,
+        description: `Compensation C-${payout.compensationId}, flight ${row.carrier_code} ${row.flight_number} ${row.service_date}`,
+        metadata: { compensationId: String(payout.compensationId), attemptKey, stationId: String(row.station_id) },
+      },
+      transferKey(attemptKey),
+    );
+  } catch (error) {
+    const failure = classifyProviderError(error, 'sending the bank transfer');
+    if (failure.retryable) return release(ctx, attemptKey, failure.reason);
+    const effects = await ctx.db.transaction(async (em) => {
+      await em.update(PayoutEntity, { id: payout.id }, { state: 'failed', claimedUntil: null, lastError: failure.reason });
+      return recordRefused(em, payout.compensationId, failure.reason, WORKER_ACTOR);
+    });
+    return applyEffects(ctx, effects);
+  }
+  applyEffects(ctx, await ctx.db.transaction((em) => recordTransferSent(em, attemptKey, sent, WORKER_ACTOR)));
+}
+
+/** One step of a bank-transfer compensation: open it (link mailed), or send it once the passenger's account is in. */
+export async function advancePayout(ctx: PaymentsContext, compensationId: number): Promise<void> {
+  const opened = await ctx.db.transaction((em) => openPayout(em, ctx, compensationId));
+  applyEffects(ctx, opened.effects);
+  if (opened.ready) await sendTransfer(ctx, opened.ready);
+}
+
+export async function payoutLinkStatus(ctx: PaymentsContext, token: string): Promise<PayoutLink> {
+  const link = await findLink(ctx.db.manager, token, 'payout');
+  const row = await compensationRow(ctx.db, link.compensationId);
+  const payout = await ctx.db.getRepository(PayoutEntity).findOneBy({ attemptKey: link.attemptKey });
+  return {
+    state: linkState(link, ctx.now()), flight: `${row.carrier_code} ${row.flight_number}`, amountMinor: row.amount_minor, currency: row.currency,
+    expiresAt: link.expiresAt.toISOString(), payout: payout ? { state: payout.state, accountEnding: payout.accountLast4 } : null,
+  };
+}
+
+export interface AccountDetails {
+  holderName: string;
+  routingNumber: string;
+  accountNumber: string;
+  accountType: 'checking' | 'savings';
+}
+
+type Submitted = { kind: 'accepted'; compensationId: number; accountEnding: string } | { kind: 'wrong'; triesLeft: number };
+
+/**
+ * The passenger's account, from their own phone: handed to the provider as a payment method within the link's lock
+ * (so a double tap saves it once), then the link is spent and the row is ready for the worker. The account number
+ * is not stored, logged or audited; only its last four digits are.
+ */
+export async function submitPayoutDetails(ctx: PaymentsContext, token: string, proof: BookingProof, account: AccountDetails): Promise<{ compensationId: number; accountEnding: string }> {
+  const outcome = await ctx.db.transaction(async (em): Promise<Submitted> => {
+    const link = await findLink(em, token, 'payout', true);
+    refuseUnlessReady(link, ctx.now());
+    const row = await compensationRow(em, link.compensationId);
+    if (!proofMatches(row, proof)) return { kind: 'wrong', triesLeft: await countWrongTry(em, link) };
+    const payout = await em.findOne(PayoutEntity, { where: { attemptKey: link.attemptKey }, lock: { mode: 'pessimistic_write' } });
+    if (!payout || payout.state !== 'awaiting-details') throw conflict('payout_not_waiting', 'This payment no longer waits for bank details. Please contact the airline if you think this is wrong.');
+    let method;
+    try {
+      method = await ctx.passenger.createBankAccount(
+        { holderName: account.holderName, routingNumber: account.routingNumber, accountNumber: account.accountNumber, accountType: account.accountType, metadata: { compensationId: String(payout.compensationId) } },
+        `${link.attemptKey}-account-${link.id}`,
+      );
+    } catch (error) {
+      const e = error as Error & { retryable?: boolean; param?: string };
+      ctx.log(`[payouts] compensation ${payout.compensationId}: ${e.message}`);
+      if (e.retryable === false) {
+        const field = e.param?.includes('routing') ? 'routingNumber' : 'accountNumber';
+        throw new HttpError(400, 'invalid_request', `${field}: the bank did not accept this account; please check it`, [{ field, rule: 'the bank did not accept this account; please check it' }]);
+      }
+      throw new HttpError(502, 'provider_unavailable', 'We could not reach the bank just now. Nothing was saved and your link still works: please try again in a minute.');
+    }
+    await em.update(PayoutEntity, { id: payout.id }, { state: 'ready', paymentMethodId: method.id, accountLast4: method.last4, lastError: null });
+    await markUsed(em, link, ctx.now());
+    await audit(em, {
+      actor: PASSENGER_ACTOR, action: 'compensation.payout_account_received', entityType: 'compensation', entityId: payout.compensationId, stationId: row.station_id,
+      before: { payout: 'awaiting-details' }, after: { payout: 'ready', accountEnding: method.last4, paymentMethodId: method.id, linkId: link.id },
+    });
+    return { kind: 'accepted', compensationId: payout.compensationId, accountEnding: method.last4 };
+  });
+  if (outcome.kind === 'wrong') throw wrongProof(outcome.triesLeft);
+  return outcome;
+}
