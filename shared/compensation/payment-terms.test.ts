@@ -4,8 +4,8 @@ import { missingForAlternative, paymentTerms } from './index';
 describe('paymentTerms: media and deadlines by rule', () => {
   it('US: cash or cheque by the end of the day of the denial, credit only with agreement (14 CFR 250.8(a), 250.5(c))', () => {
     const terms = paymentTerms({ regime: 'us-dot', deniedAt: '2025-03-01T07:42:00-05:00' });
-    expect(terms.media).toEqual(['cash', 'cheque', 'travel-credit']);
-    expect(terms.needsAgreement).toEqual(['travel-credit']);
+    expect(terms.media).toEqual(['cash', 'cheque', 'prepaid-card', 'travel-credit']);
+    expect(terms.needsAgreement).toEqual(['prepaid-card', 'travel-credit']);
     // "on the day and place the denied boarding occurs": 1 Mar 23:59:59.999 at UTC-5.
     expect(terms.dueBy).toBe('2025-03-02T04:59:59.999Z');
     expect(terms.ruleRef).toContain('250.8(a)');
@@ -42,8 +42,11 @@ describe('paymentTerms: media and deadlines by rule', () => {
     expect(terms.needsAgreement).toEqual(['prepaid-card', 'travel-credit']);
   });
 
-  it('volunteers: no regulated deadline', () => {
-    expect(paymentTerms({ regime: 'ca-appr', deniedAt: '2025-03-01T07:00:00Z', voluntary: true }).dueBy).toBeNull();
+  it('volunteers: no regulated deadline; the card they accepted in the round, a credit only with a new agreement', () => {
+    const terms = paymentTerms({ regime: 'ca-appr', deniedAt: '2025-03-01T07:00:00Z', voluntary: true });
+    expect(terms.dueBy).toBeNull();
+    expect(terms.media[0]).toBe('prepaid-card');
+    expect(terms.needsAgreement).toEqual(['travel-credit']);
   });
 
   it('bad input is a RangeError naming the field', () => {

@@ -43,10 +43,10 @@ const ALTERNATIVES: Medium[] = ['prepaid-card', 'travel-credit'];
 
 export const PAYMENT_MEDIA_RULES: Readonly<Record<Regime | 'us-dot-mailed' | 'volunteer', MediaRow>> = {
   'us-dot': {
-    media: ['cash', 'cheque', 'travel-credit'],
-    needsAgreement: ['travel-credit'],
+    media: ['cash', 'cheque', 'prepaid-card', 'travel-credit'],
+    needsAgreement: ALTERNATIVES,
     ruleRef: '14 CFR 250.8(a); 250.5(c)',
-    source: '14 CFR 250.8(a): cash or an immediately negotiable check, on the day and at the place of the denial; 250.5(c): free or reduced-rate transportation only if worth at least the cash amount and the passenger, told the cash amount, may decline it.',
+    source: '14 CFR 250.8(a): cash or an immediately negotiable check, on the day and at the place of the denial; 250.5(c): free or reduced-rate transportation only if worth at least the cash amount and the passenger, told the cash amount, may decline it. A prepaid card is not in 250.8\'s list: offered only as an agreed alternative, our reading.',
   },
   'us-dot-mailed': {
     media: ['cheque', 'bank-transfer', 'prepaid-card', 'travel-credit'],
@@ -73,11 +73,13 @@ export const PAYMENT_MEDIA_RULES: Readonly<Record<Regime | 'us-dot-mailed' | 'vo
     source: 'Money when the passenger is informed of the denial or no later than 48 h after it, adjusted if the arrival is later (regulator\'s guide and secondary sources; subsection numbers not verified). Another form only if of greater value, told in writing, no expiry, confirmed in writing (from memory).',
   },
   volunteer: {
-    media: ['cash', 'bank-transfer', 'cheque', 'prepaid-card', 'travel-credit'],
-    needsAgreement: ALTERNATIVES,
+    // The volunteer accepted the round's offer, paid by prepaid card, in writing: that acceptance is their agreement
+    // to the card. A travel credit instead is a new agreement. Common practice, no outside source.
+    media: ['prepaid-card', 'cash', 'cheque', 'bank-transfer', 'travel-credit'],
+    needsAgreement: ['travel-credit'],
     ruleRef: 'Volunteer: benefits agreed with the carrier',
     // Common practice, no outside source: the rules leave a volunteer's benefits to the agreement, so no deadline.
-    source: 'Volunteers agree their own benefits (14 CFR 250.2b; Reg. 261/2004 Art. 4(1); SOR/2019-150). Card or credit still recorded as an agreement: common practice.',
+    source: 'Volunteers agree their own benefits (14 CFR 250.2b; Reg. 261/2004 Art. 4(1); SOR/2019-150).',
   },
 };
 

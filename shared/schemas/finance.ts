@@ -2,6 +2,7 @@
 // quarterly report. Money is always integer minor units with an ISO 4217 currency.
 import { z } from 'zod';
 import { currencySchema, regimeSchema } from './common';
+import { mediumSchema, paymentMediaViewSchema } from './payment-media';
 
 export const COMPENSATION_STATES = ['due', 'issuing', 'issued', 'settled', 'failed', 'voided', 'canceled'] as const;
 export const compensationStateSchema = z.enum(COMPENSATION_STATES, { error: `state must be one of ${COMPENSATION_STATES.join(', ')}` });
@@ -60,12 +61,15 @@ export const compensationViewSchema = z.object({
   passengerId: z.number(),
   passengerName: z.string(),
   pnr: z.string(),
-  sourceKind: z.enum(['volunteer', 'denial']),
+  sourceKind: z.enum(['volunteer', 'denial', 'top-up']),
   regime: z.string(),
   voluntary: z.boolean(),
   band: z.string(),
   ruleRef: z.string(),
   form: compensationFormSchema,
+  medium: mediumSchema,
+  /** The rule's payment deadline (UTC), or null when it sets none. */
+  dueBy: z.string().nullable(),
   amountMinor: z.number(),
   currency: z.string(),
   state: compensationStateSchema,
@@ -92,7 +96,7 @@ export const voucherTermsSchema = z.object({
   agreedAt: z.string().nullable(),
 });
 
-export const deskCompensationSchema = compensationViewSchema.extend({ voucher: voucherTermsSchema });
+export const deskCompensationSchema = compensationViewSchema.extend({ voucher: voucherTermsSchema, payment: paymentMediaViewSchema });
 export const deskCompensationsResponseSchema = z.object({ compensations: z.array(deskCompensationSchema) });
 export type DeskCompensation = z.infer<typeof deskCompensationSchema>;
 

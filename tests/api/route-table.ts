@@ -358,18 +358,30 @@ export const ROUTES: readonly RouteRow[] = [
     call: (ctx) => ({ url: `/api/public/offers/${ctx.volunteers.offerToken}/status?passengerToken=${encodeURIComponent(ctx.volunteers.passengerToken)}` }),
     success: 200,
   },
-  // Compensation money: agents issue and record a voucher choice, finance voids and re-issues; nobody else.
+  // Compensation money: agents choose the medium, record agreements, pay at the counter and issue; finance voids and
+  // re-issues; both read receipts; nobody else.
   { method: 'GET', pattern: '/api/flights/:flightId/compensations', access: ['agent'], call: (ctx, scope) => ({ url: `/api/flights/${flightOf(ctx, scope)}/compensations` }), success: 200, otherStation: 404 },
   { method: 'POST', pattern: '/api/compensations/:id/issue', access: ['agent'], call: (ctx, scope) => ({ url: `/api/compensations/${scope === 'own' ? ctx.payments.issuedId : ctx.payments.other.compensationId}/issue` }), success: 200, otherStation: 404 },
   { method: 'POST', pattern: '/api/compensations/:id/voucher-offer', access: ['agent'], call: (ctx, scope) => ({ url: `/api/compensations/${scope === 'own' ? ctx.payments.dueId : ctx.payments.other.compensationId}/voucher-offer` }), success: 200, otherStation: 404 },
+  { method: 'POST', pattern: '/api/compensations/:id/medium', access: ['agent'], call: (ctx, scope) => ({ url: `/api/compensations/${scope === 'own' ? ctx.payments.dueId : ctx.payments.other.compensationId}/medium`, body: { medium: 'prepaid-card' } }), success: 200, otherStation: 404 },
+  // A schema-valid agreement whose text is not the one for this compensation: past the role check, refused on its text.
   {
     method: 'POST',
-    pattern: '/api/compensations/:id/voucher-agreement',
+    pattern: '/api/compensations/:id/agreement',
     access: ['agent'],
-    call: (ctx, scope) => ({ url: `/api/compensations/${scope === 'own' ? ctx.payments.offeredId : ctx.payments.other.compensationId}/voucher-agreement`, body: { agreed: true, statement: 'Route matrix: the passenger agreed to the voucher.' } }),
+    call: (ctx, scope) => ({ url: `/api/compensations/${scope === 'own' ? ctx.payments.dueId : ctx.payments.other.compensationId}/agreement`, body: { medium: 'travel-credit', valueMinor: 100_000, expiresOn: null, text: 'Route matrix: not the text shown to this passenger.', signature: `data:image/png;base64,${'A'.repeat(400)}` } }),
+    success: 409,
+    otherStation: 404,
+  },
+  {
+    method: 'POST',
+    pattern: '/api/compensations/:id/counter-payment',
+    access: ['agent'],
+    call: (ctx, scope) => ({ url: `/api/compensations/${scope === 'own' ? ctx.payments.offeredId : ctx.payments.other.compensationId}/counter-payment`, body: { medium: 'cash', drawerId: 'MATRIX', amountMinor: ctx.payments.offeredAmountMinor, signature: `data:image/png;base64,${'A'.repeat(400)}` } }),
     success: 200,
     otherStation: 404,
   },
+  { method: 'GET', pattern: '/api/compensations/:id/receipt', access: ['agent', 'finance'], call: (ctx, scope) => ({ url: `/api/compensations/${scope === 'own' ? ctx.payments.issuedId : ctx.payments.other.compensationId}/receipt` }), success: 200, otherStation: 404 },
   { method: 'POST', pattern: '/api/compensations/:id/void', access: ['finance'], call: (ctx, scope) => ({ url: `/api/compensations/${scope === 'own' ? ctx.payments.voidableId : ctx.payments.other.compensationId}/void`, body: { reason: 'route matrix check' } }), success: 200, otherStation: 404 },
   {
     method: 'POST',

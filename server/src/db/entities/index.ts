@@ -16,6 +16,7 @@ import { PaymentIssuanceEntity, ProviderCardEntity, ProviderEventEntity, Reconci
 import { BoardingRefusalEntity, DenialEntity, DenialProposalEntity, StationPriorityRulesEntity } from './denial.entity';
 import { AlertEntity } from './alert.entity';
 import { CabinChangeEntity } from './cabin-change.entity';
+import { CounterPaymentEntity, PaymentAgreementEntity } from './payment-media.entity';
 
 export { AuditLogEntity, BookingEntity, FlightEntity, PassengerEntity, StationEntity, UserEntity };
 export { ShowUpProfileEntity, IntegrationKeyEntity, FlightEventEntity, FlightForecastEntity, ForecastSnapshotEntity };
@@ -25,9 +26,10 @@ export { OutboxMessageEntity };
 export { PaymentIssuanceEntity, ProviderCardEntity, ProviderEventEntity, ReconciliationDifferenceEntity, ReconciliationRunEntity, VoucherOfferEntity };
 export { BoardingRefusalEntity, DenialEntity, DenialProposalEntity, StationPriorityRulesEntity };
 export { AlertEntity, CabinChangeEntity };
+export { CounterPaymentEntity, PaymentAgreementEntity };
 export const entities = [StationEntity, UserEntity, FlightEntity, BookingEntity, PassengerEntity, AuditLogEntity,
   ShowUpProfileEntity, IntegrationKeyEntity, FlightEventEntity, FlightForecastEntity, ForecastSnapshotEntity, SavedPlanEntity,
   VolunteerPolicyEntity, VolunteerRoundEntity, OfferApprovalEntity, VolunteerEntity, RebookingEntity, OutboxMessageEntity, CompensationEntity,
   StationPriorityRulesEntity, DenialProposalEntity, DenialEntity, BoardingRefusalEntity,
   ProviderEventEntity, PaymentIssuanceEntity, ProviderCardEntity, VoucherOfferEntity, ReconciliationRunEntity, ReconciliationDifferenceEntity,
-  AlertEntity, CabinChangeEntity];
+  AlertEntity, CabinChangeEntity, PaymentAgreementEntity, CounterPaymentEntity];

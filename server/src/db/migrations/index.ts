@@ -16,6 +16,7 @@ import { JourneyAndBookingLimit1796250000000 } from './1796250000000-JourneyAndB
 import { AlertsAndCabinChanges1796260000000 } from './1796260000000-AlertsAndCabinChanges';
 import { ForecastVersion1796270000000 } from './1796270000000-ForecastVersion';
 import { ForeignKeys1796290000000 } from './1796290000000-ForeignKeys';
+import { PaymentMediaAgreements1796300000000 } from './1796300000000-PaymentMediaAgreements';
 import { CompensationMedium1796295000000 } from './1796295000000-CompensationMedium';
 
 export const migrations = [
@@ -37,4 +38,5 @@ export const migrations = [
   ForecastVersion1796270000000,
   ForeignKeys1796290000000,
   CompensationMedium1796295000000,
+  PaymentMediaAgreements1796300000000,
 ];
