@@ -26,6 +26,7 @@ export {
   type PaymentTerms, type PaymentTermsInput,
 } from './payment-terms';
 export { missingForAlternative, ALTERNATIVE_CONDITIONS, AGREEMENT_MEDIA, type AlternativeCheckInput, type AlternativeConditions } from './agreement-rules';
+export { dueStatus, DUE_SOON_MINUTES, type DueStatus } from './due-status';
 export { agreementText, type AgreementTextInput } from './agreement-text';
 export { downgradeRefund, optionalFeeRefund, FEE_REFUND_RULES, type DowngradeInput, type Refund, type OptionalFee, type FeeRefund } from './refunds';
 export { US_DBC_CAPS, US_DELAY_BANDS, CPI_U_AUGUST_2011, CPI_U_JULY, reviseUsCaps, type UsCapRow, type RevisedCaps } from './us-dot-rules';

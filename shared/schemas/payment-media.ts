@@ -52,10 +52,14 @@ export const paymentTermsViewSchema = z.object({
   media: z.array(mediumSchema),
   needsAgreement: z.array(mediumSchema),
   dueBy: z.string().nullable(),
+  /** Against the deadline at the moment of the answer; null when there is none or the payment is done. */
+  dueStatus: z.enum(['overdue', 'due-soon', 'in-time']).nullable(),
   ruleRef: z.string(),
   /** Conditions on a card or credit: its value against the cash, written information, no expiry. */
   conditions: z.object({ value: z.enum(['at-least', 'greater', 'any']), writtenInformation: z.boolean(), noExpiry: z.boolean(), ruleRef: z.string() }),
   restrictions: z.array(z.string()),
+  /** The station's zone, in which the deadline is shown. */
+  timeZone: z.string(),
 });
 
 export const agreementViewSchema = z.object({

@@ -1,6 +1,6 @@
 // A compensation's payment terms: the media its rule allows (lawful default first), which need the passenger's
 // agreement, the conditions on a card or credit, and the deadline. The rules themselves live in shared/compensation.
-import { ALTERNATIVE_CONDITIONS, paymentTerms, type PaymentTerms, type Regime } from '@shared/compensation';
+import { ALTERNATIVE_CONDITIONS, dueStatus, paymentTerms, type PaymentTerms, type Regime } from '@shared/compensation';
 import { REGIMES } from '@shared/compensation/types';
 import type { z } from 'zod';
 import type { paymentTermsViewSchema } from '@shared/schemas/payment-media';
@@ -40,12 +40,12 @@ export function termsFor(facts: TermsFacts): PaymentTerms {
   });
 }
 
-export function termsView(facts: TermsFacts, restrictions: string[], storedDueBy?: Date | null): TermsView {
+export function termsView(facts: TermsFacts, restrictions: string[], storedDueBy: Date | null, open: boolean, now: Date): TermsView {
   const terms = termsFor(facts);
   const conditions = ALTERNATIVE_CONDITIONS[facts.voluntary ? 'volunteer' : regimeOf(facts.regime)];
   // The deadline stored when the row was made wins: it was fixed from the facts of that moment.
   const dueBy = storedDueBy ? new Date(storedDueBy).toISOString() : terms.dueBy;
-  return { ...terms, dueBy, conditions, restrictions };
+  return { ...terms, dueBy, dueStatus: open ? dueStatus(dueBy, now) : null, conditions, restrictions, timeZone: facts.timeZone };
 }
 
 /** The card a travel credit becomes is limited to the carrier's own kind of merchant (Stripe Issuing spending category). */

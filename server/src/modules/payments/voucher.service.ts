@@ -18,6 +18,9 @@ import { voucherOffer } from './payment-notices';
 import { termsView } from './voucher-rules';
 
 type VoucherTerms = z.infer<typeof voucherTermsSchema>;
+
+/** States in which the passenger still waits for the money, so the deadline still counts. */
+const OWED_STATES: readonly string[] = ['due', 'issuing', 'failed', 'voided', 'canceled'];
 type VoucherOfferResult = z.infer<typeof voucherOfferResponseSchema>['offer'];
 
 export interface DeskPaymentInfo {
@@ -43,7 +46,7 @@ export async function paymentInfoFor(db: DataSource, rows: CompensationRow[]): P
       stations.set(row.station_id, { zone: station.timeZone, restrictions: (await policyFor(db, row.station_id)).voucherRestrictions });
     }
     const station = stations.get(row.station_id)!;
-    const terms = termsView({ regime: row.regime, voluntary: Boolean(row.voluntary), deniedAt: new Date(row.created_at), timeZone: station.zone }, station.restrictions, row.due_by);
+    const terms = termsView({ regime: row.regime, voluntary: Boolean(row.voluntary), deniedAt: new Date(row.created_at), timeZone: station.zone }, station.restrictions, row.due_by, OWED_STATES.includes(row.state), new Date());
     const offer = offers.get(row.id);
     const agreement = agreements.get(row.id);
     const paid = counter.get(row.id);

@@ -12,7 +12,7 @@ const base: DeskCompensation = {
   createdAt: '2025-03-01T12:00:00Z', updatedAt: '2025-03-01T12:00:00Z', provider: null,
   voucher: { allowed: true, rule: 'r', cashAmountMinor: 120_000, currency: 'USD', restrictions: [], offeredAt: null, offerSentTo: null, agreedAt: null },
   payment: {
-    terms: { media: ['cash', 'cheque', 'prepaid-card', 'travel-credit'], needsAgreement: ['prepaid-card', 'travel-credit'], dueBy: '2025-03-02T04:59:59.999Z', ruleRef: '14 CFR 250.8(a); 250.5(c)', conditions: { value: 'at-least', writtenInformation: true, noExpiry: false, ruleRef: '14 CFR 250.5(c)' }, restrictions: [] },
+    terms: { media: ['cash', 'cheque', 'prepaid-card', 'travel-credit'], needsAgreement: ['prepaid-card', 'travel-credit'], dueBy: '2025-03-02T04:59:59.999Z', dueStatus: 'in-time', ruleRef: '14 CFR 250.8(a); 250.5(c)', conditions: { value: 'at-least', writtenInformation: true, noExpiry: false, ruleRef: '14 CFR 250.5(c)' }, restrictions: [], timeZone: 'America/New_York' },
     agreement: null,
     counterPayment: null,
   },
