@@ -11,6 +11,7 @@ import { createForecastScheduler } from './modules/forecast/forecast-scheduler';
 import { createMailTransport } from './integrations/mail/mail-transport';
 import { createOutboxWorker } from './modules/outbox/outbox-worker';
 import { createPaymentsRuntime } from './modules/payments/payments-runtime';
+import { watchPaymentDeadlines } from './modules/compensations/payment-deadlines';
 
 const env = loadEnv();
 const db = createDataSource(env.DATABASE_URL);
@@ -26,6 +27,7 @@ outbox.start();
 // Its first pass retries every compensation a stopped server left 'issuing', with the keys fixed on each row.
 const payments = createPaymentsRuntime({ db, env, changed: (flightId, stationId, topics) => publisher.flightChanged(flightId, stationId, topics) });
 await payments.start();
+const stopDeadlineWatch = watchPaymentDeadlines(db);
 const app = createApp({
   payments,
   publisher,
@@ -53,6 +55,7 @@ async function stop(signal: string) {
   stopping = true;
   console.log(`[server] ${signal}: stopping`);
   forecast.stop();
+  stopDeadlineWatch();
   ioRef.io?.close();
   // Requests already being handled finish before the database goes away (bounded, so a stuck client cannot hold us).
   await new Promise<void>((resolve) => {

@@ -48,6 +48,10 @@ export const counterPaymentBodySchema = z
   });
 export type CounterPaymentBody = z.infer<typeof counterPaymentBodySchema>;
 
+export const actualArrivalBodySchema = z.object({
+  arrivalDelayMinutes: z.number({ error: 'arrivalDelayMinutes must be a number of minutes' }).int('arrivalDelayMinutes must be whole minutes').min(0, 'arrivalDelayMinutes must be 0 or more').max(10_080, 'arrivalDelayMinutes must be at most a week'),
+});
+
 export const paymentTermsViewSchema = z.object({
   media: z.array(mediumSchema),
   needsAgreement: z.array(mediumSchema),

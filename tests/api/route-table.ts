@@ -381,6 +381,8 @@ export const ROUTES: readonly RouteRow[] = [
     success: 200,
     otherStation: 404,
   },
+  // A volunteer's compensation has no band to top up: past the role check, refused on the rule.
+  { method: 'POST', pattern: '/api/compensations/:id/actual-arrival', access: ['agent'], call: (ctx, scope) => ({ url: `/api/compensations/${scope === 'own' ? ctx.payments.issuedId : ctx.payments.other.compensationId}/actual-arrival`, body: { arrivalDelayMinutes: 420 } }), success: 409, otherStation: 404 },
   { method: 'GET', pattern: '/api/compensations/:id/receipt', access: ['agent', 'finance'], call: (ctx, scope) => ({ url: `/api/compensations/${scope === 'own' ? ctx.payments.issuedId : ctx.payments.other.compensationId}/receipt` }), success: 200, otherStation: 404 },
   { method: 'POST', pattern: '/api/compensations/:id/void', access: ['finance'], call: (ctx, scope) => ({ url: `/api/compensations/${scope === 'own' ? ctx.payments.voidableId : ctx.payments.other.compensationId}/void`, body: { reason: 'route matrix check' } }), success: 200, otherStation: 404 },
   {

@@ -4,7 +4,7 @@ import { Router, type Request } from 'express';
 import { z } from 'zod';
 import { idParamSchema } from '@shared/schemas/common';
 import { reissueBodySchema, voidBodySchema } from '@shared/schemas/finance';
-import { agreementBodySchema, counterPaymentBodySchema, mediumBodySchema } from '@shared/schemas/payment-media';
+import { actualArrivalBodySchema, agreementBodySchema, counterPaymentBodySchema, mediumBodySchema } from '@shared/schemas/payment-media';
 import { currentUser, requireRole } from '../../http/require-role';
 import { parse } from '../../http/validate';
 import { flightForUser } from '../flights/flight-desk.service';
@@ -15,6 +15,7 @@ import type { PaymentsContext } from './payments-context';
 import { offerVoucher, paymentInfoFor } from './voucher.service';
 import { chooseMedium, recordDeskAgreement } from '../agreements/agreement.service';
 import { payAtCounter, receiptFor } from '../counter-payments/counter-payment.service';
+import { recordActualArrival } from '../compensations/top-up';
 
 const flightParams = z.object({ flightId: z.coerce.number().int().positive('flightId must be positive') });
 const agent = requireRole('agent');
@@ -62,6 +63,14 @@ export function compensationsRouter(ctx: PaymentsContext, issuer: Issuer) {
     const { row } = await payAtCounter(ctx.db, currentUser(req), id, parse(counterPaymentBodySchema, req.body));
     ctx.changed(row.flightId, row.stationId, ['compensations']);
     res.json(await answer(id));
+  });
+
+  // Canada: the real arrival decides whether a top-up is owed; the answer is the top-up, or null when none is.
+  r.post('/compensations/:id/actual-arrival', agent, async (req, res) => {
+    const id = idOf(req);
+    const top = await recordActualArrival(ctx.db, currentUser(req), id, parse(actualArrivalBodySchema, req.body).arrivalDelayMinutes);
+    if (top) ctx.changed(top.flightId, top.stationId, ['compensations']);
+    res.json({ topUp: top ? presentCompensation(await compensationRow(ctx.db, top.id)) : null });
   });
 
   r.get('/compensations/:id/receipt', requireRole('agent', 'finance'), async (req, res) => {

@@ -16,11 +16,9 @@ import { lockCompensation, paymentFacts } from '../agreements/payment-facts';
 import { compensationRow, passengerNameOf, type CompensationRow } from './compensation-view';
 import { voucherOffer } from './payment-notices';
 import { termsView } from './voucher-rules';
+import { OWED_STATES } from '../compensations/payment-deadlines';
 
 type VoucherTerms = z.infer<typeof voucherTermsSchema>;
-
-/** States in which the passenger still waits for the money, so the deadline still counts. */
-const OWED_STATES: readonly string[] = ['due', 'issuing', 'failed', 'voided', 'canceled'];
 type VoucherOfferResult = z.infer<typeof voucherOfferResponseSchema>['offer'];
 
 export interface DeskPaymentInfo {
@@ -46,7 +44,7 @@ export async function paymentInfoFor(db: DataSource, rows: CompensationRow[]): P
       stations.set(row.station_id, { zone: station.timeZone, restrictions: (await policyFor(db, row.station_id)).voucherRestrictions });
     }
     const station = stations.get(row.station_id)!;
-    const terms = termsView({ regime: row.regime, voluntary: Boolean(row.voluntary), deniedAt: new Date(row.created_at), timeZone: station.zone }, station.restrictions, row.due_by, OWED_STATES.includes(row.state), new Date());
+    const terms = termsView({ regime: row.regime, voluntary: Boolean(row.voluntary), deniedAt: new Date(row.created_at), timeZone: station.zone }, station.restrictions, row.due_by, (OWED_STATES as readonly string[]).includes(row.state), new Date());
     const offer = offers.get(row.id);
     const agreement = agreements.get(row.id);
     const paid = counter.get(row.id);
