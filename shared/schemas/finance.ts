@@ -123,6 +123,9 @@ export const ledgerQuerySchema = z
     to: isoDate('to').optional(),
     regime: regimeSchema.optional(),
     state: compensationStateSchema.optional(),
+    medium: mediumSchema.optional(),
+    /** Owed and past its rule's deadline, or within the last hours before it. */
+    due: z.enum(['overdue', 'due-soon'], { error: 'due must be overdue or due-soon' }).optional(),
     page: z.coerce.number({ error: 'page must be a number' }).int('page must be a whole number').min(1, 'page must be at least 1').max(100_000, 'page must be at most 100000').default(1),
     pageSize: z.coerce.number({ error: 'pageSize must be a number' }).int('pageSize must be a whole number').min(1, 'pageSize must be at least 1').max(200, 'pageSize must be at most 200').default(50),
   })
@@ -142,12 +145,16 @@ export const currencyTotalSchema = z.object({
   lostMinor: z.number(),
 });
 
+export const mediumTotalSchema = currencyTotalSchema.extend({ medium: mediumSchema });
+
 export const ledgerResponseSchema = z.object({
   rows: z.array(compensationViewSchema),
   total: z.number(),
   page: z.number(),
   pageSize: z.number(),
   totals: z.array(currencyTotalSchema),
+  /** The same totals per medium: drawers and cheques, transfers and cards at the provider, credits outstanding. */
+  byMedium: z.array(mediumTotalSchema),
 });
 export type LedgerResponse = z.infer<typeof ledgerResponseSchema>;
 

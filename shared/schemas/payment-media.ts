@@ -106,3 +106,22 @@ export const receiptSchema = z.object({
   signature: z.string().nullable(),
 });
 export const receiptResponseSchema = z.object({ receipt: receiptSchema });
+
+// ── Finance: the counter register (cash drawers and cheques) ─────────────────────────────────────────────────
+
+export const counterRegisterQuerySchema = z
+  .object({
+    stationId: z.coerce.number({ error: 'stationId must be a number' }).int('stationId must be a whole number').positive('stationId must be positive').optional(),
+    from: z.iso.date({ error: 'from must be a date YYYY-MM-DD' }).optional(),
+    to: z.iso.date({ error: 'to must be a date YYYY-MM-DD' }).optional(),
+  })
+  .refine((q) => !q.from || !q.to || q.from <= q.to, { message: 'to must not be before from', path: ['to'] });
+export type CounterRegisterQuery = z.infer<typeof counterRegisterQuerySchema>;
+
+export const counterRegisterResponseSchema = z.object({
+  /** Cash handed out per station, drawer and currency: what each drawer must be short by at the count. */
+  drawers: z.array(z.object({ stationIata: z.string(), drawerId: z.string(), currency: z.string(), count: z.number(), amountMinor: z.number() })),
+  /** Every cheque written, for the cheque register. */
+  cheques: z.array(z.object({ stationIata: z.string(), chequeNumber: z.string(), compensationId: z.number(), passengerName: z.string(), amountMinor: z.number(), currency: z.string(), paidAt: z.string() })),
+});
+export type CounterRegister = z.infer<typeof counterRegisterResponseSchema>;

@@ -412,6 +412,7 @@ export const ROUTES: readonly RouteRow[] = [
   { method: 'POST', pattern: '/api/payments/webhook', access: 'public', call: () => ({ url: '/api/payments/webhook', body: { id: 'evt_unsigned', type: 'issuing_card.created' } }), success: 400 },
   // Finance's screens: finance only, within its stations.
   { method: 'GET', pattern: '/api/finance/compensations', access: ['finance'], call: (ctx, scope) => ({ url: `/api/finance/compensations?stationId=${stationOf(ctx, scope)}` }), success: 200, otherStation: 404 },
+  { method: 'GET', pattern: '/api/finance/counter-register', access: ['finance'], call: (ctx, scope) => ({ url: `/api/finance/counter-register?stationId=${stationOf(ctx, scope)}` }), success: 200, otherStation: 404 },
   { method: 'GET', pattern: '/api/finance/compensations.csv', access: ['finance'], call: (ctx, scope) => ({ url: `/api/finance/compensations.csv?stationId=${stationOf(ctx, scope)}` }), success: 200, otherStation: 404 },
   { method: 'POST', pattern: '/api/finance/reconciliations', access: ['finance'], call: (ctx, scope) => ({ url: '/api/finance/reconciliations', body: { stationId: stationOf(ctx, scope) } }), success: 202, otherStation: 404 },
   { method: 'GET', pattern: '/api/finance/reconciliations', access: ['finance'], call: () => ({ url: '/api/finance/reconciliations' }), success: 200 },
