@@ -27,7 +27,7 @@ export function agreementText(input: AgreementTextInput): string {
     `You are owed ${cash}, payable in money (cash, cheque or bank transfer).`,
     `You may instead accept ${NAMES[input.medium]} worth ${value}. You may refuse it and take the money.`,
     input.expiresOn ? `It can be used until ${input.expiresOn}.` : 'It does not expire.',
-    ...(input.restrictions.length ? [`Conditions: ${input.restrictions.join('; ')}.`] : []),
+    ...(input.restrictions.length ? [`Conditions: ${input.restrictions.map((r) => r.replace(/[.\s]+$/, '')).join('; ')}.`] : []),
     `Rule applied: ${input.ruleRef}.`,
     `By signing you accept ${NAMES[input.medium]} worth ${value} instead of ${cash} in money.`,
   ];
