@@ -15,6 +15,7 @@ import { createPaymentsRuntime } from './modules/payments/payments-runtime';
 import { createLearningRuntime } from './modules/learning/learning-runtime';
 import { stationsOnLatestRates } from './modules/learning/rates.service';
 import { openFlightIds } from './modules/show-up-profiles/show-up-profiles.service';
+import { watchPaymentDeadlines } from './modules/compensations/payment-deadlines';
 
 const env = loadEnv();
 const db = createDataSource(env.DATABASE_URL);
@@ -38,6 +39,7 @@ const learning = createLearningRuntime(db, {
   }).catch(() => undefined),
 });
 await learning.start();
+const stopDeadlineWatch = watchPaymentDeadlines(db);
 const app = createApp({
   payments,
   learning,
@@ -70,6 +72,7 @@ async function stop(signal: string) {
   console.log(`[server] ${signal}: stopping`);
   forecast.stop();
   learning.stop();
+  stopDeadlineWatch();
   ioRef.io?.close();
   await closeRedis();
   // Requests already being handled finish before the database goes away (bounded, so a stuck client cannot hold us).

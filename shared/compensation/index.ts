@@ -21,6 +21,14 @@ export {
 } from './journey';
 export { FARE_TYPES, FARE_TYPE_NAMES, TICKET_KINDS, ticketKindOf, lowestCashFare, isZeroFareTicket, type FareType, type TicketKind, type FareOnBoard } from './tickets';
 export { MEDIA, isMedium, type Medium } from './media';
+export {
+  paymentTerms, PAYMENT_MEDIA_RULES, COUNTER_PREPARATION_MINUTES, US_MAILED_PAYMENT_HOURS, CA_PAYMENT_HOURS,
+  type PaymentTerms, type PaymentTermsInput,
+} from './payment-terms';
+export { missingForAlternative, ALTERNATIVE_CONDITIONS, AGREEMENT_MEDIA, type AlternativeCheckInput, type AlternativeConditions } from './agreement-rules';
+export { dueStatus, DUE_SOON_MINUTES, type DueStatus } from './due-status';
+export { agreementText, type AgreementTextInput } from './agreement-text';
+export { downgradeRefund, optionalFeeRefund, FEE_REFUND_RULES, type DowngradeInput, type Refund, type OptionalFee, type FeeRefund } from './refunds';
 export { US_DBC_CAPS, US_DELAY_BANDS, CPI_U_AUGUST_2011, CPI_U_JULY, reviseUsCaps, type UsCapRow, type RevisedCaps } from './us-dot-rules';
 export { EU_STYLE_AMOUNTS, EXACTLY_3500_KM_POLICY, REDUCTION_MAX_DELAY_MINUTES, type EuStyleAmountRow } from './eu-uk-rules';
 export {

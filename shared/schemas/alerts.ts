@@ -1,14 +1,16 @@
-// Alerts for the station and finance: payments lost (voided, canceled at the provider, refused), listed until the
-// passenger is paid again.
+// Alerts for the station and finance: payments lost (voided, canceled at the provider, refused) or near or past the
+// rule's deadline, listed until the passenger is paid.
 import { z } from 'zod';
 
-export const ALERT_KINDS = ['payment-voided', 'payment-canceled', 'payment-failed'] as const;
+export const ALERT_KINDS = ['payment-voided', 'payment-canceled', 'payment-failed', 'payment-due-soon', 'payment-overdue'] as const;
 export type AlertKind = (typeof ALERT_KINDS)[number];
 
 export const ALERT_KIND_LABELS: Record<AlertKind, string> = {
   'payment-voided': 'Payment voided by finance',
   'payment-canceled': 'Payment canceled by the payment provider',
   'payment-failed': 'Payment refused by the payment provider',
+  'payment-due-soon': 'Payment due soon under the rule',
+  'payment-overdue': 'Payment overdue under the rule',
 };
 
 export const alertQuerySchema = z.object({

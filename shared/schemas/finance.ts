@@ -2,6 +2,7 @@
 // quarterly report. Money is always integer minor units with an ISO 4217 currency.
 import { z } from 'zod';
 import { currencySchema, regimeSchema } from './common';
+import { mediumSchema, paymentMediaViewSchema } from './payment-media';
 
 export const COMPENSATION_STATES = ['due', 'issuing', 'issued', 'settled', 'failed', 'voided', 'canceled'] as const;
 export const compensationStateSchema = z.enum(COMPENSATION_STATES, { error: `state must be one of ${COMPENSATION_STATES.join(', ')}` });
@@ -60,12 +61,15 @@ export const compensationViewSchema = z.object({
   passengerId: z.number(),
   passengerName: z.string(),
   pnr: z.string(),
-  sourceKind: z.enum(['volunteer', 'denial']),
+  sourceKind: z.enum(['volunteer', 'denial', 'top-up']),
   regime: z.string(),
   voluntary: z.boolean(),
   band: z.string(),
   ruleRef: z.string(),
   form: compensationFormSchema,
+  medium: mediumSchema,
+  /** The rule's payment deadline (UTC), or null when it sets none. */
+  dueBy: z.string().nullable(),
   amountMinor: z.number(),
   currency: z.string(),
   state: compensationStateSchema,
@@ -92,7 +96,7 @@ export const voucherTermsSchema = z.object({
   agreedAt: z.string().nullable(),
 });
 
-export const deskCompensationSchema = compensationViewSchema.extend({ voucher: voucherTermsSchema });
+export const deskCompensationSchema = compensationViewSchema.extend({ voucher: voucherTermsSchema, payment: paymentMediaViewSchema });
 export const deskCompensationsResponseSchema = z.object({ compensations: z.array(deskCompensationSchema) });
 export type DeskCompensation = z.infer<typeof deskCompensationSchema>;
 
@@ -119,6 +123,9 @@ export const ledgerQuerySchema = z
     to: isoDate('to').optional(),
     regime: regimeSchema.optional(),
     state: compensationStateSchema.optional(),
+    medium: mediumSchema.optional(),
+    /** Owed and past its rule's deadline, or within the last hours before it. */
+    due: z.enum(['overdue', 'due-soon'], { error: 'due must be overdue or due-soon' }).optional(),
     page: z.coerce.number({ error: 'page must be a number' }).int('page must be a whole number').min(1, 'page must be at least 1').max(100_000, 'page must be at most 100000').default(1),
     pageSize: z.coerce.number({ error: 'pageSize must be a number' }).int('pageSize must be a whole number').min(1, 'pageSize must be at least 1').max(200, 'pageSize must be at most 200').default(50),
   })
@@ -138,12 +145,16 @@ export const currencyTotalSchema = z.object({
   lostMinor: z.number(),
 });
 
+export const mediumTotalSchema = currencyTotalSchema.extend({ medium: mediumSchema });
+
 export const ledgerResponseSchema = z.object({
   rows: z.array(compensationViewSchema),
   total: z.number(),
   page: z.number(),
   pageSize: z.number(),
   totals: z.array(currencyTotalSchema),
+  /** The same totals per medium: drawers and cheques, transfers and cards at the provider, credits outstanding. */
+  byMedium: z.array(mediumTotalSchema),
 });
 export type LedgerResponse = z.infer<typeof ledgerResponseSchema>;
 

@@ -11,7 +11,7 @@ import { createPaymentsFake, type PaymentsFake, type PaymentsFakeOptions } from 
 import { loadEnv } from '../../server/src/config/env';
 import { createDataSource } from '../../server/src/db/data-source';
 import { createApp } from '../../server/src/app';
-import { BookingEntity, CompensationEntity, FlightEntity, PassengerEntity, StationEntity } from '../../server/src/db/entities';
+import { BookingEntity, CompensationEntity, FlightEntity, PassengerEntity, PaymentAgreementEntity, StationEntity } from '../../server/src/db/entities';
 import { createSessionSetup } from '../../server/src/http/session';
 import { createSignInThrottle } from '../../server/src/modules/auth/throttle';
 import { createPaymentsRuntime, type PaymentsRuntime } from '../../server/src/modules/payments/payments-runtime';
@@ -184,8 +184,21 @@ export async function insertCompensations(
     explanation: 'Volunteered (API test).', form: 'prepaid-card', voucherAgreedAt: null, state: 'due', idempotencyKey: null,
     providerCardholderId: null, providerCardId: null, lastError: null, voidReason: null, amountClearedBy: 'offer of round (API test)', ...over(i),
   }));
-  return repo.save(rows, { chunk: 200 });
+  const saved = await repo.save(rows, { chunk: 200 });
+  // A denied passenger is paid by card only with their agreement: the fixture records one, as the desk would.
+  const agreed = saved.filter((r) => !r.voluntary && r.medium === 'prepaid-card');
+  if (agreed.length) {
+    await db.getRepository(PaymentAgreementEntity).insert(agreed.map((r) => ({
+      compensationId: r.id, medium: 'prepaid-card' as const, text: 'The passenger accepted a prepaid card instead of money (API test fixture).', cashAmountMinor: r.amountMinor,
+      // Canada asks for a value above the money owed.
+      valueMinor: r.regime === 'ca-appr' ? r.amountMinor + 100 : r.amountMinor, currency: r.currency, expiresOn: null, method: 'desk-signature' as const, signature: FIXTURE_SIGNATURE, statement: null, acceptedAt: new Date(), staffUserId: null,
+    })));
+  }
+  return saved;
 }
+
+/** A PNG data URL long enough to count as a drawn signature. */
+export const FIXTURE_SIGNATURE = `data:image/png;base64,${'iVBORw0KGgo'.padEnd(400, 'A')}`;
 
 /** Removes what a test made on its flights, with the provider's card mirror; audit rows stay, the log is append-only. */
 export async function removeFlights(db: DataSource, flightIds: number[]): Promise<void> {

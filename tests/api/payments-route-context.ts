@@ -13,8 +13,9 @@ export interface PaymentsRouteContext {
   issuedId: number;
   /** Due, open for a voucher offer (repeat offers are allowed). */
   dueId: number;
-  /** Due, with a voucher offer made: ready for the passenger's agreement. */
+  /** Due, with a voucher offer made; the counter payment settles it (repeats answer the same). */
   offeredId: number;
+  offeredAmountMinor: number;
   voidableId: number;
   /** Failed ones, one for each re-issue call (an agent's and finance's both succeed). */
   failedIds: number[];
@@ -75,7 +76,7 @@ export async function paymentsRouteContext(db: DataSource, opts: { ownStationId:
   await db.query(`UPDATE passengers SET cabin = 'J' WHERE flight_id = ?`, [cabin.flight.id]);
   return {
     cabinFlightId: cabin.flight.id, cabinPassengerIds: cabin.passengers.map((p) => p.id),
-    issuedId: rows[0].id, dueId: rows[1].id, offeredId: rows[2].id, voidableId: rows[3].id, failedIds: rows.slice(4).map((r) => r.id),
+    issuedId: rows[0].id, dueId: rows[1].id, offeredId: rows[2].id, offeredAmountMinor: rows[2].amountMinor, voidableId: rows[3].id, failedIds: rows.slice(4).map((r) => r.id),
     alertId: await alert(bos.id, rows[4].id),
     runId: own.runId, differenceId: own.differenceId,
     other: { compensationId: other.id, runId: otherRun.runId, differenceId: otherRun.differenceId, alertId: await alert(opts.otherFlight.stationId, other.id) },

@@ -1,6 +1,6 @@
 // Issuing compensation through the real stripe SDK against the payments stand-in (in-process, port 0): one
 // cardholder and one virtual card per compensation, the amount as the card's all_time spending limit, keys derived
-// from the compensation id, the receipt through the outbox; vouchers only after a recorded agreement; finance voids
+// from the compensation id, the receipt through the outbox; a credit offered in writing first; finance voids
 // (card canceled at the provider) and re-issues a refused one.
 // Outside sources: Stripe docs "Idempotent requests" (same key, same result), "Issuing: virtual cards" and
 // "Spending controls" (spending_limits with interval all_time), the stripe-node 23.1 parameter docs (cardholder
@@ -18,14 +18,12 @@ let agent: Client;
 let finance: Client;
 let supervisor: Client;
 let bos: StationEntity;
-let yul: StationEntity;
 const flightIds: number[] = [];
 
 beforeAll(async () => {
   fake = await startFake();
   app = await startPaymentsApp({ stripeApiUrl: fake.url, startWorker: false });
   bos = await app.db.getRepository(StationEntity).findOneByOrFail({ iata: 'BOS' });
-  yul = await app.db.getRepository(StationEntity).findOneByOrFail({ iata: 'YUL' });
   const tc = { app: app.app } as Parameters<typeof signedIn>[0];
   agent = await signedIn(tc, DEMO.agent);
   finance = await signedIn(tc, DEMO.finance);
@@ -99,20 +97,9 @@ describe('an agent issues a compensation', () => {
   });
 });
 
-describe('a travel voucher only with the passenger’s recorded agreement', () => {
-  it('refuses an agreement before the cash amount and restrictions were shown and sent', async () => {
-    const { rows: [comp] } = await dueCompensations(1);
-    const res = await agent.post(`/api/compensations/${comp.id}/voucher-agreement`, { agreed: true, statement: 'Passenger agreed to take a voucher.' }).expect(409);
-    expect(res.body.error).toBe('voucher_not_offered');
-  });
-
-  it('names the field when the agreement is not a yes with a statement', async () => {
-    const { rows: [comp] } = await dueCompensations(1);
-    const res = await agent.post(`/api/compensations/${comp.id}/voucher-agreement`, { agreed: false, statement: 'x' }).expect(400);
-    expect(res.body.details.map((d: { field: string }) => d.field)).toEqual(expect.arrayContaining(['agreed', 'statement']));
-  });
-
-  it('sends the offer with the cash amount first, records the agreement, then issues a card limited to air travel', async () => {
+describe('a travel credit is offered in writing first', () => {
+  // The agreement itself (text, signature, conditions) is covered in payment-media-agreements.test.ts.
+  it('sends the offer with the cash amount and the restrictions', async () => {
     const { rows: [comp] } = await dueCompensations(1);
     const offer = await agent.post(`/api/compensations/${comp.id}/voucher-offer`).expect(200);
     // The amount as the notice prints it: ISO code, then the amount (Intl puts a no-break space between them).
@@ -121,19 +108,6 @@ describe('a travel voucher only with the passenger’s recorded agreement', () =
     expect(offer.body.offer.sentTo).toMatch(/@example\.test$/);
     const sent = await app.db.getRepository(OutboxMessageEntity).findBy({ kind: 'voucher-offer', flightId: comp.flightId });
     expect(sent).toHaveLength(1);
-
-    const agreed = await agent.post(`/api/compensations/${comp.id}/voucher-agreement`, { agreed: true, statement: 'I take the voucher instead of the cash amount I was told.' }).expect(200);
-    expect(agreed.body.compensation).toMatchObject({ form: 'voucher', voucherAgreedAt: expect.any(String) });
-    await agent.post(`/api/compensations/${comp.id}/issue`).expect(200);
-    const [card] = cardsFor(comp.id);
-    expect(card.spending_limits).toEqual([{ amount: comp.amountMinor, interval: 'all_time', categories: ['airlines_air_carriers'] }]);
-    expect(card.metadata.form).toBe('voucher');
-  });
-
-  it('refuses a voucher for an involuntary denial under APPR, where it must be worth more than the money', async () => {
-    const { rows: [comp] } = await dueCompensations(1, yul, () => ({ regime: 'ca-appr', voluntary: false, sourceKind: 'denial', currency: 'CAD', amountMinor: 90_000 }));
-    const res = await agent.post(`/api/compensations/${comp.id}/voucher-offer`).expect(409);
-    expect(res.body.error).toBe('voucher_not_allowed');
   });
 });
 

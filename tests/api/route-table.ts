@@ -396,18 +396,32 @@ export const ROUTES: readonly RouteRow[] = [
     method: 'POST', pattern: '/api/public/payments/payout/account', access: 'public', success: 404,
     call: () => ({ url: '/api/public/payments/payout/account', body: { token: 'unknown-link-token-unknown-link', pnr: 'ABC123', lastName: 'Tester', holderName: 'Ana Tester', routingNumber: '110000000', accountNumber: '000123456789', accountNumberAgain: '000123456789', accountType: 'checking' } }),
   },
-  // Compensation money: agents issue and record a voucher choice, finance voids and re-issues; nobody else.
+  // Compensation money: agents choose the medium, record agreements, pay at the counter and issue; finance voids and
+  // re-issues; both read receipts; nobody else.
   { method: 'GET', pattern: '/api/flights/:flightId/compensations', access: ['agent'], call: (ctx, scope) => ({ url: `/api/flights/${flightOf(ctx, scope)}/compensations` }), success: 200, otherStation: 404 },
   { method: 'POST', pattern: '/api/compensations/:id/issue', access: ['agent'], call: (ctx, scope) => ({ url: `/api/compensations/${scope === 'own' ? ctx.payments.issuedId : ctx.payments.other.compensationId}/issue` }), success: 200, otherStation: 404 },
   { method: 'POST', pattern: '/api/compensations/:id/voucher-offer', access: ['agent'], call: (ctx, scope) => ({ url: `/api/compensations/${scope === 'own' ? ctx.payments.dueId : ctx.payments.other.compensationId}/voucher-offer` }), success: 200, otherStation: 404 },
+  { method: 'POST', pattern: '/api/compensations/:id/medium', access: ['agent'], call: (ctx, scope) => ({ url: `/api/compensations/${scope === 'own' ? ctx.payments.dueId : ctx.payments.other.compensationId}/medium`, body: { medium: 'prepaid-card' } }), success: 200, otherStation: 404 },
+  // A schema-valid agreement whose text is not the one for this compensation: past the role check, refused on its text.
   {
     method: 'POST',
-    pattern: '/api/compensations/:id/voucher-agreement',
+    pattern: '/api/compensations/:id/agreement',
     access: ['agent'],
-    call: (ctx, scope) => ({ url: `/api/compensations/${scope === 'own' ? ctx.payments.offeredId : ctx.payments.other.compensationId}/voucher-agreement`, body: { agreed: true, statement: 'Route matrix: the passenger agreed to the voucher.' } }),
+    call: (ctx, scope) => ({ url: `/api/compensations/${scope === 'own' ? ctx.payments.dueId : ctx.payments.other.compensationId}/agreement`, body: { medium: 'travel-credit', valueMinor: 100_000, expiresOn: null, text: 'Route matrix: not the text shown to this passenger.', signature: `data:image/png;base64,${'A'.repeat(400)}` } }),
+    success: 409,
+    otherStation: 404,
+  },
+  {
+    method: 'POST',
+    pattern: '/api/compensations/:id/counter-payment',
+    access: ['agent'],
+    call: (ctx, scope) => ({ url: `/api/compensations/${scope === 'own' ? ctx.payments.offeredId : ctx.payments.other.compensationId}/counter-payment`, body: { medium: 'cash', drawerId: 'MATRIX', amountMinor: ctx.payments.offeredAmountMinor, signature: `data:image/png;base64,${'A'.repeat(400)}` } }),
     success: 200,
     otherStation: 404,
   },
+  // A volunteer's compensation has no band to top up: past the role check, refused on the rule.
+  { method: 'POST', pattern: '/api/compensations/:id/actual-arrival', access: ['agent'], call: (ctx, scope) => ({ url: `/api/compensations/${scope === 'own' ? ctx.payments.issuedId : ctx.payments.other.compensationId}/actual-arrival`, body: { arrivalDelayMinutes: 420 } }), success: 409, otherStation: 404 },
+  { method: 'GET', pattern: '/api/compensations/:id/receipt', access: ['agent', 'finance'], call: (ctx, scope) => ({ url: `/api/compensations/${scope === 'own' ? ctx.payments.issuedId : ctx.payments.other.compensationId}/receipt` }), success: 200, otherStation: 404 },
   { method: 'POST', pattern: '/api/compensations/:id/void', access: ['finance'], call: (ctx, scope) => ({ url: `/api/compensations/${scope === 'own' ? ctx.payments.voidableId : ctx.payments.other.compensationId}/void`, body: { reason: 'route matrix check' } }), success: 200, otherStation: 404 },
   {
     method: 'POST',
@@ -465,6 +479,7 @@ export const ROUTES: readonly RouteRow[] = [
   { method: 'POST', pattern: '/api/payments/webhook', access: 'public', call: () => ({ url: '/api/payments/webhook', body: { id: 'evt_unsigned', type: 'issuing_card.created' } }), success: 400 },
   // Finance's screens: finance only, within its stations.
   { method: 'GET', pattern: '/api/finance/compensations', access: ['finance'], call: (ctx, scope) => ({ url: `/api/finance/compensations?stationId=${stationOf(ctx, scope)}` }), success: 200, otherStation: 404 },
+  { method: 'GET', pattern: '/api/finance/counter-register', access: ['finance'], call: (ctx, scope) => ({ url: `/api/finance/counter-register?stationId=${stationOf(ctx, scope)}` }), success: 200, otherStation: 404 },
   { method: 'GET', pattern: '/api/finance/compensations.csv', access: ['finance'], call: (ctx, scope) => ({ url: `/api/finance/compensations.csv?stationId=${stationOf(ctx, scope)}` }), success: 200, otherStation: 404 },
   { method: 'POST', pattern: '/api/finance/reconciliations', access: ['finance'], call: (ctx, scope) => ({ url: '/api/finance/reconciliations', body: { stationId: stationOf(ctx, scope) } }), success: 202, otherStation: 404 },
   { method: 'GET', pattern: '/api/finance/reconciliations', access: ['finance'], call: () => ({ url: '/api/finance/reconciliations' }), success: 200 },

@@ -27,9 +27,12 @@ export class CompensationEntity {
   @Column({ type: 'int', name: 'passenger_id' })
   passengerId!: number;
 
-  /** 'volunteer' (agreed benefits) or 'denial' (owed under the regime); sourceId is the volunteer or denial row. */
+  /**
+   * 'volunteer' (agreed benefits), 'denial' (owed under the regime), or 'top-up' (the rest owed once the real arrival
+   * is known); sourceId is the volunteer, the denial, or the compensation topped up.
+   */
   @Column({ type: 'varchar', length: 12, name: 'source_kind' })
-  sourceKind!: 'volunteer' | 'denial';
+  sourceKind!: 'volunteer' | 'denial' | 'top-up';
 
   @Column({ type: 'int', name: 'source_id' })
   sourceId!: number;
@@ -62,6 +65,20 @@ export class CompensationEntity {
   /** How the money reaches the passenger; which media a rule allows is decided by the regime's payment terms. */
   @Column({ type: 'varchar', length: 16, default: 'prepaid-card' })
   medium!: Medium;
+
+  /** The latest moment the rule allows for payment (paymentTerms); null when the rule sets no period. */
+  @Column({ type: 'datetime', precision: 3, name: 'due_by', nullable: true })
+  dueBy!: Date | null;
+
+  @Column({ type: 'varchar', length: 120, name: 'due_rule_ref', nullable: true })
+  dueRuleRef!: string | null;
+
+  /** A travel credit's value to the passenger (the cash amount given up is amountMinor). */
+  @Column({ type: 'int', name: 'credit_value_minor', nullable: true })
+  creditValueMinor!: number | null;
+
+  @Column({ type: 'date', name: 'credit_expires_on', nullable: true })
+  creditExpiresOn!: string | null;
 
   @Column({ type: 'datetime', precision: 3, name: 'voucher_agreed_at', nullable: true })
   voucherAgreedAt!: Date | null;

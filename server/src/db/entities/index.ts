@@ -20,6 +20,7 @@ import { CareGivenEntity, PassengerChoiceEntity, StationCareSettingsEntity, Tick
 import { FlightScheduleEntity } from './flight-schedule.entity';
 import { BookingOutcomeEntity, ClosedFlightEntity, LearnedRatesEntity, LearningJobEntity, StationRatesChoiceEntity } from './learning.entity';
 import { PaymentLinkEntity, PayoutEntity } from './payout.entity';
+import { CounterPaymentEntity, PaymentAgreementEntity } from './payment-media.entity';
 
 export { AuditLogEntity, BookingEntity, FlightEntity, PassengerEntity, StationEntity, UserEntity };
 export { ShowUpProfileEntity, IntegrationKeyEntity, FlightEventEntity, FlightForecastEntity, ForecastSnapshotEntity };
@@ -34,10 +35,12 @@ export type { StoredPartnerHotel } from './care.entity';
 export { BookingOutcomeEntity, ClosedFlightEntity, LearnedRatesEntity, LearningJobEntity, StationRatesChoiceEntity };
 export { PaymentLinkEntity, PayoutEntity };
 export type { PaymentLinkPurpose, PayoutState } from './payout.entity';
+export { CounterPaymentEntity, PaymentAgreementEntity };
 export const entities = [StationEntity, UserEntity, FlightEntity, BookingEntity, PassengerEntity, AuditLogEntity,
   ShowUpProfileEntity, IntegrationKeyEntity, FlightEventEntity, FlightForecastEntity, ForecastSnapshotEntity, SavedPlanEntity,
   VolunteerPolicyEntity, VolunteerRoundEntity, OfferApprovalEntity, VolunteerEntity, RebookingEntity, OutboxMessageEntity, CompensationEntity,
   StationPriorityRulesEntity, DenialProposalEntity, DenialEntity, BoardingRefusalEntity,
   ProviderEventEntity, PaymentIssuanceEntity, ProviderCardEntity, VoucherOfferEntity, ReconciliationRunEntity, ReconciliationDifferenceEntity,
   AlertEntity, CabinChangeEntity, StationCareSettingsEntity, PassengerChoiceEntity, TicketRefundEntity, CareGivenEntity, FlightScheduleEntity,
-  ClosedFlightEntity, BookingOutcomeEntity, LearningJobEntity, LearnedRatesEntity, StationRatesChoiceEntity, PaymentLinkEntity, PayoutEntity];
+  ClosedFlightEntity, BookingOutcomeEntity, LearningJobEntity, LearnedRatesEntity, StationRatesChoiceEntity, PaymentLinkEntity, PayoutEntity,
+  PaymentAgreementEntity, CounterPaymentEntity];

@@ -17,6 +17,7 @@ import { AlertsAndCabinChanges1796260000000 } from './1796260000000-AlertsAndCab
 import { ForecastVersion1796270000000 } from './1796270000000-ForecastVersion';
 import { ForeignKeys1796290000000 } from './1796290000000-ForeignKeys';
 import { CompensationMedium1796295000000 } from './1796295000000-CompensationMedium';
+import { PaymentMediaAgreements1796300000000 } from './1796300000000-PaymentMediaAgreements';
 import { PassengerPaymentLinks1796310000000 } from './1796310000000-PassengerPaymentLinks';
 import { CareAndChoice1796320000000 } from './1796320000000-CareAndChoice';
 import { LearnedShowRates1796340000000 } from './1796340000000-LearnedShowRates';
@@ -41,6 +42,7 @@ export const migrations = [
   ForecastVersion1796270000000,
   ForeignKeys1796290000000,
   CompensationMedium1796295000000,
+  PaymentMediaAgreements1796300000000,
   PassengerPaymentLinks1796310000000,
   CareAndChoice1796320000000,
   LearnedShowRates1796340000000,

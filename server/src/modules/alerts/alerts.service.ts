@@ -15,6 +15,8 @@ const WHAT: Record<AlertKind, string> = {
   'payment-voided': 'was voided by finance',
   'payment-canceled': 'was canceled by the payment provider',
   'payment-failed': 'was refused by the payment provider',
+  'payment-due-soon': 'is due soon under the rule',
+  'payment-overdue': 'is overdue under the rule',
 };
 
 /**

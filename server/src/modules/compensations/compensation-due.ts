@@ -1,8 +1,9 @@
 // Creating what a passenger is owed, inside the transaction of the decision that causes it (an accepted volunteer,
 // an authorized denial), one row per passenger. The unique source key makes a repeat of the same decision a no-op.
 import type { EntityManager } from 'typeorm';
-import { CompensationEntity } from '../../db/entities';
+import { CompensationEntity, StationEntity } from '../../db/entities';
 import { conflict } from '../../http/errors';
+import { termsFor } from '../payments/voucher-rules';
 
 export interface CompensationFact {
   stationId: number;
@@ -23,18 +24,25 @@ export interface CompensationFact {
 }
 
 /**
- * Always a cash-equivalent prepaid card at first: a travel voucher replaces it only after the passenger was told the
- * cash amount and agreed (14 CFR 250.5(c), Reg. 261/2004 Art. 7(3), from memory). The caller holds the lock on the
+ * Paid first in the rule's lawful default medium (cash for a denial; the card a volunteer accepted), with the rule's
+ * deadline counted from now, the moment of the decision; a card or credit replaces money only with the passenger's
+ * recorded agreement (the agreements module). The caller holds the lock on the
  * source row (the volunteer or the denial), so no other transaction adds the same fact at the same time; the unique
  * key is the backstop if one ever did.
  */
 export async function recordCompensationDue(em: EntityManager, fact: CompensationFact): Promise<CompensationEntity> {
   const existing = await em.findOneBy(CompensationEntity, { sourceKind: fact.sourceKind, sourceId: fact.sourceId, passengerId: fact.passengerId });
   if (existing) return existing;
+  const station = await em.findOneByOrFail(StationEntity, { id: fact.stationId });
+  const terms = termsFor({ regime: fact.regime, voluntary: fact.voluntary, deniedAt: new Date(), timeZone: station.timeZone });
+  const medium = terms.media[0];
   return em.save(em.create(CompensationEntity, {
     ...fact,
     amountClearedBy: fact.amountClearedBy ?? (fact.sourceKind === 'denial' ? 'rule' : null),
-    form: 'prepaid-card',
+    form: medium === 'travel-credit' ? 'voucher' : 'prepaid-card',
+    medium,
+    dueBy: terms.dueBy ? new Date(terms.dueBy) : null,
+    dueRuleRef: terms.ruleRef,
     voucherAgreedAt: null,
     state: 'due',
     idempotencyKey: null,

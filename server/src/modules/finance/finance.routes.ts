@@ -10,6 +10,8 @@ import { ledgerCsv, ledgerPage } from './ledger.service';
 import { listRuns, presentRuns, resolveDifference, runDetail, type ReconciliationRunner } from './reconciliation.service';
 import { periodReport, reportCsv } from './report.service';
 import { stationScope } from './scope';
+import { counterRegister } from './counter-register.service';
+import { counterRegisterQuerySchema } from '@shared/schemas/payment-media';
 
 export interface FinanceDeps {
   db: DataSource;
@@ -38,6 +40,10 @@ export function financeRouter(deps: FinanceDeps) {
   r.get('/compensations.csv', async (req, res) => {
     const query = parse(ledgerQuerySchema, req.query, 'query');
     sendCsv(res, `compensations-${new Date().toISOString().slice(0, 10)}.csv`, await ledgerCsv(deps.db, currentUser(req), query));
+  });
+
+  r.get('/counter-register', async (req, res) => {
+    res.json(await counterRegister(deps.db, currentUser(req), parse(counterRegisterQuerySchema, req.query, 'query')));
   });
 
   r.post('/reconciliations', async (req, res) => {

@@ -63,7 +63,7 @@ export function createReconciliationRunner(deps: ReconciliationDeps): Reconcilia
     for (const t of transactions) spentByCard.set(t.cardId, (spentByCard.get(t.cardId) ?? 0) + t.spentMinor);
 
     const ledger: LedgerEntry[] = (
-      await deps.db.query('SELECT id, station_id, state, amount_minor, currency, provider_card_id FROM compensations WHERE station_id IN (?)', [run.stationIds])
+      await deps.db.query("SELECT id, station_id, state, amount_minor, currency, provider_card_id FROM compensations WHERE station_id IN (?) AND medium NOT IN ('cash', 'cheque')", [run.stationIds])
     ).map((r: { id: number; station_id: number; state: string; amount_minor: number; currency: string; provider_card_id: string | null }) => ({
       id: r.id, stationId: r.station_id, state: r.state, amountMinor: r.amount_minor, currency: r.currency, providerCardId: r.provider_card_id,
     }));

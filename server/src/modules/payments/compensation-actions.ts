@@ -11,6 +11,7 @@ import { classifyProviderError } from '../../integrations/payments/provider-erro
 import { audit } from '../audit/audit.service';
 import { raisePaymentLost } from '../alerts/alerts.service';
 import { gateIssue } from '../approvals/approval-gate';
+import { assertReadyToIssue } from '../agreements/agreement.service';
 import { baseKeyFor, REISSUABLE, reissueKeyFor, voidKey } from './compensation-states';
 import { spentOnEarlierCards, upsertProviderCard } from './issuance-record';
 import type { Issuer } from './issuer';
@@ -52,12 +53,12 @@ export async function issueCompensation(ctx: PaymentsContext, issuer: Issuer, us
     if (row.state === 'canceled') throw conflict('payment_canceled', 'The payment provider canceled the card. It is still owed: re-issue it with a reason.');
     if (row.state !== 'due') return row.state === 'issuing';
     if (row.amountMinor <= 0) throw conflict('nothing_to_pay', 'This compensation is for no money; there is nothing to issue.');
-    if (row.form === 'voucher' && !row.voucherAgreedAt) throw conflict('voucher_not_agreed', 'A voucher needs the passenger’s recorded agreement first.');
+    await assertReadyToIssue(em, row);
     if (!(await gateIssue(em, user, row)).approved) return { awaiting: row };
     const key = row.idempotencyKey ?? baseKeyFor(row.id);
     await em.update(CompensationEntity, { id: row.id }, { state: 'issuing', idempotencyKey: key });
     await rememberAccount(em, ctx, row.id);
-    await audit(em, { actor: user, action: 'compensation.issue_requested', entityType: 'compensation', entityId: row.id, stationId: row.stationId, before: { state: 'due' }, after: { state: 'issuing', idempotencyKey: key, amountMinor: row.amountMinor, currency: row.currency, form: row.form } });
+    await audit(em, { actor: user, action: 'compensation.issue_requested', entityType: 'compensation', entityId: row.id, stationId: row.stationId, before: { state: 'due' }, after: { state: 'issuing', idempotencyKey: key, amountMinor: row.amountMinor, currency: row.currency, form: row.form, medium: row.medium } });
     return true;
   });
   if (typeof started === 'object') {
@@ -78,7 +79,7 @@ export async function reissueCompensation(ctx: PaymentsContext, issuer: Issuer, 
     const row = await lockVisible(em, user, id);
     if (!REISSUABLE.includes(row.state)) throw conflict('not_reissuable', `Only a compensation whose payment was refused, voided or canceled can be re-issued; this one is ${row.state}.`);
     if (row.amountMinor <= 0) throw conflict('nothing_to_pay', 'This compensation is for no money; there is nothing to issue.');
-    if (row.form === 'voucher' && !row.voucherAgreedAt) throw conflict('voucher_not_agreed', 'A voucher needs the passenger’s recorded agreement first.');
+    await assertReadyToIssue(em, row);
     const live = await em.query("SELECT card_id FROM provider_cards WHERE compensation_id = ? AND status <> 'canceled'", [row.id]) as { card_id: string }[];
     if (row.state !== 'failed' && live.length) throw conflict('card_still_live', `The provider still lists card ${live[0].card_id} as usable; cancel it before re-issuing.`);
     const spent = await spentOnEarlierCards(em, row.id);

@@ -1,6 +1,7 @@
 // One query shape for every list of compensations (the desk, the ledger, a single row after an action), joined with
 // what the provider last reported about the card.
 import type { DataSource, EntityManager } from 'typeorm';
+import type { Medium } from '@shared/compensation/media';
 import type { CompensationView } from '@shared/schemas/finance';
 import { notFound } from '../../http/errors';
 
@@ -15,7 +16,7 @@ export const COMPENSATION_FROM = `
 export const COMPENSATION_COLUMNS = `
   c.id, c.station_id, s.iata AS station_iata, s.name AS station_name, c.flight_id, f.carrier_code, f.flight_number,
   DATE_FORMAT(f.service_date, '%Y-%m-%d') AS service_date, c.passenger_id, p.first_name, p.last_name, b.pnr, b.contact_email,
-  c.source_kind, c.regime, c.voluntary, c.band, c.rule_ref, c.form, c.amount_minor, c.currency, c.state, c.last_error,
+  c.source_kind, c.regime, c.voluntary, c.band, c.rule_ref, c.form, c.medium, c.due_by, c.amount_minor, c.currency, c.state, c.last_error,
   c.void_reason, c.voucher_agreed_at, c.created_at, c.updated_at, c.provider_card_id, c.provider_cardholder_id,
   pc.status AS pc_status, pc.limit_minor AS pc_limit_minor, pc.spent_minor AS pc_spent_minor, pc.currency AS pc_currency, pc.last4 AS pc_last4,
   pc.exp_month AS pc_exp_month, pc.exp_year AS pc_exp_year`;
@@ -34,12 +35,14 @@ export interface CompensationRow {
   last_name: string | null;
   pnr: string | null;
   contact_email: string | null;
-  source_kind: 'volunteer' | 'denial';
+  source_kind: 'volunteer' | 'denial' | 'top-up';
   regime: string;
   voluntary: number | boolean;
   band: string;
   rule_ref: string;
   form: 'prepaid-card' | 'voucher';
+  medium: Medium;
+  due_by: Date | null;
   amount_minor: number;
   currency: string;
   state: CompensationView['state'];
@@ -80,6 +83,8 @@ export function presentCompensation(row: CompensationRow): CompensationView {
     band: row.band,
     ruleRef: row.rule_ref,
     form: row.form,
+    medium: row.medium,
+    dueBy: row.due_by ? new Date(row.due_by).toISOString() : null,
     amountMinor: row.amount_minor,
     currency: row.currency,
     state: row.state,

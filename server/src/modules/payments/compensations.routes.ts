@@ -1,9 +1,10 @@
-// The compensation money routes. Agents issue what a round or an authorized denial set, and record a voucher
-// choice; finance voids; either re-issues a payment that was lost. Supervisors and admins do not touch money.
+// The compensation money routes. Agents choose the medium, record the passenger's agreement to a card or credit, pay
+// at the counter or issue through the provider; finance voids; either re-issues a payment that was lost. Supervisors and admins do not touch money.
 import { Router, type Request } from 'express';
 import { z } from 'zod';
 import { idParamSchema } from '@shared/schemas/common';
-import { reissueBodySchema, voidBodySchema, voucherAgreementBodySchema } from '@shared/schemas/finance';
+import { reissueBodySchema, voidBodySchema } from '@shared/schemas/finance';
+import { actualArrivalBodySchema, agreementBodySchema, counterPaymentBodySchema, mediumBodySchema } from '@shared/schemas/payment-media';
 import { currentUser, requireRole } from '../../http/require-role';
 import { parse } from '../../http/validate';
 import { flightForUser } from '../flights/flight-desk.service';
@@ -11,7 +12,10 @@ import { issueCompensation, reissueCompensation, voidCompensation } from './comp
 import { compensationRow, compensationRows, presentCompensation } from './compensation-view';
 import type { Issuer } from './issuer';
 import type { PaymentsContext } from './payments-context';
-import { offerVoucher, recordVoucherAgreement, voucherTermsFor } from './voucher.service';
+import { offerVoucher, paymentInfoFor } from './voucher.service';
+import { chooseMedium, recordDeskAgreement } from '../agreements/agreement.service';
+import { payAtCounter, receiptFor } from '../counter-payments/counter-payment.service';
+import { recordActualArrival } from '../compensations/top-up';
 
 const flightParams = z.object({ flightId: z.coerce.number().int().positive('flightId must be positive') });
 const agent = requireRole('agent');
@@ -25,8 +29,8 @@ export function compensationsRouter(ctx: PaymentsContext, issuer: Issuer) {
   r.get('/flights/:flightId/compensations', agent, async (req, res) => {
     const flight = await flightForUser(ctx.db, currentUser(req), parse(flightParams, req.params, 'params').flightId);
     const rows = await compensationRows(ctx.db, 'c.flight_id = ?', [flight.id], 'ORDER BY p.last_name, p.first_name, c.id');
-    const terms = await voucherTermsFor(ctx.db, rows);
-    res.json({ compensations: rows.map((row) => ({ ...presentCompensation(row), voucher: terms.get(row.id)! })) });
+    const info = await paymentInfoFor(ctx.db, rows);
+    res.json({ compensations: rows.map((row) => ({ ...presentCompensation(row), ...info.get(row.id)! })) });
   });
 
   r.post('/compensations/:id/issue', agent, async (req, res) => {
@@ -40,12 +44,37 @@ export function compensationsRouter(ctx: PaymentsContext, issuer: Issuer) {
     res.json({ offer });
   });
 
-  r.post('/compensations/:id/voucher-agreement', agent, async (req, res) => {
+  r.post('/compensations/:id/medium', agent, async (req, res) => {
     const id = idOf(req);
-    const body = parse(voucherAgreementBodySchema, req.body);
-    const row = await recordVoucherAgreement(ctx.db, currentUser(req), id, body.statement);
+    const row = await chooseMedium(ctx.db, currentUser(req), id, parse(mediumBodySchema, req.body).medium);
     ctx.changed(row.flightId, row.stationId, ['compensations']);
     res.json(await answer(id));
+  });
+
+  r.post('/compensations/:id/agreement', agent, async (req, res) => {
+    const id = idOf(req);
+    const row = await recordDeskAgreement(ctx.db, currentUser(req), id, parse(agreementBodySchema, req.body));
+    ctx.changed(row.flightId, row.stationId, ['compensations']);
+    res.json(await answer(id));
+  });
+
+  r.post('/compensations/:id/counter-payment', agent, async (req, res) => {
+    const id = idOf(req);
+    const { row } = await payAtCounter(ctx.db, currentUser(req), id, parse(counterPaymentBodySchema, req.body));
+    ctx.changed(row.flightId, row.stationId, ['compensations']);
+    res.json(await answer(id));
+  });
+
+  // Canada: the real arrival decides whether a top-up is owed; the answer is the top-up, or null when none is.
+  r.post('/compensations/:id/actual-arrival', agent, async (req, res) => {
+    const id = idOf(req);
+    const top = await recordActualArrival(ctx.db, currentUser(req), id, parse(actualArrivalBodySchema, req.body).arrivalDelayMinutes);
+    if (top) ctx.changed(top.flightId, top.stationId, ['compensations']);
+    res.json({ topUp: top ? presentCompensation(await compensationRow(ctx.db, top.id)) : null });
+  });
+
+  r.get('/compensations/:id/receipt', requireRole('agent', 'finance'), async (req, res) => {
+    res.json({ receipt: await receiptFor(ctx.db, currentUser(req), idOf(req)) });
   });
 
   r.post('/compensations/:id/void', finance, async (req, res) => {

@@ -1,33 +1,52 @@
-// When a travel voucher may stand in for money. The texts paraphrase the rules; the regulation decides.
-import type { RegimeCode } from '@shared/schemas/common';
+// A compensation's payment terms: the media its rule allows (lawful default first), which need the passenger's
+// agreement, the conditions on a card or credit, and the deadline. The rules themselves live in shared/compensation.
+import { ALTERNATIVE_CONDITIONS, dueStatus, paymentTerms, type PaymentTerms, type Regime } from '@shared/compensation';
+import { REGIMES } from '@shared/compensation/types';
+import type { z } from 'zod';
+import type { paymentTermsViewSchema } from '@shared/schemas/payment-media';
 
-export interface VoucherRule {
-  allowed: boolean;
-  rule: string;
+type TermsView = z.infer<typeof paymentTermsViewSchema>;
+
+/** An instant written with the offset the zone had at that instant, e.g. 2025-03-01T07:42:00.000-05:00. */
+export function isoInZone(instant: Date, timeZone: string): string {
+  const parts = new Intl.DateTimeFormat('en-CA', { timeZone, timeZoneName: 'longOffset', year: 'numeric', month: '2-digit', day: '2-digit', hour: '2-digit', minute: '2-digit', second: '2-digit', hourCycle: 'h23' }).formatToParts(instant);
+  const get = (type: string) => parts.find((p) => p.type === type)?.value ?? '';
+  const zone = get('timeZoneName').replace('GMT', '');
+  const offset = zone === '' ? 'Z' : zone.length === 3 ? `${zone}:00` : zone;
+  const millis = String(instant.getUTCMilliseconds()).padStart(3, '0');
+  return `${get('year')}-${get('month')}-${get('day')}T${get('hour')}:${get('minute')}:${get('second')}.${millis}${offset}`;
 }
 
-const INVOLUNTARY: Record<RegimeCode, VoucherRule> = {
-  'us-dot': {
-    allowed: true,
-    rule: 'A voucher only if it is worth at least the cash amount, the passenger was told that amount and that they may refuse the voucher and take the money instead (14 CFR 250.5(c)).',
-  },
-  'eu-261': { allowed: true, rule: 'Travel vouchers only with the signed agreement of the passenger (Reg. (EC) 261/2004 Art. 7(3)).' },
-  'uk-261': { allowed: true, rule: 'Travel vouchers only with the signed agreement of the passenger (retained Reg. 261/2004 (UK) Art. 7(3)).' },
-  // APPR allows another form only when it is worth more than the money owed; Bumpboard's vouchers carry exactly
-  // the cash amount, so they can never qualify.
-  'ca-appr': {
-    allowed: false,
-    rule: 'Compensation in another form than money only if it is worth more than the money owed and the passenger confirms in writing (SOR/2019-150); Bumpboard vouchers equal the cash amount, so money is paid.',
-  },
-};
-
-/** Volunteers agree their own benefits, so a voucher is theirs to choose anywhere (common practice). */
-const VOLUNTEER: VoucherRule = { allowed: true, rule: 'A volunteer may take a travel voucher instead of money if they agree to it after being told the cash amount.' }; // common practice, no outside source
-
-export function voucherRuleFor(regime: string, voluntary: boolean): VoucherRule {
-  if (voluntary) return VOLUNTEER;
-  return INVOLUNTARY[regime as RegimeCode] ?? { allowed: false, rule: `No voucher rule is known for regime ${regime}; money is paid.` };
+export interface TermsFacts {
+  regime: string;
+  voluntary: boolean;
+  /** When the denial or the volunteer's agreement was recorded. */
+  deniedAt: Date;
+  alternateDepartsAt?: Date | null;
+  timeZone: string;
 }
 
-/** The card a voucher becomes is limited to the carrier's own kind of merchant (Stripe Issuing spending category). */
+function regimeOf(code: string): Regime {
+  if (!(REGIMES as readonly string[]).includes(code)) throw new Error(`Unknown regime ${code} on a compensation`);
+  return code as Regime;
+}
+
+export function termsFor(facts: TermsFacts): PaymentTerms {
+  return paymentTerms({
+    regime: regimeOf(facts.regime),
+    deniedAt: isoInZone(facts.deniedAt, facts.timeZone),
+    voluntary: facts.voluntary,
+    ...(facts.alternateDepartsAt ? { alternateDepartsAt: isoInZone(facts.alternateDepartsAt, facts.timeZone) } : {}),
+  });
+}
+
+export function termsView(facts: TermsFacts, restrictions: string[], storedDueBy: Date | null, open: boolean, now: Date): TermsView {
+  const terms = termsFor(facts);
+  const conditions = ALTERNATIVE_CONDITIONS[facts.voluntary ? 'volunteer' : regimeOf(facts.regime)];
+  // The deadline stored when the row was made wins: it was fixed from the facts of that moment.
+  const dueBy = storedDueBy ? new Date(storedDueBy).toISOString() : terms.dueBy;
+  return { ...terms, dueBy, dueStatus: open ? dueStatus(dueBy, now) : null, conditions, restrictions, timeZone: facts.timeZone };
+}
+
+/** The card a travel credit becomes is limited to the carrier's own kind of merchant (Stripe Issuing spending category). */
 export const VOUCHER_CATEGORIES = ['airlines_air_carriers'];

@@ -1,55 +1,76 @@
-// A travel voucher instead of money, only where the regime allows it, and only after the passenger was shown and
-// sent the cash amount and the voucher's restrictions and then agreed. Both steps are kept and audited.
-import type { DataSource, EntityManager } from 'typeorm';
+// The desk's view of how each compensation may be paid, and the written offer of a card or credit: the cash amount
+// and the restrictions are shown and sent before the passenger is asked to agree to anything. The agreement itself is
+// a record of the agreements module (text, signature, time, staff member).
+import type { DataSource } from 'typeorm';
 import type { SessionUser } from '@shared/schemas/auth';
 import type { z } from 'zod';
 import type { voucherOfferResponseSchema, voucherTermsSchema } from '@shared/schemas/finance';
-import { CompensationEntity, VoucherOfferEntity } from '../../db/entities';
-import { conflict, notFound } from '../../http/errors';
-import { canSeeStation } from '../../http/require-role';
+import type { PaymentMediaView } from '@shared/schemas/payment-media';
+import { CounterPaymentEntity, PaymentAgreementEntity, StationEntity, VoucherOfferEntity } from '../../db/entities';
+import { conflict } from '../../http/errors';
 import { audit } from '../audit/audit.service';
 import { enqueueMessage } from '../outbox/outbox.service';
 import { notifyOutbox } from '../outbox/outbox-signal';
 import { policyFor } from '../volunteers/policy.service';
+import { lockCompensation, paymentFacts } from '../agreements/payment-facts';
 import { compensationRow, passengerNameOf, type CompensationRow } from './compensation-view';
 import { voucherOffer } from './payment-notices';
-import { voucherRuleFor } from './voucher-rules';
+import { termsView } from './voucher-rules';
+import { OWED_STATES } from '../compensations/payment-deadlines';
 
 type VoucherTerms = z.infer<typeof voucherTermsSchema>;
 type VoucherOfferResult = z.infer<typeof voucherOfferResponseSchema>['offer'];
 
-async function lockVisible(em: EntityManager, user: SessionUser, id: number): Promise<CompensationEntity> {
-  const row = await em.findOne(CompensationEntity, { where: { id }, lock: { mode: 'pessimistic_write' } });
-  if (!row || !canSeeStation(user, row.stationId)) throw notFound('Compensation');
-  return row;
+export interface DeskPaymentInfo {
+  voucher: VoucherTerms;
+  payment: PaymentMediaView;
 }
 
-function assertOpenForVoucher(row: CompensationEntity): void {
-  if (row.state !== 'due') throw conflict('not_due', `A voucher can be chosen only before payment starts; this compensation is ${row.state}.`);
-  const rule = voucherRuleFor(row.regime, row.voluntary);
-  if (!rule.allowed) throw conflict('voucher_not_allowed', rule.rule);
+async function byCompensation<T extends { compensationId: number }>(db: DataSource, entity: new () => T, ids: number[]): Promise<Map<number, T>> {
+  const rows = await db.getRepository(entity).createQueryBuilder('x').where('x.compensationId IN (:...ids)', { ids }).getMany();
+  return new Map(rows.map((r) => [r.compensationId, r]));
 }
 
-/** The desk's view of the voucher choice for each compensation of a flight. */
-export async function voucherTermsFor(db: DataSource, rows: CompensationRow[]): Promise<Map<number, VoucherTerms>> {
-  const out = new Map<number, VoucherTerms>();
+/** For each compensation of a list: the media its rule allows, the written offer, the agreement and any counter payment. */
+export async function paymentInfoFor(db: DataSource, rows: CompensationRow[]): Promise<Map<number, DeskPaymentInfo>> {
+  const out = new Map<number, DeskPaymentInfo>();
   if (!rows.length) return out;
-  const offers = await db.getRepository(VoucherOfferEntity).createQueryBuilder('o').where('o.compensationId IN (:...ids)', { ids: rows.map((r) => r.id) }).getMany();
-  const offerOf = new Map(offers.map((o) => [o.compensationId, o]));
-  const restrictionsOf = new Map<number, string[]>();
+  const ids = rows.map((r) => r.id);
+  const [offers, agreements, counter] = await Promise.all([byCompensation(db, VoucherOfferEntity, ids), byCompensation(db, PaymentAgreementEntity, ids), byCompensation(db, CounterPaymentEntity, ids)]);
+  const stations = new Map<number, { zone: string; restrictions: string[] }>();
   for (const row of rows) {
-    if (!restrictionsOf.has(row.station_id)) restrictionsOf.set(row.station_id, (await policyFor(db, row.station_id)).voucherRestrictions);
-    const rule = voucherRuleFor(row.regime, Boolean(row.voluntary));
-    const offer = offerOf.get(row.id);
+    if (!stations.has(row.station_id)) {
+      const station = await db.getRepository(StationEntity).findOneByOrFail({ id: row.station_id });
+      stations.set(row.station_id, { zone: station.timeZone, restrictions: (await policyFor(db, row.station_id)).voucherRestrictions });
+    }
+    const station = stations.get(row.station_id)!;
+    const terms = termsView({ regime: row.regime, voluntary: Boolean(row.voluntary), deniedAt: new Date(row.created_at), timeZone: station.zone }, station.restrictions, row.due_by, (OWED_STATES as readonly string[]).includes(row.state), new Date());
+    const offer = offers.get(row.id);
+    const agreement = agreements.get(row.id);
+    const paid = counter.get(row.id);
     out.set(row.id, {
-      allowed: rule.allowed,
-      rule: rule.rule,
-      cashAmountMinor: row.amount_minor,
-      currency: row.currency,
-      restrictions: offer?.restrictions ?? restrictionsOf.get(row.station_id) ?? [],
-      offeredAt: offer?.offeredAt.toISOString() ?? null,
-      offerSentTo: offer?.sentTo ?? null,
-      agreedAt: offer?.agreedAt?.toISOString() ?? row.voucher_agreed_at?.toISOString() ?? null,
+      voucher: {
+        allowed: terms.media.includes('travel-credit'),
+        rule: terms.ruleRef,
+        cashAmountMinor: row.amount_minor,
+        currency: row.currency,
+        restrictions: offer?.restrictions ?? station.restrictions,
+        offeredAt: offer?.offeredAt.toISOString() ?? null,
+        offerSentTo: offer?.sentTo ?? null,
+        agreedAt: agreement?.acceptedAt.toISOString() ?? null,
+      },
+      payment: {
+        terms,
+        agreement: agreement
+          ? {
+              medium: agreement.medium, method: agreement.method, text: agreement.text, cashAmountMinor: agreement.cashAmountMinor, valueMinor: agreement.valueMinor,
+              currency: agreement.currency, expiresOn: agreement.expiresOn, acceptedAt: agreement.acceptedAt.toISOString(), staffUserId: agreement.staffUserId, signed: Boolean(agreement.signature),
+            }
+          : null,
+        counterPayment: paid
+          ? { medium: paid.medium, drawerId: paid.drawerId, chequeNumber: paid.chequeNumber, amountMinor: paid.amountMinor, currency: paid.currency, paidAt: paid.paidAt.toISOString(), paidByUserId: paid.paidByUserId, receiptText: paid.receiptText }
+          : null,
+      },
     });
   }
   return out;
@@ -58,15 +79,15 @@ export async function voucherTermsFor(db: DataSource, rows: CompensationRow[]): 
 /** Shows (the answer) and sends (the outbox, when the booking has an address) the cash amount and the restrictions. */
 export async function offerVoucher(db: DataSource, user: SessionUser, id: number): Promise<VoucherOfferResult> {
   const result = await db.transaction(async (em) => {
-    const entity = await lockVisible(em, user, id);
-    assertOpenForVoucher(entity);
-    const existing = await em.findOneBy(VoucherOfferEntity, { compensationId: id });
-    if (existing?.agreedAt) throw conflict('already_agreed', 'The passenger already agreed to a voucher.');
+    const entity = await lockCompensation(em, user, id);
+    if (entity.state !== 'due') throw conflict('not_due', `A card or credit can be offered only before payment starts; this compensation is ${entity.state}.`);
+    const facts = await paymentFacts(em, entity);
+    if (!facts.terms.media.includes('travel-credit')) throw conflict('voucher_not_allowed', `No travel credit under ${facts.terms.ruleRef}.`);
     const row = await compensationRow(em, id);
-    const restrictions = (await policyFor(em, entity.stationId)).voucherRestrictions;
+    const restrictions = facts.restrictions;
     const notice = voucherOffer({
       passengerName: passengerNameOf(row), flight: `${row.carrier_code} ${row.flight_number}`, serviceDate: row.service_date,
-      amountMinor: row.amount_minor, currency: row.currency, restrictions, rule: voucherRuleFor(row.regime, Boolean(row.voluntary)).rule,
+      amountMinor: row.amount_minor, currency: row.currency, restrictions, rule: facts.terms.ruleRef,
     });
     const offeredAt = new Date();
     if (row.contact_email) {
@@ -82,20 +103,4 @@ export async function offerVoucher(db: DataSource, user: SessionUser, id: number
   });
   if (result.sentTo) notifyOutbox();
   return result;
-}
-
-/** Records the passenger's agreement, in their words; the compensation will then be issued as a voucher. */
-export async function recordVoucherAgreement(db: DataSource, user: SessionUser, id: number, statement: string): Promise<CompensationEntity> {
-  return db.transaction(async (em) => {
-    const entity = await lockVisible(em, user, id);
-    const offer = await em.findOneBy(VoucherOfferEntity, { compensationId: id });
-    if (offer?.agreedAt && entity.form === 'voucher') return entity;
-    assertOpenForVoucher(entity);
-    if (!offer) throw conflict('voucher_not_offered', 'Show and send the passenger the cash amount and the voucher’s restrictions first (voucher offer), then record their agreement.');
-    const agreedAt = new Date();
-    await em.update(VoucherOfferEntity, { compensationId: id }, { agreedAt, statement, agreedRecordedByUserId: user.id });
-    await em.update(CompensationEntity, { id }, { form: 'voucher', voucherAgreedAt: agreedAt });
-    await audit(em, { actor: user, action: 'compensation.voucher_agreed', entityType: 'compensation', entityId: id, stationId: entity.stationId, before: { form: entity.form }, after: { form: 'voucher', voucherAgreedAt: agreedAt.toISOString(), statement, cashAmountMinor: offer.cashAmountMinor, currency: offer.currency } });
-    return em.findOneByOrFail(CompensationEntity, { id });
-  });
 }

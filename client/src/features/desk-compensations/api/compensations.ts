@@ -1,16 +1,18 @@
 import { queryOptions, useMutation, useQueryClient } from '@tanstack/react-query';
 import type { z } from 'zod';
-import { compensationResponseSchema, deskCompensationsResponseSchema, voucherOfferResponseSchema, type voucherAgreementBodySchema } from '@shared/schemas/finance';
+import { compensationResponseSchema, deskCompensationsResponseSchema, voucherOfferResponseSchema } from '@shared/schemas/finance';
+import { receiptResponseSchema, type AgreementBody, type CounterPaymentBody } from '@shared/schemas/payment-media';
+import type { Medium } from '@shared/compensation/media';
 import { alertKeys } from '../../../lib/alert-keys';
 import { api } from '../../../lib/api-client';
 
 export const deskCompensationKeys = {
   all: ['desk-compensations'] as const,
   flight: (flightId: number) => [...deskCompensationKeys.all, 'flight', flightId] as const,
+  receipt: (id: number) => [...deskCompensationKeys.all, 'receipt', id] as const,
 };
 
 type DeskCompensations = z.infer<typeof deskCompensationsResponseSchema>;
-type VoucherAgreementBody = z.infer<typeof voucherAgreementBodySchema>;
 
 /** A slow safety net under the socket: a missed notice still shows up within a minute. */
 const SAFETY_REFETCH_MS = 60_000;
@@ -40,8 +42,17 @@ export const useIssueCompensation = (flightId: number) =>
 export const useOfferVoucher = (flightId: number) =>
   useFlightMutation(flightId, (id: number) => api.post(`/compensations/${id}/voucher-offer`, voucherOfferResponseSchema));
 
-export const useRecordVoucherAgreement = (flightId: number) =>
-  useFlightMutation(flightId, ({ id, ...body }: VoucherAgreementBody & { id: number }) => api.post(`/compensations/${id}/voucher-agreement`, compensationResponseSchema, body));
+export const useChooseMedium = (flightId: number) =>
+  useFlightMutation(flightId, ({ id, medium }: { id: number; medium: Medium }) => api.post(`/compensations/${id}/medium`, compensationResponseSchema, { medium }));
+
+export const useRecordAgreement = (flightId: number) =>
+  useFlightMutation(flightId, ({ id, ...body }: AgreementBody & { id: number }) => api.post(`/compensations/${id}/agreement`, compensationResponseSchema, body));
+
+export const usePayAtCounter = (flightId: number) =>
+  useFlightMutation(flightId, ({ id, ...body }: CounterPaymentBody & { id: number }) => api.post(`/compensations/${id}/counter-payment`, compensationResponseSchema, body));
+
+export const receiptQueryOptions = (id: number) =>
+  queryOptions({ queryKey: deskCompensationKeys.receipt(id), queryFn: () => api.get(`/compensations/${id}/receipt`, receiptResponseSchema) });
 
 /** A payment refused, voided or canceled leaves the passenger owed: the desk starts a new one, with the reason. */
 export const useReissueCompensation = (flightId: number) =>

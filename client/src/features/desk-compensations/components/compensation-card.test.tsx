@@ -7,10 +7,15 @@ import { CompensationCard } from './compensation-card';
 
 const base: DeskCompensation = {
   id: 1, stationId: 1, stationIata: 'BOS', flightId: 7, flight: 'ZZ 105', serviceDate: '2025-03-01', passengerId: 3, passengerName: 'Ada Okafor',
-  pnr: 'K7Q2XM', sourceKind: 'denial', regime: 'us-dot', voluntary: false, band: 'us-400pct', ruleRef: '14 CFR 250.5(a)(3)', form: 'prepaid-card',
+  pnr: 'K7Q2XM', sourceKind: 'denial', regime: 'us-dot', voluntary: false, band: 'us-400pct', ruleRef: '14 CFR 250.5(a)(3)', form: 'prepaid-card', medium: 'cash', dueBy: '2025-03-02T04:59:59.999Z',
   amountMinor: 120_000, currency: 'USD', state: 'due', lastError: null, voidReason: null, voucherAgreedAt: null,
   createdAt: '2025-03-01T12:00:00Z', updatedAt: '2025-03-01T12:00:00Z', provider: null,
   voucher: { allowed: true, rule: 'r', cashAmountMinor: 120_000, currency: 'USD', restrictions: [], offeredAt: null, offerSentTo: null, agreedAt: null },
+  payment: {
+    terms: { media: ['cash', 'cheque', 'prepaid-card', 'travel-credit'], needsAgreement: ['prepaid-card', 'travel-credit'], dueBy: '2025-03-02T04:59:59.999Z', dueStatus: 'in-time', ruleRef: '14 CFR 250.8(a); 250.5(c)', conditions: { value: 'at-least', writtenInformation: true, noExpiry: false, ruleRef: '14 CFR 250.5(c)' }, restrictions: [], timeZone: 'America/New_York' },
+    agreement: null,
+    counterPayment: null,
+  },
 };
 
 const show = (c: DeskCompensation) =>

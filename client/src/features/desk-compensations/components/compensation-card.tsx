@@ -1,19 +1,26 @@
 import { bandLabel } from '@shared/compensation/labels';
 import { isPaymentLost, type DeskCompensation } from '@shared/schemas/finance';
 import { Button } from '../../../components/ui/button';
-import { formatMoney } from '../../../lib/format';
+import { MEDIUM_LABELS } from '@shared/schemas/payment-media';
+import { formatMoney, formatTimeWithZone } from '../../../lib/format';
 import { useIssueCompensation } from '../api/compensations';
-import { FORM_LABELS, kindLabel, STATE_LOOK, TONE_CLASS, voucherStep } from '../model/words';
+import { paymentStep } from '../model/payment-step';
+import { kindLabel, STATE_LOOK, TONE_CLASS } from '../model/words';
+import { AgreementForm } from './agreement-form';
+import { CounterPaymentForm } from './counter-payment-form';
+import { MediumChoice } from './medium-choice';
 import { Problem } from './problem';
+import { ReceiptDialog } from './receipt-dialog';
 import { ReissueForm } from './reissue-form';
-import { VoucherPath } from './voucher-path';
 
-/** One passenger's compensation: who, why, how much, in what form, where it stands, and the press that pays it. */
+/** One passenger's compensation: who, why, how much, in what medium and by when, where it stands, and how it is paid. */
 export function CompensationCard({ flightId, compensation: c }: { flightId: number; compensation: DeskCompensation }) {
   const issue = useIssueCompensation(flightId);
   const look = STATE_LOOK[c.state];
   const amount = formatMoney(c.amountMinor, c.currency);
-  const step = voucherStep(c);
+  const step = paymentStep(c);
+  const overdue = c.payment.terms.dueStatus === 'overdue';
+  const soon = c.payment.terms.dueStatus === 'due-soon';
 
   return (
     <article data-testid="compensation-row" data-state={c.state} data-pnr={c.pnr} aria-label={`Compensation for ${c.passengerName}`} className="rounded-lg border-2 border-line p-4">
@@ -41,8 +48,18 @@ export function CompensationCard({ flightId, compensation: c }: { flightId: numb
         </dd>
         <dt className="font-bold">Why</dt>
         <dd>{c.voluntary ? 'The volunteer agreed this amount in exchange for the seat.' : 'Set by the station’s regulation for an involuntary denial of boarding.'}</dd>
-        <dt className="font-bold">Form</dt>
-        <dd>{FORM_LABELS[c.form]}</dd>
+        <dt className="font-bold">Paid in</dt>
+        <dd data-testid="compensation-medium">{MEDIUM_LABELS[c.medium]}</dd>
+        {c.dueBy && (
+          <>
+            <dt className="font-bold">Due by</dt>
+            <dd data-testid="compensation-due-by" className={overdue ? 'font-bold text-alert' : soon ? 'font-bold text-watch' : ''}>
+              {(overdue || soon) && <span aria-hidden>⚠ </span>}
+              {formatTimeWithZone(c.dueBy, c.payment.terms.timeZone)}
+              {overdue ? ' — overdue' : soon ? ' — due soon' : ''} ({c.payment.terms.ruleRef})
+            </dd>
+          </>
+        )}
         <dt className="font-bold">Status</dt>
         <dd>{look.detail}</dd>
         {c.lastError && (
@@ -64,16 +81,23 @@ export function CompensationCard({ flightId, compensation: c }: { flightId: numb
           </>
         )}
       </dl>
-      {c.state === 'due' && (
+      {c.state === 'due' && c.amountMinor > 0 && <MediumChoice flightId={flightId} compensation={c} />}
+      {step === 'counter' && <CounterPaymentForm flightId={flightId} compensation={c} />}
+      {step === 'agree' && <AgreementForm flightId={flightId} compensation={c} />}
+      {step === 'issue' && (
         <div className="mt-4">
           <Button onClick={() => issue.mutate(c.id)} disabled={issue.isPending} className="text-lg">
-            {issue.isPending ? 'Issuing…' : `Issue ${amount} as ${c.form === 'voucher' ? 'a travel voucher' : 'a prepaid card'}`}
+            {issue.isPending ? 'Issuing…' : `Issue ${amount} as: ${MEDIUM_LABELS[c.medium]}`}
           </Button>
           <Problem error={issue.error} />
         </div>
       )}
       {isPaymentLost(c.state) && c.amountMinor > 0 && <ReissueForm flightId={flightId} compensationId={c.id} amount={amount} />}
-      {step !== 'none' && <VoucherPath flightId={flightId} compensation={c} step={step} />}
+      {(step === 'paid-counter' || c.payment.agreement) && (
+        <div className="mt-4">
+          <ReceiptDialog compensationId={c.id} />
+        </div>
+      )}
     </article>
   );
 }

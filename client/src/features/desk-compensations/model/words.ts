@@ -4,10 +4,10 @@ export type Tone = 'calm' | 'watch' | 'alert' | 'plain';
 
 /** Every state in words and an icon, never colour alone. */
 export const STATE_LOOK: Record<CompensationStateCode, { icon: string; text: string; tone: Tone; detail: string }> = {
-  due: { icon: '◆', text: STATE_LABELS.due, tone: 'watch', detail: 'Not paid yet: issue it before the passenger leaves the gate.' },
+  due: { icon: '◆', text: STATE_LABELS.due, tone: 'watch', detail: 'Not paid yet: pay it in the medium below before the passenger leaves the gate.' },
   issuing: { icon: '…', text: STATE_LABELS.issuing, tone: 'watch', detail: 'Sent to the payment provider; waiting for its answer.' },
   issued: { icon: '✓', text: STATE_LABELS.issued, tone: 'calm', detail: 'Paid: the card is ready for the passenger.' },
-  settled: { icon: '✓', text: STATE_LABELS.settled, tone: 'calm', detail: 'Paid, and the passenger has spent it.' },
+  settled: { icon: '✓', text: STATE_LABELS.settled, tone: 'calm', detail: 'Paid: handed over at the counter, or spent by the passenger.' },
   failed: { icon: '⚠', text: STATE_LABELS.failed, tone: 'alert', detail: 'The payment provider refused it. The passenger is still owed: re-issue it with a reason.' },
   voided: { icon: '⚠', text: STATE_LABELS.voided, tone: 'alert', detail: 'Finance voided the payment. The passenger is still owed: re-issue it with a reason.' },
   canceled: { icon: '⚠', text: STATE_LABELS.canceled, tone: 'alert', detail: 'The payment provider canceled the card. The passenger is still owed: re-issue it with a reason.' },
@@ -20,18 +20,6 @@ export const TONE_CLASS: Record<Tone, string> = {
   plain: 'border-line bg-paper text-ink-soft',
 };
 
-export const FORM_LABELS: Record<DeskCompensation['form'], string> = {
-  'prepaid-card': 'Prepaid card (cash equivalent)',
-  voucher: 'Travel voucher (passenger agreed)',
-};
-
 export function kindLabel(c: Pick<DeskCompensation, 'voluntary' | 'sourceKind'>): string {
   return c.voluntary ? 'Voluntary — gave up the seat in a volunteer round' : 'Involuntary — denied boarding against their will';
-}
-
-/** The voucher path is for a due, cash-paid compensation whose regime allows it. */
-export function voucherStep(c: Pick<DeskCompensation, 'state' | 'form' | 'voucher'>): 'none' | 'offer' | 'agree' | 'agreed' {
-  if (c.voucher.agreedAt || c.form === 'voucher') return 'agreed';
-  if (c.state !== 'due' || !c.voucher.allowed) return 'none';
-  return c.voucher.offeredAt ? 'agree' : 'offer';
 }

@@ -1,11 +1,13 @@
 import { COMPENSATION_STATES, STATE_LABELS } from '@shared/schemas/finance';
 import { REGIMES, REGIME_LABELS } from '@shared/schemas/common';
+import { MEDIA } from '@shared/compensation/media';
+import { MEDIUM_LABELS } from '@shared/schemas/payment-media';
 import { withFilter, type LedgerFilters } from '../model/ledger-filters';
 import { DateField, SelectField, type StationOption } from './field';
 
 export function LedgerFiltersBar({ stations, filters, onChange }: { stations: StationOption[]; filters: LedgerFilters; onChange: (f: LedgerFilters) => void }) {
   return (
-    <form role="search" aria-label="Filter the ledger" className="grid gap-3 sm:grid-cols-2 lg:grid-cols-5" onSubmit={(e) => e.preventDefault()}>
+    <form role="search" aria-label="Filter the ledger" className="grid gap-3 sm:grid-cols-2 lg:grid-cols-4" onSubmit={(e) => e.preventDefault()}>
       <SelectField label="Station" value={filters.stationId === null ? '' : String(filters.stationId)} onChange={(v) => onChange(withFilter(filters, 'stationId', v ? Number(v) : null))}>
         <option value="">All my stations</option>
         {stations.map((s) => (
@@ -31,6 +33,19 @@ export function LedgerFiltersBar({ stations, filters, onChange }: { stations: St
             {STATE_LABELS[s]}
           </option>
         ))}
+      </SelectField>
+      <SelectField label="Medium" value={filters.medium} onChange={(v) => onChange(withFilter(filters, 'medium', v as LedgerFilters['medium']))}>
+        <option value="">Any medium</option>
+        {MEDIA.map((m) => (
+          <option key={m} value={m}>
+            {MEDIUM_LABELS[m]}
+          </option>
+        ))}
+      </SelectField>
+      <SelectField label="Deadline" value={filters.due} onChange={(v) => onChange(withFilter(filters, 'due', v as LedgerFilters['due']))}>
+        <option value="">Any</option>
+        <option value="due-soon">Due soon (owed, deadline within 2 h)</option>
+        <option value="overdue">Overdue (owed, past the rule’s deadline)</option>
       </SelectField>
     </form>
   );

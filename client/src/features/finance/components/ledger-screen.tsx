@@ -7,7 +7,7 @@ import { EMPTY_FILTERS, withFilter } from '../model/ledger-filters';
 import { DownloadLink, type StationOption } from './field';
 import { LedgerFiltersBar } from './ledger-filters-bar';
 import { LedgerTable } from './ledger-table';
-import { LedgerTotals } from './ledger-totals';
+import { LedgerTotals, MediumTotals } from './ledger-totals';
 
 export function LedgerScreen({ stations }: { stations: StationOption[] }) {
   const [filters, setFilters] = useState(EMPTY_FILTERS);
@@ -28,6 +28,7 @@ export function LedgerScreen({ stations }: { stations: StationOption[] }) {
       {data && (
         <>
           <LedgerTotals totals={data.totals} total={data.total} />
+          <MediumTotals byMedium={data.byMedium} />
           {data.rows.length > 0 && <LedgerTable rows={data.rows} />}
           {pages > 1 && (
             <nav aria-label="Pages" className="flex items-center gap-3">

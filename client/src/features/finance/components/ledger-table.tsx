@@ -1,5 +1,6 @@
 import { useState } from 'react';
 import { regimeLabel } from '@shared/compensation/labels';
+import { MEDIUM_LABELS } from '@shared/schemas/payment-media';
 import { isPaymentLost, STATE_LABELS, type CompensationView } from '@shared/schemas/finance';
 import { Button } from '../../../components/ui/button';
 import { formatMoney } from '../../../lib/format';
@@ -27,7 +28,10 @@ function Row({ c }: { c: CompensationView }) {
         <td className="p-2">{c.flight}<br /><span className="text-sm text-ink-soft">{c.serviceDate}</span></td>
         <td className="p-2">{c.passengerName}<br /><span className="text-sm text-ink-soft">{c.pnr}</span></td>
         <td className="p-2">{regimeLabel(c.regime)}<br /><span className="text-sm text-ink-soft">{c.voluntary ? 'Volunteer' : 'Involuntary'}</span></td>
-        <td className="p-2">{c.form === 'voucher' ? 'Travel voucher' : 'Prepaid card'}</td>
+        <td className="p-2">
+          {MEDIUM_LABELS[c.medium]}
+          {c.dueBy && <><br /><span className="text-sm text-ink-soft">due by {c.dueBy.slice(0, 16).replace('T', ' ')} UTC</span></>}
+        </td>
         <td className="p-2 text-right font-bold tabular-nums">{formatMoney(c.amountMinor, c.currency)}</td>
         <td className="p-2">{providerStateText(c)}</td>
         <td className="p-2">
@@ -68,7 +72,7 @@ export function LedgerTable({ rows }: { rows: CompensationView[] }) {
         <caption className="sr-only">Compensations</caption>
         <thead className="bg-harbour-soft">
           <tr>
-            {['Station', 'Flight', 'Passenger', 'Regime', 'Form', 'Amount', 'At the provider', 'In the ledger', ''].map((h, i) => (
+            {['Station', 'Flight', 'Passenger', 'Regime', 'Medium', 'Amount', 'At the provider', 'In the ledger', ''].map((h, i) => (
               <th key={i} scope="col" className={`p-2 ${h === 'Amount' ? 'text-right' : ''}`}>{h}</th>
             ))}
           </tr>

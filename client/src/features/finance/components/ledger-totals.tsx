@@ -1,4 +1,5 @@
 import type { LedgerResponse } from '@shared/schemas/finance';
+import { MEDIUM_LABELS } from '@shared/schemas/payment-media';
 import { formatMoney } from '../../../lib/format';
 
 const plural = (n: number, word: string) => `${n} ${word}${n === 1 ? '' : 's'}`;
@@ -18,5 +19,33 @@ export function LedgerTotals({ totals, total }: { totals: LedgerResponse['totals
       ))}
       <p className="self-end text-sm text-ink-soft">{plural(total, 'row')} in all. A voided, canceled or refused payment leaves the passenger owed.</p>
     </section>
+  );
+}
+
+/** The same totals per medium: drawers and cheques at the counters, transfers and cards at the provider, credits outstanding. */
+export function MediumTotals({ byMedium }: { byMedium: LedgerResponse['byMedium'] }) {
+  if (!byMedium.length) return null;
+  return (
+    <table className="mt-3 border-collapse text-left" data-testid="medium-totals">
+      <caption className="text-left font-bold">By medium</caption>
+      <thead>
+        <tr>
+          {['Medium', 'Currency', 'Rows', 'Paid', 'Owed'].map((h) => (
+            <th key={h} scope="col" className="border-b-2 border-line p-2">{h}</th>
+          ))}
+        </tr>
+      </thead>
+      <tbody>
+        {byMedium.map((t) => (
+          <tr key={`${t.medium}-${t.currency}`}>
+            <td className="p-2">{MEDIUM_LABELS[t.medium]}</td>
+            <td className="p-2">{t.currency}</td>
+            <td className="p-2 tabular-nums">{t.count}</td>
+            <td className="p-2 tabular-nums">{formatMoney(t.paidMinor, t.currency)}</td>
+            <td className="p-2 tabular-nums">{formatMoney(t.owedMinor, t.currency)}</td>
+          </tr>
+        ))}
+      </tbody>
+    </table>
   );
 }

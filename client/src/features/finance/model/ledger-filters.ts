@@ -1,6 +1,7 @@
 // The ledger's filters as the screen holds them, and as the API (list and CSV alike) reads them.
 import type { CompensationStateCode } from '@shared/schemas/finance';
 import type { RegimeCode } from '@shared/schemas/common';
+import type { Medium } from '@shared/compensation/media';
 
 export interface LedgerFilters {
   stationId: number | null;
@@ -8,11 +9,13 @@ export interface LedgerFilters {
   to: string;
   regime: RegimeCode | '';
   state: CompensationStateCode | '';
+  medium: Medium | '';
+  due: 'overdue' | 'due-soon' | '';
   page: number;
   pageSize: number;
 }
 
-export const EMPTY_FILTERS: LedgerFilters = { stationId: null, from: '', to: '', regime: '', state: '', page: 1, pageSize: 50 };
+export const EMPTY_FILTERS: LedgerFilters = { stationId: null, from: '', to: '', regime: '', state: '', medium: '', due: '', page: 1, pageSize: 50 };
 
 /** Only the filters that are set; paging only for the on-screen list, never for the export. */
 export function ledgerQueryString(f: LedgerFilters, paged: boolean): string {
@@ -22,6 +25,8 @@ export function ledgerQueryString(f: LedgerFilters, paged: boolean): string {
   if (f.to) params.set('to', f.to);
   if (f.regime) params.set('regime', f.regime);
   if (f.state) params.set('state', f.state);
+  if (f.medium) params.set('medium', f.medium);
+  if (f.due) params.set('due', f.due);
   if (paged) {
     params.set('page', String(f.page));
     params.set('pageSize', String(f.pageSize));
