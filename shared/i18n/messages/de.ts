@@ -122,6 +122,7 @@ export const de: Catalogue = {
   'statement.care.itemAmount': '{description} ({amount})',
   'statement.accessible.heading': 'Andere Formate',
   'statement.accessible.body': 'Diese Erklärung gibt es auch als barrierefreie Webseite, die ein Bildschirmleser vorlesen kann. Wenn Sie blind oder sehbehindert sind, fragen Sie das Personal; Sie erhalten sie in dem Format, das Sie brauchen.',
+  'statement.contents': 'Inhalt',
   'statement.caution.heading': 'Hinweis',
   'statement.caution.body': 'Diese Erklärung wurde nach den in diesem System eingerichteten Regeln berechnet. Was geschuldet ist, entscheiden die geltende Verordnung, der Beförderungsvertrag und die Compliance-Abteilung der Fluggesellschaft.',
 

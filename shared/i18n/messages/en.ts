@@ -121,6 +121,7 @@ export const en = {
   'statement.care.itemAmount': '{description} ({amount})',
   'statement.accessible.heading': 'Other formats',
   'statement.accessible.body': 'This statement is also available as an accessible web page that a screen reader can read aloud. If you are blind or partially sighted, ask any agent and we will give it to you in the format you need.',
+  'statement.contents': 'Contents',
   'statement.caution.heading': 'Caution',
   'statement.caution.body': "This statement was computed from the rules configured in this system. The applicable regulation, the carrier's contract of carriage and the carrier's compliance staff decide what is owed.",
 

@@ -122,6 +122,7 @@ export const es: Catalogue = {
   'statement.care.itemAmount': '{description} ({amount})',
   'statement.accessible.heading': 'Otros formatos',
   'statement.accessible.body': 'Esta declaración también está disponible como página web accesible que un lector de pantalla puede leer en voz alta. Si es usted ciego o tiene baja visión, pídala a cualquier agente en el formato que necesite.',
+  'statement.contents': 'Índice',
   'statement.caution.heading': 'Advertencia',
   'statement.caution.body': 'Esta declaración se ha calculado con las normas configuradas en este sistema. El reglamento aplicable, el contrato de transporte y el personal de cumplimiento de la aerolínea deciden lo que se debe.',
 

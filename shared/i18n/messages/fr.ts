@@ -122,6 +122,7 @@ export const fr: Catalogue = {
   'statement.care.itemAmount': '{description} ({amount})',
   'statement.accessible.heading': 'Autres formats',
   'statement.accessible.body': 'Cette déclaration existe aussi sous forme de page web accessible, lisible par un lecteur d’écran. Si vous êtes aveugle ou malvoyant, demandez-la à un agent dans le format qui vous convient.',
+  'statement.contents': 'Sommaire',
   'statement.caution.heading': 'Mise en garde',
   'statement.caution.body': 'Cette déclaration a été calculée à partir des règles configurées dans ce système. Le règlement applicable, le contrat de transport et le service de conformité du transporteur déterminent ce qui est dû.',
 

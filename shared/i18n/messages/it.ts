@@ -122,6 +122,7 @@ export const it: Catalogue = {
   'statement.care.itemAmount': '{description} ({amount})',
   'statement.accessible.heading': 'Altri formati',
   'statement.accessible.body': 'Questa dichiarazione è disponibile anche come pagina web accessibile, leggibile ad alta voce da un lettore di schermo. Se è cieco o ipovedente, la chieda a un addetto nel formato di cui ha bisogno.',
+  'statement.contents': 'Indice',
   'statement.caution.heading': 'Avvertenza',
   'statement.caution.body': 'Questa dichiarazione è stata calcolata con le regole configurate in questo sistema. Il regolamento applicabile, il contratto di trasporto e l’ufficio conformità del vettore decidono quanto è dovuto.',
 
