@@ -17,6 +17,7 @@ import { AlertsAndCabinChanges1796260000000 } from './1796260000000-AlertsAndCab
 import { ForecastVersion1796270000000 } from './1796270000000-ForecastVersion';
 import { ForeignKeys1796290000000 } from './1796290000000-ForeignKeys';
 import { CompensationMedium1796295000000 } from './1796295000000-CompensationMedium';
+import { BookingLanguage1796330000000 } from './1796330000000-BookingLanguage';
 
 export const migrations = [
   Initial1796151413508,
@@ -37,4 +38,5 @@ export const migrations = [
   ForecastVersion1796270000000,
   ForeignKeys1796290000000,
   CompensationMedium1796295000000,
+  BookingLanguage1796330000000,
 ];

@@ -59,6 +59,7 @@ export async function applyEvent(em: EntityManager, stationId: number, e: Integr
     booking.itinerary = e.itinerary;
     booking.status = 'active';
     booking.contactEmail = e.contactEmail;
+    booking.language = e.language;
     await em.save(booking);
     await em.delete(PassengerEntity, { bookingId: booking.id });
     await em.insert(PassengerEntity, e.passengers.map((p, i) => ({
