@@ -2,6 +2,7 @@
 // ones). Staff screens are in English; the passenger's page picks the passenger's language and can switch.
 import { createContext, useCallback, useContext, useMemo, useState, type ReactNode } from 'react';
 import { IntlProvider, useIntl } from 'react-intl';
+import { formatMoney, userLocale } from './money';
 import { CATALOGUES, LOCALE_OF, isLanguage, pickLanguage, translator, type Language, type MessageKey, type MessageValues, type Translator } from '@shared/i18n';
 
 interface LanguageState {
@@ -77,3 +78,14 @@ export function browserLanguages(): string[] {
 }
 
 export { pickLanguage, type Language };
+
+/**
+ * Money as the person reads it: the browser's own regional format when it is in the page's language ("$400.00" in
+ * en-US, "400,00 $" in fr-CA), else the language's usual format.
+ */
+export function useMoney(): (amountMinor: number, currency: string) => string {
+  const { language } = useLanguage();
+  const browser = userLocale();
+  const locale = browser.toLowerCase().split('-')[0] === language ? browser : LOCALE_OF[language];
+  return useCallback((amountMinor: number, currency: string) => formatMoney(amountMinor, currency, locale), [locale]);
+}

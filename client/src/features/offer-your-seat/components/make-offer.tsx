@@ -5,7 +5,7 @@ import type { publicOfferSchema } from '@shared/schemas/volunteers';
 import { offerKeys, OfferRequestError, usePlaceBid } from '../api/public-offer';
 import { readAmount } from '../model/amount';
 import type { Identified } from '../model/passenger-session';
-import { useFormats, useT } from '../../../lib/language';
+import { useFormats, useMoney, useT } from '../../../lib/language';
 import { BigButton } from './big-button';
 
 type OpenRound = NonNullable<z.infer<typeof publicOfferSchema>['round']>;
@@ -19,6 +19,7 @@ export function MakeOffer({ token, round, who, onSessionLost, onLinkInvalid }: {
   const id = useId();
   const t = useT();
   const f = useFormats();
+  const money = useMoney();
   const seats = who.names.length;
 
   function send(body: { askMinor?: number; acceptPosted?: true }) {
@@ -50,7 +51,7 @@ export function MakeOffer({ token, round, who, onSessionLost, onLinkInvalid }: {
       <p className="text-xl">{t('passenger.offer.giveUp', { count: seats, names: f.list(who.names) })}</p>
       {round.kind === 'posted' && round.offerMinor !== null ? (
         <BigButton disabled={bid.isPending} onClick={() => send({ acceptPosted: true })}>
-          {bid.isPending ? t('passenger.offer.sending') : t('passenger.offer.accept', { amount: f.money('offer', { amountMinor: round.offerMinor, currency: round.currency }) })}
+          {bid.isPending ? t('passenger.offer.sending') : t('passenger.offer.accept', { amount: money(round.offerMinor, round.currency) })}
         </BigButton>
       ) : (
         <form onSubmit={submitAsk} noValidate className="space-y-3">

@@ -1,6 +1,6 @@
 import type { z } from 'zod';
 import type { publicOfferSchema } from '@shared/schemas/volunteers';
-import { useFormats, useT } from '../../../lib/language';
+import { useFormats, useMoney, useT } from '../../../lib/language';
 
 type PublicOffer = z.infer<typeof publicOfferSchema>;
 
@@ -9,6 +9,7 @@ export function OfferSummary({ offer, offerSent }: { offer: PublicOffer; offerSe
   const { flight, round } = offer;
   const t = useT();
   const f = useFormats();
+  const money = useMoney();
   return (
     <div className="space-y-4">
       <header>
@@ -26,7 +27,7 @@ export function OfferSummary({ offer, offerSent }: { offer: PublicOffer; offerSe
             <p className="mt-2 text-xl">
               {t('passenger.airlineOffers')}
               <span className="block text-5xl leading-tight font-bold tabular-nums break-words sm:text-6xl" data-testid="offer-amount">
-                {f.money('offer', { amountMinor: round.offerMinor, currency: round.currency })}
+                {money(round.offerMinor, round.currency)}
               </span>
               {t('passenger.perSeat')}
             </p>

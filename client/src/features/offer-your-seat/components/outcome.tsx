@@ -1,6 +1,6 @@
 import type { z } from 'zod';
 import type { passengerStatusSchema } from '@shared/schemas/volunteers';
-import { useFormats, useT } from '../../../lib/language';
+import { useFormats, useMoney, useT } from '../../../lib/language';
 
 type Status = z.infer<typeof passengerStatusSchema>;
 
@@ -8,12 +8,13 @@ type Status = z.infer<typeof passengerStatusSchema>;
 export function Outcome({ status, timeZone }: { status: Status; timeZone: string }) {
   const t = useT();
   const f = useFormats();
+  const money = useMoney();
   if (status.status === 'accepted') {
     return (
       <section role="status" className="rounded-xl border-4 border-calm bg-calm-soft p-5" data-testid="outcome" data-status="accepted">
         <h2 className="text-3xl font-bold text-calm"><span aria-hidden>✓ </span>{t('passenger.outcome.accepted')}</h2>
         {status.agreedMinor !== null && status.currency && (
-          <p className="mt-2 text-2xl">{t('passenger.outcome.receive', { amount: f.money('agreed', { amountMinor: status.agreedMinor, currency: status.currency }) })}</p>
+          <p className="mt-2 text-2xl">{t('passenger.outcome.receive', { amount: money(status.agreedMinor, status.currency) })}</p>
         )}
         {status.rebooking ? (
           <div className="mt-4 rounded-lg border-2 border-calm bg-card p-4" data-testid="new-flight">
