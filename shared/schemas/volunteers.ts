@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { LANGUAGES } from '../i18n/languages';
 import { currencySchema } from './common';
 import { minorAmountSchema } from './money';
 
@@ -105,7 +106,7 @@ export const identifyBodySchema = z.object({
   pnr: z.string().trim().toUpperCase().regex(/^[A-Z0-9]{5,8}$/, 'booking reference must be 5-8 letters or digits'),
   lastName: z.string().trim().min(1, 'last name is required').max(60),
 });
-export const identifiedSchema = z.object({ passengerToken: z.string(), names: z.array(z.string()) });
+export const identifiedSchema = z.object({ passengerToken: z.string(), names: z.array(z.string()), language: z.enum(LANGUAGES).nullable().optional() });
 export const passengerBidBodySchema = z.object({ passengerToken: z.string().min(10), askMinor: minor('askMinor').optional(), acceptPosted: z.boolean().optional() })
   .refine((b) => b.askMinor !== undefined || b.acceptPosted, { message: 'name the least you would accept, or accept the posted offer', path: ['askMinor'] });
 export const passengerStatusSchema = z.object({ status: z.enum(['none', 'offered', 'accepted', 'declined', 'withdrawn']), agreedMinor: z.number().nullable(), currency: z.string(), rebooking: volunteerSchema.shape.rebooking, message: z.string() });

@@ -96,7 +96,7 @@ describe('us-dot (14 CFR 250.5)', () => {
       expect(mail.text).toContain(`\n${heading}\n`);
     }
     // 400% of USD 300.00 = USD 1,200.00 (250.5(a)(3), 3 h late, under the USD 2,150 cap).
-    expect(mail.text).toContain('Your compensation: USD 1,200.00.');
+    expect(mail.text).toContain('Your compensation: USD\u00a01,200.00.');
     expect(mail.text).toContain('Larkfield Air (demo carrier)');
     expect(mail.subject).toMatch(/^Denied boarding on Larkfield Air \(demo carrier\) flight ZZ 8\d{3} of /);
     expect(mail.dedupe_key).toBe(`denial-statement:${c.denialId}:${c.passengerIds[0]}`);
@@ -142,7 +142,7 @@ describe('ca-appr (SOR/2019-150 s. 20(1))', () => {
     const mails = await statementMessages(c.flight.id);
     expect(mails).toHaveLength(2);
     for (const heading of ['Compensation amounts', 'Payment and top-up', 'Recourse', 'Caution']) expect(mails[0].text).toContain(`\n${heading}\n`);
-    expect(mails[0].text).toContain('CAD 1,800.00');
+    expect(mails[0].text).toContain('CAD\u00a01,800.00');
     const rebookingNotice = await t.db.query(`SELECT COUNT(*) AS n FROM outbox_messages WHERE flight_id = ? AND kind = 'rebooking-notice'`, [c.flight.id]);
     expect(Number(rebookingNotice[0].n)).toBe(1);
   });

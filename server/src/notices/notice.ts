@@ -1,5 +1,6 @@
 // A notice is written once as blocks and rendered twice, as plain text and as HTML, so the two never drift
 // apart and every piece of data passes through the one escaping function.
+import { translator, type Language, type Translator } from '@shared/i18n';
 import { escapeHtml } from './format';
 
 export interface Notice {
@@ -18,18 +19,21 @@ export type Block =
  * Every notice ends with this: the figures come from configured rules, and people with authority decide what
  * is owed.
  */
-export const CAUTION =
-  'Amounts in this message were computed from the rules configured for this station and the applicable passenger-rights ' +
-  'regulation. The regulation, the contract of carriage and the carrier\'s compliance staff decide what is owed; ' +
-  'if anything here differs from them, they prevail.';
+export const CAUTION = translator('en').t('notice.caution');
 
-export function renderNotice(subject: string, blocks: readonly Block[]): Notice {
+/** The notice in the translator's language: the caution and its label too, and the page's lang attribute. */
+export function renderNotice(subject: string, blocks: readonly Block[], tr: Translator = translator('en')): Notice {
   if (/[\r\n]/.test(subject)) throw new RangeError('subject: must be one line');
-  const all = [...blocks, { kind: 'caution', text: CAUTION } as const];
-  return { subject, text: `${all.map(blockText).join('\n\n')}\n`, html: pageHtml(subject, all.map(blockHtml).join('\n')) };
+  const all = [...blocks, { kind: 'caution', text: tr.t('notice.caution') } as const];
+  const note = tr.t('notice.pleaseNote');
+  return {
+    subject,
+    text: `${all.map((b) => blockText(b, note)).join('\n\n')}\n`,
+    html: pageHtml(subject, all.map((b) => blockHtml(b, note)).join('\n'), tr.language),
+  };
 }
 
-function blockText(block: Block): string {
+function blockText(block: Block, note: string): string {
   switch (block.kind) {
     case 'paragraph':
       return block.text;
@@ -40,11 +44,11 @@ function blockText(block: Block): string {
     case 'list':
       return [block.title, ...block.items.map((item) => `- ${item}`)].join('\n');
     case 'caution':
-      return `Please note: ${block.text}`;
+      return `${note} ${block.text}`;
   }
 }
 
-function blockHtml(block: Block): string {
+function blockHtml(block: Block, note: string): string {
   switch (block.kind) {
     case 'paragraph':
       return `<p>${escapeHtml(block.text)}</p>`;
@@ -53,10 +57,10 @@ function blockHtml(block: Block): string {
     case 'list':
       return `<p>${escapeHtml(block.title)}</p><ul>${block.items.map((item) => `<li>${escapeHtml(item)}</li>`).join('')}</ul>`;
     case 'caution':
-      return `<p style="font-size:smaller;color:#555"><strong>Please note:</strong> ${escapeHtml(block.text)}</p>`;
+      return `<p style="font-size:smaller;color:#555"><strong>${escapeHtml(note)}</strong> ${escapeHtml(block.text)}</p>`;
   }
 }
 
-function pageHtml(subject: string, body: string): string {
-  return `<!doctype html>\n<html lang="en"><head><meta charset="utf-8"><title>${escapeHtml(subject)}</title></head>\n<body style="font-family:sans-serif;line-height:1.4">\n${body}\n</body></html>\n`;
+function pageHtml(subject: string, body: string, language: Language): string {
+  return `<!doctype html>\n<html lang="${language}"><head><meta charset="utf-8"><title>${escapeHtml(subject)}</title></head>\n<body style="font-family:sans-serif;line-height:1.4">\n${body}\n</body></html>\n`;
 }

@@ -1,6 +1,8 @@
-// The e-mail that tells passengers which flight they are now booked on, and how much later they arrive.
-import { formatDuration, formatLocalDateTime, joinNames, assertInstant } from './format';
-import { assertFlightRef, assertPnr, assertStation, designator, flightWords, type FlightRef, type NoticeStation } from './flight-words';
+// The e-mail that tells passengers which flight they are now booked on, and how much later they arrive, in the
+// booking's language.
+import { translator, type Language, type Translator } from '@shared/i18n';
+import { joinNames, assertInstant } from './format';
+import { assertFlightRef, assertPnr, assertStation, designator, type FlightRef, type NoticeStation } from './flight-words';
 import { renderNotice, type Block, type Notice } from './notice';
 
 export type RebookingReason = 'volunteered' | 'denied-boarding';
@@ -12,12 +14,11 @@ export interface RebookingNoticeInput {
   reason: RebookingReason;
   originalFlight: FlightRef & { scheduledDeparture: Date; scheduledArrival: Date };
   newFlight: FlightRef & { departure: Date; arrival: Date };
+  /** The booking's language; English when absent. */
+  language?: Language;
 }
 
-const REASON_WORDS: Record<RebookingReason, (several: boolean) => string> = {
-  volunteered: (several) => `you agreed to give up your ${several ? 'seats' : 'seat'}`,
-  'denied-boarding': () => 'more passengers held confirmed bookings than the aircraft had seats, and you could not be carried on it',
-};
+const REASONS: readonly RebookingReason[] = ['volunteered', 'denied-boarding'];
 
 export function rebookingNotice(input: RebookingNoticeInput): Notice {
   assertStation('station', input.station);
@@ -26,41 +27,40 @@ export function rebookingNotice(input: RebookingNoticeInput): Notice {
   assertFlightRef('newFlight', input.newFlight);
   assertInstant('originalFlight.scheduledArrival', input.originalFlight.scheduledArrival);
   assertInstant('newFlight.arrival', input.newFlight.arrival);
-  if (!(input.reason in REASON_WORDS)) throw new RangeError(`reason: expected volunteered or denied-boarding, got ${JSON.stringify(input.reason)}`);
+  if (!REASONS.includes(input.reason)) throw new RangeError(`reason: expected volunteered or denied-boarding, got ${JSON.stringify(input.reason)}`);
+  const tr = translator(input.language ?? 'en');
   const zone = input.station.timeZone;
-  const names = joinNames('passengerNames', input.passengerNames);
-  const several = input.passengerNames.length > 1;
+  joinNames('passengerNames', input.passengerNames);
+  const names = tr.list(input.passengerNames.map((n) => n.trim()));
+  const count = input.passengerNames.length;
   const lateMinutes = (input.newFlight.arrival.getTime() - input.originalFlight.scheduledArrival.getTime()) / 60_000;
+  const words = (flight: FlightRef) => tr.t('notice.flightWords', { flight: designator(flight), origin: flight.origin, destination: flight.destination });
 
   const blocks: Block[] = [
-    { kind: 'paragraph', text: `Dear ${names},` },
-    {
-      kind: 'paragraph',
-      text: `You are no longer booked on flight ${flightWords(input.originalFlight)}, because ${REASON_WORDS[input.reason](several)}. ` +
-        `We have booked ${several ? 'you all' : 'you'} on the flight below.`,
-    },
+    { kind: 'paragraph', text: tr.t('notice.greeting', { names }) },
+    { kind: 'paragraph', text: tr.t('notice.rebooking.intro', { flight: words(input.originalFlight), reason: input.reason === 'volunteered' ? 'volunteered' : 'denied', count }) },
     {
       kind: 'facts',
       rows: [
-        ['Booking reference', input.pnr],
-        ['New flight', flightWords(input.newFlight)],
-        ['Leaves', formatLocalDateTime('newFlight.departure', input.newFlight.departure, zone)],
-        ['Arrives', formatLocalDateTime('newFlight.arrival', input.newFlight.arrival, zone)],
-        ['Original flight', `${designator(input.originalFlight)}, scheduled to leave ${formatLocalDateTime('originalFlight.scheduledDeparture', input.originalFlight.scheduledDeparture, zone)}`],
+        [tr.t('notice.pnr'), input.pnr],
+        [tr.t('notice.rebooking.newFlight'), words(input.newFlight)],
+        [tr.t('notice.leaves'), tr.dateTime('newFlight.departure', input.newFlight.departure, zone)],
+        [tr.t('notice.arrives'), tr.dateTime('newFlight.arrival', input.newFlight.arrival, zone)],
+        [tr.t('notice.rebooking.original'), tr.t('notice.rebooking.originalValue', {
+          flight: designator(input.originalFlight), at: tr.dateTime('originalFlight.scheduledDeparture', input.originalFlight.scheduledDeparture, zone),
+        })],
       ],
     },
-    { kind: 'paragraph', text: arrivalWords(lateMinutes) },
+    { kind: 'paragraph', text: arrivalWords(tr, lateMinutes) },
   ];
-  if (input.reason === 'denied-boarding') {
-    blocks.push({ kind: 'paragraph', text: 'You will also receive a written statement of your rights and of any compensation due.' });
-  }
-  blocks.push({ kind: 'paragraph', text: 'If this flight does not suit you, speak to an agent at the gate or the transfer desk before it leaves.' });
+  if (input.reason === 'denied-boarding') blocks.push({ kind: 'paragraph', text: tr.t('notice.rebooking.statement') });
+  blocks.push({ kind: 'paragraph', text: tr.t('notice.rebooking.notSuit') });
 
-  return renderNotice(`Your new flight: ${designator(input.newFlight)} to ${input.newFlight.destination} (booking ${input.pnr})`, blocks);
+  const subject = tr.t('notice.rebooking.subject', { flight: designator(input.newFlight), destination: input.newFlight.destination, pnr: input.pnr });
+  return renderNotice(subject, blocks, tr);
 }
 
-function arrivalWords(lateMinutes: number): string {
-  if (Math.round(lateMinutes) === 0) return 'You are planned to arrive at the same time as on your original flight.';
-  const when = lateMinutes > 0 ? 'later' : 'earlier';
-  return `You are planned to arrive ${formatDuration(lateMinutes)} ${when} than on your original flight.`;
+function arrivalWords(tr: Translator, lateMinutes: number): string {
+  if (Math.round(lateMinutes) === 0) return tr.t('notice.rebooking.same');
+  return tr.t(lateMinutes > 0 ? 'notice.rebooking.later' : 'notice.rebooking.earlier', { duration: tr.duration(lateMinutes) });
 }

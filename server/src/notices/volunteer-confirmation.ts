@@ -1,6 +1,8 @@
-// The e-mail a volunteer gets once they have agreed to give up their seat: what was agreed, and the new flight.
-import { formatLocalDateTime, formatMoneyMinor, joinNames } from './format';
-import { assertFlightRef, assertPnr, assertStation, cleanList, flightWords, type FlightRef, type NoticeStation } from './flight-words';
+// The e-mail a volunteer gets once they have agreed to give up their seat: what was agreed, and the new flight, in
+// the booking's language.
+import { translator, type Language } from '@shared/i18n';
+import { joinNames } from './format';
+import { assertFlightRef, assertPnr, assertStation, cleanList, designator, type FlightRef, type NoticeStation } from './flight-words';
 import { renderNotice, type Block, type Notice } from './notice';
 
 export interface VolunteerConfirmationInput {
@@ -16,34 +18,38 @@ export interface VolunteerConfirmationInput {
   voucherRestrictions?: readonly string[];
   /** null when the new flight is not booked yet. */
   rebooking: (FlightRef & { departure: Date; arrival: Date }) | null;
+  /** The booking's language; English when absent. */
+  language?: Language;
 }
 
 export function volunteerConfirmation(input: VolunteerConfirmationInput): Notice {
   assertStation('station', input.station);
   assertFlightRef('flight', input.flight);
   assertPnr('pnr', input.pnr);
+  const tr = translator(input.language ?? 'en');
   const zone = input.station.timeZone;
-  const names = joinNames('passengerNames', input.passengerNames);
-  const amount = formatMoneyMinor('agreedTotal', input.agreedTotal);
-  const departure = formatLocalDateTime('flight.scheduledDeparture', input.flight.scheduledDeparture, zone);
+  joinNames('passengerNames', input.passengerNames);
+  const names = tr.list(input.passengerNames.map((n) => n.trim()));
+  const amount = tr.money('agreedTotal', input.agreedTotal);
+  const departure = tr.dateTime('flight.scheduledDeparture', input.flight.scheduledDeparture, zone);
   const extras = cleanList(input.extras);
   const restrictions = cleanList(input.voucherRestrictions);
-  const several = input.passengerNames.length > 1;
+  const count = input.passengerNames.length;
+  const words = (flight: FlightRef) => tr.t('notice.flightWords', { flight: designator(flight), origin: flight.origin, destination: flight.destination });
 
   const blocks: Block[] = [
-    { kind: 'paragraph', text: `Dear ${names},` },
+    { kind: 'paragraph', text: tr.t('notice.greeting', { names }) },
     {
       kind: 'paragraph',
-      text: `Thank you for agreeing to give up your ${several ? 'seats' : 'seat'} on flight ${flightWords(input.flight)}, ` +
-        `scheduled to leave ${input.station.name} (${input.station.iata}) on ${departure}. This message confirms what was agreed.`,
+      text: tr.t('notice.volunteer.intro', { count, flight: words(input.flight), station: input.station.name, iata: input.station.iata, at: departure }),
     },
     {
       kind: 'facts',
       rows: [
-        ['Booking reference', input.pnr],
-        [several ? 'Passengers' : 'Passenger', names],
-        ['Agreed compensation', several ? `${amount} in total for the passengers named above` : amount],
-        ...(extras.length > 0 ? [['Also provided', extras.join(', ')] as const] : []),
+        [tr.t('notice.pnr'), input.pnr],
+        [tr.t('notice.volunteer.passengers', { count }), names],
+        [tr.t('notice.volunteer.agreed'), count > 1 ? tr.t('notice.volunteer.agreedTotal', { amount }) : amount],
+        ...(extras.length > 0 ? [[tr.t('notice.volunteer.extras'), extras.join(', ')] as const] : []),
       ],
     },
   ];
@@ -52,16 +58,16 @@ export function volunteerConfirmation(input: VolunteerConfirmationInput): Notice
     blocks.push({
       kind: 'facts',
       rows: [
-        ['Your new flight', flightWords(input.rebooking)],
-        ['Leaves', formatLocalDateTime('rebooking.departure', input.rebooking.departure, zone)],
-        ['Arrives', formatLocalDateTime('rebooking.arrival', input.rebooking.arrival, zone)],
+        [tr.t('notice.volunteer.newFlight'), words(input.rebooking)],
+        [tr.t('notice.leaves'), tr.dateTime('rebooking.departure', input.rebooking.departure, zone)],
+        [tr.t('notice.arrives'), tr.dateTime('rebooking.arrival', input.rebooking.arrival, zone)],
       ],
     });
   } else {
-    blocks.push({ kind: 'paragraph', text: 'Your new flight is not booked yet. An agent will book it and you will receive a separate message with the details.' });
+    blocks.push({ kind: 'paragraph', text: tr.t('notice.volunteer.notBooked') });
   }
-  if (restrictions.length > 0) blocks.push({ kind: 'list', title: 'Conditions of the travel credit:', items: restrictions });
-  blocks.push({ kind: 'paragraph', text: 'Please keep this message as your record of the agreement. If anything in it is not what you agreed, speak to an agent before you leave the airport.' });
+  if (restrictions.length > 0) blocks.push({ kind: 'list', title: tr.t('notice.volunteer.conditions'), items: restrictions });
+  blocks.push({ kind: 'paragraph', text: tr.t('notice.volunteer.keep') });
 
-  return renderNotice(`Confirmed: you gave up your ${several ? 'seats' : 'seat'} on ${input.flight.carrierCode} ${input.flight.flightNumber} (booking ${input.pnr})`, blocks);
+  return renderNotice(tr.t('notice.volunteer.subject', { count, flight: designator(input.flight), pnr: input.pnr }), blocks, tr);
 }

@@ -1,15 +1,18 @@
-// Written information for denied boarding under Canada's Air Passenger Protection Regulations (SOR/2019-150).
+// Written information for denied boarding under Canada's Air Passenger Protection Regulations (SOR/2019-150):
+// the reason, compensation and its payment, alternate travel or refund, standards of treatment and recourse.
 import { APPR_DENIED_BOARDING_AMOUNTS, APPR_PAYMENT_HOURS } from '../ca-appr';
 import {
   alternateSection,
-  cautionSection,
+  choiceAndCareSections,
+  closingSections,
   enforcementSection,
   money,
   prioritiesSection,
   subjectLine,
+  translatorFor,
   yourCaseSection,
 } from './common';
-import type { EnforcementBody, StatementInput, WrittenStatement } from './types';
+import type { EnforcementBody, StatementInput, StatementSection, WrittenStatement } from './types';
 
 /** Canada's regulator for air passenger complaints (from memory; override with enforcementBody). */
 export const CANADA_ENFORCEMENT_BODY: EnforcementBody = {
@@ -17,41 +20,48 @@ export const CANADA_ENFORCEMENT_BODY: EnforcementBody = {
   website: 'otc-cta.gc.ca',
 };
 
+const list = (lead: string, items: string[]) => [lead, ...items.map((item) => `- ${item}`)].join('\n');
+
 export function apprStatement(input: StatementInput): WrittenStatement {
+  const tr = translatorFor(input);
   const rows = APPR_DENIED_BOARDING_AMOUNTS;
   const row = rows.find((candidate) => candidate.effectiveFrom === input.compensation.rulesInForce.effectiveFrom) ?? rows[rows.length - 1];
-  const sections = [
+  const amount = (minor: number) => money(tr, input, minor);
+  const sections: StatementSection[] = [
+    { id: 'why', heading: tr.t('statement.why.heading'), body: tr.t('statement.ca.why', { carrier: input.carrierName }) },
+    yourCaseSection(tr, input),
+    prioritiesSection(tr, input),
     {
-      heading: 'Why you received this notice',
-      body: `${input.carrierName} denied you boarding for a reason within its control. Under the Air Passenger Protection Regulations you are owed compensation, alternate travel arrangements and care while you wait.`,
-    },
-    yourCaseSection(input),
-    prioritiesSection(input, 'Volunteers and boarding priorities'),
-    {
-      heading: 'Compensation amounts',
+      id: 'compensation',
+      heading: tr.t('statement.ca.amounts.heading'),
       body: [
-        'Compensation depends on how late you arrive at the destination on your ticket:',
-        `- less than 6 hours late: ${money(input, row.under6hMinor)};`,
-        `- 6 hours or more but less than 9 hours: ${money(input, row.from6hUnder9hMinor)};`,
-        `- 9 hours or more: ${money(input, row.atLeast9hMinor)}.`,
-        `Your compensation: ${money(input, input.compensation.amountMinor)}.`,
+        list(tr.t('statement.ca.amounts.lead'), [
+          tr.t('statement.ca.amounts.under6', { amount: amount(row.under6hMinor) }),
+          tr.t('statement.ca.amounts.from6', { amount: amount(row.from6hUnder9hMinor) }),
+          tr.t('statement.ca.amounts.over9', { amount: amount(row.atLeast9hMinor) }),
+        ]),
+        tr.t('statement.yours', { amount: amount(input.compensation.amountMinor) }),
       ].join('\n'),
     },
     {
-      heading: 'Payment and top-up',
-      body: [
-        `The carrier pays when it tells you of the denial or, at the latest, within ${APPR_PAYMENT_HOURS} hours; if payment comes later, you receive written confirmation of the amount.`,
-        'If you arrive later than planned and the delay falls in a higher band, the carrier tops up the difference.',
-        'Compensation is paid in money unless you choose another form, which must be worth more, and you are told its value in writing.',
-      ].join('\n'),
+      id: 'payment',
+      heading: tr.t('statement.ca.payment.heading'),
+      body: [tr.t('statement.ca.payment.when', { hours: APPR_PAYMENT_HOURS }), tr.t('statement.ca.payment.topUp'), tr.t('statement.ca.payment.form')].join('\n'),
     },
-    alternateSection(input),
-    enforcementSection(
-      'Recourse',
-      input.enforcementBody ?? CANADA_ENFORCEMENT_BODY,
-      'If you disagree with the carrier\'s answer to your claim, you may file a complaint with:',
-    ),
-    cautionSection(),
+    {
+      id: 'remedies',
+      heading: tr.t('statement.ca.travel.heading'),
+      body: list(tr.t('statement.ca.travel.lead'), [tr.t('statement.ca.travel.rebook'), tr.t('statement.ca.travel.refund')]),
+    },
+    alternateSection(tr, input),
+    {
+      id: 'care-due',
+      heading: tr.t('statement.ca.care.heading'),
+      body: list(tr.t('statement.ca.care.lead'), [tr.t('statement.ca.care.food'), tr.t('statement.ca.care.communication'), tr.t('statement.ca.care.hotel')]),
+    },
+    ...choiceAndCareSections(tr, input),
+    enforcementSection(tr, tr.t('statement.ca.recourse.heading'), input.enforcementBody ?? CANADA_ENFORCEMENT_BODY, tr.t('statement.ca.recourse.lead')),
+    ...closingSections(tr),
   ];
-  return { subject: subjectLine(input), sections };
+  return { regime: 'ca-appr', language: tr.language, subject: subjectLine(tr, input), sections };
 }

@@ -1,16 +1,18 @@
 // The written notice of Art. 14(2) Reg. (EC) 261/2004 (and the UK's retained version): Art. 7, 8, 9
-// and the enforcement body's contact details.
+// and the enforcement body's contact details, in the passenger's language.
 import { EU_STYLE_AMOUNTS, REDUCTION_MAX_DELAY_MINUTES, type EuStyleRegime } from '../eu-uk-rules';
 import {
   alternateSection,
-  cautionSection,
+  choiceAndCareSections,
+  closingSections,
   enforcementSection,
   money,
   prioritiesSection,
   subjectLine,
+  translatorFor,
   yourCaseSection,
 } from './common';
-import type { EnforcementBody, StatementInput, WrittenStatement } from './types';
+import type { EnforcementBody, StatementInput, StatementSection, WrittenStatement } from './types';
 
 /** The UK regulator as enforcement body (from memory; override with enforcementBody). */
 export const UK_ENFORCEMENT_BODY: EnforcementBody = {
@@ -18,61 +20,52 @@ export const UK_ENFORCEMENT_BODY: EnforcementBody = {
   website: 'www.caa.co.uk',
 };
 
+const list = (lead: string, items: string[]) => [lead, ...items.map((item) => `- ${item}`)].join('\n');
+
 export function euStyleStatement(regime: EuStyleRegime, input: StatementInput): WrittenStatement {
   const enforcement = input.enforcementBody ?? (regime === 'uk-261' ? UK_ENFORCEMENT_BODY : undefined);
   if (!enforcement) {
     throw new RangeError('enforcementBody: required for eu-261; Art. 14(2) needs the national enforcement body\'s contact details');
   }
-  const instrument = regime === 'eu-261' ? 'Regulation (EC) No 261/2004' : 'the retained UK version of Regulation 261/2004';
+  const tr = translatorFor(input);
+  const which = regime === 'eu-261' ? 'eu' : 'uk';
   const rows = EU_STYLE_AMOUNTS[regime];
   const row = rows.find((candidate) => candidate.effectiveFrom === input.compensation.rulesInForce.effectiveFrom) ?? rows[rows.length - 1];
-  const internal = regime === 'eu-261' ? 'within the EU' : 'within the UK';
   const hours = (band: 'a' | 'b' | 'c') => REDUCTION_MAX_DELAY_MINUTES[band] / 60;
+  const amount = (minor: number) => money(tr, input, minor);
 
-  const sections = [
+  const sections: StatementSection[] = [
+    { id: 'why', heading: tr.t('statement.why.heading'), body: tr.t('statement.eu.why', { carrier: input.carrierName, regime: which }) },
+    yourCaseSection(tr, input),
+    prioritiesSection(tr, input),
     {
-      heading: 'Why you received this notice',
-      body: `You were denied boarding against your will on a flight of ${input.carrierName}. Under ${instrument} the carrier must give you this written notice of the rules on compensation and assistance (Article 14(2)).`,
-    },
-    yourCaseSection(input),
-    prioritiesSection(input, 'Volunteers and boarding priorities'),
-    {
-      heading: 'Compensation (Article 7)',
+      id: 'compensation',
+      heading: tr.t('statement.eu.art7.heading'),
       body: [
-        'Compensation depends on the great-circle distance from your departure airport to your final destination:',
-        `- ${money(input, row.bandAMinor)} for flights of 1,500 km or less;`,
-        `- ${money(input, row.bandBMinor)} for flights ${internal} of more than 1,500 km, and for other flights between 1,500 and 3,500 km;`,
-        `- ${money(input, row.bandCMinor)} for all other flights.`,
-        `If you are re-routed and arrive not more than ${hours('a')} h (up to 1,500 km), ${hours('b')} h (the middle band) or ${hours('c')} h (other flights) after the scheduled arrival of your original flight, the carrier may reduce the compensation by half.`,
-        'Compensation is paid in cash, by bank transfer or by cheque; travel vouchers only if you agree in writing.',
-        `Your compensation: ${money(input, input.compensation.amountMinor)}.`,
+        list(tr.t('statement.eu.art7.lead'), [
+          tr.t('statement.eu.art7.bandA', { amount: amount(row.bandAMinor), km: 1500 }),
+          tr.t('statement.eu.art7.bandB', { amount: amount(row.bandBMinor), regime: which, km: 1500, km2: 3500 }),
+          tr.t('statement.eu.art7.bandC', { amount: amount(row.bandCMinor) }),
+        ]),
+        tr.t('statement.eu.art7.reduction', { a: hours('a'), b: hours('b'), c: hours('c'), km: 1500 }),
+        tr.t('statement.eu.art7.method'),
+        tr.t('statement.yours', { amount: amount(input.compensation.amountMinor) }),
       ].join('\n'),
     },
     {
-      heading: 'Reimbursement or re-routing (Article 8)',
-      body: [
-        'You may choose one of:',
-        '- reimbursement within seven days of the cost of your ticket for the parts not flown (and for parts flown if the journey no longer serves its purpose), with a return flight to your first point of departure where relevant;',
-        '- re-routing to your final destination under comparable conditions at the earliest opportunity;',
-        '- re-routing at a later date of your choice, subject to seat availability.',
-      ].join('\n'),
+      id: 'remedies',
+      heading: tr.t('statement.eu.art8.heading'),
+      body: list(tr.t('statement.eu.art8.lead'), [tr.t('statement.eu.art8.refund'), tr.t('statement.eu.art8.earliest'), tr.t('statement.eu.art8.later')]),
     },
-    alternateSection(input),
+    alternateSection(tr, input),
     {
-      heading: 'Care while you wait (Article 9)',
-      body: [
-        'Free of charge, the carrier must offer you:',
-        '- meals and refreshments in reasonable relation to the waiting time;',
-        '- hotel accommodation when a stay of one or more nights becomes necessary, and transport between the airport and the accommodation;',
-        '- two telephone calls, or two e-mails or other messages.',
-      ].join('\n'),
+      id: 'care-due',
+      heading: tr.t('statement.eu.art9.heading'),
+      body: list(tr.t('statement.eu.art9.lead'), [tr.t('statement.eu.art9.meals'), tr.t('statement.eu.art9.hotel'), tr.t('statement.eu.art9.calls')]),
     },
-    enforcementSection(
-      'Enforcement body',
-      enforcement,
-      'If you believe the carrier has not applied these rules, you may complain to the carrier and to the enforcement body:',
-    ),
-    cautionSection(),
+    ...choiceAndCareSections(tr, input),
+    enforcementSection(tr, tr.t('statement.eu.enforcement.heading'), enforcement, tr.t('statement.eu.enforcement.lead')),
+    ...closingSections(tr),
   ];
-  return { subject: subjectLine(input), sections };
+  return { regime, language: tr.language, subject: subjectLine(tr, input), sections };
 }

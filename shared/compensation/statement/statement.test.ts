@@ -39,7 +39,8 @@ const euInput: StatementInput = {
 };
 
 const headings = (input: StatementInput) => writtenStatement(input).sections.map((section) => section.heading);
-const bodyOf = (input: StatementInput, heading: string) => writtenStatement(input).sections.find((section) => section.heading === heading)?.body ?? '';
+// Amounts keep their code and number together with a no-break space (Intl); the checks read it as a space.
+const bodyOf = (input: StatementInput, heading: string) => (writtenStatement(input).sections.find((section) => section.heading === heading)?.body ?? '').replace(/\u00a0/g, ' ');
 
 describe('us-dot statement: the text 14 CFR 250.9(b) prescribes', () => {
   it('gives the prescribed sections first, then the passenger\'s case, and ends with the caution', () => {
@@ -53,6 +54,7 @@ describe('us-dot statement: the text 14 CFR 250.9(b) prescribes', () => {
       'Your case',
       'Your compensation',
       'Alternate transportation',
+      'Other formats',
       CAUTION_HEADING,
     ]);
   });

@@ -1,5 +1,6 @@
 import type { CompensationResult, Regime } from '../types';
 import type { PriorityRuleInput } from '../../denial/priority-rules.schema';
+import type { Language } from '../../i18n/languages';
 
 export interface StatementPassenger {
   name: string;
@@ -53,15 +54,43 @@ export interface StatementInput {
   enforcementBody?: EnforcementBody;
   /** A travel voucher offered instead of money. */
   voucherOffer?: VoucherOffer;
+  /** The passenger's language; English when absent. */
+  language?: Language;
+  /** What the passenger chose among the remedies the rule offers (refund, re-routing…), shown as "Your choice". */
+  choice?: StatementChoice | null;
+  /** Care given while the passenger waited, shown as "Care given". */
+  care?: StatementCare[];
 }
 
+export interface StatementChoice {
+  /** refund, reroute-earliest, reroute-later, rebook, or the rule's own word (shown as "Choice"). */
+  kind: string;
+  detail: string;
+}
+
+export interface StatementCare {
+  kind: string;
+  description: string;
+  amountMinor?: number;
+  currency?: string;
+}
+
+/** What a section is for, whatever its heading in the passenger's language: the completeness check reads these. */
+export type SectionId =
+  | 'about' | 'why' | 'case' | 'priorities' | 'compensation' | 'payment' | 'remedies' | 'alternate' | 'care-due'
+  | 'enforcement' | 'choice' | 'care-given' | 'accessible' | 'caution'
+  | 'us-250-9';
+
 export interface StatementSection {
+  id: SectionId;
   heading: string;
   /** Plain text; lines starting with "- " are list items. */
   body: string;
 }
 
 export interface WrittenStatement {
+  regime: Regime;
+  language: Language;
   subject: string;
   sections: StatementSection[];
 }

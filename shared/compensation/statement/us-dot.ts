@@ -1,11 +1,12 @@
-// The written statement of 14 CFR 250.9: the text the rule prescribes, with the carrier's name, its boarding
-// priorities and the caps in force inserted, followed by this passenger's own case.
+// The written statement of 14 CFR 250.9: the text the rule prescribes (in English, as prescribed), with the
+// carrier's name, its boarding priorities and the caps in force inserted, followed by this passenger's own case in
+// the passenger's language.
 import { describeRules } from '../../denial/describe';
 import { groupThousands } from '../money';
 import { US_DBC_CAPS } from '../us-dot-rules';
-import { alternateSection, cautionSection, compensationNotes, enforcementSection, money, subjectLine, yourCaseSection } from './common';
+import { alternateSection, choiceAndCareSections, closingSections, compensationNotes, enforcementSection, money, subjectLine, translatorFor, yourCaseSection } from './common';
 import { prescribedSections } from './us-250-9-text';
-import type { StatementInput, WrittenStatement } from './types';
+import type { StatementInput, StatementSection, WrittenStatement } from './types';
 
 /** "$1,075": the caps are whole dollars (§250.5(e) rounds them to $25), written as the rule writes them. */
 function dollars(minor: number): string {
@@ -21,34 +22,38 @@ function priorityLines(input: StatementInput): string[] {
 }
 
 export function usDotStatement(input: StatementInput): WrittenStatement {
+  const tr = translatorFor(input);
   const caps = US_DBC_CAPS.find((row) => row.effectiveFrom === input.compensation.rulesInForce.effectiveFrom) ?? US_DBC_CAPS[US_DBC_CAPS.length - 1];
-  const cash = money(input, input.compensation.amountMinor);
+  const cash = money(tr, input, input.compensation.amountMinor);
   if (input.voucherOffer && input.voucherOffer.currency === 'USD' && input.voucherOffer.valueMinor < input.compensation.amountMinor) {
     throw new RangeError(`voucherOffer.valueMinor: a voucher must be worth at least the cash compensation of ${cash} (14 CFR 250.5(c))`);
   }
   if (input.voucherOffer && input.voucherOffer.currency !== 'USD') {
     throw new RangeError('voucherOffer.currency: expected USD for us-dot');
   }
+  const voucher = input.voucherOffer;
+  const voucherLine = !voucher
+    ? tr.t('statement.us.noVoucher')
+    : voucher.restrictions
+      ? tr.t('statement.us.voucherConditions', { value: money(tr, input, voucher.valueMinor), conditions: voucher.restrictions, cash })
+      : tr.t('statement.us.voucher', { value: money(tr, input, voucher.valueMinor), cash });
 
-  const sections = [
+  const sections: StatementSection[] = [
+    // The rule prescribes English words; a passenger reading another language is told so first.
+    ...(tr.language === 'en' ? [] : [{ id: 'about' as const, heading: tr.t('statement.us.prescribed.heading'), body: tr.t('statement.us.prescribed.body') }]),
     ...prescribedSections({ carrierName: input.carrierName, priorityLines: priorityLines(input), cap200: dollars(caps.domestic200CapMinor), cap400: dollars(caps.domestic400CapMinor) }),
-    yourCaseSection(input),
+    yourCaseSection(tr, input),
     {
-      heading: 'Your compensation',
-      body: [
-        `Your compensation: ${cash}.`,
-        'The fare is the one-way fare to your destination or first stopover, including mandatory taxes and fees. For a ticket issued without a fare, the lowest cash fare in the same class on this flight is used.',
-        ...compensationNotes(input),
-        input.voucherOffer
-          ? `Offer made to you: a travel voucher worth ${money(input, input.voucherOffer.valueMinor)}${input.voucherOffer.restrictions ? ` (conditions: ${input.voucherOffer.restrictions})` : ''}. You may refuse it and receive ${cash}.`
-          : 'No voucher has been offered in place of money.',
-      ].join('\n'),
+      id: 'compensation',
+      heading: tr.t('statement.us.yours.heading'),
+      body: [tr.t('statement.yours', { amount: cash }), tr.t('statement.us.fare'), ...compensationNotes(tr, input), voucherLine].join('\n'),
     },
-    alternateSection(input),
+    alternateSection(tr, input),
+    ...choiceAndCareSections(tr, input),
   ];
   if (input.enforcementBody) {
-    sections.push(enforcementSection('Questions and complaints', input.enforcementBody, 'You may also contact:'));
+    sections.push(enforcementSection(tr, tr.t('statement.us.questions.heading'), input.enforcementBody, tr.t('statement.us.questions.lead')));
   }
-  sections.push(cautionSection());
-  return { subject: subjectLine(input), sections };
+  sections.push(...closingSections(tr));
+  return { regime: 'us-dot', language: tr.language, subject: subjectLine(tr, input), sections };
 }

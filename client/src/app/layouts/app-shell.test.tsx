@@ -5,6 +5,8 @@ import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
 import { createMemoryRouter, RouterProvider } from 'react-router-dom';
 import { afterEach, describe, expect, it } from 'vitest';
 import type { SessionResponse } from '@shared/schemas/auth';
+import type { Language } from '@shared/i18n';
+import { LanguageProvider } from '../../lib/language';
 import { sessionKeys } from '../../lib/session';
 import { useCurrentStation } from '../use-current-station';
 import { AppShell } from './app-shell';
@@ -25,15 +27,17 @@ function StationPage() {
   return <p data-testid="page-station">{station?.iata}</p>;
 }
 
-function show(path: string) {
+function show(path: string, language: Language = 'en') {
   localStorage.clear();
   const qc = new QueryClient({ defaultOptions: { queries: { retry: false, staleTime: Infinity } } });
   qc.setQueryData(sessionKeys.all, SESSION);
   const router = createMemoryRouter([{ path: '/', element: <AppShell />, children: [{ path: 'day', element: <StationPage /> }] }], { initialEntries: [path] });
   render(
-    <QueryClientProvider client={qc}>
-      <RouterProvider router={router} />
-    </QueryClientProvider>,
+    <LanguageProvider initial={language}>
+      <QueryClientProvider client={qc}>
+        <RouterProvider router={router} />
+      </QueryClientProvider>
+    </LanguageProvider>,
   );
   return router;
 }
@@ -60,5 +64,19 @@ describe('the station picker and the page', () => {
     expect(screen.getByTestId('page-station')).toHaveTextContent('YUL');
     // The main navigation keeps the station when moving between pages.
     expect(screen.getByRole('link', { name: 'Station day' })).toHaveAttribute('href', '/day?station=YUL');
+  });
+});
+
+describe('the shell on the message catalogues', () => {
+  it('names the navigation from the catalogue of the language it is given', async () => {
+    show('/day?station=BOS', 'fr');
+    expect(await screen.findByRole('navigation', { name: 'Principal' })).toHaveTextContent('Journée de l’escale');
+    expect(screen.getByRole('button', { name: 'Se déconnecter' })).toBeInTheDocument();
+  });
+
+  it('is in English for staff by default', async () => {
+    show('/day?station=BOS');
+    expect(await screen.findByRole('link', { name: 'Station day' })).toBeInTheDocument();
+    expect(screen.getByRole('link', { name: 'Planner' })).toBeInTheDocument();
   });
 });

@@ -2,6 +2,7 @@ import { useEffect } from 'react';
 import { NavLink, Outlet, useLocation, useNavigate } from 'react-router-dom';
 import { useQuery } from '@tanstack/react-query';
 import { ROLE_LABELS } from '@shared/schemas/common';
+import { useT } from '../../lib/language';
 import { sessionQueryOptions, useSignOut } from '../../lib/session';
 import { onUnauthenticated } from '../../lib/api-client';
 import { NAV_ITEMS } from '../role-homes';
@@ -15,6 +16,7 @@ export function AppShell() {
   const navigate = useNavigate();
   const location = useLocation();
   const qc = useQueryClient();
+  const t = useT();
   const { station, stations, choose, inUrl } = useCurrentStation();
 
   // The station belongs in the URL: a page opened without one (or with one the user does not belong to) gets the
@@ -36,7 +38,7 @@ export function AppShell() {
   return (
     <div className="min-h-screen">
       <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:left-2 focus:top-2 focus:bg-signal focus:p-2">
-        Skip to content
+        {t('staff.skip')}
       </a>
       <header className="no-print bg-harbour text-white">
         <div className="mx-auto flex max-w-7xl flex-wrap items-center gap-x-6 gap-y-2 px-4 py-3">
@@ -45,10 +47,10 @@ export function AppShell() {
             Bumpboard
           </span>
           {user && (
-            <nav aria-label="Main" className="flex flex-wrap gap-1">
+            <nav aria-label={t('staff.nav.label')} className="flex flex-wrap gap-1">
               {NAV_ITEMS.filter((i) => i.roles.includes(user.role)).map((i) => (
                 <NavLink key={i.to} to={station ? `${i.to}?${STATION_PARAM}=${station.iata}` : i.to} className={({ isActive }) => `rounded px-3 py-2 font-bold ${isActive ? 'bg-white text-harbour' : 'hover:bg-white/15'}`}>
-                  {i.label}
+                  {t(i.labelKey)}
                 </NavLink>
               ))}
             </nav>
@@ -57,7 +59,7 @@ export function AppShell() {
             <div className="ml-auto flex flex-wrap items-center gap-3">
               {stations.length > 1 ? (
                 <label className="flex items-center gap-2">
-                  <span className="text-sm">Station</span>
+                  <span className="text-sm">{t('staff.station')}</span>
                   <select data-testid="station-picker" className="rounded bg-white px-2 py-1 font-bold text-harbour" value={station?.id ?? ''} onChange={(e) => choose(Number(e.target.value))}>
                     {stations.map((s) => (
                       <option key={s.id} value={s.id}>
@@ -73,13 +75,13 @@ export function AppShell() {
                 {user.displayName} · {ROLE_LABELS[user.role]}
               </span>
               <button type="button" className="rounded border-2 border-white px-3 py-1 font-bold hover:bg-white hover:text-harbour" onClick={() => signOut.mutate(undefined, { onSettled: () => navigate('/sign-in') })}>
-                Sign out
+                {t('staff.signOut')}
               </button>
             </div>
           )}
         </div>
         {session?.demo && (
-          <p className="bg-signal px-4 py-1 text-center text-sm font-bold text-ink">Demo data: an invented carrier, invented people and flights.</p>
+          <p className="bg-signal px-4 py-1 text-center text-sm font-bold text-ink">{t('staff.demo')}</p>
         )}
       </header>
       <main id="main">

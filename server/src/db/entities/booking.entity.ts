@@ -1,5 +1,6 @@
 import { Column, CreateDateColumn, Entity, Index, JoinColumn, ManyToOne, OneToMany, PrimaryGeneratedColumn, type Relation } from 'typeorm';
 import type { JourneySegment } from '@shared/compensation';
+import type { Language } from '@shared/i18n';
 import { FlightEntity } from './flight.entity';
 import { PassengerEntity } from './passenger.entity';
 
@@ -22,6 +23,10 @@ export class BookingEntity {
 
   @Column({ type: 'varchar', length: 254, name: 'contact_email', nullable: true })
   contactEmail!: string | null;
+
+  /** The language the party reads notices and statements in; null when the booking system did not say. */
+  @Column({ type: 'varchar', length: 5, nullable: true, default: null })
+  language!: Language | null;
 
   /** Whether the party must travel (and show) together; a party may choose to split at the gate. */
   @Column({ type: 'boolean', name: 'travels_together', default: true })

@@ -20,6 +20,7 @@ import { CompensationMedium1796295000000 } from './1796295000000-CompensationMed
 import { PaymentMediaAgreements1796300000000 } from './1796300000000-PaymentMediaAgreements';
 import { PassengerPaymentLinks1796310000000 } from './1796310000000-PassengerPaymentLinks';
 import { CareAndChoice1796320000000 } from './1796320000000-CareAndChoice';
+import { BookingLanguage1796330000000 } from './1796330000000-BookingLanguage';
 import { LearnedShowRates1796340000000 } from './1796340000000-LearnedShowRates';
 import { FlightSchedules1796370000000 } from './1796370000000-FlightSchedules';
 
@@ -45,6 +46,7 @@ export const migrations = [
   PaymentMediaAgreements1796300000000,
   PassengerPaymentLinks1796310000000,
   CareAndChoice1796320000000,
+  BookingLanguage1796330000000,
   LearnedShowRates1796340000000,
   FlightSchedules1796370000000,
 ];

@@ -141,7 +141,7 @@ async function queueStatements(em: EntityManager, job: StatementJob): Promise<st
   const ids: string[] = [];
   for (const passenger of job.passengers) {
     const compensation = job.snapshot.passengers.find((c) => c.passengerId === passenger.id)!;
-    const mail = statementMail(statementFor({ station: job.station, flight: job.original, pnr: job.booking.pnr, passenger, compensation, rebooking: job.rebooking, rules }));
+    const mail = statementMail(statementFor({ station: job.station, flight: job.original, pnr: job.booking.pnr, passenger, compensation, rebooking: job.rebooking, rules, language: job.booking.language }));
     const queued = await enqueueMessage(em, {
       stationId: job.station.id, flightId: job.original.id, passengerIds: [passenger.id], kind: 'written-statement', to, ...mail,
       dedupeKey: `denial-statement:${job.denial.id}:${passenger.id}`,
@@ -150,7 +150,7 @@ async function queueStatements(em: EntityManager, job: StatementJob): Promise<st
   }
   if (job.rebooking) {
     const notice = rebookingNotice({
-      station: job.station, pnr: job.booking.pnr, passengerNames: job.passengers.map((p) => `${p.firstName} ${p.lastName}`), reason: 'denied-boarding',
+      station: job.station, pnr: job.booking.pnr, passengerNames: job.passengers.map((p) => `${p.firstName} ${p.lastName}`), reason: 'denied-boarding', language: job.booking.language ?? undefined,
       originalFlight: job.original,
       newFlight: { carrierCode: job.rebooking.label.split(' ')[0], flightNumber: job.rebooking.label.split(' ')[1] ?? '', origin: job.original.origin, destination: job.original.destination, departure: job.rebooking.departure, arrival: job.rebooking.arrival },
     });

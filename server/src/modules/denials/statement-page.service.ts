@@ -28,7 +28,7 @@ export async function statementPageFor(db: DataSource, user: SessionUser, denial
   const statements = ids.map((id) => {
     const passenger = passengers.find((p) => p.id === id)!;
     const compensation = snapshot.passengers.find((c) => c.passengerId === id)!;
-    return statementFor({ station, flight, pnr: booking.pnr, passenger, compensation, rebooking, rules: printedRules });
+    return statementFor({ station, flight, pnr: booking.pnr, passenger, compensation, rebooking, rules: printedRules, language: booking.language });
   });
   return statementPage(
     `Written statement · ${flight.carrierCode} ${flight.flightNumber} · booking ${booking.pnr}`,

@@ -1,10 +1,11 @@
 // The written statement each denied passenger receives: built from the frozen compensation, mailed and printable.
-import { statementHtml, statementText, writtenStatement, type WrittenStatement } from '@shared/compensation/statement';
+import { accessibleStatementPage, statementHtml, statementText, writtenStatement, type WrittenStatement } from '@shared/compensation/statement';
+import { translator, type Language } from '@shared/i18n';
 import type { PriorityRule } from '@shared/denial';
 import type { PassengerCompensation } from '@shared/schemas/denials';
 import type { RegimeCode } from '@shared/schemas/common';
 import type { FlightEntity, PassengerEntity, RebookingEntity, StationEntity } from '../../db/entities';
-import { escapeHtml, formatLocalDateTime } from '../../notices';
+import { escapeHtml } from '../../notices';
 import { findAirport } from '../../reference/airports';
 import { asCompensationResult } from './compensation';
 import { enforcementBodyFor } from './enforcement-bodies';
@@ -30,6 +31,8 @@ export interface StatementFacts {
   compensation: PassengerCompensation;
   rebooking: RebookingEntity | null;
   rules: PriorityRule[];
+  /** The booking's language; English when the booking has none. */
+  language?: Language | null;
 }
 
 const arrivalZone = (iata: string, fallback: string) => findAirport(iata)?.tz ?? fallback;
@@ -38,7 +41,9 @@ export function statementFor(facts: StatementFacts): WrittenStatement {
   const { station, flight, rebooking } = facts;
   const zone = arrivalZone(flight.destination, station.timeZone);
   const regime = station.regime as RegimeCode;
+  const tr = translator(facts.language ?? 'en');
   return writtenStatement({
+    language: tr.language,
     regime,
     carrierName: configuredCarrierName(),
     station: `${station.name} (${station.iata})`,
@@ -48,10 +53,10 @@ export function statementFor(facts: StatementFacts): WrittenStatement {
       date: flight.serviceDate,
       origin: flight.origin,
       destination: flight.destination,
-      scheduledArrival: formatLocalDateTime('flight.scheduledArrival', flight.scheduledArrival, zone),
+      scheduledArrival: tr.dateTime('flight.scheduledArrival', flight.scheduledArrival, zone),
     },
     alternate: rebooking
-      ? { flightNumber: rebooking.label, plannedArrival: formatLocalDateTime('alternate.arrival', rebooking.arrival, zone), destination: flight.destination }
+      ? { flightNumber: rebooking.label, plannedArrival: tr.dateTime('alternate.arrival', rebooking.arrival, zone), destination: flight.destination }
       : null,
     compensation: asCompensationResult(facts.compensation),
     priorityRules: facts.rules,
@@ -77,9 +82,10 @@ const PRINT_CSS = `
 /** A whole HTML page with print styles: one statement per passenger, each starting on a new sheet. */
 export function statementPage(title: string, statements: WrittenStatement[], screenNote?: string): string {
   const note = screenNote ? `<p class="screen-only">${escapeHtml(screenNote)}</p>` : '';
-  return `<!doctype html>\n<html lang="en"><head><meta charset="utf-8"><title>${escapeHtml(title)}</title><style>${PRINT_CSS}</style></head>\n<body>${note}${statements.map(statementHtml).join('\n')}</body></html>\n`;
+  return `<!doctype html>\n<html lang="${statements[0]?.language ?? 'en'}"><head><meta charset="utf-8"><title>${escapeHtml(title)}</title><style>${PRINT_CSS}</style></head>\n<body>${note}${statements.map(statementHtml).join('\n')}</body></html>\n`;
 }
 
+/** The mail's HTML is the accessible page (Reg. 261/2004 Art. 14(3)): headings, contents, no layout tables. */
 export function statementMail(statement: WrittenStatement): { subject: string; text: string; html: string } {
-  return { subject: statement.subject, text: statementText(statement), html: statementPage(statement.subject, [statement]) };
+  return { subject: statement.subject, text: statementText(statement), html: accessibleStatementPage(statement) };
 }

@@ -133,6 +133,7 @@ export async function applyEvent(em: EntityManager, flights: BatchFlights, e: In
     booking.itinerary = e.itinerary;
     booking.status = 'active';
     booking.contactEmail = e.contactEmail;
+    booking.language = e.language;
     await em.save(booking);
     if (existing) await replacePassengersOf(em, booking.id, e.pnr);
     await em.insert(PassengerEntity, e.passengers.map((p, i) => ({

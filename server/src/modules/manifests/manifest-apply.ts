@@ -55,10 +55,11 @@ export async function applyFlightManifest(em: EntityManager, flight: FlightEntit
       counts.bookingsUpdated++;
       booking.status = 'active';
       if (g.contactEmail) booking.contactEmail = g.contactEmail;
+      if (g.language) booking.language = g.language;
       booking.itinerary = g.itinerary;
     } else {
       counts.bookingsCreated++;
-      booking = em.create(BookingEntity, { flightId: flight.id, pnr: g.pnr, contactEmail: g.contactEmail, itinerary: g.itinerary, travelsTogether: true, status: 'active' });
+      booking = em.create(BookingEntity, { flightId: flight.id, pnr: g.pnr, contactEmail: g.contactEmail, language: g.language, itinerary: g.itinerary, travelsTogether: true, status: 'active' });
     }
     booking = await em.save(booking);
 

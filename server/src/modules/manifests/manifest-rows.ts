@@ -2,6 +2,7 @@
 // contact per PNR (a party holds at most nine, as sequence runs 1-9). Groups the good rows by flight and PNR for the database step.
 import { manifestRowSchema, type ManifestProblem, type ManifestRow } from '@shared/schemas/manifest';
 import { itineraryCell, type ItinerarySegment } from '@shared/schemas/itinerary';
+import type { Language } from '@shared/i18n';
 import type { CsvRecord } from './manifest-csv';
 
 export interface ManifestPassengerRow {
@@ -14,6 +15,8 @@ export interface ManifestBookingGroup {
   pnr: string;
   firstLine: number;
   contactEmail: string | null;
+  /** The first language given on the PNR's rows. */
+  language: Language | null;
   /** Onward flights to the final destination; one journey per PNR. */
   itinerary: ItinerarySegment[];
   passengers: ManifestPassengerRow[];
@@ -59,7 +62,7 @@ export function groupManifestRows(records: CsvRecord[]): { flights: Map<string, 
     flight.lines.push(line);
     let booking = flight.bookings.get(row.pnr);
     if (!booking) {
-      booking = { pnr: row.pnr, firstLine: line, contactEmail: null, itinerary: row.itinerary, passengers: [] };
+      booking = { pnr: row.pnr, firstLine: line, contactEmail: null, language: null, itinerary: row.itinerary, passengers: [] };
       flight.bookings.set(row.pnr, booking);
     }
     if (row.contact_email) {
@@ -69,6 +72,7 @@ export function groupManifestRows(records: CsvRecord[]): { flights: Map<string, 
       }
       booking.contactEmail = row.contact_email;
     }
+    if (row.language && !booking.language) booking.language = row.language;
     if (itineraryCell(row.itinerary) !== itineraryCell(booking.itinerary)) {
       problems.push({ line, field: 'itinerary', rule: `must be the same on every row of PNR ${row.pnr} (line ${booking.firstLine} has "${itineraryCell(booking.itinerary) || 'none'}")` });
       continue;

@@ -6,7 +6,7 @@ import express, { Router } from 'express';
 import { RateLimiterMemory } from 'rate-limiter-flexible';
 import type { DataSource } from 'typeorm';
 import { identifyBodySchema, passengerBidBodySchema } from '@shared/schemas/volunteers';
-import { FlightEntity, FlightForecastEntity, PassengerEntity, RebookingEntity, StationEntity, VolunteerEntity, VolunteerRoundEntity } from '../../db/entities';
+import { BookingEntity, FlightEntity, FlightForecastEntity, PassengerEntity, RebookingEntity, StationEntity, VolunteerEntity, VolunteerRoundEntity } from '../../db/entities';
 import { HttpError, tooManyRequests } from '../../http/errors';
 import { parse } from '../../http/validate';
 import { passengerToken, readFlightToken, readPassengerToken } from './bid-link';
@@ -69,7 +69,8 @@ export function publicOffersRouter(deps: { db: DataSource; secret: string; chang
       await limiter.penalty(key, 1);
       throw notMatched();
     }
-    res.json({ passengerToken: passengerToken(deps.secret, flight.id, match.bookingId, exp), names: party.map((p) => `${p.firstName} ${p.lastName}`) });
+    const booking = await deps.db.getRepository(BookingEntity).findOneBy({ id: match.bookingId });
+    res.json({ passengerToken: passengerToken(deps.secret, flight.id, match.bookingId, exp), names: party.map((p) => `${p.firstName} ${p.lastName}`), language: booking?.language ?? null });
   });
 
   r.post('/offers/:token/bids', async (req, res) => {

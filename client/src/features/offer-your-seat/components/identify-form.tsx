@@ -2,6 +2,7 @@ import { useId, useState, type FormEvent } from 'react';
 import { identifyBodySchema } from '@shared/schemas/volunteers';
 import { OfferRequestError, useIdentify } from '../api/public-offer';
 import type { Identified } from '../model/passenger-session';
+import { useT } from '../../../lib/language';
 import { BigButton } from './big-button';
 
 /** The passenger proves their booking with its reference and a last name; either wrong gets the same answer. */
@@ -11,12 +12,13 @@ export function IdentifyForm({ token, onIdentified, onLinkInvalid, notice }: { t
   const [problem, setProblem] = useState<string | null>(null);
   const identify = useIdentify(token);
   const id = useId();
+  const t = useT();
 
   function submit(e: FormEvent) {
     e.preventDefault();
     const parsed = identifyBodySchema.safeParse({ pnr, lastName });
     if (!parsed.success) {
-      setProblem(pnr.trim() === '' || lastName.trim() === '' ? 'Please fill in both boxes.' : 'The booking reference has 5 to 8 letters and digits, like K7Q2XM.');
+      setProblem(pnr.trim() === '' || lastName.trim() === '' ? t('passenger.identify.fillBoth') : t('passenger.identify.format'));
       return;
     }
     setProblem(null);
@@ -32,15 +34,15 @@ export function IdentifyForm({ token, onIdentified, onLinkInvalid, notice }: { t
   const box = 'w-full rounded-xl border-4 border-line bg-card px-4 py-3 text-2xl focus:border-harbour';
   return (
     <form onSubmit={submit} noValidate className="space-y-4 rounded-xl border-2 border-line bg-card p-5" aria-labelledby={`${id}-title`}>
-      <h2 id={`${id}-title`} className="text-2xl font-bold">Find your booking</h2>
+      <h2 id={`${id}-title`} className="text-2xl font-bold">{t('passenger.identify.title')}</h2>
       {notice && <p className="text-xl font-bold text-watch">{notice}</p>}
-      <p className="text-xl">Both are on your boarding pass or in your booking e-mail.</p>
+      <p className="text-xl">{t('passenger.identify.where')}</p>
       <div>
-        <label htmlFor={`${id}-pnr`} className="mb-1 block text-xl font-bold">Booking reference</label>
+        <label htmlFor={`${id}-pnr`} className="mb-1 block text-xl font-bold">{t('passenger.identify.pnr')}</label>
         <input id={`${id}-pnr`} className={`${box} uppercase`} value={pnr} onChange={(e) => setPnr(e.target.value)} autoComplete="off" autoCapitalize="characters" spellCheck={false} maxLength={8} />
       </div>
       <div>
-        <label htmlFor={`${id}-name`} className="mb-1 block text-xl font-bold">Last name</label>
+        <label htmlFor={`${id}-name`} className="mb-1 block text-xl font-bold">{t('passenger.identify.lastName')}</label>
         <input id={`${id}-name`} className={box} value={lastName} onChange={(e) => setLastName(e.target.value)} autoComplete="family-name" maxLength={60} />
       </div>
       {problem && (
@@ -48,7 +50,7 @@ export function IdentifyForm({ token, onIdentified, onLinkInvalid, notice }: { t
           {problem}
         </p>
       )}
-      <BigButton type="submit" disabled={identify.isPending}>{identify.isPending ? 'Checking…' : 'Continue'}</BigButton>
+      <BigButton type="submit" disabled={identify.isPending}>{identify.isPending ? t('passenger.identify.checking') : t('passenger.identify.continue')}</BigButton>
     </form>
   );
 }

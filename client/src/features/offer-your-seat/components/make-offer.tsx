@@ -2,10 +2,10 @@ import { useId, useState, type FormEvent } from 'react';
 import { useQueryClient } from '@tanstack/react-query';
 import type { z } from 'zod';
 import type { publicOfferSchema } from '@shared/schemas/volunteers';
-import { formatMoney } from '../../../lib/format';
 import { offerKeys, OfferRequestError, usePlaceBid } from '../api/public-offer';
 import { readAmount } from '../model/amount';
 import type { Identified } from '../model/passenger-session';
+import { useFormats, useMoney, useT } from '../../../lib/language';
 import { BigButton } from './big-button';
 
 type OpenRound = NonNullable<z.infer<typeof publicOfferSchema>['round']>;
@@ -17,6 +17,9 @@ export function MakeOffer({ token, round, who, onSessionLost, onLinkInvalid }: {
   const [ask, setAsk] = useState('');
   const [problem, setProblem] = useState<string | null>(null);
   const id = useId();
+  const t = useT();
+  const f = useFormats();
+  const money = useMoney();
   const seats = who.names.length;
 
   function send(body: { askMinor?: number; acceptPosted?: true }) {
@@ -44,25 +47,22 @@ export function MakeOffer({ token, round, who, onSessionLost, onLinkInvalid }: {
 
   return (
     <section className="space-y-4 rounded-xl border-2 border-line bg-card p-5" aria-labelledby={`${id}-title`}>
-      <h2 id={`${id}-title`} className="text-2xl font-bold">Hello, {who.names[0]}</h2>
-      <p className="text-xl">
-        {seats === 1 ? 'You would give up your seat.' : `You would give up the seats of everyone on your booking: ${who.names.join(', ')}.`} The gate agent then books
-        you on a later flight.
-      </p>
+      <h2 id={`${id}-title`} className="text-2xl font-bold">{t('passenger.offer.hello', { name: who.names[0] })}</h2>
+      <p className="text-xl">{t('passenger.offer.giveUp', { count: seats, names: f.list(who.names) })}</p>
       {round.kind === 'posted' && round.offerMinor !== null ? (
         <BigButton disabled={bid.isPending} onClick={() => send({ acceptPosted: true })}>
-          {bid.isPending ? 'Sending…' : `Accept ${formatMoney(round.offerMinor, round.currency)} and take a later flight`}
+          {bid.isPending ? t('passenger.offer.sending') : t('passenger.offer.accept', { amount: money(round.offerMinor, round.currency) })}
         </BigButton>
       ) : (
         <form onSubmit={submitAsk} noValidate className="space-y-3">
           <label htmlFor={`${id}-ask`} className="block text-xl font-bold">
-            The least I would accept ({round.currency}){seats > 1 ? ', for each seat' : ''}
+            {t('passenger.offer.least', { currency: round.currency, count: seats })}
           </label>
           <input
-            id={`${id}-ask`} value={ask} onChange={(e) => setAsk(e.target.value)} inputMode="decimal" autoComplete="off" placeholder="e.g. 450"
+            id={`${id}-ask`} value={ask} onChange={(e) => setAsk(e.target.value)} inputMode="decimal" autoComplete="off" placeholder={t('passenger.offer.example', { amount: '450' })}
             className="w-full rounded-xl border-4 border-line bg-card px-4 py-3 text-3xl tabular-nums focus:border-harbour"
           />
-          <BigButton type="submit" disabled={bid.isPending}>{bid.isPending ? 'Sending…' : 'Send my offer'}</BigButton>
+          <BigButton type="submit" disabled={bid.isPending}>{bid.isPending ? t('passenger.offer.sending') : t('passenger.offer.send')}</BigButton>
         </form>
       )}
       {problem && (
@@ -70,7 +70,7 @@ export function MakeOffer({ token, round, who, onSessionLost, onLinkInvalid }: {
           {problem}
         </p>
       )}
-      <p className="text-lg text-ink-soft">Don’t want to? You don’t need to do anything. Nothing is final until the gate agent accepts.</p>
+      <p className="text-lg text-ink-soft">{t('passenger.offer.noNeed')}</p>
     </section>
   );
 }

@@ -3,6 +3,9 @@ import { cleanup, render, screen } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
+import type { Language } from '@shared/i18n';
+import { LanguageProvider } from '../../../lib/language';
+import { LanguageSwitch } from './language-switch';
 import { OfferYourSeat } from './offer-your-seat';
 
 const OFFER = {
@@ -26,7 +29,10 @@ beforeEach(() => {
     const body = init.body ? JSON.parse(String(init.body)) : undefined;
     calls.push({ url, method: init.method ?? 'GET', body, headers: (init.headers ?? {}) as Record<string, string> });
     if (url === '/api/public/offers/tok.sig') return json(offerAnswer[1], offerAnswer[0]);
-    if (url.endsWith('/identify')) return body.lastName === 'Okafor' && body.pnr === 'K7Q2XM' ? json({ passengerToken: 'passenger-token-1', names: ['Ada Okafor'] }) : json(NOT_MATCHED, 404);
+    if (url.endsWith('/identify')) {
+      if (body.lastName === 'Rossi') return json({ passengerToken: 'passenger-token-2', names: ['Mario Rossi', 'Anna Rossi'], language: 'it' });
+      return body.lastName === 'Okafor' && body.pnr === 'K7Q2XM' ? json({ passengerToken: 'passenger-token-1', names: ['Ada Okafor'] }) : json(NOT_MATCHED, 404);
+    }
     if (url.endsWith('/bids')) {
       status = { status: 'offered', agreedMinor: null, currency: 'USD', rebooking: null, message: 'Thank you. Your offer is with the gate agent; please stay near the gate.' };
       return json({ status: 'offered' }, 201);
@@ -41,7 +47,12 @@ afterEach(() => {
   status = { status: 'none', agreedMinor: null, currency: '', rebooking: null, message: '' };
 });
 
-const show = () => render(<QueryClientProvider client={new QueryClient({ defaultOptions: { queries: { retry: false } } })}><OfferYourSeat token="tok.sig" /></QueryClientProvider>);
+const show = (language: Language = 'en') => render(
+  <LanguageProvider initial={language}>
+    <LanguageSwitch />
+    <QueryClientProvider client={new QueryClient({ defaultOptions: { queries: { retry: false } } })}><OfferYourSeat token="tok.sig" /></QueryClientProvider>
+  </LanguageProvider>,
+);
 
 describe('Offer your seat', () => {
   it('shows the flight, the offer and what the passenger must know before deciding', async () => {
@@ -101,5 +112,45 @@ describe('Offer your seat', () => {
     expect(screen.getByText(/ask the gate agent/)).toBeInTheDocument();
     expect(screen.queryByLabelText('Booking reference')).not.toBeInTheDocument();
     expect(sessionStorage.length).toBe(0);
+  });
+});
+
+describe('Offer your seat in the passenger\'s language', () => {
+  it('starts in the language it is given (the browser\'s), with money and times in that language', async () => {
+    show('fr');
+    expect(await screen.findByTestId('offer-flight')).toHaveTextContent('ZZ 105 pour ORD');
+    // CLDR fr: decimal comma, the code after the amount (from memory); 20:45Z is 15:45 in New York in December.
+    expect(screen.getByTestId('offer-amount')).toHaveTextContent(/^400,00\s\$US$/);
+    expect(screen.getByText('Départ à 15:45 (heure locale)')).toBeInTheDocument();
+    expect(screen.getByRole('heading', { name: 'Avant de décider' })).toBeInTheDocument();
+  });
+
+  it('switches on the page when the passenger picks another language', async () => {
+    show('en');
+    await screen.findByTestId('offer-flight');
+    await userEvent.selectOptions(screen.getByLabelText('Language'), 'de');
+    expect(screen.getByTestId('offer-flight')).toHaveTextContent('ZZ 105 nach ORD');
+    expect(screen.getByRole('heading', { name: 'Buchung finden' })).toBeInTheDocument();
+    expect(screen.getByLabelText('Sprache')).toHaveValue('de');
+  });
+
+  it('takes the booking\'s language once the passenger is identified, with plural words for a party', async () => {
+    show('en');
+    await userEvent.type(await screen.findByLabelText('Booking reference'), 'K7Q2XM');
+    await userEvent.type(screen.getByLabelText('Last name'), 'Rossi');
+    await userEvent.click(screen.getByRole('button', { name: 'Continue' }));
+    expect(await screen.findByRole('heading', { name: 'Buongiorno Mario Rossi' })).toBeInTheDocument();
+    expect(screen.getByText(/Cederebbe i posti di tutte le persone della sua prenotazione: Mario Rossi e Anna Rossi\./)).toBeInTheDocument();
+    expect(screen.getByRole('button', { name: /^Accetta 400,00\sUSD e parti più tardi$/ })).toBeInTheDocument();
+  });
+
+  it('keeps the passenger\'s own pick over the booking\'s language', async () => {
+    show('en');
+    await screen.findByTestId('offer-flight');
+    await userEvent.selectOptions(screen.getByLabelText('Language'), 'es');
+    await userEvent.type(screen.getByLabelText('Código de reserva'), 'K7Q2XM');
+    await userEvent.type(screen.getByLabelText('Apellido'), 'Rossi');
+    await userEvent.click(screen.getByRole('button', { name: 'Continuar' }));
+    expect(await screen.findByRole('heading', { name: 'Hola, Mario Rossi' })).toBeInTheDocument();
   });
 });

@@ -8,13 +8,16 @@ import { LinkInvalid } from './link-invalid';
 import { MakeOffer } from './make-offer';
 import { OfferSummary } from './offer-summary';
 import { Outcome } from './outcome';
+import { useLanguage, useT } from '../../../lib/language';
 
-const AGAIN = 'Please find your booking again.';
 const isLinkInvalid = (err: unknown) => err instanceof OfferRequestError && err.linkInvalid;
 
 /** "Offer your seat": the passenger's page behind the gate's QR code, from the offer to the outcome. */
 export function OfferYourSeat({ token }: { token: string }) {
   const offer = useQuery(publicOfferQueryOptions(token));
+  const t = useT();
+  const { suggest } = useLanguage();
+  const AGAIN = t('passenger.findAgain');
   const [who, setWho] = useState<Identified | null>(() => recallPassenger(token));
   const [notice, setNotice] = useState<string | undefined>();
   const [brokenByAction, setBrokenByAction] = useState(false);
@@ -29,14 +32,14 @@ export function OfferYourSeat({ token }: { token: string }) {
   }, [invalid, token]);
 
   if (invalid) return <LinkInvalid />;
-  if (offer.isPending) return <p className="text-2xl text-ink-soft">Loading…</p>;
+  if (offer.isPending) return <p className="text-2xl text-ink-soft">{t('passenger.loading')}</p>;
   if (offer.error) {
     return (
       <div role="alert" className="rounded-xl border-4 border-alert bg-card p-6">
-        <h1 className="text-3xl font-bold text-alert">This page could not load</h1>
+        <h1 className="text-3xl font-bold text-alert">{t('passenger.loadFailed')}</h1>
         <p className="mt-3 text-xl">{offer.error.message}</p>
         <button type="button" className="mt-4 text-xl font-bold text-harbour underline" onClick={() => void offer.refetch()}>
-          Try again
+          {t('passenger.tryAgain')}
         </button>
       </div>
     );
@@ -54,6 +57,8 @@ export function OfferYourSeat({ token }: { token: string }) {
             token={token} notice={identifyNotice} onLinkInvalid={() => setBrokenByAction(true)}
             onIdentified={(w) => {
               rememberPassenger(token, w);
+              // The booking's language, unless the passenger already picked one on this page.
+              if (w.language) suggest(w.language);
               setNotice(undefined);
               setWho(w);
             }}
@@ -62,13 +67,13 @@ export function OfferYourSeat({ token }: { token: string }) {
       </>
     );
   } else if (status.isPending) {
-    step = <p className="text-2xl text-ink-soft">Checking your booking…</p>;
+    step = <p className="text-2xl text-ink-soft">{t('passenger.checking')}</p>;
   } else if (!status.data) {
-    step = <p role="alert" className="text-xl font-bold text-alert">{status.error?.message} This page tries again by itself.</p>;
+    step = <p role="alert" className="text-xl font-bold text-alert">{status.error?.message} {t('passenger.retrying')}</p>;
   } else if (status.data.status !== 'none') {
     step = <Outcome status={status.data} timeZone={data.flight.timeZone} />;
   } else if (!data.round) {
-    step = <p className="text-xl">You have not offered your seat on this flight.</p>;
+    step = <p className="text-xl">{t('passenger.notOffered')}</p>;
   } else {
     step = (
       <>

@@ -1,9 +1,13 @@
 // After the passenger proves their booking, the signed token is kept for this browser tab only, so a reload or a
 // locked phone does not ask again; it names the booking for this one flight link and expires with it.
 
+import type { Language } from '@shared/i18n';
+
 export interface Identified {
   passengerToken: string;
   names: string[];
+  /** The booking's language, when the booking system gave one. */
+  language?: Language | null;
 }
 
 const keyOf = (linkToken: string) => `bumpboard.offer.${linkToken}`;
