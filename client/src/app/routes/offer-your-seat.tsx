@@ -1,4 +1,6 @@
+import { useEffect } from 'react';
 import { useParams } from 'react-router-dom';
+import { setPageTitle } from '../../lib/document-title';
 import { OfferYourSeat } from '../../features/offer-your-seat/components/offer-your-seat';
 
 /**
@@ -7,6 +9,7 @@ import { OfferYourSeat } from '../../features/offer-your-seat/components/offer-y
  */
 export default function OfferYourSeatPage() {
   const { token = '' } = useParams();
+  useEffect(() => setPageTitle('Offer your seat'), []);
   return (
     <div className="min-h-screen bg-paper text-ink">
       <header className="bg-harbour px-4 py-3 text-white">

@@ -3,6 +3,7 @@ import { useQuery } from '@tanstack/react-query';
 import type { FlightDesk as FlightDeskData } from '@shared/schemas/flight-desk';
 import { Link } from 'react-router-dom';
 import { ComingNext } from '../../../components/ui/page';
+import { useArrival } from '../../../components/ui/use-arrival';
 import { ApiRequestError } from '../../../lib/api-client';
 import { sessionQueryOptions } from '../../../lib/session';
 import { useLiveSnapshot } from '../../../lib/socket';
@@ -89,9 +90,13 @@ export function FlightDesk({
 
 function DeskError({ error }: { error: Error }) {
   const missing = error instanceof ApiRequestError && error.status === 404;
+  const title = missing ? 'No such flight at your stations' : 'The flight could not be loaded';
+  const heading = useArrival(title);
   return (
     <div role="alert" className="mx-auto mt-10 max-w-xl rounded-lg border-2 border-alert bg-card p-6">
-      <h1 className="text-2xl font-bold text-alert">{missing ? 'No such flight at your stations' : 'The flight could not be loaded'}</h1>
+      <h1 ref={heading} tabIndex={-1} className="text-2xl font-bold text-alert">
+        {title}
+      </h1>
       <p className="mt-2">{missing ? 'The flight may be at another station, or the link is wrong.' : error.message}</p>
       <Link to="/departures" className="mt-4 inline-block font-bold text-harbour underline">
         Back to departures
