@@ -88,3 +88,14 @@ export async function removeTestFlights(db: Connection, flightIds: number[]): Pr
   const asManager = { query: async (sql: string, params?: unknown[]) => (await db.query(sql, params))[0] } as unknown as EntityManager;
   await deleteInDependencyOrder(asManager, 'flights', flightIds);
 }
+
+/**
+ * Runs axe on the page as it stands, against WCAG 2.0–2.2 A and AA, and fails with each violation named by its rule,
+ * the first offending element and axe's own help text, so a failure reads as a to-do list.
+ */
+export async function expectNoAxeViolations(page: Page, where: string) {
+  const { default: AxeBuilder } = await import('@axe-core/playwright');
+  const result = await new AxeBuilder({ page }).withTags(['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa', 'wcag22aa']).analyze();
+  const found = result.violations.map((v) => `${v.id} (${v.nodes.length}×): ${v.help} — e.g. ${v.nodes[0]?.target.join(' ')}`);
+  expect(found, `axe on ${where}`).toEqual([]);
+}
