@@ -5,6 +5,9 @@ import { expectNoAxeViolations, shot, signIn, staffApi, type Staff } from './hel
  * axe (WCAG 2.0–2.2 A and AA rules) on every screen of every role, with dialogs open and after a live update.
  * The demo's oversold flight is ZZ 105 at BOS (invented data).
  */
+// axe walks the whole page; on a shared test machine a desk takes a while.
+test.setTimeout(240_000);
+
 const SIZES = [
   { name: '1366', width: 1366, height: 768 },
   { name: '1920', width: 1920, height: 1080 },

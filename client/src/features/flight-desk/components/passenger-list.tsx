@@ -38,6 +38,8 @@ export function PassengerList({ passengers, timeZone, departureIso }: { passenge
   // Only the rows in view (and a screenful either side) are in the page, so a wide-body's 850 passengers scroll as
   // lightly as 50; spacer rows keep the scrollbar true, and aria-rowcount/rowindex tell screen readers the whole size.
   const scroller = useRef<HTMLDivElement>(null);
+  // The virtualizer re-renders this component itself on scroll; the compiler's memoizing is not needed here.
+  // eslint-disable-next-line react-hooks/incompatible-library
   const virtualizer = useVirtualizer({ count: rows.length, getScrollElement: () => scroller.current, estimateSize: () => 48, overscan: 12 });
   const visible = virtualizer.getVirtualItems();
   const padTop = visible[0]?.start ?? 0;
