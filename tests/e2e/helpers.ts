@@ -99,3 +99,16 @@ export async function expectNoAxeViolations(page: Page, where: string) {
   const found = result.violations.map((v) => `${v.id} (${v.nodes.length}×): ${v.help} — e.g. ${v.nodes[0]?.target.join(' ')}`);
   expect(found, `axe on ${where}`).toEqual([]);
 }
+
+/**
+ * Presses Tab until `target` has focus (at most `max` times), failing if focus ever falls to the page body on the
+ * way: the keyboard user's path, step by step.
+ */
+export async function tabTo(page: Page, target: import('@playwright/test').Locator, max = 60) {
+  for (let i = 0; i < max; i++) {
+    if (await target.evaluate((el) => el === document.activeElement).catch(() => false)) return;
+    await page.keyboard.press('Tab');
+    expect(await page.evaluate(() => document.activeElement === document.body), 'focus fell to the page body').toBe(false);
+  }
+  await expect(target).toBeFocused();
+}

@@ -11,6 +11,7 @@ import { formatClock } from '../model/time';
 import { deskPassengersQueryOptions, flightDeskQueryOptions, flightEventsQueryOptions, forecastHistoryQueryOptions } from '../api/flight-desk';
 import { useFlightLive } from '../api/use-flight-live';
 import { CabinCounts } from './cabin-counts';
+import { DeskGlance } from './desk-glance';
 import { DeskHeader } from './desk-header';
 import { EventTrail } from './event-trail';
 import { LiveIndicator } from './live-indicator';
@@ -28,11 +29,14 @@ export function FlightDesk({
   volunteerRounds,
   deniedBoarding,
   compensations,
+  roundGlance,
 }: {
   flightId: number;
   volunteerRounds?: (desk: FlightDeskData) => ReactNode;
   deniedBoarding?: (desk: FlightDeskData) => ReactNode;
   compensations?: (desk: FlightDeskData) => ReactNode;
+  /** The current round in one line, for the glance strip. */
+  roundGlance?: ReactNode;
 }) {
   const desk = useQuery(flightDeskQueryOptions(flightId));
   const passengers = useQuery(deskPassengersQueryOptions(flightId));
@@ -64,6 +68,7 @@ export function FlightDesk({
           <span aria-hidden>⚠ </span>No live updates right now: the figures below are as of {formatClock(updatedAt, tz)} and may be out of date. Reconnecting by itself…
         </p>
       )}
+      <DeskGlance desk={d} round={roundGlance} />
       <CabinCounts desk={d} />
       <div className="grid gap-4 lg:grid-cols-3">
         <div className="lg:col-span-2">

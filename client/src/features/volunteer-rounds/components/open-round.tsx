@@ -3,6 +3,7 @@ import type { ArrivalClock } from './rebook-panel';
 import type { Round, VolunteerPolicy } from '@shared/schemas/volunteers';
 import { Button } from '../../../components/ui/button';
 import { ConfirmDialog } from '../../../components/ui/dialog';
+import { useFocusIfLost } from '../../../components/ui/use-focus-if-lost';
 import { formatMoney, formatTime } from '../../../lib/format';
 import { useCloseRound } from '../api/rounds';
 import { bidLinkToken, seatsFoundWords, seatsLeft } from '../model/round-words';
@@ -30,11 +31,13 @@ export function OpenRound(props: OpenRoundProps) {
   const token = bidLink ? bidLinkToken(bidLink) : null;
   const done = seatsLeft(round) === 0;
   const offerText = round.kind === 'posted' && round.offerMinor !== null ? formatMoney(round.offerMinor, round.currency) : null;
+  // Opening the round replaces its form: the progress line is where the agent continues.
+  const progress = useFocusIfLost<HTMLParagraphElement>();
   return (
     <div className="grid gap-5 xl:grid-cols-[3fr_2fr]">
       <div className="space-y-5">
         <div className={`flex flex-wrap items-center justify-between gap-3 rounded-lg border-2 px-4 py-3 ${done ? 'border-calm bg-calm-soft' : 'border-ink bg-signal'}`}>
-          <p className="text-3xl font-bold" data-testid="round-progress">
+          <p ref={progress} tabIndex={-1} data-focus-target className="text-3xl font-bold" data-testid="round-progress">
             <span aria-hidden>{done ? '✓ ' : ''}</span>
             {seatsFoundWords(round)}
           </p>
