@@ -87,3 +87,27 @@ export async function removeTestFlights(db: Connection, flightIds: number[]): Pr
   const asManager = { query: async (sql: string, params?: unknown[]) => (await db.query(sql, params))[0] } as unknown as EntityManager;
   await deleteInDependencyOrder(asManager, 'flights', flightIds);
 }
+
+/**
+ * Runs axe on the page as it stands, against WCAG 2.0–2.2 A and AA, and fails with each violation named by its rule,
+ * the first offending element and axe's own help text, so a failure reads as a to-do list.
+ */
+export async function expectNoAxeViolations(page: Page, where: string) {
+  const { default: AxeBuilder } = await import('@axe-core/playwright');
+  const result = await new AxeBuilder({ page }).withTags(['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa', 'wcag22aa']).analyze();
+  const found = result.violations.map((v) => `${v.id} (${v.nodes.length}×): ${v.help} — e.g. ${v.nodes[0]?.target.join(' ')}`);
+  expect(found, `axe on ${where}`).toEqual([]);
+}
+
+/**
+ * Presses Tab until `target` has focus (at most `max` times), failing if focus ever falls to the page body on the
+ * way: the keyboard user's path, step by step.
+ */
+export async function tabTo(page: Page, target: import('@playwright/test').Locator, max = 60) {
+  for (let i = 0; i < max; i++) {
+    if (await target.evaluate((el) => el === document.activeElement).catch(() => false)) return;
+    await page.keyboard.press('Tab');
+    expect(await page.evaluate(() => document.activeElement === document.body), 'focus fell to the page body').toBe(false);
+  }
+  await expect(target).toBeFocused();
+}

@@ -40,7 +40,7 @@ export function AppShell() {
       <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:left-2 focus:top-2 focus:bg-signal focus:p-2">
         {t('staff.skip')}
       </a>
-      <header className="no-print bg-harbour text-white">
+      <header className="no-print on-dark bg-harbour text-white">
         <div className="mx-auto flex max-w-7xl flex-wrap items-center gap-x-6 gap-y-2 px-4 py-3">
           <span className="flex items-center gap-2 text-2xl font-bold tracking-tight">
             <span aria-hidden className="inline-block h-6 w-6 rounded bg-signal" />

@@ -2,6 +2,7 @@ import { useParams } from 'react-router-dom';
 import { Page } from '../../components/ui/page';
 import { FlightDesk } from '../../features/flight-desk/components/flight-desk';
 import { VolunteerRoundsPanel } from '../../features/volunteer-rounds/components/volunteer-rounds-panel';
+import { RoundGlance } from '../../features/volunteer-rounds/components/round-glance';
 import { DeniedBoardingPanel } from '../../features/denials/components/denied-boarding-panel';
 import { CompensationsPanel } from '../../features/desk-compensations/components/compensations-panel';
 import { DeskCarePanel } from '../../features/desk-care/components/desk-care-panel';
@@ -26,6 +27,7 @@ export default function FlightDeskPage() {
     <FlightDesk
       key={id}
       flightId={id}
+      roundGlance={<RoundGlance flightId={id} />}
       volunteerRounds={(d) => (
         <VolunteerRoundsPanel flightId={id} station={d.station} forecast={d.forecast} flightLabel={`${d.flight.carrierCode} ${d.flight.flightNumber} to ${d.flight.destination}`}
           arrival={d.flight.destinationTimeZone ? { airport: d.flight.destination, timeZone: d.flight.destinationTimeZone } : undefined}

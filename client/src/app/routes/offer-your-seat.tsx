@@ -1,6 +1,7 @@
 import { useEffect } from 'react';
 import { useParams } from 'react-router-dom';
 import { LanguageSwitch } from '../../features/offer-your-seat/components/language-switch';
+import { setPageTitle } from '../../lib/document-title';
 import { OfferYourSeat } from '../../features/offer-your-seat/components/offer-your-seat';
 import { browserLanguages, chosenLanguage, LanguageProvider, pickLanguage, useLanguage, useT } from '../../lib/language';
 
@@ -21,6 +22,8 @@ function PassengerFrame() {
   const { token = '' } = useParams();
   const { language } = useLanguage();
   const t = useT();
+  const title = t('passenger.title');
+  useEffect(() => setPageTitle(title), [title]);
   // Screen readers pronounce the page in its language.
   useEffect(() => {
     const previous = document.documentElement.lang;

@@ -1,4 +1,5 @@
 import { Page, Panel } from '../../components/ui/page';
+import { AlertsList } from '../../features/alerts/components/alerts-list';
 import { DeparturesBoard } from '../../features/departures/components/departures-board';
 import { PendingApprovals } from '../../features/volunteer-rounds/components/pending-approvals';
 import { WaitingDenialProposals } from '../../features/denials/components/waiting-proposals';
@@ -10,6 +11,7 @@ export default function StationDayPage() {
   if (!station) return <Page title="Station day"><p>You do not belong to a station yet.</p></Page>;
   return (
     <Page title={`Station day · ${station.iata}`} subtitle={`What needs a supervisor today at ${station.name}. Times in ${zoneLabel(station.timeZone)}.`}>
+      <AlertsList stationId={station.id} hint="The passengers are still owed. Open the flight and re-issue from its compensation panel, giving the reason." />
       <div className="space-y-4">
         <Panel title="Waiting for you">
           <PendingApprovals stationId={station.id} timeZone={station.timeZone} />

@@ -1,6 +1,9 @@
+import { useEffect, useRef, useState } from 'react';
 import { useQuery } from '@tanstack/react-query';
 import { ALERT_KIND_LABELS } from '@shared/schemas/alerts';
 import { Button } from '../../../components/ui/button';
+import { alertSoundOn, playChime, setAlertSound } from '../../../lib/alert-sound';
+import { setAlertCount } from '../../../lib/document-title';
 import { alertsQueryOptions, useAcknowledgeAlert } from '../api/alerts';
 
 /**
@@ -11,8 +14,31 @@ export function AlertsList({ stationId, hint }: { stationId?: number; hint: stri
   const { data, error } = useQuery(alertsQueryOptions(stationId));
   const acknowledge = useAcknowledgeAlert();
   const alerts = data?.alerts ?? [];
+  const unseen = alerts.filter((a) => !a.acknowledgedAt).length;
+  const [sound, setSound] = useState(alertSoundOn);
+  const lastUnseen = useRef<number | null>(null);
+  // The tab title carries the count, so an agent with the console behind another window still sees it; the chime
+  // sounds only for a rise, and only if the user turned it on.
+  useEffect(() => {
+    setAlertCount(unseen);
+    if (sound && lastUnseen.current !== null && unseen > lastUnseen.current) playChime();
+    lastUnseen.current = unseen;
+  }, [unseen, sound]);
+  useEffect(() => () => setAlertCount(0), []);
+  const soundToggle = (
+    <label className="inline-flex min-h-6 items-center gap-2 text-sm">
+      <input type="checkbox" className="h-5 w-5" checked={sound} onChange={(e) => { setSound(e.target.checked); setAlertSound(e.target.checked); }} />
+      Sound when a new alert arrives
+    </label>
+  );
   if (error) return <p role="alert" className="font-bold text-alert">The alerts could not be loaded: {error.message}</p>;
-  if (!alerts.length) return null;
+  if (!alerts.length) {
+    return (
+      <p className="mb-4 flex flex-wrap items-center gap-x-4 text-ink-soft" data-testid="alerts-none">
+        No alerts need attention. {soundToggle}
+      </p>
+    );
+  }
   return (
     <section aria-labelledby="alerts-title" data-testid="alerts" className="mb-4 rounded-lg border-2 border-alert bg-alert-soft p-4">
       <h2 id="alerts-title" className="text-xl font-bold text-alert">
@@ -20,6 +46,7 @@ export function AlertsList({ stationId, hint }: { stationId?: number; hint: stri
         {alerts.length === 1 ? '1 payment needs attention' : `${alerts.length} payments need attention`}
       </h2>
       <p className="mb-2">{hint}</p>
+      <p className="mb-2">{soundToggle}</p>
       <ul className="space-y-2">
         {alerts.map((a) => (
           <li key={a.id} data-testid="alert" data-kind={a.kind} className="rounded-md border-2 border-line bg-card p-3">

@@ -1,5 +1,6 @@
 import { Bar, BarChart, CartesianGrid, Legend, Tooltip, XAxis, YAxis } from 'recharts';
 import type { PeriodReport } from '@shared/schemas/finance';
+import { ChartFrame } from '../../../components/ui/chart';
 import { formatMoney } from '../../../lib/format';
 
 /**
@@ -17,7 +18,7 @@ export function ReportDayChart({ days, currency }: { days: PeriodReport['perDay'
   return (
     <figure className="min-w-0">
       <figcaption className="mb-1 font-bold">Per day in {currency}: paid to volunteers, paid for involuntary denials, and still owed</figcaption>
-      <div aria-hidden data-testid="report-day-chart">
+      <ChartFrame testId="report-day-chart">
         <BarChart data={data} responsive style={{ width: '100%', height: 280 }} margin={{ top: 8, right: 12, bottom: 8, left: 8 }}>
           <defs>
             <pattern id="involuntary-hatch" width="6" height="6" patternUnits="userSpaceOnUse" patternTransform="rotate(45)">
@@ -34,7 +35,7 @@ export function ReportDayChart({ days, currency }: { days: PeriodReport['perDay'
           <Bar dataKey="involuntary" stackId="paid" fill="url(#involuntary-hatch)" isAnimationActive={false} />
           <Bar dataKey="owed" fill="var(--color-paper)" stroke="var(--color-alert)" strokeWidth={2} strokeDasharray="4 2" isAnimationActive={false} />
         </BarChart>
-      </div>
+      </ChartFrame>
     </figure>
   );
 }

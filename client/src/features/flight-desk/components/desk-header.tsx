@@ -2,6 +2,7 @@ import type { ReactNode } from 'react';
 import type { FlightDesk } from '@shared/schemas/flight-desk';
 import { formatTime, zoneLabel } from '../../../lib/format';
 import { useNow } from '../../../lib/use-now';
+import { useArrival } from '../../../components/ui/use-arrival';
 import { describeCountdown } from '../model/time';
 import { FLIGHT_STATE_WORDS } from '../model/words';
 
@@ -12,11 +13,12 @@ export function DeskHeader({ desk, live }: { desk: FlightDesk; live: ReactNode }
   const tz = station.timeZone;
   const countdown = describeCountdown(flight.scheduledDeparture, now);
   const gone = new Date(flight.scheduledDeparture).getTime() < now;
+  const heading = useArrival(`Flight desk · ${flight.carrierCode} ${flight.flightNumber} to ${flight.destination}`);
   return (
     <header className="rounded-lg border-2 border-harbour bg-card">
       <div className="flex flex-wrap items-stretch gap-x-8 gap-y-3 px-5 py-4">
         <div>
-          <h1 className="text-4xl font-bold text-harbour">
+          <h1 ref={heading} tabIndex={-1} className="text-4xl font-bold text-harbour">
             {flight.carrierCode} {flight.flightNumber}
           </h1>
           <p className="text-xl font-bold">

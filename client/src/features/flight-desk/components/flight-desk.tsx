@@ -3,6 +3,7 @@ import { useQuery } from '@tanstack/react-query';
 import type { FlightDesk as FlightDeskData } from '@shared/schemas/flight-desk';
 import { Link } from 'react-router-dom';
 import { ComingNext } from '../../../components/ui/page';
+import { useArrival } from '../../../components/ui/use-arrival';
 import { ApiRequestError } from '../../../lib/api-client';
 import { sessionQueryOptions } from '../../../lib/session';
 import { useLiveSnapshot } from '../../../lib/socket';
@@ -10,6 +11,7 @@ import { formatClock } from '../model/time';
 import { deskPassengersQueryOptions, flightDeskQueryOptions, flightEventsQueryOptions, forecastHistoryQueryOptions } from '../api/flight-desk';
 import { useFlightLive } from '../api/use-flight-live';
 import { CabinCounts } from './cabin-counts';
+import { DeskGlance } from './desk-glance';
 import { DeskHeader } from './desk-header';
 import { EventTrail } from './event-trail';
 import { LiveIndicator } from './live-indicator';
@@ -27,11 +29,14 @@ export function FlightDesk({
   volunteerRounds,
   deniedBoarding,
   compensations,
+  roundGlance,
 }: {
   flightId: number;
   volunteerRounds?: (desk: FlightDeskData) => ReactNode;
   deniedBoarding?: (desk: FlightDeskData) => ReactNode;
   compensations?: (desk: FlightDeskData) => ReactNode;
+  /** The current round in one line, for the glance strip. */
+  roundGlance?: ReactNode;
 }) {
   const desk = useQuery(flightDeskQueryOptions(flightId));
   const passengers = useQuery(deskPassengersQueryOptions(flightId));
@@ -63,6 +68,7 @@ export function FlightDesk({
           <span aria-hidden>⚠ </span>No live updates right now: the figures below are as of {formatClock(updatedAt, tz)} and may be out of date. Reconnecting by itself…
         </p>
       )}
+      <DeskGlance desk={d} round={roundGlance} />
       <CabinCounts desk={d} />
       <div className="grid gap-4 lg:grid-cols-3">
         <div className="lg:col-span-2">
@@ -89,9 +95,13 @@ export function FlightDesk({
 
 function DeskError({ error }: { error: Error }) {
   const missing = error instanceof ApiRequestError && error.status === 404;
+  const title = missing ? 'No such flight at your stations' : 'The flight could not be loaded';
+  const heading = useArrival(title);
   return (
     <div role="alert" className="mx-auto mt-10 max-w-xl rounded-lg border-2 border-alert bg-card p-6">
-      <h1 className="text-2xl font-bold text-alert">{missing ? 'No such flight at your stations' : 'The flight could not be loaded'}</h1>
+      <h1 ref={heading} tabIndex={-1} className="text-2xl font-bold text-alert">
+        {title}
+      </h1>
       <p className="mt-2">{missing ? 'The flight may be at another station, or the link is wrong.' : error.message}</p>
       <Link to="/departures" className="mt-4 inline-block font-bold text-harbour underline">
         Back to departures

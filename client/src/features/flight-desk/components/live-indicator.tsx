@@ -23,7 +23,8 @@ export function LiveIndicator({ joined, updatedAt, timeZone }: { joined: boolean
         {look.icon}
       </span>
       <span>{look.text}</span>
-      {updatedAt > 0 && <span className="font-normal text-ink">· updated {formatClock(updatedAt, timeZone)}</span>}
+      {/* The clock changes on every check-in: shown, but kept out of the announcement so only the state is read out. */}
+      {updatedAt > 0 && <span aria-hidden className="font-normal text-ink">· updated {formatClock(updatedAt, timeZone)}</span>}
     </p>
   );
 }

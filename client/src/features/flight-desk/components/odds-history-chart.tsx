@@ -1,4 +1,5 @@
 import { CartesianGrid, Line, LineChart, ReferenceLine, Tooltip, XAxis, YAxis } from 'recharts';
+import { ChartFrame, ChartTable } from '../../../components/ui/chart';
 import { formatPercent, formatTime } from '../../../lib/format';
 import { formatTolerance } from '../model/risk';
 import { percentScaleTop } from '../model/scale';
@@ -27,7 +28,7 @@ export function OddsHistoryChart({ points, riskTolerance, timeZone }: { points: 
           <p className="sr-only">
             From {formatPercent(first.pct / 100)} at {formatTime(new Date(first.t).toISOString(), timeZone)} to {formatPercent(last.pct / 100)} at {formatTime(new Date(last.t).toISOString(), timeZone)}.
           </p>
-          <div aria-hidden data-testid="odds-history-chart">
+          <ChartFrame testId="odds-history-chart">
             <LineChart data={data} responsive style={{ width: '100%', height: 170 }} margin={{ top: 10, right: 16, bottom: 0, left: 0 }}>
               <CartesianGrid vertical={false} stroke="var(--color-line)" />
               <XAxis
@@ -52,7 +53,13 @@ export function OddsHistoryChart({ points, riskTolerance, timeZone }: { points: 
               />
               <Line type="stepAfter" dataKey="pct" stroke="var(--color-harbour)" strokeWidth={3} dot={false} isAnimationActive={false} />
             </LineChart>
-          </div>
+          </ChartFrame>
+          <ChartTable
+            summary="The odds as a table"
+            caption="Odds of an oversale at each change"
+            columns={['Time', 'Odds of an oversale']}
+            rows={data.map((d) => [formatTime(new Date(d.t).toISOString(), timeZone), formatPercent(d.pct / 100)])}
+          />
         </>
       )}
     </figure>

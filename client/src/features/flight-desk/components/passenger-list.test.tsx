@@ -1,7 +1,7 @@
 import '@testing-library/jest-dom/vitest';
 import { cleanup, render, screen, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
-import { afterEach, describe, expect, it } from 'vitest';
+import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
 import { passenger } from '../model/test-passenger';
 import { PassengerList } from './passenger-list';
 
@@ -13,6 +13,19 @@ const list = [
 ];
 
 afterEach(cleanup);
+
+// jsdom lays nothing out: give the list the size of a desk's (600 px high) and each row 48 px, so the virtual list
+// draws a screenful as a browser would.
+const sizes = { clientHeight: 600, clientWidth: 1200 } as const;
+const original = Object.keys(sizes).map((k) => Object.getOwnPropertyDescriptor(Element.prototype, k));
+beforeAll(() => {
+  Object.defineProperty(HTMLTableRowElement.prototype, 'offsetHeight', { configurable: true, get: () => 48 });
+  for (const [k, v] of Object.entries(sizes)) Object.defineProperty(Element.prototype, k, { configurable: true, get: () => v });
+});
+afterAll(() => {
+  delete (HTMLTableRowElement.prototype as { offsetHeight?: number }).offsetHeight;
+  Object.keys(sizes).forEach((k, i) => original[i] && Object.defineProperty(Element.prototype, k, original[i]!));
+});
 
 const names = () => screen.getAllByRole('row').slice(1).map((r) => within(r).getAllByRole('cell')[0].textContent);
 const show = () => render(<PassengerList passengers={list} timeZone="America/New_York" departureIso={DEP} />);
@@ -65,5 +78,21 @@ describe('PassengerList', () => {
     expect(screen.getByText('No passenger matches these filters.')).toBeInTheDocument();
     await userEvent.click(screen.getByRole('button', { name: 'Clear filters' }));
     expect(names()).toHaveLength(3);
+  });
+
+  it('keeps only the rows in view in the page at 850 passengers, tells screen readers the full count, and search reaches the last one', async () => {
+    const user = userEvent.setup();
+    // A wide-body's worth of invented passengers, named so that sorting by name keeps this order.
+    const many = Array.from({ length: 850 }, (_, i) => passenger({ id: i + 1, bookingId: i + 1, pnr: `P${String(i).padStart(5, '0')}`, lastName: `Name${String(i).padStart(4, '0')}`, firstName: 'Test' }));
+    render(<PassengerList passengers={many} timeZone="America/New_York" departureIso={DEP} />);
+    expect(screen.getByTestId('passenger-count')).toHaveTextContent('850 passengers');
+    const table = screen.getByRole('table');
+    expect(table).toHaveAttribute('aria-rowcount', '851');
+    const drawn = screen.getAllByRole('row').length - 1;
+    expect(drawn).toBeGreaterThan(0);
+    expect(drawn).toBeLessThan(60);
+    await user.type(screen.getByLabelText('Search name or PNR'), 'P00849');
+    expect(screen.getByTestId('passenger-count')).toHaveTextContent('Showing 1 of 850 passengers');
+    expect(names()).toEqual(['NAME0849, Test']);
   });
 });

@@ -1,4 +1,5 @@
-import { useMemo, useState } from 'react';
+import { useMemo, useRef, useState } from 'react';
+import { useVirtualizer } from '@tanstack/react-virtual';
 import { useTable, type ColumnFiltersState, type SortingState } from '@tanstack/react-table';
 import type { DeskPassenger } from '@shared/schemas/flight-desk';
 import { Button } from '../../../components/ui/button';
@@ -34,6 +35,15 @@ export function PassengerList({ passengers, timeZone, departureIso }: { passenge
     getColumnCanGlobalFilter: (column) => column.id === 'name',
   });
   const rows = table.getRowModel().rows;
+  // Only the rows in view (and a screenful either side) are in the page, so a wide-body's 850 passengers scroll as
+  // lightly as 50; spacer rows keep the scrollbar true, and aria-rowcount/rowindex tell screen readers the whole size.
+  const scroller = useRef<HTMLDivElement>(null);
+  // The virtualizer re-renders this component itself on scroll; the compiler's memoizing is not needed here.
+  // eslint-disable-next-line react-hooks/incompatible-library
+  const virtualizer = useVirtualizer({ count: rows.length, getScrollElement: () => scroller.current, estimateSize: () => 48, overscan: 12 });
+  const visible = virtualizer.getVirtualItems();
+  const padTop = visible[0]?.start ?? 0;
+  const padBottom = Math.max(0, virtualizer.getTotalSize() - (visible.at(-1)?.end ?? 0));
   const narrowed = columnFilters.length > 0 || search.trim() !== '';
 
   return (
@@ -56,12 +66,12 @@ export function PassengerList({ passengers, timeZone, departureIso }: { passenge
       <p className="mb-2 font-bold" role="status" aria-live="polite" data-testid="passenger-count">
         {passengers === undefined ? 'Loading passengers…' : narrowed ? `Showing ${rows.length} of ${data.length} passengers` : `${data.length} passengers`}
       </p>
-      <div className="max-h-[70vh] overflow-auto rounded-md border-2 border-line">
-        <table className="w-full text-base">
+      <div ref={scroller} className="max-h-[70vh] overflow-auto rounded-md border-2 border-line" data-testid="passenger-scroller">
+        <table className="w-full text-base" aria-rowcount={rows.length + 1}>
           <caption className="sr-only">Passengers on this flight; the column buttons sort the list</caption>
           <thead className="sticky top-0 z-10 bg-harbour-soft">
             {table.getHeaderGroups().map((group) => (
-              <tr key={group.id}>
+              <tr key={group.id} aria-rowindex={1}>
                 {group.headers.map((header) => {
                   const sorted = header.column.getIsSorted();
                   return (
@@ -77,15 +87,31 @@ export function PassengerList({ passengers, timeZone, departureIso }: { passenge
             ))}
           </thead>
           <tbody>
-            {rows.map((row) => (
-              <tr key={row.id} className="border-t border-line align-top odd:bg-paper/40" data-pnr={row.original.pnr}>
-                {row.getAllCells().map((cell) => (
-                  <td key={cell.id} className="px-3 py-2">
-                    <table.FlexRender cell={cell} />
-                  </td>
-                ))}
+            {padTop > 0 && (
+              <tr aria-hidden>
+                <td colSpan={columns.length} style={{ height: padTop, padding: 0 }} />
               </tr>
-            ))}
+            )}
+            {visible.map((v) => {
+              const row = rows[v.index]!;
+              return (
+                <tr
+                  key={row.id} ref={virtualizer.measureElement} data-index={v.index} aria-rowindex={v.index + 2}
+                  className={`border-t border-line align-top ${v.index % 2 === 0 ? 'bg-paper/40' : ''}`} data-pnr={row.original.pnr}
+                >
+                  {row.getAllCells().map((cell) => (
+                    <td key={cell.id} className="px-3 py-2">
+                      <table.FlexRender cell={cell} />
+                    </td>
+                  ))}
+                </tr>
+              );
+            })}
+            {padBottom > 0 && (
+              <tr aria-hidden>
+                <td colSpan={columns.length} style={{ height: padBottom, padding: 0 }} />
+              </tr>
+            )}
             {rows.length === 0 && passengers !== undefined && (
               <tr>
                 <td colSpan={columns.length} className="px-3 py-6 text-center text-lg">

@@ -1,4 +1,5 @@
 import { Bar, BarChart, CartesianGrid, Cell, ReferenceArea, ReferenceLine, Tooltip, XAxis, YAxis } from 'recharts';
+import { ChartFrame, ChartTable } from '../../../components/ui/chart';
 import { formatPercent } from '../../../lib/format';
 import { mostLikelyShows, showsBars } from '../model/distribution';
 
@@ -20,7 +21,7 @@ export function ShowsChart({ pmf, capacity }: { pmf: number[]; capacity: number 
       <p className="sr-only">
         Chart of the chance of each number of people showing. Most likely {likely} people for {capacity} seats.
       </p>
-      <div aria-hidden data-testid="shows-chart">
+      <ChartFrame testId="shows-chart">
         <BarChart data={bars} responsive style={{ width: '100%', height: 250 }} margin={{ top: 28, right: 12, bottom: 22, left: 0 }} barCategoryGap={1}>
           <defs>
             <pattern id={HATCH_ID} width="6" height="6" patternUnits="userSpaceOnUse" patternTransform="rotate(45)">
@@ -56,7 +57,7 @@ export function ShowsChart({ pmf, capacity }: { pmf: number[]; capacity: number 
             label={{ value: `${capacity} seats`, position: 'top', fill: 'var(--color-ink)', fontWeight: 700, fontSize: 15 }}
           />
         </BarChart>
-      </div>
+      </ChartFrame>
       <ul className="mt-1 flex flex-wrap gap-x-5 gap-y-1 text-sm">
         <li className="flex items-center gap-2">
           <span aria-hidden className="inline-block h-4 w-4 bg-harbour" />
@@ -69,6 +70,12 @@ export function ShowsChart({ pmf, capacity }: { pmf: number[]; capacity: number 
           More people than seats: someone is denied boarding
         </li>
       </ul>
+      <ChartTable
+        summary="The chances as a table"
+        caption={`Chance of each number of people showing, for ${capacity} seats`}
+        columns={['People who show', 'Chance', 'Enough seats?']}
+        rows={bars.map((b) => [b.shows, formatPercent(b.p), b.over ? 'No: someone is denied boarding' : 'Yes'])}
+      />
     </figure>
   );
 }

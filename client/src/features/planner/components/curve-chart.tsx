@@ -1,6 +1,7 @@
 import { useId } from 'react';
 import { CartesianGrid, ComposedChart, Line, ReferenceLine, Tooltip, XAxis, YAxis } from 'recharts';
 import type { BookingLimitPoint } from '@shared/forecast';
+import { ChartFrame } from '../../../components/ui/chart';
 import { formatMoney, formatPercent } from '../../../lib/format';
 import { minorDigits } from '../model/money-text';
 
@@ -50,6 +51,7 @@ export function CurveChart({ points, bestBookings, capacity, currency }: Props) 
           <Swatch vertical colour="var(--color-ink)" /> Best number of bookings
         </li>
       </ul>
+      <ChartFrame testId="planner-curve-chart">
       <ComposedChart responsive data={data} style={{ width: '100%', height: 380 }} margin={{ top: 28, right: 8, bottom: 28, left: 8 }}>
         <CartesianGrid stroke="var(--color-line)" strokeDasharray="3 3" />
         <XAxis
@@ -77,6 +79,7 @@ export function CurveChart({ points, bestBookings, capacity, currency }: Props) 
           label={{ value: `Best: ${bestBookings}`, position: 'top', fill: 'var(--color-ink)', fontSize: 16, fontWeight: 700 }}
         />
       </ComposedChart>
+      </ChartFrame>
       <figcaption id={captionId} className="text-sm text-ink-soft">
         Expected net revenue and the chance that more passengers show than there are seats, for each number of bookings accepted. The table below lists the same figures.
       </figcaption>

@@ -2,6 +2,7 @@ import { CartesianGrid, Line, LineChart, ReferenceLine, Tooltip, XAxis, YAxis } 
 import { Button } from '../../../components/ui/button';
 import { CellInput } from './cell-input';
 import { curvePoints, rowId, type CurveRow, type DraftErrors, type ProfileDraft } from '../model/profile-draft';
+import { ChartFrame } from '../../../components/ui/chart';
 
 interface Props {
   draft: ProfileDraft;
@@ -20,7 +21,7 @@ function CurvePreview({ draft }: { draft: ProfileDraft }) {
       <p className="sr-only">
         From {Math.round(points[0].pct)} % at {points[0].minutes} minutes before departure to {Math.round(points[points.length - 1].pct)} % at {points[points.length - 1].minutes} minutes.
       </p>
-      <div aria-hidden data-testid="check-in-curve-chart">
+      <ChartFrame testId="check-in-curve-chart">
         <LineChart data={points} responsive style={{ width: '100%', height: 220 }} margin={{ top: 16, right: 24, bottom: 22, left: 0 }}>
           <CartesianGrid stroke="var(--color-line)" />
           <XAxis
@@ -41,7 +42,7 @@ function CurvePreview({ draft }: { draft: ProfileDraft }) {
           )}
           <Line type="linear" dataKey="pct" stroke="var(--color-harbour)" strokeWidth={3} dot={{ r: 4 }} isAnimationActive={false} />
         </LineChart>
-      </div>
+      </ChartFrame>
     </figure>
   );
 }

@@ -1,8 +1,8 @@
 import { useEffect, useState } from 'react';
-import { createPortal } from 'react-dom';
 import { useQuery } from '@tanstack/react-query';
 import QRCode from 'qrcode';
 import { Button } from '../../../components/ui/button';
+import { Modal, ModalClose } from '../../../components/ui/dialog';
 import { volunteerKeys } from '../api/rounds';
 
 interface Props {
@@ -22,7 +22,9 @@ export function BidLinkQr(props: Props) {
       <Button className="mt-2 w-full text-lg" onClick={() => setShowing(true)}>
         Show QR for the gate screen
       </Button>
-      {showing && <GateScreen {...props} onClose={() => setShowing(false)} />}
+      <Modal open={showing} onOpenChange={setShowing} size="sheet" title="Gate screen: offer your seat" titleHidden>
+        {showing && <GateScreen {...props} />}
+      </Modal>
     </div>
   );
 }
@@ -31,33 +33,25 @@ export function BidLinkQr(props: Props) {
  * Full screen, for a monitor at the gate or a printed sheet: a large QR code and the link written out. While it is
  * open the app underneath is left out of printing, so Print gives one clean page.
  */
-function GateScreen({ link, flightLabel, offerText, extras, onClose }: Props & { onClose: () => void }) {
+function GateScreen({ link, flightLabel, offerText, extras }: Props) {
   const qr = useQuery({
     queryKey: volunteerKeys.qr(link),
     queryFn: () => QRCode.toDataURL(link, { width: 720, margin: 2, errorCorrectionLevel: 'M', color: { dark: '#14202b', light: '#ffffff' } }),
     staleTime: Infinity,
   });
 
+  // Printed, the sheet is the gate screen alone: the staff page underneath is left out.
   useEffect(() => {
     const root = document.getElementById('root');
     root?.classList.add('no-print');
-    // The staff page underneath must not scroll behind the gate screen.
-    const overflow = document.body.style.overflow;
-    document.body.style.overflow = 'hidden';
-    const onKey = (e: KeyboardEvent) => e.key === 'Escape' && onClose();
-    window.addEventListener('keydown', onKey);
-    return () => {
-      root?.classList.remove('no-print');
-      document.body.style.overflow = overflow;
-      window.removeEventListener('keydown', onKey);
-    };
-  }, [onClose]);
+    return () => root?.classList.remove('no-print');
+  }, []);
 
-  return createPortal(
-    <div role="dialog" aria-modal="true" aria-label="Gate screen: offer your seat" className="fixed inset-0 z-50 overflow-auto bg-white text-ink print:static print:overflow-visible">
+  return (
+    <>
       <div className="no-print flex justify-end gap-2 border-b-2 border-line bg-paper p-3">
         <Button variant="secondary" onClick={() => window.print()}>Print</Button>
-        <Button autoFocus onClick={onClose}>Close</Button>
+        <ModalClose variant="primary">Close</ModalClose>
       </div>
       <div className="mx-auto flex max-w-6xl flex-col items-center px-6 py-5 text-center">
         <p className="text-5xl font-bold text-harbour">Volunteers wanted</p>
@@ -90,7 +84,6 @@ function GateScreen({ link, flightLabel, offerText, extras, onClose }: Props & {
           </div>
         </div>
       </div>
-    </div>,
-    document.body,
+    </>
   );
 }

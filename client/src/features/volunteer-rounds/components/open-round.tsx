@@ -2,6 +2,8 @@ import { useState } from 'react';
 import type { ArrivalClock } from './rebook-panel';
 import type { Round, VolunteerPolicy } from '@shared/schemas/volunteers';
 import { Button } from '../../../components/ui/button';
+import { ConfirmDialog } from '../../../components/ui/dialog';
+import { useFocusIfLost } from '../../../components/ui/use-focus-if-lost';
 import { formatMoney, formatTime } from '../../../lib/format';
 import { useCloseRound } from '../api/rounds';
 import { bidLinkToken, seatsFoundWords, seatsLeft } from '../model/round-words';
@@ -29,11 +31,13 @@ export function OpenRound(props: OpenRoundProps) {
   const token = bidLink ? bidLinkToken(bidLink) : null;
   const done = seatsLeft(round) === 0;
   const offerText = round.kind === 'posted' && round.offerMinor !== null ? formatMoney(round.offerMinor, round.currency) : null;
+  // Opening the round replaces its form: the progress line is where the agent continues.
+  const progress = useFocusIfLost<HTMLParagraphElement>();
   return (
     <div className="grid gap-5 xl:grid-cols-[3fr_2fr]">
       <div className="space-y-5">
         <div className={`flex flex-wrap items-center justify-between gap-3 rounded-lg border-2 px-4 py-3 ${done ? 'border-calm bg-calm-soft' : 'border-ink bg-signal'}`}>
-          <p className="text-3xl font-bold" data-testid="round-progress">
+          <p ref={progress} tabIndex={-1} data-focus-target className="text-3xl font-bold" data-testid="round-progress">
             <span aria-hidden>{done ? '✓ ' : ''}</span>
             {seatsFoundWords(round)}
           </p>
@@ -62,25 +66,25 @@ export function OpenRound(props: OpenRoundProps) {
 function CloseRound({ roundId, flightId, prominent }: { roundId: number; flightId: number; prominent: boolean }) {
   const [confirming, setConfirming] = useState(false);
   const close = useCloseRound(flightId);
-  if (!confirming) {
-    return (
+  return (
+    <>
       <Button variant={prominent ? 'primary' : 'secondary'} className="w-full" onClick={() => setConfirming(true)}>
         Close this round
       </Button>
-    );
-  }
-  return (
-    <div className="rounded-lg border-2 border-alert p-3">
-      <p className="font-bold">Close the round? Passengers can no longer offer their seats; accepted volunteers stay accepted.</p>
-      <div className="mt-2 flex flex-wrap gap-2">
-        <Button variant="danger" disabled={close.isPending} onClick={() => close.mutate(roundId)}>
-          {close.isPending ? 'Closing…' : 'Yes, close the round'}
-        </Button>
-        <Button variant="quiet" onClick={() => setConfirming(false)}>
-          Keep it open
-        </Button>
-      </div>
-      <Problem error={close.error} />
-    </div>
+      <ConfirmDialog
+        open={confirming}
+        onOpenChange={setConfirming}
+        title="Close the round?"
+        consequence="Passengers can no longer offer their seats; accepted volunteers stay accepted."
+        confirmLabel="Yes, close the round"
+        cancelLabel="Keep it open"
+        danger
+        pending={close.isPending}
+        onConfirm={() => close.mutate(roundId, { onSuccess: () => setConfirming(false) })}
+        problem={<Problem error={close.error} />}
+        // The round's panel is redrawn without this button: its outcome heading is the next thing to read.
+        returnFocus={() => document.getElementById('volunteer-rounds-heading')}
+      />
+    </>
   );
 }

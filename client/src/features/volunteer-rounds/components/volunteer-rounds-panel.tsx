@@ -45,7 +45,7 @@ export function VolunteerRoundsPanel({ flightId, station, forecast, flightLabel,
   const open = rounds.data.rounds.find((r) => r.status === 'open');
   const earlier = rounds.data.rounds.filter((r) => r !== open);
   return (
-    <Panel title="Volunteer rounds">
+    <Panel title="Volunteer rounds" headingId="volunteer-rounds-heading">
       <div data-testid="volunteer-rounds">
         {open ? (
           <OpenRound key={open.id} round={open} policy={policy} bidLink={bidLink} flightId={flightId} timeZone={station.timeZone} role={role} flightLabel={flightLabel} arrival={arrival} />
