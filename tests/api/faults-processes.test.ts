@@ -164,12 +164,16 @@ async function roundThrough(fault: () => Promise<void>, after: number) {
   const open = new Set(passengerIds);
   let settled = 0;
   let struck: Promise<void> | null = null;
-  await inParallel(passengerIds, 4, async (id) => {
-    if (await volunteerThenAccept(agent, roundId, flight.id, id)) open.delete(id);
-    settled += 1;
-    if (settled === after) struck = fault();
-  });
-  await struck;
+  try {
+    await inParallel(passengerIds, 4, async (id) => {
+      if (await volunteerThenAccept(agent, roundId, flight.id, id)) open.delete(id);
+      settled += 1;
+      if (settled === after) struck = fault();
+    });
+  } finally {
+    // Even when a check failed: a restart still under way would leave a server nobody stops.
+    await struck;
+  }
   // The desk retries what it has no answer for, with the same session: it outlived the fault.
   for (let pass = 0; pass < 5 && open.size; pass++) {
     for (const id of [...open]) if (await volunteerThenAccept(agent, roundId, flight.id, id)) open.delete(id);
@@ -247,12 +251,15 @@ async function paymentRun(fault: () => Promise<void>, after: number) {
   const agent = await signedInRemote(agentEmail);
   let answered = 0;
   let struck: Promise<void> | null = null;
-  await inParallel(comps, 4, async (c) => {
-    expectOurs(await attempt(() => agent.post(`/api/compensations/${c.id}/issue`)));
-    answered += 1;
-    if (answered === after) struck = fault();
-  });
-  await struck;
+  try {
+    await inParallel(comps, 4, async (c) => {
+      expectOurs(await attempt(() => agent.post(`/api/compensations/${c.id}/issue`)));
+      answered += 1;
+      if (answered === after) struck = fault();
+    });
+  } finally {
+    await struck;
+  }
   // Whatever never reached 'issuing' is asked again; what did is the worker's to finish on its fixed keys.
   for (let pass = 0; pass < 5; pass++) {
     const due = await ds.getRepository(CompensationEntity).findBy({ id: In(comps.map((c) => c.id)), state: 'due' });
