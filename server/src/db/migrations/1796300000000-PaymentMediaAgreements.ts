@@ -18,7 +18,8 @@ export class PaymentMediaAgreements1796300000000 implements MigrationInterface {
         '`method` varchar(20) NOT NULL, `signature` mediumtext NULL, `statement` text NULL, `accepted_at` datetime(3) NOT NULL, ' +
         '`staff_user_id` int NULL, `created_at` datetime(3) NOT NULL DEFAULT CURRENT_TIMESTAMP(3), ' +
         'UNIQUE INDEX `uq_agreement_compensation` (`compensation_id`), PRIMARY KEY (`id`), ' +
-        'CONSTRAINT `fk_agreement_compensation` FOREIGN KEY (`compensation_id`) REFERENCES `compensations` (`id`) ON DELETE CASCADE) ENGINE=InnoDB',
+        'CONSTRAINT `fk_agreement_compensation` FOREIGN KEY (`compensation_id`) REFERENCES `compensations` (`id`) ON DELETE RESTRICT, ' +
+        'CONSTRAINT `fk_payment_agreements_staff_user_id` FOREIGN KEY (`staff_user_id`) REFERENCES `users` (`id`) ON DELETE RESTRICT) ENGINE=InnoDB',
     );
     await q.query(
       'CREATE TABLE `counter_payments` (`id` int NOT NULL AUTO_INCREMENT, `compensation_id` int NOT NULL, `station_id` int NOT NULL, ' +
@@ -26,7 +27,9 @@ export class PaymentMediaAgreements1796300000000 implements MigrationInterface {
         '`currency` char(3) NOT NULL, `receipt_text` text NOT NULL, `signature` mediumtext NOT NULL, `paid_by_user_id` int NOT NULL, ' +
         '`paid_at` datetime(3) NOT NULL, UNIQUE INDEX `uq_counter_payment_compensation` (`compensation_id`), ' +
         'UNIQUE INDEX `uq_counter_cheque` (`station_id`, `cheque_number`), INDEX `ix_counter_drawer` (`station_id`, `drawer_id`, `paid_at`), PRIMARY KEY (`id`), ' +
-        'CONSTRAINT `fk_counter_payment_compensation` FOREIGN KEY (`compensation_id`) REFERENCES `compensations` (`id`) ON DELETE CASCADE) ENGINE=InnoDB',
+        'CONSTRAINT `fk_counter_payment_compensation` FOREIGN KEY (`compensation_id`) REFERENCES `compensations` (`id`) ON DELETE RESTRICT, ' +
+        'CONSTRAINT `fk_counter_payments_station_id` FOREIGN KEY (`station_id`) REFERENCES `stations` (`id`) ON DELETE RESTRICT, ' +
+        'CONSTRAINT `fk_counter_payments_paid_by_user_id` FOREIGN KEY (`paid_by_user_id`) REFERENCES `users` (`id`) ON DELETE RESTRICT) ENGINE=InnoDB',
     );
     // A voucher agreed under the earlier flow stays agreed: the words recorded by staff become its agreement record,
     // with the text that was sent, so an agreed credit can still be issued and nothing is lost.
