@@ -127,7 +127,7 @@ export function createApp(deps: AppDeps) {
   api.use('/plans', plansRouter(deps));
   // Forecasts of a station whose rates changed are recomputed; the answer does not wait for them.
   const recomputeStation = (stationId: number) => void openFlightIds(deps.db, stationId).then((ids) => ids.forEach((id) => forecast.markDirty(id))).catch(() => undefined);
-  const learning = deps.learning ?? createLearningRuntime(deps.db, { forecast, onNewVersion: () => void stationsOnLatestRates(deps.db).then((ids) => ids.forEach(recomputeStation)) });
+  const learning = deps.learning ?? createLearningRuntime(deps.db, { forecast, onNewVersion: () => void stationsOnLatestRates(deps.db).then((ids) => ids.forEach(recomputeStation)).catch((err: unknown) => console.error(`[learning] could not refresh the stations on the new rates: ${String(err)}`)) });
   api.use('/learning', learningRouter({ db: deps.db, runtime: learning, onChoiceChanged: recomputeStation }));
   api.use((req) => {
     throw notFound(`The API route ${req.method} ${req.path}`);

@@ -9,8 +9,8 @@ import { evaluateModel } from './evaluate';
 import { recordDepartedFlights } from './outcomes.service';
 import { readTrainingFlights } from './history.repository';
 import { learnModel, splitHeldOut } from './train';
+import { driverErrorCode } from '../../db/driver-errors';
 
-const codeOf = (err: unknown) => (err as { driverError?: { code?: string } })?.driverError?.code ?? (err as { code?: string })?.code ?? '';
 
 export function presentJob(j: LearningJobEntity): LearningJob {
   return {
@@ -34,7 +34,8 @@ export async function requestTraining(db: DataSource, trigger: 'on-demand' | 'ni
       });
       return { job: presentJob(job), joined: false };
     } catch (err) {
-      if (codeOf(err) !== 'ER_DUP_ENTRY' || attempt >= 5) throw err;
+      // A duplicate means a run is already queued or running; a deadlock, two requests racing for that one slot.
+      if (!['ER_DUP_ENTRY', 'ER_LOCK_DEADLOCK'].includes(String(driverErrorCode(err))) || attempt >= 5) throw err;
     }
     // A run that has shown no sign of life for 15 minutes was left by a process that stopped: it starts again.
     await db.query("UPDATE learning_jobs SET status = 'queued', stage = 'waiting to start again' WHERE status = 'running' AND started_at < UTC_TIMESTAMP(3) - INTERVAL 15 MINUTE");
