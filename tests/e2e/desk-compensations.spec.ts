@@ -60,7 +60,7 @@ test('the agent issues an accepted volunteer’s compensation on the desk and se
     const money = new Intl.NumberFormat('en-US', { style: 'currency', currency: before.policy.currency }).format(offerMinor / 100);
     await expect(row.getByTestId('compensation-amount')).toHaveText(money);
     await expect(row).toContainText('Voluntary');
-    await expect(row).toContainText('Prepaid card (cash equivalent)');
+    await expect(row).toContainText(/Paid in\s*Prepaid card/);
     await expect(row.getByTestId('compensation-state')).toContainText('Due');
     await row.scrollIntoViewIfNeeded();
     await panel.screenshot({ path: `${SCREENSHOTS}/desk-compensations-due.png` });

@@ -1,6 +1,7 @@
 import { expect, test, type Browser } from '@playwright/test';
 import { shot, signIn, staffApi, type Staff } from './helpers';
 import { ownFlight, type OwnFlight } from './own-flight';
+import { de } from '../../shared/i18n/messages/de';
 
 /** This spec's own oversold flight (33 checked in on 30 seats at BOS) and a later one with room. */
 let flight: OwnFlight;
@@ -87,11 +88,12 @@ test('a passenger in a German browser names "275,50" on their own bid page and t
   try {
     const p = await context.newPage();
     await p.goto(bidLink);
-    await p.getByLabel('Booking reference').fill(traveller.pnr);
-    await p.getByLabel('Last name').fill(traveller.lastName);
-    await p.getByRole('button', { name: 'Continue' }).click();
-    await p.getByLabel(/The least I would accept \(USD\)/).fill('275,50');
-    await p.getByRole('button', { name: 'Send my offer' }).click();
+    // A German browser gets the page in German (the booking names no language): the labels are the catalogue's.
+    await p.getByLabel(de['passenger.identify.pnr']).fill(traveller.pnr);
+    await p.getByLabel(de['passenger.identify.lastName']).fill(traveller.lastName);
+    await p.getByRole('button', { name: de['passenger.identify.continue'] }).click();
+    await p.getByLabel(/Mindestens würde ich annehmen \(USD\)/).fill('275,50');
+    await p.getByRole('button', { name: de['passenger.offer.send'] }).click();
     await expect(p.getByTestId('outcome')).toHaveAttribute('data-status', 'offered');
     await shot(p, 'money-de-DE-passenger-ask');
     await expect.poll(async () => {
