@@ -16,10 +16,13 @@ import { Client, DEMO_PASSWORD } from './harness';
 import { DEMO } from './helpers';
 import { scratchDatabase, type ScratchDatabase } from './scratch-db-helpers';
 import type { Role } from '@shared/schemas/common';
+import { createLearningRuntime } from '../../server/src/modules/learning/learning-runtime';
 
 export interface FuzzApp {
   app: ReturnType<typeof createApp>;
   db: DataSource;
+  /** Work an accepted request leaves running (a training run): waited for before rows are counted again. */
+  idle(): Promise<void>;
   close(): Promise<void>;
 }
 
@@ -30,11 +33,14 @@ export async function startFuzzApp(shared: DataSource, label: string): Promise<F
   await loadDemo(scratch.db);
   const env = loadEnv({ ...process.env, DATABASE_URL: scratch.url, NODE_ENV: 'test', SESSION_SECRET: 'fuzz-secret-fuzz-secret-fuzz-secret-4242', STATIC_DIR: 'no-static-in-api-tests' });
   const session = createSessionSetup(env);
-  const app = createApp({ env, db: scratch.db, session, throttle: createSignInThrottle({ perAccount: 100_000, perAddress: 1_000_000 }), demo: true });
+  const learning = createLearningRuntime(scratch.db, {});
+  const app = createApp({ env, db: scratch.db, session, learning, throttle: createSignInThrottle({ perAccount: 100_000, perAddress: 1_000_000 }), demo: true });
   return {
     app,
     db: scratch.db,
+    idle: () => learning.idle(),
     async close() {
+      await learning.idle();
       await session.close();
       await scratch.drop();
     },

@@ -128,6 +128,7 @@ describe('fuzzing every route', () => {
         }
         if (res.status < 400) {
           tally.accepted += 1;
+          await f.idle();
           if (method !== 'GET' && pattern.startsWith('/api/users')) await restoreDemoUsers();
         }
         if (res.status === 401 && who !== 'public') await signInAll();
