@@ -1,6 +1,6 @@
 // Stations from the screens: only a carrier-wide admin opens one, its zone read from the reference airport data;
 // a station admin edits only stations held; every change audited; bad input names the field and the rule.
-// Check values: the OpenFlights airports.dat row for Bergen Flesland (BGO) gives the zone Europe/Oslo.
+// Check values: the OpenFlights airports.dat row for Bodø (BOO, ENBO) gives the zone Europe/Oslo.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { stationSettingsSchema } from '@shared/schemas/admin-stations';
 import { AuditLogEntity, StationEntity } from '../../server/src/db/entities';
@@ -20,14 +20,14 @@ async function signIn(email: string) {
   return c;
 }
 
-async function dropBergen() {
-  const bgo = await t.db.getRepository(StationEntity).findOneBy({ iata: 'BGO' });
-  if (bgo) await t.db.query('DELETE FROM stations WHERE id = ?', [bgo.id]);
+async function dropBodo() {
+  const boo = await t.db.getRepository(StationEntity).findOneBy({ iata: 'BOO' });
+  if (boo) await t.db.query('DELETE FROM stations WHERE id = ?', [boo.id]);
 }
 
 beforeAll(async () => {
   t = await startTestApp();
-  await dropBergen();
+  await dropBodo();
   yul = await stationIdByIata(t.db, 'YUL');
   foreign = (await foreignStation(t.db)).id;
   originalGrace = (await t.db.getRepository(StationEntity).findOneByOrFail({ id: yul })).departureGraceMinutes;
@@ -39,29 +39,29 @@ beforeAll(async () => {
 afterAll(async () => {
   await t.db.query('UPDATE stations SET departure_grace_minutes = ? WHERE id = ?', [originalGrace, yul]);
   await removeRunUsers(t.db);
-  await dropBergen();
+  await dropBodo();
   await t.close();
 });
 
 describe('opening a station', () => {
   it('is refused to a station admin, who may reach only the stations granted', async () => {
-    const res = await stationAdmin.post('/api/stations', { iata: 'BGO', regime: 'eu-261', currency: 'NOK' });
+    const res = await stationAdmin.post('/api/stations', { iata: 'BOO', regime: 'eu-261', currency: 'NOK' });
     expect(res.status).toBe(403);
-    expect(await t.db.getRepository(StationEntity).findOneBy({ iata: 'BGO' })).toBeNull();
+    expect(await t.db.getRepository(StationEntity).findOneBy({ iata: 'BOO' })).toBeNull();
   });
 
   it('takes its zone and name from the airport data, gives the creator the station, and is audited', async () => {
-    const look = await carrierWide.get('/api/stations/airports/bgo');
-    expect(look.body).toMatchObject({ iata: 'BGO', timeZone: 'Europe/Oslo', country: 'Norway' });
-    const res = await carrierWide.post('/api/stations', { iata: 'bgo', regime: 'eu-261', currency: 'nok', maxOverbookingPercent: 120 });
+    const look = await carrierWide.get('/api/stations/airports/boo');
+    expect(look.body).toMatchObject({ iata: 'BOO', timeZone: 'Europe/Oslo', country: 'Norway' });
+    const res = await carrierWide.post('/api/stations', { iata: 'boo', regime: 'eu-261', currency: 'nok', maxOverbookingPercent: 120 });
     expect(res.status, JSON.stringify(res.body)).toBe(201);
     const s = stationSettingsSchema.parse(res.body);
-    expect(s).toMatchObject({ iata: 'BGO', timeZone: 'Europe/Oslo', currency: 'NOK', riskTolerancePercent: 5, departureGraceMinutes: 10, maxOverbookingPercent: 120 });
-    expect(s.name).toMatch(/Bergen/);
+    expect(s).toMatchObject({ iata: 'BOO', timeZone: 'Europe/Oslo', currency: 'NOK', riskTolerancePercent: 5, departureGraceMinutes: 10, maxOverbookingPercent: 120 });
+    expect(s.name).toMatch(/Bod/);
     const mine = await carrierWide.get('/api/stations/settings');
-    expect(mine.body.stations.map((x: { iata: string }) => x.iata)).toContain('BGO');
+    expect(mine.body.stations.map((x: { iata: string }) => x.iata)).toContain('BOO');
     expect(await t.db.getRepository(AuditLogEntity).findBy({ action: 'station.created', entityId: String(s.id) })).toHaveLength(1);
-    expect((await carrierWide.post('/api/stations', { iata: 'BGO', regime: 'eu-261', currency: 'NOK' })).status).toBe(409);
+    expect((await carrierWide.post('/api/stations', { iata: 'BOO', regime: 'eu-261', currency: 'NOK' })).status).toBe(409);
   });
 
   it('names the field and the rule for a code the airport data lacks, or a bad regime or limit', async () => {
