@@ -4,7 +4,7 @@ import { Button } from '../../../components/ui/button';
 import { TextField } from '../../../components/ui/text-field';
 import { ApiRequestError } from '../../../lib/api-client';
 import { useCreateFlight, useUpdateFlight } from '../api/flights';
-import { fieldError, FormProblems, parseSeats, seatsText } from './form-problems';
+import { fieldError, FormProblems, parseSeats, seatsText } from '../../../components/ui/form-problems';
 
 export const FLIGHT_LABELS: Record<string, string> = {
   carrierCode: 'Carrier', flightNumber: 'Flight number', serviceDate: 'Date', departureTime: 'Departs', blockMinutes: 'Block time',

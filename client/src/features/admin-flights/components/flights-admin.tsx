@@ -6,7 +6,7 @@ import { Button } from '../../../components/ui/button';
 import { TextField } from '../../../components/ui/text-field';
 import { adminFlightsQueryOptions, useCancelFlight } from '../api/flights';
 import { FlightForm } from './flight-form';
-import { fieldError, FormProblems, ResultMessage, seatsText } from './form-problems';
+import { fieldError, FormProblems, ResultMessage, seatsText } from '../../../components/ui/form-problems';
 
 const addDays = (date: string, n: number) => new Date(Date.parse(`${date}T00:00:00Z`) + n * 86_400_000).toISOString().slice(0, 10);
 const STATE_WORDS: Record<AdminFlight['state'], string> = { scheduled: 'Scheduled', 'check-in-open': 'Check-in open', boarding: 'Boarding', closed: 'Closed', departed: 'Departed', cancelled: 'Cancelled' };

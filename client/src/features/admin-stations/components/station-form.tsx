@@ -5,7 +5,7 @@ import type { StationSettings } from '@shared/schemas/admin-stations';
 import { Button } from '../../../components/ui/button';
 import { TextField } from '../../../components/ui/text-field';
 import { airportQueryOptions, useCreateStation, useUpdateStation } from '../api/stations';
-import { fieldError, FormProblems } from './form-problems';
+import { fieldError, FormProblems } from '../../../components/ui/form-problems';
 
 const LABELS: Record<string, string> = {
   iata: 'Airport code', name: 'Name', regime: 'Passenger-rights rules', currency: 'Currency', riskTolerancePercent: 'Risk tolerance',

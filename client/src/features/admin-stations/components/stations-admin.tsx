@@ -4,7 +4,7 @@ import { REGIME_LABELS } from '@shared/schemas/common';
 import type { StationSettings } from '@shared/schemas/admin-stations';
 import { Button } from '../../../components/ui/button';
 import { stationSettingsQueryOptions } from '../api/stations';
-import { ResultMessage } from './form-problems';
+import { ResultMessage } from '../../../components/ui/form-problems';
 import { StationForm } from './station-form';
 
 export function StationsAdmin() {

@@ -5,7 +5,7 @@ import { Button } from '../../../components/ui/button';
 import { TextField } from '../../../components/ui/text-field';
 import { noticesQueryOptions, useNoticeAction } from '../api/notices';
 import { NoticeView } from './notice-view';
-import { ResultMessage } from './result-message';
+import { ResultMessage } from '../../../components/ui/form-problems';
 
 /** Date and time on the station's clock, e.g. "3 Dec 2026, 07:40". */
 const when = (iso: string, timeZone: string) => new Intl.DateTimeFormat('en-GB', { timeZone, dateStyle: 'medium', timeStyle: 'short', hourCycle: 'h23' }).format(new Date(iso));

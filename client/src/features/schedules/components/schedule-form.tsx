@@ -4,7 +4,7 @@ import { Button } from '../../../components/ui/button';
 import { TextField } from '../../../components/ui/text-field';
 import { ApiRequestError } from '../../../lib/api-client';
 import { useCreateSchedule, useUpdateSchedule } from '../api/schedules';
-import { fieldError, FormProblems, parseSeats, seatsText } from './form-problems';
+import { fieldError, FormProblems, parseSeats, seatsText } from '../../../components/ui/form-problems';
 
 const LABELS: Record<string, string> = {
   carrierCode: 'Carrier', flightNumber: 'Flight number', destination: 'To', departureTime: 'Departs', blockMinutes: 'Block time', seatsByCabin: 'Seats per cabin',

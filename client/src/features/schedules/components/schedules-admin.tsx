@@ -4,7 +4,7 @@ import { WEEKDAY_NAMES, type Schedule } from '@shared/schemas/admin-flights';
 import { localDate } from '@shared/time';
 import { Button } from '../../../components/ui/button';
 import { schedulesQueryOptions, useCancelSchedule } from '../api/schedules';
-import { ResultMessage, seatsText } from './form-problems';
+import { ResultMessage, seatsText } from '../../../components/ui/form-problems';
 import { outcomeText, ScheduleForm } from './schedule-form';
 
 export function SchedulesAdmin({ station }: { station: { id: number; iata: string; timeZone: string } }) {

@@ -1,5 +1,5 @@
 import { useEffect, useRef } from 'react';
-import { ApiRequestError } from '../../../lib/api-client';
+import { ApiRequestError } from '../../lib/api-client';
 
 /** The problems of the last submit as a list that takes focus, each naming the field and the rule broken. */
 export function FormProblems({ error, labels }: { error: Error | null; labels: Record<string, string> }) {
