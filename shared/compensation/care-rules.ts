@@ -32,8 +32,9 @@ export function euCareRows(instrument: string): Readonly<Record<CareKind, CareRu
 }
 
 /**
- * Canada, SOR/2019-150 s. 14 as we read it (from memory; check laws-lois.justice.gc.ca): after a wait of 2 hours,
- * food and drink in reasonable quantities for the length of the wait, the time of day and the place, and a means of
+ * Canada, SOR/2019-150 s. 14 as we read it (a secondary reading agrees; the section's own page was not at hand): once
+ * the passenger has waited 2 hours after the departure time on the original ticket (the desk passes that time as
+ * `waitFrom`), food and drink in reasonable quantities for the length of the wait, the time of day and the place, and a means of
  * communication (s. 14(1)); for an overnight wait, hotel or comparable accommodation and transport to it and back (s. 14(2)).
  */
 export const APPR_CARE_AFTER_MINUTES = 120;

@@ -65,15 +65,17 @@ function euStyle(instrument: string): readonly ChoiceOffer[] {
 }
 
 /**
- * SOR/2019-150 as we read it (section numbers from memory, check laws-lois.justice.gc.ca): s. 18 sends a denied
- * passenger to the rebooking obligations of s. 17(1); s. 17(2) refunds when those do not meet the passenger's needs;
- * s. 17(7) refunds and carries back when travel no longer serves a purpose.
+ * SOR/2019-150: a denial of boarding within the carrier's control goes through s. 12(4)(c) to the rebooking
+ * obligations of s. 17(1) (s. 17(1) names "12(2)(c), (3)(c) or (4)(c)"; s. 18 is the rule outside the carrier's
+ * control). s. 17(2) refunds when the rebooking does not meet the passenger's needs, and, where travel no longer serves
+ * a purpose, refunds and carries back to the point of origin (placement in s. 17(2) from a secondary reading: check
+ * laws-lois.justice.gc.ca).
  */
 const APPR: readonly ChoiceOffer[] = [
   {
     kind: 'reroute-earliest', label: 'Rebooking on the next available flight',
     detail: 'A confirmed seat on the next available flight of this carrier or a partner; when none leaves within 9 hours of the original departure, on any carrier flying a reasonable route.',
-    effects: REROUTED, source: 'SOR/2019-150 s. 18, s. 17(1)', basis: 'our-reading',
+    effects: REROUTED, source: 'SOR/2019-150 s. 12(4)(c), s. 17(1)', basis: 'our-reading',
   },
   {
     kind: 'refund', label: 'Refund: the new flight does not meet the passenger’s needs',
@@ -83,7 +85,7 @@ const APPR: readonly ChoiceOffer[] = [
   {
     kind: 'refund-and-return', label: 'Refund and a flight back: travel no longer serves a purpose',
     detail: 'Refund of the ticket and a confirmed seat back to the point of origin.',
-    effects: { ...REFUNDED, returnFlightOwed: true }, source: 'SOR/2019-150 s. 17(7)', basis: 'our-reading',
+    effects: { ...REFUNDED, returnFlightOwed: true }, source: 'SOR/2019-150 s. 17(2)', basis: 'our-reading',
   },
 ];
 
@@ -109,5 +111,9 @@ export const CHOICE_OFFERS: Readonly<Record<Regime, readonly ChoiceOffer[]>> = {
   'us-dot': US,
 };
 
-/** SOR/2019-150 s. 17(1)(a) as we read it (from memory): other carriers come in after this wait from the original departure. */
+/**
+ * SOR/2019-150 s. 17(1)(a)(i)-(ii), large carriers: other carriers come in when neither this carrier nor a partner has a
+ * flight leaving within 9 hours of the departure on the original ticket. Small carriers (s. 17(1)(b)) have no such step;
+ * every station here is run as a large carrier.
+ */
 export const APPR_OTHER_CARRIERS_AFTER_MINUTES = 9 * 60;
