@@ -462,6 +462,15 @@ export const ROUTES: readonly RouteRow[] = [
     success: 201,
     otherStation: 404,
   },
+  {
+    method: 'POST',
+    pattern: '/api/compensations/:id/care-mail',
+    access: ['agent', 'supervisor'],
+    // The same text again finds the mail already queued: every allowed role gets the same answer.
+    call: (ctx, scope) => ({ url: `/api/compensations/${scope === 'own' ? ctx.payments.dueId : ctx.payments.other.compensationId}/care-mail` }),
+    success: 200,
+    otherStation: 404,
+  },
   { method: 'GET', pattern: '/api/stations/:stationId/care-setup', access: ['admin'], call: (ctx, scope) => ({ url: `/api/stations/${stationOf(ctx, scope)}/care-setup` }), success: 200, otherStation: 404 },
   {
     method: 'PUT',

@@ -88,16 +88,19 @@ describe('the passenger\'s choice and the care given', () => {
   const withBoth: StatementInput = {
     ...INPUTS['eu-261'],
     choice: { kind: 'reroute-earliest', detail: 'ZZ 214 at 14:00' },
-    care: [{ kind: 'meal', description: 'Meal voucher', amountMinor: 1_500, currency: 'EUR' }, { kind: 'calls', description: 'Two phone calls' }],
+    care: [{ kind: 'meal', description: 'Meal voucher', amountMinor: 1_500, currency: 'EUR' }, { kind: 'communication', description: 'Two phone calls' }],
   };
 
   it('appear as "Your choice" and "Care given" in the passenger\'s language', () => {
     const en = writtenStatement(withBoth);
     expect(en.sections.find((s) => s.id === 'choice')).toEqual({ id: 'choice', heading: 'Your choice', body: 'Re-routing at the earliest opportunity: ZZ 214 at 14:00' });
-    expect(en.sections.find((s) => s.id === 'care-given')?.body.replace(/\u00a0/g, ' ')).toBe('While you waited, the carrier gave you:\n- Meal voucher (EUR 15.00)\n- Two phone calls');
+    expect(en.sections.find((s) => s.id === 'care-given')?.body.replace(/\u00a0/g, ' ')).toBe('While you waited, the carrier gave you:\n- Meal: Meal voucher (EUR 15.00)\n- Calls or messages: Two phone calls');
     const es = writtenStatement({ ...withBoth, language: 'es' });
     expect(es.sections.find((s) => s.id === 'choice')?.body).toBe('Transporte alternativo lo antes posible: ZZ 214 at 14:00');
     expect(es.sections.find((s) => s.id === 'care-given')?.heading).toBe('Atención prestada');
+    expect(es.sections.find((s) => s.id === 'care-given')?.body).toContain('- Comida: Meal voucher (15,00');
+    const fr = writtenStatement({ ...withBoth, language: 'fr', choice: { kind: 'refund-and-return', detail: 'vol retour demandé' } });
+    expect(fr.sections.find((s) => s.id === 'choice')?.body).toBe('Remboursement et vol retour vers votre point de départ : vol retour demandé');
   });
 
   it('are left out when not given', () => {
@@ -109,6 +112,7 @@ describe('the passenger\'s choice and the care given', () => {
   it('refuse a blank choice or a care cost that is not whole minor units, naming the field', () => {
     expect(() => writtenStatement({ ...withBoth, choice: { kind: 'refund', detail: ' ' } })).toThrow(/^choice\.detail:/);
     expect(() => writtenStatement({ ...withBoth, care: [{ kind: 'meal', description: 'Meal', amountMinor: 12.5, currency: 'EUR' }] })).toThrow(/^care\[0\]\.amountMinor:/);
+    expect(() => writtenStatement({ ...withBoth, care: [{ kind: 'spa', description: 'Massage' }] })).toThrow(/^care\[0\]\.kind: expected one of meal/);
   });
 });
 

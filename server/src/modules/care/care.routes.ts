@@ -9,6 +9,7 @@ import { currentUser, requireRole } from '../../http/require-role';
 import { parse } from '../../http/validate';
 import { flightForUser } from '../flights/flight-desk.service';
 import { careLedger } from './care-ledger';
+import { queueCareMail } from './care-mail';
 import { readCareSetup, saveCareSetup } from './care-setup.service';
 import { flightCare, recordCare, recordChoice } from './care.service';
 
@@ -38,6 +39,15 @@ export function careRouter(deps: { db: DataSource; changed: (flightId: number, s
     const done = await recordCare(deps.db, currentUser(req), id, body);
     deps.changed(done.flightId, done.stationId, ['care']);
     res.status(201).json({ given: done.given });
+  });
+
+  // Mails the passenger what was recorded: the updated written statement, or a volunteer's summary.
+  r.post('/compensations/:id/care-mail', desk, async (req, res) => {
+    const { id } = parse(idParamSchema, req.params, 'params');
+    const done = await queueCareMail(deps.db, currentUser(req), id);
+    if (done.created) deps.changed(done.flightId, done.stationId, ['care', 'notices']);
+    // 200 either way: asking again for the same text finds the mail already queued and queues nothing.
+    res.json({ messageId: done.messageId, created: done.created, kind: done.kind });
   });
 
   r.get('/stations/:stationId/care-setup', requireRole('admin'), async (req, res) => {

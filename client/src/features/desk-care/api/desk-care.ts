@@ -32,3 +32,9 @@ export const useRecordChoice = (flightId: number) =>
 
 export const useRecordCare = (flightId: number) =>
   useFlightMutation(flightId, ({ compensationId, ...body }: RecordCareBody & { compensationId: number }) => api.post(`/compensations/${compensationId}/care`, careResponse, body));
+
+const careMailResponse = z.object({ messageId: z.string(), created: z.boolean(), kind: z.enum(['written-statement', 'care-summary']) });
+export type CareMailResult = z.infer<typeof careMailResponse>;
+
+export const useMailCare = (flightId: number) =>
+  useFlightMutation(flightId, ({ compensationId }: { compensationId: number }) => api.post(`/compensations/${compensationId}/care-mail`, careMailResponse, {}));
