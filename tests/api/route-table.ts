@@ -481,6 +481,7 @@ export const ROUTES: readonly RouteRow[] = [
     otherStation: 404,
   },
   { method: 'GET', pattern: '/api/care/ledger', access: ['finance'], call: (ctx, scope) => ({ url: `/api/care/ledger?stationId=${stationOf(ctx, scope)}` }), success: 200, otherStation: 404 },
+  { method: 'GET', pattern: '/api/care/ledger.csv', access: ['finance'], call: (ctx, scope) => ({ url: `/api/care/ledger.csv?stationId=${stationOf(ctx, scope)}` }), success: 200, otherStation: 404 },
   // Alerts: everyone at a station sees and acknowledges its own.
   { method: 'GET', pattern: '/api/alerts', access: ALL_ROLES, call: (ctx, scope) => ({ url: `/api/alerts?stationId=${stationOf(ctx, scope)}` }), success: 200, otherStation: 404 },
   { method: 'POST', pattern: '/api/alerts/:id/acknowledge', access: ALL_ROLES, call: (ctx, scope) => ({ url: `/api/alerts/${scope === 'own' ? ctx.payments.alertId : ctx.payments.other.alertId}/acknowledge` }), success: 200, otherStation: 404 },

@@ -99,7 +99,7 @@ export function yourCaseSection(tr: Translator, input: StatementInput): Statemen
 }
 
 export function prioritiesSection(tr: Translator, input: StatementInput): StatementSection {
-  const [volunteers, ...rest] = describeRules(input.priorityRules, input.regime);
+  const [volunteers, ...rest] = describeRules(input.priorityRules, input.regime, tr.language);
   return {
     id: 'priorities',
     heading: tr.t('statement.priorities.heading'),

@@ -8,7 +8,7 @@ import { idParamSchema } from '@shared/schemas/common';
 import { currentUser, requireRole } from '../../http/require-role';
 import { parse } from '../../http/validate';
 import { flightForUser } from '../flights/flight-desk.service';
-import { careLedger } from './care-ledger';
+import { careLedger, careLedgerCsv } from './care-ledger';
 import { queueCareMail } from './care-mail';
 import { readCareSetup, saveCareSetup } from './care-setup.service';
 import { flightCare, recordCare, recordChoice } from './care.service';
@@ -61,6 +61,13 @@ export function careRouter(deps: { db: DataSource; changed: (flightId: number, s
 
   r.get('/care/ledger', requireRole('finance'), async (req, res) => {
     res.json(await careLedger(deps.db, currentUser(req), parse(careLedgerQuerySchema, req.query, 'query')));
+  });
+
+  r.get('/care/ledger.csv', requireRole('finance'), async (req, res) => {
+    const csv = await careLedgerCsv(deps.db, currentUser(req), parse(careLedgerQuerySchema, req.query, 'query'));
+    res.setHeader('Content-Type', 'text/csv; charset=utf-8');
+    res.setHeader('Content-Disposition', `attachment; filename="care-costs-${new Date().toISOString().slice(0, 10)}.csv"`);
+    res.send(csv);
   });
 
   return r;

@@ -8,7 +8,7 @@ export const deskCareKeys = {
   flight: (flightId: number) => [...deskCareKeys.all, 'flight', flightId] as const,
 };
 
-/** Care records change only from this desk's own forms; a slow refetch catches another agent's. */
+/** The flight's notices (use-care-live.ts) bring another agent's records; this slow refetch only covers a lost notice. */
 const SAFETY_REFETCH_MS = 60_000;
 
 export const deskCareQueryOptions = (flightId: number) =>
