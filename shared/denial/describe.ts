@@ -1,48 +1,53 @@
-// The carrier's priority rules in plain English, for the written statement given to passengers.
+// The carrier's priority rules in the passenger's words (English when no language is given), for the written
+// statement given to passengers and the desk's ranking explanation.
 import type { Regime } from '../compensation/types';
-import { GROUP_WORDS, policyFor } from './priority-groups';
+import { translator, type Translator } from '../i18n/translate';
+import type { Language } from '../i18n/languages';
+import { CARRIER_RULES, policyFor, type PriorityGroup } from './priority-groups';
 import { parsePriorityRules, type PriorityRule, type PriorityRuleInput } from './priority-rules.schema';
 
-function ruleSentence(rule: PriorityRule): string {
+/** ICU select keys: one per factor and direction. */
+function ruleKey(rule: PriorityRule): string {
   switch (rule.factor) {
     case 'check-in-time':
-      return rule.direction === 'latest-first'
-        ? 'Check-in time: passengers who checked in latest are selected first.'
-        : 'Check-in time: passengers who checked in earliest are selected first.';
+      return rule.direction === 'latest-first' ? 'checkInLatest' : 'checkInEarliest';
     case 'fare-paid':
-      return rule.direction === 'lowest-first'
-        ? 'Fare paid: passengers who paid the lowest fare are selected first.'
-        : 'Fare paid: passengers who paid the highest fare are selected first.';
+      return rule.direction === 'lowest-first' ? 'fareLowest' : 'fareHighest';
     case 'frequent-flyer-tier':
-      return 'Frequent-flyer status: passengers without status are selected first, then the lowest tiers.';
+      return 'tier';
     case 'seat-assigned-before-gate':
-      return 'Seat assignment: passengers without a seat assigned before reaching the gate are selected first.';
+      return 'seat';
     case 'party-size':
-      return rule.direction === 'smallest-first'
-        ? 'Party size: passengers travelling alone and small parties are selected first.'
-        : 'Party size: the largest parties are selected first.';
+      return rule.direction === 'smallest-first' ? 'partySmallest' : 'partyLargest';
   }
 }
 
-function groupsSentence(regime: Regime | undefined): string {
+const GROUP_KEY: Record<PriorityGroup, string> = {
+  'unaccompanied-minor': 'minor', 'disability-or-companion': 'disability', family: 'family', 'already-denied-on-ticket': 'denied',
+};
+
+function groupsSentence(tr: Translator, regime: Regime | undefined): string {
   const policy = policyFor(regime);
-  if (policy.mode === 'never-selected') {
-    return 'Never selected: unaccompanied minors; passengers with a disability and the companions travelling with them; families travelling with children; anyone already denied boarding on the same ticket; anyone who has boarded with an accepted boarding pass.';
-  }
-  const sources = [...new Set(policy.order.map((group) => policy.sources[group]))].join('; ');
-  const order = policy.order.map((group, index) => `(${String.fromCharCode(97 + index)}) ${GROUP_WORDS[group]}${policy.family === 'with-child' && group === 'family' ? ' with children' : ''}`).join('; ');
-  return `Priority groups, selected only after everyone else and then from the last of this order upward (${sources}): ${order}. Never selected: anyone who has boarded with an accepted boarding pass.`;
+  if (policy.mode === 'never-selected') return tr.t('priorities.neverSelected');
+  // Citations stay as written; "the carrier's own rules" is words, so it is translated.
+  const sources = [...new Set(policy.order.map((group) => policy.sources[group]))].map((src) => (src === CARRIER_RULES ? tr.t('priorities.carrierRules') : src)).join('; ');
+  const order = policy.order.map((group, index) => {
+    const key = group === 'family' && policy.family === 'with-child' ? 'familyChildren' : GROUP_KEY[group];
+    return `(${String.fromCharCode(97 + index)}) ${tr.t('priorities.group', { group: key })}`;
+  }).join('; ');
+  return tr.t('priorities.groups', { sources, order });
 }
 
-export function describeRules(rules: PriorityRuleInput[], regime?: Regime): string[] {
+export function describeRules(rules: PriorityRuleInput[], regime?: Regime, language: Language = 'en'): string[] {
   const parsed = parsePriorityRules(rules);
+  const tr = translator(language);
   return [
-    'We first ask for volunteers. Passengers are denied boarding against their will only when too few volunteer.',
-    'If we must deny boarding, we choose in this order:',
-    ...parsed.map((rule, index) => `${index + 1}. ${ruleSentence(rule)}`),
-    'Passengers still level after every rule are taken in order of booking reference.',
-    'People travelling together are kept together and ranked as one, by the values of the member who would be chosen last, unless they chose to travel separately.',
-    'Only passengers who checked in by the deadline and are at the gate can be selected; a passenger who did not check in in time is a no-show.',
-    groupsSentence(regime),
+    tr.t('priorities.volunteersFirst'),
+    tr.t('priorities.order'),
+    ...parsed.map((rule, index) => `${index + 1}. ${tr.t('priorities.rule', { rule: ruleKey(rule) })}`),
+    tr.t('priorities.tie'),
+    tr.t('priorities.together'),
+    tr.t('priorities.checkedIn'),
+    groupsSentence(tr, regime),
   ];
 }

@@ -16,7 +16,9 @@ export interface GroupPolicy {
 }
 
 const ORDER: PriorityGroup[] = ['unaccompanied-minor', 'disability-or-companion', 'family', 'already-denied-on-ticket'];
-const CARRIER = 'the carrier\'s own priority rules';
+/** The source named when a group's place is the carrier's own choice, not a regulation's. */
+export const CARRIER_RULES = 'the carrier\'s own priority rules';
+const CARRIER = CARRIER_RULES;
 
 export const GROUP_POLICY: Record<Regime | 'default', GroupPolicy> = {
   // 14 CFR 250.3 leaves the boarding priorities to the carrier's written rules; this carrier never selects these groups.

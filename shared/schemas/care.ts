@@ -123,11 +123,17 @@ export const careLedgerQuerySchema = z.object({
 });
 export type CareLedgerQuery = z.infer<typeof careLedgerQuerySchema>;
 
+const careTotalSchema = z.object({ currency: z.string(), count: z.number(), amountMinor: z.number() });
+
 export const careLedgerResponseSchema = z.object({
   rows: z.array(z.object({
-    id: z.number(), stationId: z.number(), flightId: z.number(), serviceDate: z.string(), flight: z.string(), passengerName: z.string(),
+    id: z.number(), stationId: z.number(), station: z.string(), flightId: z.number(), serviceDate: z.string(), flight: z.string(), passengerName: z.string(),
     kind: careKindSchema, description: z.string(), amountMinor: z.number(), currency: z.string(), providedBy: z.string(), recordedAt: z.string(),
   })),
-  totals: z.array(z.object({ currency: z.string(), count: z.number(), amountMinor: z.number() })),
+  /** Over every selected row (the list shows the newest 5,000). */
+  totals: z.array(careTotalSchema),
+  byKind: z.array(careTotalSchema.extend({ kind: careKindSchema })),
+  byStation: z.array(careTotalSchema.extend({ stationId: z.number(), station: z.string() })),
+  byFlight: z.array(careTotalSchema.extend({ flightId: z.number(), flight: z.string(), serviceDate: z.string(), station: z.string() })),
 });
 export type CareLedgerResponse = z.infer<typeof careLedgerResponseSchema>;

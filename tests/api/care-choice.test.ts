@@ -140,3 +140,54 @@ describe('care proposed from the alternate’s departure, and care given', () =>
     expect(await t.db.query('SELECT id FROM care_given WHERE compensation_id = ?', [c.compensationId])).toEqual([]);
   });
 });
+
+describe('the passenger is mailed their choice and the care given, in the booking’s language', () => {
+  const outbox = async (compensationId: number) => (await t.db.query(
+    `SELECT o.kind, o.subject, o.text, o.html FROM outbox_messages o JOIN compensations c ON c.flight_id = o.flight_id
+     WHERE c.id = ? AND o.dedupe_key LIKE 'care-mail:%' ORDER BY o.created_at, o.id`, [compensationId])) as { kind: string; subject: string; text: string; html: string }[];
+
+  it('a denied passenger gets the statement again with "Your choice" and "Care given", at the full amount once refunded (Art. 7(1)(a) EUR 250)', async () => {
+    const c = await rebookedFcoHam(60, true);
+    await agent.post(`/api/compensations/${c.compensationId}/care-mail`).expect(409);
+    await agent.post(`/api/compensations/${c.compensationId}/choice`, { kind: 'refund', note: 'Will travel by train' }).expect(201);
+    await agent.post(`/api/compensations/${c.compensationId}/care`, { kind: 'meal', description: 'Meal voucher', amountMinor: 1_500, providedBy: 'Gate agent' }).expect(201);
+    const first = (await agent.post(`/api/compensations/${c.compensationId}/care-mail`).expect(200)).body;
+    expect(first).toMatchObject({ created: true, kind: 'written-statement' });
+    // A second click with nothing new queues nothing.
+    expect((await supervisor.post(`/api/compensations/${c.compensationId}/care-mail`).expect(200)).body).toMatchObject({ created: false, messageId: first.messageId });
+    const [mail] = await outbox(c.compensationId);
+    expect(mail.kind).toBe('written-statement');
+    expect(mail.text).toContain('Your choice');
+    expect(mail.text).toContain('Refund of your ticket: The price of the unused part of your ticket is refunded within seven days. Your request: Will travel by train');
+    expect(mail.text.replace(/\u00a0/g, ' ')).toContain('- Meal: Meal voucher (EUR 15.00)');
+    // The refund lifted the Art. 7(2) halving (EUR 125): the statement states the full EUR 250.
+    expect(mail.text.replace(/\u00a0/g, ' ')).toContain('Compensation calculated: EUR 250.00');
+    expect(mail.html).toContain('>Your choice</h2>');
+    expect(await auditActions('compensation', c.compensationId)).toContain('care.mail_queued');
+  });
+
+  it('in Italian for an Italian booking, the printable statement too', async () => {
+    const c = await rebookedFcoHam(150, false);
+    await t.db.query(`UPDATE bookings b JOIN passengers p ON p.booking_id = b.id SET b.language = 'it' WHERE p.id = ?`, [c.passengerId]);
+    await agent.post(`/api/compensations/${c.compensationId}/choice`, { kind: 'reroute-earliest' }).expect(201);
+    await agent.post(`/api/compensations/${c.compensationId}/care`, { kind: 'communication', description: 'Due telefonate dal banco', providedBy: 'Gate agent' }).expect(201);
+    await agent.post(`/api/compensations/${c.compensationId}/care-mail`).expect(200);
+    const [mail] = await outbox(c.compensationId);
+    expect(mail.text).toContain('La sua scelta');
+    expect(mail.text).toContain('Imbarco su un volo alternativo il prima possibile: Viene portato alla destinazione finale il prima possibile.');
+    expect(mail.text).toContain('- Telefonate o messaggi: Due telefonate dal banco');
+    const [{ source_id: denialId }] = await t.db.query('SELECT source_id FROM compensations WHERE id = ?', [c.compensationId]);
+    const page = await agent.get(`/api/denials/${denialId}/statement`).expect(200);
+    expect(page.text).toContain('Telefonate o messaggi: Due telefonate dal banco');
+  });
+
+  it('no address: refused naming the field, nothing queued; another station: not found', async () => {
+    const c = await rebookedFcoHam(150, false);
+    await agent.post(`/api/compensations/${c.compensationId}/care`, { kind: 'meal', description: 'Meal voucher', amountMinor: 1_500, providedBy: 'Gate agent' }).expect(201);
+    await outsider.post(`/api/compensations/${c.compensationId}/care-mail`).expect(404);
+    await t.db.query(`UPDATE bookings b JOIN passengers p ON p.booking_id = b.id SET b.contact_email = NULL WHERE p.id = ?`, [c.passengerId]);
+    const res = await agent.post(`/api/compensations/${c.compensationId}/care-mail`).expect(400);
+    expect(res.body.details[0].field).toBe('to');
+    expect(await outbox(c.compensationId)).toEqual([]);
+  });
+});

@@ -95,6 +95,21 @@ describe('care costs in the ledger, apart from compensation', () => {
     expect(mine.map((r: { kind: string; amountMinor: number }) => [r.kind, r.amountMinor]).sort()).toEqual([['hotel', 12_000], ['meal', 1_500]]);
     const sum = ledger.rows.filter((r: { currency: string }) => r.currency === 'EUR').reduce((s: number, r: { amountMinor: number }) => s + r.amountMinor, 0);
     expect(ledger.totals.find((x: { currency: string }) => x.currency === 'EUR').amountMinor).toBe(sum);
+    // By kind, station and flight: each view sums to the same total, per currency.
+    const eurTotal = ledger.totals.find((x: { currency: string }) => x.currency === 'EUR').amountMinor;
+    for (const view of ['byKind', 'byStation', 'byFlight'] as const) {
+      expect(ledger[view].filter((x: { currency: string }) => x.currency === 'EUR').reduce((s: number, x: { amountMinor: number }) => s + x.amountMinor, 0), view).toBe(eurTotal);
+    }
+    expect(ledger.byFlight.find((x: { flightId: number }) => x.flightId === flight.id)).toMatchObject({ station: 'FCO', currency: 'EUR', count: 2, amountMinor: 13_500 });
+    expect(ledger.byKind.map((x: { kind: string }) => x.kind)).toEqual(expect.arrayContaining(['hotel', 'meal']));
+    expect(ledger.byKind.map((x: { kind: string }) => x.kind)).not.toContain('communication');
+    const csv = await finance.get(`/api/care/ledger.csv?stationId=${fco}&from=${flight.serviceDate}&to=${flight.serviceDate}`).expect(200);
+    expect(csv.headers['content-type']).toMatch(/^text\/csv/);
+    const lines = csv.text.trim().split('\r\n');
+    expect(lines[0]).toBe('care_id,station,flight,service_date,passenger,kind,description,currency,amount,amount_minor,provided_by,recorded_at');
+    expect(lines.filter((l) => l.includes('Nora Night')).map((l) => l.split(',').slice(5, 10))).toEqual(expect.arrayContaining([
+      ['hotel', 'One night', 'EUR', '120.00', '12000'], ['meal', 'Meal voucher', 'EUR', '15.00', '1500'],
+    ]));
     // Care is not compensation: the compensation row's amount is unchanged (EUR 250, Art. 7(1)(a)).
     expect((await t.db.query('SELECT amount_minor FROM compensations WHERE id = ?', [p.compensationId]))[0].amount_minor).toBe(25_000);
     const bad = await finance.get('/api/care/ledger?from=yesterday').expect(400);

@@ -462,6 +462,15 @@ export const ROUTES: readonly RouteRow[] = [
     success: 201,
     otherStation: 404,
   },
+  {
+    method: 'POST',
+    pattern: '/api/compensations/:id/care-mail',
+    access: ['agent', 'supervisor'],
+    // The same text again finds the mail already queued: every allowed role gets the same answer.
+    call: (ctx, scope) => ({ url: `/api/compensations/${scope === 'own' ? ctx.payments.dueId : ctx.payments.other.compensationId}/care-mail` }),
+    success: 200,
+    otherStation: 404,
+  },
   { method: 'GET', pattern: '/api/stations/:stationId/care-setup', access: ['admin'], call: (ctx, scope) => ({ url: `/api/stations/${stationOf(ctx, scope)}/care-setup` }), success: 200, otherStation: 404 },
   {
     method: 'PUT',
@@ -472,6 +481,7 @@ export const ROUTES: readonly RouteRow[] = [
     otherStation: 404,
   },
   { method: 'GET', pattern: '/api/care/ledger', access: ['finance'], call: (ctx, scope) => ({ url: `/api/care/ledger?stationId=${stationOf(ctx, scope)}` }), success: 200, otherStation: 404 },
+  { method: 'GET', pattern: '/api/care/ledger.csv', access: ['finance'], call: (ctx, scope) => ({ url: `/api/care/ledger.csv?stationId=${stationOf(ctx, scope)}` }), success: 200, otherStation: 404 },
   // Alerts: everyone at a station sees and acknowledges its own.
   { method: 'GET', pattern: '/api/alerts', access: ALL_ROLES, call: (ctx, scope) => ({ url: `/api/alerts?stationId=${stationOf(ctx, scope)}` }), success: 200, otherStation: 404 },
   { method: 'POST', pattern: '/api/alerts/:id/acknowledge', access: ALL_ROLES, call: (ctx, scope) => ({ url: `/api/alerts/${scope === 'own' ? ctx.payments.alertId : ctx.payments.other.alertId}/acknowledge` }), success: 200, otherStation: 404 },

@@ -92,6 +92,13 @@ test('the agent records a volunteer’s choice and the care given on the desk', 
     await give.getByRole('button', { name: 'Record care given' }).click();
     await expect(card.getByRole('listitem').filter({ hasText: 'Meal voucher · €15.00 · by Gate agent' })).toBeVisible({ timeout: 15_000 });
     await expect(page.getByRole('note').filter({ hasText: 'passenger’s choice and care' })).toBeVisible();
+    // Another agent's record reaches this desk by the flight's notice, without a reload.
+    const compensationId = (await (await agent.api.get(`/api/flights/${flightId}/care`)).json()).passengers.find((p: { passengerName: string }) => p.passengerName === name).compensationId;
+    expect((await agent.post(`/compensations/${compensationId}/care`, { kind: 'communication', description: 'Two calls from the desk phone', providedBy: 'Transfer desk' })).status).toBe(201);
+    await expect(card.getByRole('listitem').filter({ hasText: 'Two calls from the desk phone' })).toBeVisible({ timeout: 15_000 });
+    // The passenger is mailed what was recorded, in their booking's language.
+    await card.getByRole('button', { name: 'Mail the passenger this choice and care' }).click();
+    await expect(card.getByRole('status')).toContainText('queued for the passenger’s e-mail');
     await card.scrollIntoViewIfNeeded();
     await card.screenshot({ path: `${SCREENSHOTS}/desk-care-card.png` });
     await shot(page, 'desk-care-desk');
@@ -99,4 +106,22 @@ test('the agent records a volunteer’s choice and the care given on the desk', 
     await closeOpenRounds(agent, flightId);
     await agent.api.dispose();
   }
+});
+
+test('finance sees care costs apart from compensation, by kind, station and flight, with a CSV export', async ({ page }) => {
+  await signIn(page, 'finance@bumpboard.test');
+  await page.getByRole('link', { name: 'Compensation ledger' }).click();
+  const panel = page.getByRole('region', { name: 'Care costs' });
+  await expect(panel).toBeVisible();
+  // The meal voucher the agent recorded on ZZ 403 at FCO (the test above) is a care cost; the free calls are not.
+  await expect(panel.getByTestId('care-rows').getByRole('row').filter({ hasText: 'ZZ 403 · FCO' }).filter({ hasText: 'Meal voucher' }).first()).toBeVisible({ timeout: 15_000 });
+  await expect(panel.getByTestId('care-rows')).not.toContainText('Two calls from the desk phone');
+  await expect(panel.getByRole('table', { name: 'By kind' })).toContainText('Meals');
+  await expect(panel.getByRole('table', { name: 'By flight' })).toContainText('ZZ 403');
+  const href = await panel.getByRole('link', { name: 'Export CSV of care costs' }).getAttribute('href');
+  const csv = await (await page.request.get(href!)).text();
+  expect(csv.split('\r\n')[0]).toBe('care_id,station,flight,service_date,passenger,kind,description,currency,amount,amount_minor,provided_by,recorded_at');
+  expect(csv).toContain('Meal voucher');
+  await panel.scrollIntoViewIfNeeded();
+  await panel.screenshot({ path: `${SCREENSHOTS}/finance-care-costs.png` });
 });

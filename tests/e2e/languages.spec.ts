@@ -5,6 +5,7 @@ import { LANGUAGES, type Language } from '../../shared/i18n/languages';
 import { CATALOGUES } from '../../shared/i18n/catalogues';
 import { compensationDue } from '../../shared/compensation';
 import { accessibleStatementPage, writtenStatement } from '../../shared/compensation/statement';
+import { volunteerRebookingNotice } from '../../server/src/modules/volunteers/notices';
 import { shot, staffApi } from './helpers';
 
 const PHONE = { viewport: { width: 360, height: 740 }, deviceScaleFactor: 2, isMobile: true, hasTouch: true };
@@ -81,6 +82,32 @@ for (const language of LANGUAGES) {
       await expect(page.getByRole('heading', { name: CATALOGUES[language]['statement.eu.art9.heading'] })).toBeVisible();
       expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(360);
       await shot(page, `languages-statement-${language}`);
+    } finally {
+      await context.close();
+    }
+  });
+}
+
+for (const language of LANGUAGES) {
+  test(`a volunteer's rebooking notice in ${language} reads on a phone`, async ({ browser }) => {
+    // USD 900 at Montréal-Trudeau for a volunteer; the amount is whatever was agreed (no rule's figure to check).
+    const notice = volunteerRebookingNotice({
+      station: { iata: 'YUL', name: 'Montréal-Trudeau', timeZone: 'America/Toronto' },
+      flight: { carrierCode: 'ZZ', flightNumber: '310', origin: 'YUL', destination: 'CDG', scheduledDeparture: new Date('2026-07-01T23:00:00Z') },
+      newFlight: { carrierCode: 'ZZ', flightNumber: '312', origin: 'YUL', destination: 'CDG', departure: new Date('2026-07-02T23:00:00Z'), arrival: new Date('2026-07-03T11:00:00Z') },
+      plannedArrivalDelayMinutes: 24 * 60,
+      pnr: 'K7Q2XM', passengerNames: ['Élodie Martin'], language,
+      agreement: { perPassenger: { amountMinor: 90_000, currency: 'CAD' }, extras: ['Hotel night'], form: 'prepaid-card', voucherRestrictions: [] },
+    });
+    const context = await browser.newContext(PHONE);
+    try {
+      const page = await context.newPage();
+      await page.setContent(notice.html);
+      expect(await page.evaluate(() => document.documentElement.lang)).toBe(language);
+      await expect(page.getByText(CATALOGUES[language]['notice.volunteer.owed'])).toBeVisible();
+      await expect(page.getByText(CATALOGUES[language]['notice.pleaseNote'])).toBeVisible();
+      expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(360);
+      await shot(page, `languages-notice-${language}`);
     } finally {
       await context.close();
     }

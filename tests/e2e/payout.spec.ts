@@ -7,6 +7,8 @@
 // 110000000 (from memory) passes the ABA check.
 import { expect, request, test, type APIRequestContext } from '@playwright/test';
 import mysql from 'mysql2/promise';
+import { CATALOGUES } from '../../shared/i18n/catalogues';
+import { LANGUAGES, type Language } from '../../shared/i18n/languages';
 import { DEMO_PASSWORD, mailFromCatcher, removeTestFlights, SCREENSHOTS } from './helpers';
 
 const BASE_URL = process.env.APP_BASE_URL ?? 'http://127.0.0.1:4700';
@@ -91,6 +93,33 @@ test('the passenger sees the card details once on their phone; a second open get
   await expect(page.getByTestId('link-problem')).toContainText('already been used');
   await expect(page.getByTestId('card-number')).toHaveCount(0);
   await page.screenshot({ path: `${SCREENSHOTS}/payout-card-used.png`, fullPage: true });
+});
+
+// Only reads the link's state, so the same link serves every language before the passenger sends anything.
+const BROWSER_LOCALE: Record<Language, string> = { en: 'en-US', fr: 'fr-CA', es: 'es-ES', de: 'de-DE', it: 'it-IT' };
+test('the payout page speaks the browser’s language, and the passenger can switch it', async ({ browser }) => {
+  const who = people.transfer;
+  const url = await mailFromCatcher(`to=${encodeURIComponent(who.email)}`, (messages) => messages.map((m) => linkIn(m.text, 'payout')).find(Boolean), 'the payout link');
+  for (const language of LANGUAGES) {
+    const context = await browser.newContext({ viewport: PHONE, isMobile: true, hasTouch: true, locale: BROWSER_LOCALE[language] });
+    try {
+      const page = await context.newPage();
+      await page.goto(url);
+      const words = CATALOGUES[language];
+      await expect(page.getByRole('heading', { name: words['payout.accountTitle'] })).toBeVisible();
+      await expect(page.getByText(words['payout.title'], { exact: true })).toBeVisible();
+      await expect(page.getByTestId('passenger-caution')).toHaveText(words['paylink.caution']);
+      expect(await page.evaluate(() => document.documentElement.lang)).toBe(language);
+      expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(PHONE.width);
+      await page.screenshot({ path: `${SCREENSHOTS}/languages-payout-${language}.png`, fullPage: true });
+      if (language === 'en') {
+        await page.getByTestId('language-switch').selectOption('fr');
+        await expect(page.getByRole('button', { name: CATALOGUES.fr['payout.send'] })).toBeVisible();
+      }
+    } finally {
+      await context.close();
+    }
+  }
 });
 
 test('the passenger enters their own bank account from the payout link and the transfer leaves', async ({ browser }) => {

@@ -3,6 +3,7 @@
 import { describeRules } from '../../denial/describe';
 import { translator, type Translator } from '../../i18n/translate';
 import { isLanguage } from '../../i18n/languages';
+import { CARE_KINDS } from '../care-rules';
 import { assertMoney } from '../money';
 import type { Regime } from '../types';
 import type { EnforcementBody, StatementInput, StatementSection } from './types';
@@ -63,7 +64,7 @@ function checkChoiceAndCare(input: StatementInput): void {
     if (blank(input.choice.detail)) throw new RangeError('choice.detail: expected what the choice means for the passenger');
   }
   (input.care ?? []).forEach((item, index) => {
-    if (blank(item.kind)) throw new RangeError(`care[${index}].kind: expected the kind of care given`);
+    if (!(CARE_KINDS as readonly string[]).includes(item.kind)) throw new RangeError(`care[${index}].kind: expected one of ${CARE_KINDS.join(', ')}`);
     if (blank(item.description)) throw new RangeError(`care[${index}].description: expected what was given`);
     if (item.amountMinor !== undefined || item.currency !== undefined) {
       assertMoney(`care[${index}]`, { amountMinor: item.amountMinor, currency: item.currency });
@@ -98,7 +99,7 @@ export function yourCaseSection(tr: Translator, input: StatementInput): Statemen
 }
 
 export function prioritiesSection(tr: Translator, input: StatementInput): StatementSection {
-  const [volunteers, ...rest] = describeRules(input.priorityRules, input.regime);
+  const [volunteers, ...rest] = describeRules(input.priorityRules, input.regime, tr.language);
   return {
     id: 'priorities',
     heading: tr.t('statement.priorities.heading'),
@@ -126,7 +127,9 @@ export function enforcementSection(tr: Translator, heading: string, body: Enforc
 }
 
 /** ICU select keys cannot hold hyphens: the remedy words as the rules modules spell them, mapped. */
-const CHOICE_SELECTOR: Record<string, string> = { refund: 'refund', 'reroute-earliest': 'rerouteEarliest', 'reroute-later': 'rerouteLater', rebook: 'rebook' };
+const CHOICE_SELECTOR: Record<string, string> = { refund: 'refund', 'refund-and-return': 'refundAndReturn', 'reroute-earliest': 'rerouteEarliest', 'reroute-later': 'rerouteLater', rebook: 'rebook' };
+
+const CARE_SELECTOR: Record<string, string> = { meal: 'meal', refreshment: 'refreshment', hotel: 'hotel', transport: 'transport', communication: 'communication' };
 
 /** "Your choice" and "Care given", when the desk recorded them. */
 export function choiceAndCareSections(tr: Translator, input: StatementInput): StatementSection[] {
@@ -136,9 +139,13 @@ export function choiceAndCareSections(tr: Translator, input: StatementInput): St
     sections.push({ id: 'choice', heading: tr.t('statement.choice.heading'), body: tr.t('statement.choice.line', { kind, detail: input.choice.detail }) });
   }
   if (input.care && input.care.length > 0) {
-    const items = input.care.map((item) => `- ${item.amountMinor !== undefined && item.currency
-      ? tr.t('statement.care.itemAmount', { description: item.description, amount: tr.money('care', { amountMinor: item.amountMinor, currency: item.currency }) })
-      : tr.t('statement.care.item', { description: item.description })}`);
+    // The kind is named in the passenger's language; the description stays in the agent's own words, as recorded.
+    const items = input.care.map((item) => {
+      const kind = CARE_SELECTOR[item.kind] ?? 'other';
+      return `- ${item.amountMinor !== undefined && item.currency
+        ? tr.t('statement.care.itemAmount', { kind, description: item.description, amount: tr.money('care', { amountMinor: item.amountMinor, currency: item.currency }) })
+        : tr.t('statement.care.item', { kind, description: item.description })}`;
+    });
     sections.push({ id: 'care-given', heading: tr.t('statement.care.heading'), body: [tr.t('statement.care.lead'), ...items].join('\n') });
   }
   return sections;

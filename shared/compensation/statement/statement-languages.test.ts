@@ -4,6 +4,7 @@
 // treatment, recourse to the Agency; from memory); 14 CFR 250.9(b) (the prescribed text, in English).
 import { describe, expect, it } from 'vitest';
 import { LANGUAGES, type Language } from '../../i18n/languages';
+import { CATALOGUES } from '../../i18n/catalogues';
 import { compensationDue } from '../index';
 import type { PriorityRuleInput } from '../../denial/priority-rules.schema';
 import { REQUIRED_SECTIONS, accessibleStatementPage, assertStatementComplete, statementHtml, statementText, writtenStatement, type StatementInput } from './index';
@@ -84,20 +85,62 @@ describe('statements in every language carry every required section', () => {
   });
 });
 
+describe('what each rule requires, section by section, in each language', () => {
+  for (const language of LANGUAGES) {
+    const words = CATALOGUES[language];
+    const heading = (statement: ReturnType<typeof writtenStatement>, id: string) => statement.sections.find((x) => x.id === id)?.heading;
+    const body = (statement: ReturnType<typeof writtenStatement>, id: string) => statement.sections.find((x) => x.id === id)?.body ?? '';
+
+    it(`EU in ${language}: Art. 14(2) with Art. 7, 8 and 9 and the enforcement body's contact; Art. 14(3) the accessible alternative`, () => {
+      const st = writtenStatement({ ...INPUTS['eu-261'], language });
+      expect(heading(st, 'compensation')).toBe(words['statement.eu.art7.heading']);
+      expect(heading(st, 'remedies')).toBe(words['statement.eu.art8.heading']);
+      expect(heading(st, 'care-due')).toBe(words['statement.eu.art9.heading']);
+      expect(body(st, 'remedies')).toContain(words['statement.eu.art8.later']);
+      expect(body(st, 'care-due')).toContain(words['statement.eu.art9.calls']);
+      expect(body(st, 'enforcement')).toContain('Example enforcement body');
+      expect(body(st, 'enforcement')).toContain('enforcement.example');
+      expect(body(st, 'accessible')).toBe(words['statement.accessible.body']);
+      // The priority rules in the passenger's words too (a check-in-time rule).
+      expect(body(st, 'priorities')).toContain(words['priorities.volunteersFirst']);
+    });
+
+    it(`Canada in ${language}: compensation, payment, alternate travel or refund, care, recourse (SOR/2019-150, from memory)`, () => {
+      const st = writtenStatement({ ...INPUTS['ca-appr'], language });
+      expect(heading(st, 'payment')).toBe(words['statement.ca.payment.heading']);
+      expect(heading(st, 'remedies')).toBe(words['statement.ca.travel.heading']);
+      expect(heading(st, 'care-due')).toBe(words['statement.ca.care.heading']);
+      expect(heading(st, 'enforcement')).toBe(words['statement.ca.recourse.heading']);
+      expect(body(st, 'enforcement')).toContain('Canadian Transportation Agency');
+    });
+
+    it(`US in ${language}: the six paragraphs of 14 CFR 250.9(b) in English, with the case in the passenger's language`, () => {
+      const st = writtenStatement({ ...INPUTS['us-dot'], language });
+      const prescribed = st.sections.filter((x) => x.id === 'us-250-9');
+      expect(prescribed).toHaveLength(6);
+      expect(prescribed[0].heading).toBe('Compensation for Denied Boarding');
+      expect(heading(st, 'case')).toBe(words['statement.case.heading']);
+    });
+  }
+});
+
 describe('the passenger\'s choice and the care given', () => {
   const withBoth: StatementInput = {
     ...INPUTS['eu-261'],
     choice: { kind: 'reroute-earliest', detail: 'ZZ 214 at 14:00' },
-    care: [{ kind: 'meal', description: 'Meal voucher', amountMinor: 1_500, currency: 'EUR' }, { kind: 'calls', description: 'Two phone calls' }],
+    care: [{ kind: 'meal', description: 'Meal voucher', amountMinor: 1_500, currency: 'EUR' }, { kind: 'communication', description: 'Two phone calls' }],
   };
 
   it('appear as "Your choice" and "Care given" in the passenger\'s language', () => {
     const en = writtenStatement(withBoth);
     expect(en.sections.find((s) => s.id === 'choice')).toEqual({ id: 'choice', heading: 'Your choice', body: 'Re-routing at the earliest opportunity: ZZ 214 at 14:00' });
-    expect(en.sections.find((s) => s.id === 'care-given')?.body.replace(/\u00a0/g, ' ')).toBe('While you waited, the carrier gave you:\n- Meal voucher (EUR 15.00)\n- Two phone calls');
+    expect(en.sections.find((s) => s.id === 'care-given')?.body.replace(/\u00a0/g, ' ')).toBe('While you waited, the carrier gave you:\n- Meal: Meal voucher (EUR 15.00)\n- Calls or messages: Two phone calls');
     const es = writtenStatement({ ...withBoth, language: 'es' });
     expect(es.sections.find((s) => s.id === 'choice')?.body).toBe('Transporte alternativo lo antes posible: ZZ 214 at 14:00');
     expect(es.sections.find((s) => s.id === 'care-given')?.heading).toBe('Atención prestada');
+    expect(es.sections.find((s) => s.id === 'care-given')?.body).toContain('- Comida: Meal voucher (15,00');
+    const fr = writtenStatement({ ...withBoth, language: 'fr', choice: { kind: 'refund-and-return', detail: 'vol retour demandé' } });
+    expect(fr.sections.find((s) => s.id === 'choice')?.body).toBe('Remboursement et vol retour vers votre point de départ : vol retour demandé');
   });
 
   it('are left out when not given', () => {
@@ -109,6 +152,7 @@ describe('the passenger\'s choice and the care given', () => {
   it('refuse a blank choice or a care cost that is not whole minor units, naming the field', () => {
     expect(() => writtenStatement({ ...withBoth, choice: { kind: 'refund', detail: ' ' } })).toThrow(/^choice\.detail:/);
     expect(() => writtenStatement({ ...withBoth, care: [{ kind: 'meal', description: 'Meal', amountMinor: 12.5, currency: 'EUR' }] })).toThrow(/^care\[0\]\.amountMinor:/);
+    expect(() => writtenStatement({ ...withBoth, care: [{ kind: 'spa', description: 'Massage' }] })).toThrow(/^care\[0\]\.kind: expected one of meal/);
   });
 });
 

@@ -1,5 +1,6 @@
 import { Page } from '../../components/ui/page';
 import { AlertsList } from '../../features/alerts/components/alerts-list';
+import { CareLedgerPanel } from '../../features/finance/components/care-ledger-panel';
 import { LedgerScreen } from '../../features/finance/components/ledger-screen';
 import { useCurrentStation } from '../use-current-station';
 
@@ -9,6 +10,7 @@ export default function FinanceLedgerPage() {
     <Page title="Compensation ledger" subtitle="Every compensation of your stations: what is owed, what is paid, and what the payment provider holds.">
       <AlertsList hint="The passengers are still owed. Re-issue from the ledger below, giving the reason." />
       <LedgerScreen stations={stations} />
+      <CareLedgerPanel stations={stations} />
     </Page>
   );
 }

@@ -8,7 +8,8 @@ import { idParamSchema } from '@shared/schemas/common';
 import { currentUser, requireRole } from '../../http/require-role';
 import { parse } from '../../http/validate';
 import { flightForUser } from '../flights/flight-desk.service';
-import { careLedger } from './care-ledger';
+import { careLedger, careLedgerCsv } from './care-ledger';
+import { queueCareMail } from './care-mail';
 import { readCareSetup, saveCareSetup } from './care-setup.service';
 import { flightCare, recordCare, recordChoice } from './care.service';
 
@@ -40,6 +41,15 @@ export function careRouter(deps: { db: DataSource; changed: (flightId: number, s
     res.status(201).json({ given: done.given });
   });
 
+  // Mails the passenger what was recorded: the updated written statement, or a volunteer's summary.
+  r.post('/compensations/:id/care-mail', desk, async (req, res) => {
+    const { id } = parse(idParamSchema, req.params, 'params');
+    const done = await queueCareMail(deps.db, currentUser(req), id);
+    if (done.created) deps.changed(done.flightId, done.stationId, ['care', 'notices']);
+    // 200 either way: asking again for the same text finds the mail already queued and queues nothing.
+    res.json({ messageId: done.messageId, created: done.created, kind: done.kind });
+  });
+
   r.get('/stations/:stationId/care-setup', requireRole('admin'), async (req, res) => {
     res.json({ setup: await readCareSetup(deps.db, currentUser(req), parse(stationParams, req.params, 'params').stationId) });
   });
@@ -51,6 +61,13 @@ export function careRouter(deps: { db: DataSource; changed: (flightId: number, s
 
   r.get('/care/ledger', requireRole('finance'), async (req, res) => {
     res.json(await careLedger(deps.db, currentUser(req), parse(careLedgerQuerySchema, req.query, 'query')));
+  });
+
+  r.get('/care/ledger.csv', requireRole('finance'), async (req, res) => {
+    const csv = await careLedgerCsv(deps.db, currentUser(req), parse(careLedgerQuerySchema, req.query, 'query'));
+    res.setHeader('Content-Type', 'text/csv; charset=utf-8');
+    res.setHeader('Content-Disposition', `attachment; filename="care-costs-${new Date().toISOString().slice(0, 10)}.csv"`);
+    res.send(csv);
   });
 
   return r;

@@ -18,6 +18,7 @@ import { enforcementBodyFor } from './enforcement-bodies';
 import { priorityRulesFor } from './priority-rules.service';
 import { denialDate } from './recorded.service';
 import { statementFor, statementMail } from './statement';
+import { choiceAndCareForStatement } from '../care/for-statement';
 import { freeSeats } from '../volunteers/rebooking.service';
 
 /** The delay is counted where the station's rule measures it on the booking's journey, not at the end of this leg. */
@@ -141,7 +142,9 @@ async function queueStatements(em: EntityManager, job: StatementJob): Promise<st
   const ids: string[] = [];
   for (const passenger of job.passengers) {
     const compensation = job.snapshot.passengers.find((c) => c.passengerId === passenger.id)!;
-    const mail = statementMail(statementFor({ station: job.station, flight: job.original, pnr: job.booking.pnr, passenger, compensation, rebooking: job.rebooking, rules, language: job.booking.language }));
+    // A passenger rebooked a second time may already have a recorded choice and care: the statement carries them.
+    const choiceAndCare = await choiceAndCareForStatement(em, { sourceKind: 'denial', sourceId: job.denial.id, passengerId: passenger.id }, job.booking.language ?? 'en');
+    const mail = statementMail(statementFor({ station: job.station, flight: job.original, pnr: job.booking.pnr, passenger, compensation, rebooking: job.rebooking, rules, language: job.booking.language, choiceAndCare }));
     const queued = await enqueueMessage(em, {
       stationId: job.station.id, flightId: job.original.id, passengerIds: [passenger.id], kind: 'written-statement', to, ...mail,
       dedupeKey: `denial-statement:${job.denial.id}:${passenger.id}`,

@@ -1,10 +1,12 @@
 // The printable statement of a rebooked denial: the same text the passengers were mailed, one sheet each.
 import { In, type DataSource } from 'typeorm';
 import type { SessionUser } from '@shared/schemas/auth';
-import { BookingEntity, DenialEntity, FlightEntity, PassengerEntity, RebookingEntity, StationEntity } from '../../db/entities';
+import { BookingEntity, CompensationEntity, DenialEntity, FlightEntity, PassengerEntity, RebookingEntity, StationEntity } from '../../db/entities';
 import { badRequest, conflict, notFound } from '../../http/errors';
 import { canSeeStation } from '../../http/require-role';
 import { priorityRulesFor } from './priority-rules.service';
+import { withCurrentAmount } from '../care/care-mail';
+import { choiceAndCareForStatement } from '../care/for-statement';
 import { statementFor, statementPage } from './statement';
 
 export async function statementPageFor(db: DataSource, user: SessionUser, denialId: number, passengerId?: number): Promise<string> {
@@ -25,11 +27,14 @@ export async function statementPageFor(db: DataSource, user: SessionUser, denial
   ]);
   const snapshot = denial.compensation;
   const printedRules = snapshot.priorityRules ?? rules;
-  const statements = ids.map((id) => {
+  const rows = await db.getRepository(CompensationEntity).findBy({ sourceKind: 'denial', sourceId: denialId, passengerId: In(ids) });
+  const statements = await Promise.all(ids.map(async (id) => {
     const passenger = passengers.find((p) => p.id === id)!;
-    const compensation = snapshot.passengers.find((c) => c.passengerId === id)!;
-    return statementFor({ station, flight, pnr: booking.pnr, passenger, compensation, rebooking, rules: printedRules, language: booking.language });
-  });
+    const row = rows.find((r) => r.passengerId === id) ?? null;
+    const compensation = withCurrentAmount(snapshot.passengers.find((c) => c.passengerId === id)!, row);
+    const choiceAndCare = row ? await choiceAndCareForStatement(db, { compensationId: row.id }, booking.language ?? 'en') : undefined;
+    return statementFor({ station, flight, pnr: booking.pnr, passenger, compensation, rebooking, rules: printedRules, language: booking.language, choiceAndCare });
+  }));
   return statementPage(
     `Written statement · ${flight.carrierCode} ${flight.flightNumber} · booking ${booking.pnr}`,
     statements,

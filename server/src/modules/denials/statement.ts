@@ -6,6 +6,7 @@ import type { PassengerCompensation } from '@shared/schemas/denials';
 import type { RegimeCode } from '@shared/schemas/common';
 import type { FlightEntity, PassengerEntity, RebookingEntity, StationEntity } from '../../db/entities';
 import { escapeHtml } from '../../notices';
+import type { ChoiceAndCare } from '../care/for-statement';
 import { findAirport } from '../../reference/airports';
 import { asCompensationResult } from './compensation';
 import { enforcementBodyFor } from './enforcement-bodies';
@@ -33,6 +34,8 @@ export interface StatementFacts {
   rules: PriorityRule[];
   /** The booking's language; English when the booking has none. */
   language?: Language | null;
+  /** The passenger's choice and the care given so far, in the same language; absent before the desk recorded any. */
+  choiceAndCare?: ChoiceAndCare;
 }
 
 const arrivalZone = (iata: string, fallback: string) => findAirport(iata)?.tz ?? fallback;
@@ -61,6 +64,8 @@ export function statementFor(facts: StatementFacts): WrittenStatement {
     compensation: asCompensationResult(facts.compensation),
     priorityRules: facts.rules,
     enforcementBody: enforcementBodyFor(regime, flight.origin).body,
+    choice: facts.choiceAndCare?.choice ?? null,
+    care: facts.choiceAndCare?.care ?? [],
   });
 }
 

@@ -4,7 +4,7 @@ import { z } from 'zod';
 import { badRequest } from '../../http/errors';
 
 /** Kinds in use; the column takes any short kebab-case name so a new notice needs no migration. */
-export const OUTBOX_KINDS = ['volunteer-confirmation', 'rebooking-notice', 'written-statement', 'compensation-receipt'] as const;
+export const OUTBOX_KINDS = ['volunteer-confirmation', 'rebooking-notice', 'written-statement', 'compensation-receipt', 'care-summary'] as const;
 
 /** Far below the catcher's and common providers' 10 MiB limits, and well inside MEDIUMTEXT. */
 const MAX_BODY_CHARS = 1_000_000;

@@ -60,3 +60,28 @@ describe('volunteerRebookingNotice', () => {
     expect(volunteerRebookingNotice({ ...base, newFlight, plannedArrivalDelayMinutes: 0 }).text).toContain('no later than on your original flight');
   });
 });
+
+describe('in the booking’s language', () => {
+  it('the confirmation and the rebooking notice in French (a Montréal booking): words, amounts and times', () => {
+    const fr = { ...base, language: 'fr' as const, agreement: { ...base.agreement, form: 'voucher' as const } };
+    const confirmed = volunteerAgreementNotice(fr);
+    expect(confirmed.subject).toBe('Confirmation : vous avez cédé votre place sur ZV 7123 (réservation ABC234)');
+    expect(confirmed.text).toContain('Mode de paiement');
+    expect(confirmed.text).toContain('Conditions du bon de voyage :\n- Valid 12 months.');
+    // CLDR French money (from memory): decimal comma, narrow no-break space before the code.
+    expect(confirmed.text.replace(/[\u00a0\u202f]/g, ' ')).toContain('600,00 USD');
+    expect(confirmed.html).toContain('<html lang="fr">');
+    expect(confirmed.text).not.toContain('Form of payment');
+    const rebooked = volunteerRebookingNotice({ ...fr, newFlight, plannedArrivalDelayMinutes: 195 });
+    expect(rebooked.text).toContain('3 heures 15 minutes plus tard');
+    expect(rebooked.text).toContain('Ce qui vous est dû, et comment ce sera payé :');
+  });
+
+  it('every language names the form of payment and the caution in its own words', () => {
+    const words = { en: 'Prepaid card', fr: 'Carte prépayée', es: 'Tarjeta prepago', de: 'Prepaid-Karte', it: 'Carta prepagata' } as const;
+    for (const [language, word] of Object.entries(words)) {
+      const n = volunteerAgreementNotice({ ...base, language: language as keyof typeof words });
+      expect(n.text, language).toContain(word);
+    }
+  });
+});

@@ -54,6 +54,7 @@ async function load(em: EntityManager, round: VolunteerRoundEntity, v: Volunteer
       pnr: booking.pnr,
       passengerNames: v.passengerIds.map((id) => byId.get(id) ?? `Passenger ${id}`),
       agreement: { perPassenger: { amountMinor: v.agreedMinor ?? 0, currency: round.currency }, extras: round.extras, ...payment },
+      language: booking.language ?? undefined,
     },
   };
 }

@@ -8,7 +8,7 @@ export const deskCareKeys = {
   flight: (flightId: number) => [...deskCareKeys.all, 'flight', flightId] as const,
 };
 
-/** Care records change only from this desk's own forms; a slow refetch catches another agent's. */
+/** The flight's notices (use-care-live.ts) bring another agent's records; this slow refetch only covers a lost notice. */
 const SAFETY_REFETCH_MS = 60_000;
 
 export const deskCareQueryOptions = (flightId: number) =>
@@ -32,3 +32,9 @@ export const useRecordChoice = (flightId: number) =>
 
 export const useRecordCare = (flightId: number) =>
   useFlightMutation(flightId, ({ compensationId, ...body }: RecordCareBody & { compensationId: number }) => api.post(`/compensations/${compensationId}/care`, careResponse, body));
+
+const careMailResponse = z.object({ messageId: z.string(), created: z.boolean(), kind: z.enum(['written-statement', 'care-summary']) });
+export type CareMailResult = z.infer<typeof careMailResponse>;
+
+export const useMailCare = (flightId: number) =>
+  useFlightMutation(flightId, ({ compensationId }: { compensationId: number }) => api.post(`/compensations/${compensationId}/care-mail`, careMailResponse, {}));

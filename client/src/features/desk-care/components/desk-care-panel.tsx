@@ -1,11 +1,13 @@
 import { useQuery } from '@tanstack/react-query';
 import { Caution, Panel } from '../../../components/ui/page';
 import { deskCareQueryOptions } from '../api/desk-care';
+import { useFlightCareLive } from '../api/use-care-live';
 import { PassengerCareCard } from './passenger-care-card';
 
 /** For each denied passenger (volunteer or not): the choice the rule offers, the care their wait calls for, and what was given. */
 export function DeskCarePanel({ flightId }: { flightId: number }) {
   const care = useQuery(deskCareQueryOptions(flightId));
+  useFlightCareLive(flightId);
   return (
     <Panel title="Care and the passenger’s choice" className="mt-4">
       {care.error && <p role="alert" className="font-bold text-alert">{care.error.message}</p>}

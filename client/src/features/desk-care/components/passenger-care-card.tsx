@@ -2,6 +2,7 @@ import type { FlightCareResponse, PassengerCare } from '@shared/schemas/care';
 import { formatMoney, formatTimeWithZone } from '../../../lib/format';
 import { CareGivenForm } from './care-given-form';
 import { ChoiceForm } from './choice-form';
+import { MailCareButton } from './mail-care-button';
 
 const KIND_WORDS: Record<string, string> = { meal: 'Meal', refreshment: 'Refreshments', hotel: 'Hotel', transport: 'Transport', communication: 'Calls or messages' };
 
@@ -69,6 +70,7 @@ export function PassengerCareCard({ flightId, passenger: p, data }: { flightId: 
           <CareGivenForm flightId={flightId} passenger={p} data={data} />
         </section>
       </div>
+      <MailCareButton flightId={flightId} passenger={p} />
     </article>
   );
 }

@@ -3,6 +3,8 @@ import { cleanup, render, screen } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
+import type { Language } from '@shared/i18n';
+import { LanguageProvider } from '../../../lib/language';
 import { CardDetailsView } from './card-details-view';
 
 // A made-up number that passes the Luhn check (ISO/IEC 7812-1 annex B, from memory).
@@ -31,7 +33,11 @@ afterEach(() => {
   vi.unstubAllGlobals();
 });
 
-const show = () => render(<QueryClientProvider client={new QueryClient({ defaultOptions: { queries: { retry: false } } })}><CardDetailsView token={TOKEN} /></QueryClientProvider>);
+const show = (language: Language = 'en') => render(
+  <LanguageProvider initial={language}>
+    <QueryClientProvider client={new QueryClient({ defaultOptions: { queries: { retry: false } } })}><CardDetailsView token={TOKEN} /></QueryClientProvider>
+  </LanguageProvider>,
+);
 
 describe('the card-details page', () => {
   it('asks for the booking proof, then shows the details once, and keeps them out of the browser’s storage and the URL', async () => {
@@ -66,5 +72,13 @@ describe('the card-details page', () => {
     revealAnswer = [410, { error: 'link_used', message: 'used' }];
     await userEvent.click(screen.getByRole('button', { name: 'Show my card details' }));
     expect(await screen.findByTestId('link-problem')).toHaveTextContent('already been used');
+  });
+
+  it('speaks the passenger’s language: the same page in French, money in French figures', async () => {
+    show('fr');
+    expect(await screen.findByLabelText('Référence de réservation')).toBeInTheDocument();
+    expect(screen.getByRole('button', { name: 'Afficher les détails de ma carte' })).toBeInTheDocument();
+    // CLDR French money (from memory): decimal comma, the code after the amount.
+    expect(screen.getByText(/450,00/)).toHaveTextContent('vol ZZ 105');
   });
 });

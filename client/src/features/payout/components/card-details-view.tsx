@@ -1,14 +1,16 @@
 import { useId, useState, type FormEvent } from 'react';
 import { useQuery } from '@tanstack/react-query';
 import { bookingProofSchema, type CardDetails } from '@shared/schemas/payouts';
-import { formatMoney } from '../../../lib/format';
+import { useMoney, useT } from '../../../lib/language';
 import { cardLinkQueryOptions, LinkRequestError, useRevealCard } from '../api/passenger-payments';
-import { CARD_WORDS as W } from '../model/card-words';
+import { cardWords } from '../model/card-words';
 import { BigButton, BOX, LinkProblem, linkProblemOf, Problem } from './passenger-frame';
 
 const groups = (number: string) => number.replace(/(\d{4})(?=\d)/g, '$1 ');
 
 function Details({ details }: { details: CardDetails }) {
+  const W = cardWords(useT());
+  const money = useMoney();
   return (
     <section aria-labelledby="card-details-title" className="rounded-xl border-4 border-harbour bg-card p-5" data-testid="card-details">
       <h2 id="card-details-title" className="text-2xl font-bold">{W.detailsTitle}</h2>
@@ -29,7 +31,7 @@ function Details({ details }: { details: CardDetails }) {
         </div>
         <div>
           <dt className="text-base text-ink-soft">{W.amount}</dt>
-          <dd className="text-2xl font-bold">{formatMoney(details.amountMinor, details.currency)}</dd>
+          <dd className="text-2xl font-bold">{money(details.amountMinor, details.currency)}</dd>
         </div>
       </dl>
       <p className="mt-4 font-bold text-watch">{W.afterShown}</p>
@@ -46,6 +48,8 @@ export function CardDetailsView({ token }: { token: string }) {
   const [problem, setProblem] = useState<string | null>(null);
   const [spent, setSpent] = useState<'used' | 'expired' | 'locked' | 'invalid' | null>(null);
   const id = useId();
+  const W = cardWords(useT());
+  const money = useMoney();
 
   if (reveal.data) return <Details details={reveal.data} />;
   const refused = spent ?? (status.error instanceof LinkRequestError ? linkProblemOf(status.error.code) : null) ?? (status.data && status.data.state !== 'ready' ? status.data.state : null);
@@ -74,7 +78,7 @@ export function CardDetailsView({ token }: { token: string }) {
 
   return (
     <>
-      <p>{W.intro(formatMoney(link.amountMinor, link.currency), link.flight)}</p>
+      <p>{W.intro(money(link.amountMinor, link.currency), link.flight)}</p>
       <p className="rounded-lg border-l-8 border-harbour bg-card px-4 py-3 font-bold">{W.onceWarning}</p>
       <form onSubmit={submit} noValidate className="space-y-4 rounded-xl border-2 border-line bg-card p-5" aria-labelledby={`${id}-title`}>
         <h2 id={`${id}-title`} className="text-2xl font-bold">{W.proofTitle}</h2>

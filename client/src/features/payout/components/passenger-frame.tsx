@@ -1,14 +1,17 @@
 import type { ReactNode } from 'react';
 
 /** The passenger's page: phone-first, large type, no staff navigation; the caution always at the foot. */
-export function PassengerFrame({ title, caution, children }: { title: string; caution: string; children: ReactNode }) {
+export function PassengerFrame({ title, caution, language, switcher, children }: { title: string; caution: string; language?: string; switcher?: ReactNode; children: ReactNode }) {
   return (
-    <div className="min-h-screen bg-paper text-ink">
+    <div className="min-h-screen bg-paper text-ink" lang={language}>
       <header className="bg-harbour px-4 py-3 text-white">
-        <p className="mx-auto flex max-w-xl items-center gap-2 text-xl font-bold">
-          <span aria-hidden className="inline-block h-5 w-5 rounded-full bg-signal" />
-          {title}
-        </p>
+        <div className="mx-auto flex max-w-xl flex-wrap items-center justify-between gap-x-4 gap-y-2">
+          <p className="flex items-center gap-2 text-xl font-bold">
+            <span aria-hidden className="inline-block h-5 w-5 rounded-full bg-signal" />
+            {title}
+          </p>
+          {switcher}
+        </div>
       </header>
       <main className="mx-auto max-w-xl space-y-4 px-4 py-5 text-xl">
         {children}

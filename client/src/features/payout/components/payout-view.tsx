@@ -1,9 +1,9 @@
 import { useId, useState, type FormEvent } from 'react';
 import { useQuery } from '@tanstack/react-query';
 import { payoutDetailsBodySchema } from '@shared/schemas/payouts';
-import { formatMoney } from '../../../lib/format';
+import { useMoney, useT } from '../../../lib/language';
 import { LinkRequestError, payoutLinkQueryOptions, useGiveAccount } from '../api/passenger-payments';
-import { PAYOUT_WORDS as W } from '../model/payout-words';
+import { payoutWords } from '../model/payout-words';
 import { BigButton, BOX, LinkProblem, linkProblemOf, Problem } from './passenger-frame';
 
 type Field = 'pnr' | 'lastName' | 'holderName' | 'routingNumber' | 'accountNumber' | 'accountNumberAgain';
@@ -20,6 +20,8 @@ export function PayoutView({ token }: { token: string }) {
   const [problem, setProblem] = useState<string | null>(null);
   const [spent, setSpent] = useState<'used' | 'expired' | 'locked' | 'invalid' | null>(null);
   const id = useId();
+  const W = payoutWords(useT());
+  const money = useMoney();
 
   if (give.data) {
     return (
@@ -82,7 +84,7 @@ export function PayoutView({ token }: { token: string }) {
 
   return (
     <>
-      <p>{W.intro(formatMoney(link.amountMinor, link.currency), link.flight)}</p>
+      <p>{W.intro(money(link.amountMinor, link.currency), link.flight)}</p>
       <p className="rounded-lg border-l-8 border-harbour bg-card px-4 py-3 font-bold">{W.privacy}</p>
       <form onSubmit={submit} noValidate className="space-y-4 rounded-xl border-2 border-line bg-card p-5" aria-labelledby={`${id}-title`}>
         <h2 id={`${id}-title`} className="text-2xl font-bold">{W.proofTitle}</h2>

@@ -1,29 +1,39 @@
-// Every word the card-details page shows the passenger, in one place, so the page can be translated as a whole.
-export const CARD_WORDS = {
-  title: 'Your compensation card',
-  loading: 'Loading…',
-  intro: (amount: string, flight: string) => `Your prepaid card for ${amount} (flight ${flight}) is ready. You can spend it like cash wherever the card is accepted.`,
-  onceWarning: 'For your safety, the card number and security code are shown only once, on this phone. Have a pen ready, or add the card to your phone’s wallet while they are on the screen.',
-  proofTitle: 'Confirm it is you',
-  proofHint: 'Both are on your boarding pass or in your booking e-mail.',
-  pnr: 'Booking reference',
-  lastName: 'Last name',
-  fillBoth: 'Please fill in both boxes.',
-  pnrShape: 'The booking reference has 5 to 8 letters and digits, like K7Q2XM.',
-  show: 'Show my card details',
-  showing: 'Opening…',
-  detailsTitle: 'Your card details',
-  number: 'Card number',
-  expiry: 'Valid until',
-  cvc: 'Security code',
-  amount: 'Amount on the card',
-  afterShown: 'These details will not be shown again. Once you leave or reload this page, they are gone from it.',
-  used: { title: 'This link has already been used', text: 'For your safety the card details are shown only once. If you did not see them, please contact the airline: your compensation is still yours.' },
-  expired: { title: 'This link has expired', text: 'For your safety the link works only for a short time. Please contact the airline for a new one: your compensation is still yours.' },
-  locked: { title: 'This link is locked', text: 'The booking details entered did not match several times. Please contact the airline for help.' },
-  invalid: { title: 'This link does not work', text: 'Please check that you opened the whole link from the e-mail, or contact the airline.' },
-  notMatched: 'These booking details do not match this link. Please check them: after a few wrong tries the link locks.',
-  offline: 'No connection right now. Check your signal and try again.',
-  broken: 'Something went wrong. Please try again in a minute.',
-  caution: 'The amount is what the airline’s configured rules computed. The passenger-rights rules that apply to your flight and the airline’s conditions of carriage decide what you are owed; ask the airline if anything looks wrong.',
-} as const;
+// Every word the card-details page shows the passenger, from the shared catalogues in the passenger's language,
+// in one place so the page reads as a whole.
+import { translator, type MessageKey, type MessageValues } from '@shared/i18n';
+
+type T = (key: MessageKey, values?: MessageValues) => string;
+
+export function cardWords(t: T) {
+  return {
+    title: t('card.title'),
+    loading: t('passenger.loading'),
+    intro: (amount: string, flight: string) => t('card.intro', { amount, flight }),
+    onceWarning: t('card.onceWarning'),
+    proofTitle: t('paylink.proofTitle'),
+    proofHint: t('passenger.identify.where'),
+    pnr: t('passenger.identify.pnr'),
+    lastName: t('passenger.identify.lastName'),
+    fillBoth: t('passenger.identify.fillBoth'),
+    pnrShape: t('passenger.identify.format'),
+    show: t('card.show'),
+    showing: t('card.showing'),
+    detailsTitle: t('card.detailsTitle'),
+    number: t('card.number'),
+    expiry: t('card.expiry'),
+    cvc: t('card.cvc'),
+    amount: t('card.amount'),
+    afterShown: t('card.afterShown'),
+    used: { title: t('paylink.usedTitle'), text: t('card.usedText') },
+    expired: { title: t('paylink.expiredTitle'), text: t('paylink.expiredText') },
+    locked: { title: t('paylink.lockedTitle'), text: t('paylink.lockedText') },
+    invalid: { title: t('passenger.link.title'), text: t('paylink.invalidText') },
+    notMatched: t('paylink.notMatched'),
+    offline: t('paylink.offline'),
+    broken: t('paylink.broken'),
+    caution: t('paylink.caution'),
+  };
+}
+
+/** English, for the request layer's fallback messages (the page shows its own words for every known error). */
+export const CARD_WORDS = cardWords(translator('en').t);

@@ -1,33 +1,43 @@
-// Every word the bank-transfer page shows the passenger, in one place, so the page can be translated as a whole.
-export const PAYOUT_WORDS = {
-  title: 'Your compensation by bank transfer',
-  loading: 'Loading…',
-  intro: (amount: string, flight: string) => `We will send ${amount} (flight ${flight}) to your own bank account. Please enter it below.`,
-  privacy: 'Only you enter these details, on your own phone. Airline staff never see or type them, and we never ask for them by e-mail or telephone.',
-  proofTitle: 'Confirm it is you',
-  proofHint: 'Both are on your boarding pass or in your booking e-mail.',
-  pnr: 'Booking reference',
-  lastName: 'Last name',
-  accountTitle: 'Your bank account (United States)',
-  holderName: 'Name of the account holder',
-  routingNumber: 'Routing number (9 digits)',
-  accountNumber: 'Account number',
-  accountNumberAgain: 'Account number again',
-  accountType: 'Account type',
-  checking: 'Checking',
-  savings: 'Savings',
-  fixBelow: 'Please check the boxes marked in red above.',
-  send: 'Send my compensation to this account',
-  sending: 'Saving…',
-  doneTitle: 'Thank you',
-  done: (ending: string) => `We will send your compensation to the account ending ${ending}. Banks usually credit a transfer within a few working days, and we will e-mail you when it leaves.`,
-  already: (ending: string | null) => (ending ? `Your bank account ending ${ending} is already on record for this payment.` : 'Your bank account is already on record for this payment.'),
-  used: { title: 'This link has already been used', text: 'Your bank account was already given with this link. Please contact the airline if you need to change it.' },
-  expired: { title: 'This link has expired', text: 'For your safety the link works only for a short time. Please contact the airline for a new one: your compensation is still yours.' },
-  locked: { title: 'This link is locked', text: 'The booking details entered did not match several times. Please contact the airline for help.' },
-  invalid: { title: 'This link does not work', text: 'Please check that you opened the whole link from the e-mail, or contact the airline.' },
-  notMatched: 'These booking details do not match this link. Please check them: after a few wrong tries the link locks.',
-  offline: 'No connection right now. Check your signal and try again.',
-  broken: 'Something went wrong. Please try again in a minute.',
-  caution: 'The amount is what the airline’s configured rules computed. The passenger-rights rules that apply to your flight and the airline’s conditions of carriage decide what you are owed; ask the airline if anything looks wrong.',
-} as const;
+// Every word the bank-transfer page shows the passenger, from the shared catalogues in the passenger's language,
+// in one place so the page reads as a whole.
+import { translator, type MessageKey, type MessageValues } from '@shared/i18n';
+
+type T = (key: MessageKey, values?: MessageValues) => string;
+
+export function payoutWords(t: T) {
+  return {
+    title: t('payout.title'),
+    loading: t('passenger.loading'),
+    intro: (amount: string, flight: string) => t('payout.intro', { amount, flight }),
+    privacy: t('payout.privacy'),
+    proofTitle: t('paylink.proofTitle'),
+    proofHint: t('passenger.identify.where'),
+    pnr: t('passenger.identify.pnr'),
+    lastName: t('passenger.identify.lastName'),
+    accountTitle: t('payout.accountTitle'),
+    holderName: t('payout.holderName'),
+    routingNumber: t('payout.routingNumber'),
+    accountNumber: t('payout.accountNumber'),
+    accountNumberAgain: t('payout.accountNumberAgain'),
+    accountType: t('payout.accountType'),
+    checking: t('payout.checking'),
+    savings: t('payout.savings'),
+    fixBelow: t('payout.fixBelow'),
+    send: t('payout.send'),
+    sending: t('payout.sending'),
+    doneTitle: t('passenger.outcome.thanks'),
+    done: (ending: string) => t('payout.done', { ending }),
+    already: (ending: string | null) => t('payout.already', { ending: ending ?? 'none' }),
+    used: { title: t('paylink.usedTitle'), text: t('payout.usedText') },
+    expired: { title: t('paylink.expiredTitle'), text: t('paylink.expiredText') },
+    locked: { title: t('paylink.lockedTitle'), text: t('paylink.lockedText') },
+    invalid: { title: t('passenger.link.title'), text: t('paylink.invalidText') },
+    notMatched: t('paylink.notMatched'),
+    offline: t('paylink.offline'),
+    broken: t('paylink.broken'),
+    caution: t('paylink.caution'),
+  };
+}
+
+/** English, for the request layer's fallback messages (the page shows its own words for every known error). */
+export const PAYOUT_WORDS = payoutWords(translator('en').t);
