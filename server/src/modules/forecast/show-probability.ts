@@ -40,11 +40,24 @@ export function checkedInShare(profile: ShowUpProfile, minutesBefore: number): n
  * when it lands 15 minutes too late, linear between.
  */
 export function connectionProbability(profile: ShowUpProfile, departure: Date, inboundEta: Date | null): number {
-  if (!inboundEta) return 0.97;
+  if (!inboundEta) return ON_TIME_CONNECTION;
   const slack = (departure.getTime() - inboundEta.getTime()) / 60_000 - profile.minimumConnectMinutes;
-  if (slack >= 15) return 0.97;
+  if (slack >= 15) return ON_TIME_CONNECTION;
   if (slack <= -15) return 0.03;
   return 0.03 + ((slack + 15) / 30) * 0.94;
+}
+
+/** The chance of making the connection when the inbound is on time, the most `connectionProbability` gives. */
+export const ON_TIME_CONNECTION = 0.97;
+
+/**
+ * What the connection does to a connecting passenger's show rate, on every path of the forecast. Rates that already
+ * hold the usual share of missed connections (learned ones) are moved only by the inbound's news relative to an
+ * on-time inbound; the hand-set rates are of passengers who made it, so the whole chance applies.
+ */
+export function connectionFactor(profile: ShowUpProfile, departure: Date, inboundEta: Date | null): number {
+  const chance = connectionProbability(profile, departure, inboundEta);
+  return profile.ratesIncludeUsualConnection ? chance / ON_TIME_CONNECTION : chance;
 }
 
 const pct = (p: number) => `${Number((p * 100).toFixed(p > 0.99 && p < 1 ? 1 : 0))} %`;
@@ -55,8 +68,8 @@ export function passengerShowProbability(p: PassengerState, profile: ShowUpProfi
   if (p.status === 'offloaded' || p.status === 'cancelled') return { probability: 0, why: p.status === 'offloaded' ? 'Offloaded.' : 'Booking cancelled.' };
   const minutesBefore = (departure.getTime() - now.getTime()) / 60_000;
   const connecting = Boolean(p.inboundFlight);
-  const connection = connecting ? connectionProbability(profile, departure, p.inboundEstimatedArrival) : 1;
-  const connectionWhy = connecting ? ` Inbound ${p.inboundFlight}: ${pct(connection)} chance of making the connection.` : '';
+  const connection = connecting ? connectionFactor(profile, departure, p.inboundEstimatedArrival) : 1;
+  const connectionWhy = connecting ? ` Inbound ${p.inboundFlight}: ${pct(connectionProbability(profile, departure, p.inboundEstimatedArrival))} chance of making the connection.` : '';
 
   if (p.status === 'checked-in') {
     const probability = profile.checkedInShowRate * connection;

@@ -9,6 +9,8 @@ export interface TrainingOutcome {
   cabin: string;
   fareClass: string;
   connecting: boolean;
+  /** Where the booking was made, or 'unknown'. */
+  channel: string;
   checkedInAt: Date | null;
   checkedInT3: boolean;
   outcome: BookingOutcomeValue;
@@ -74,7 +76,8 @@ function routeProfile(rates: Map<string, LearnedRate>, station: string, route: s
     local: Object.fromEntries(cabins.map((c) => [c, rate('local', c)])),
     connecting: Object.fromEntries(cabins.map((c) => [c, rate('connecting', c)])),
   };
-  return showUpProfileSchema.parse({ ...base, bookingRates });
+  // Missed connections count as not shown in the history: the rates hold the usual share of them already.
+  return showUpProfileSchema.parse({ ...base, bookingRates, ratesIncludeUsualConnection: true });
 }
 
 /** The check-in curve of a profile: the learned shares on the grid, closing at 1 when check-in closes. */
