@@ -25,6 +25,11 @@ export const showUpProfileSchema = z.object({
    * inbound's news then moves a connecting passenger's chance only relative to an on-time inbound. Absent (hand-set
    * profiles): the rates are of passengers who made it, and the chance of making the connection multiplies them whole.
    */
+  /**
+   * Learned show rates per check-in segment, keyed horizon/state/connection/fare group/channel (see `liveSegment` in
+   * shared/forecast): when the passenger's key is here, it is their rate, in place of the booking rate and curve.
+   */
+  segmentRates: z.record(z.string().regex(/^[a-zA-Z0-9-]+(\/[a-zA-Z0-9-]+){4}$/, 'segmentRates keys must be horizon/state/connection/fare/channel'), rate('segmentRates')).optional(),
   ratesIncludeUsualConnection: z.boolean({ error: 'ratesIncludeUsualConnection must be true or false' }).optional(),
 });
 export type ShowUpProfile = z.infer<typeof showUpProfileSchema>;
