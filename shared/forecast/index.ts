@@ -30,3 +30,7 @@ export { brierScore, logLoss, LOG_LOSS_CLIP } from './scores';
 export { reliabilityBins, oversaleBacktest, type ReliabilityBin, type OversaleOutcome, type OversaleBacktest } from './reliability';
 export { estimateCommonShock, MAX_LEARNED_RHO, type FlightShowRecord, type ShockEstimate } from './dispersion';
 export { learnCheckInCurve, CHECK_IN_GRID, type CheckInHistory } from './check-in-curve';
+export {
+  CHECK_IN_WINDOWS, HORIZONS, HORIZON_STATES, CHECK_IN_STATES, trainingSegments, liveSegment, segmentRateKey,
+  type Horizon, type CheckInState, type CheckInSegment,
+} from './check-in-segments';

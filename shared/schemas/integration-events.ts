@@ -3,6 +3,7 @@ import { minorAmountSchema } from './money';
 import { FARE_TYPE_NAMES } from '../compensation/tickets';
 import { onwardItinerarySchema } from './itinerary';
 import { LANGUAGES } from '../i18n/languages';
+import { bookingChannelSchema } from './booking-channel';
 
 /** The booking's language for notices, statements and the passenger page; null when the booking system has none. */
 export const bookingLanguageSchema = z.enum(LANGUAGES, { error: `language must be one of ${LANGUAGES.join(', ')}` });
@@ -38,7 +39,9 @@ export const bookingPassengerSchema = z.object({
 });
 
 export const integrationEventSchema = z.discriminatedUnion('type', [
-  z.object({ ...base, type: z.literal('booking.added'), pnr, contactEmail: z.email().nullable().default(null), language: bookingLanguageSchema.nullable().default(null), passengers: z.array(bookingPassengerSchema).min(1).max(9), itinerary: onwardItinerarySchema.default([]) }),
+  z.object({ ...base, type: z.literal('booking.added'), pnr, contactEmail: z.email().nullable().default(null), language: bookingLanguageSchema.nullable().default(null),
+    channel: bookingChannelSchema.nullable().default(null),
+    passengers: z.array(bookingPassengerSchema).min(1).max(9), itinerary: onwardItinerarySchema.default([]) }),
   z.object({ ...base, type: z.literal('booking.cancelled'), pnr }),
   z.object({ ...base, type: z.literal('passenger.checked-in'), pnr, sequence }),
   z.object({ ...base, type: z.literal('check-in.cancelled'), pnr, sequence }),

@@ -64,6 +64,12 @@ export const stationLearningSchema = z.object({
   calibration: z.array(calibrationSchema),
   /** The learned common shock of the station (intra-class correlation), if any. */
   shockRho: z.number().nullable(),
+  /** The station's show rate per check-in segment (horizon and state) and channel ('all' for every channel). */
+  segments: z.array(z.object({
+    horizon: z.string(), state: z.string(), channel: z.string(), rate: z.number(), evidence: z.number(),
+    /** Too little evidence of its own: the rate is its wider level's. */
+    leansOnWider: z.boolean(),
+  })),
 });
 export type StationLearning = z.infer<typeof stationLearningSchema>;
 

@@ -20,6 +20,17 @@ export const showUpProfileSchema = z.object({
     .refine((pts) => pts.every((p, i) => i === 0 || (p[0] < pts[i - 1][0] && p[1] >= pts[i - 1][1])), 'checkInCurve must list minutes before departure from most to fewest, with shares never falling'),
   checkInCloseMinutes: z.number().int().min(0).max(240, 'checkInCloseMinutes must be at most 240'),
   minimumConnectMinutes: z.number().int().min(0).max(240, 'minimumConnectMinutes must be at most 240'),
+  /**
+   * True for rates learned from closed flights, where a missed connection already counts as "did not show": the
+   * inbound's news then moves a connecting passenger's chance only relative to an on-time inbound. Absent (hand-set
+   * profiles): the rates are of passengers who made it, and the chance of making the connection multiplies them whole.
+   */
+  /**
+   * Learned show rates per check-in segment, keyed horizon/state/connection/fare group/channel (see `liveSegment` in
+   * shared/forecast): when the passenger's key is here, it is their rate, in place of the booking rate and curve.
+   */
+  segmentRates: z.record(z.string().regex(/^[a-zA-Z0-9-]+(\/[a-zA-Z0-9-]+){4}$/, 'segmentRates keys must be horizon/state/connection/fare/channel'), rate('segmentRates')).optional(),
+  ratesIncludeUsualConnection: z.boolean({ error: 'ratesIncludeUsualConnection must be true or false' }).optional(),
 });
 export type ShowUpProfile = z.infer<typeof showUpProfileSchema>;
 

@@ -12,7 +12,7 @@ let station: StationEntity;
 const flightIds: number[] = [];
 const HOUR = 3_600_000;
 
-async function departedFlight(departure: Date, people: Array<{ status: PassengerEntity['status']; checkedInHoursBefore: number | null; inbound?: string }>) {
+async function departedFlight(departure: Date, people: Array<{ status: PassengerEntity['status']; checkedInHoursBefore: number | null; inbound?: string; channel?: BookingEntity['channel'] }>) {
   const flight = await t.db.getRepository(FlightEntity).save({
     stationId: station.id, carrierCode: 'ZZ', flightNumber: String(7000 + Math.floor(Math.random() * 2000)), serviceDate: departure.toISOString().slice(0, 10),
     origin: 'TRD', destination: 'OSL', scheduledDeparture: departure, scheduledArrival: new Date(departure.getTime() + HOUR), aircraftType: null,
@@ -21,7 +21,7 @@ async function departedFlight(departure: Date, people: Array<{ status: Passenger
   flightIds.push(flight.id);
   const ids: number[] = [];
   for (const [i, p] of people.entries()) {
-    const booking = await t.db.getRepository(BookingEntity).save({ flightId: flight.id, pnr: `TRD00${i}`, contactEmail: null, travelsTogether: true, status: 'active' as const });
+    const booking = await t.db.getRepository(BookingEntity).save({ flightId: flight.id, pnr: `TRD00${i}`, contactEmail: null, channel: p.channel ?? null, travelsTogether: true, status: 'active' as const });
     const { identifiers } = await t.db.getRepository(PassengerEntity).insert({
       bookingId: booking.id, flightId: flight.id, pnrSequence: 1, firstName: 'Test', lastName: `Person${i}`, cabin: 'Y', fareMinor: 10000, fareCurrency: 'NOK',
       fareType: 'standard', ssrCodes: [], frequentFlyerTier: null, isChild: false, inboundFlight: p.inbound ?? null, inboundScheduledArrival: null,
@@ -53,10 +53,10 @@ describe('recording departed flights', () => {
   it('keeps each booking’s outcome with its check-in state at 24, 3 and 1 hours out, once', async () => {
     const departure = new Date(Date.now() - 26 * HOUR);
     const { flight, passengerIds } = await departedFlight(departure, [
-      { status: 'boarded', checkedInHoursBefore: 30 },
-      { status: 'boarded', checkedInHoursBefore: 2 },
-      { status: 'checked-in', checkedInHoursBefore: 0.5 },
-      { status: 'booked', checkedInHoursBefore: null, inbound: 'ZZ 9' },
+      { status: 'boarded', checkedInHoursBefore: 30, channel: 'app' },
+      { status: 'boarded', checkedInHoursBefore: 2, channel: 'corporate' },
+      { status: 'checked-in', checkedInHoursBefore: 0.5, channel: 'agency' },
+      { status: 'booked', checkedInHoursBefore: null, inbound: 'ZZ 9', channel: 'web' },
       { status: 'booked', checkedInHoursBefore: null },
     ]);
     await recordDepartedFlights(t.db);
@@ -65,12 +65,13 @@ describe('recording departed flights', () => {
     expect(closed).toHaveLength(1);
     expect(closed[0]).toMatchObject({ stationId: station.id, origin: 'TRD', destination: 'OSL', demo: false });
     const rows = await t.db.getRepository(BookingOutcomeEntity).find({ where: { closedFlightId: closed[0].id }, order: { passengerId: 'ASC' } });
-    expect(rows.map((r) => [r.passengerId, r.outcome, r.checkedInT24, r.checkedInT3, r.checkedInT1, r.connecting])).toEqual([
-      [passengerIds[0], 'showed', true, true, true, false],
-      [passengerIds[1], 'showed', false, false, true, false],
-      [passengerIds[2], 'no-show', false, false, false, false],
-      [passengerIds[3], 'missed-connection', false, false, false, true],
-      [passengerIds[4], 'no-show', false, false, false, false],
+    expect(rows.map((r) => [r.passengerId, r.outcome, r.checkedInT24, r.checkedInT3, r.checkedInT1, r.connecting, r.channel])).toEqual([
+      [passengerIds[0], 'showed', true, true, true, false, 'app'],
+      [passengerIds[1], 'showed', false, false, true, false, 'corporate'],
+      [passengerIds[2], 'no-show', false, false, false, false, 'agency'],
+      [passengerIds[3], 'missed-connection', false, false, false, true, 'web'],
+      // A booking whose source named no channel is kept as 'unknown'.
+      [passengerIds[4], 'no-show', false, false, false, false, 'unknown'],
     ]);
     expect(rows.every((r) => r.partySize === 1 && r.fareClass === 'standard' && r.cabin === 'Y')).toBe(true);
   });

@@ -5,7 +5,7 @@
 import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { In } from 'typeorm';
 import { AuditLogEntity, BookingOutcomeEntity, FlightEntity, FlightForecastEntity, LearnedRatesEntity, LearningJobEntity, StationRatesChoiceEntity } from '../../server/src/db/entities';
-import { trueShowRate } from '../../server/src/demo/history';
+import { trueMixedShowRate } from '../../server/src/demo/history';
 import { requeueAbandoned } from '../../server/src/modules/learning/jobs.service';
 import { signedIn, startTestApp, type Client, type TestApp } from './harness';
 import { DEMO, stationIdByIata } from './helpers';
@@ -63,7 +63,7 @@ describe('retraining', () => {
 
   it('learns the true booking show rate of the demo history within the expected error', async () => {
     const { body } = await agent.get(`/api/learning/stations/${bos}/routes/ORD`).expect(200);
-    const truth = trueShowRate('BOS', 'ORD', false, 'Y', 'standard');
+    const truth = trueMixedShowRate('BOS', 'ORD', false, 'Y', 'standard');
     // Thousands of local economy standard-fare bookings on the route: 4 standard errors with the day shock's design
     // effect come to about 0.02 (see the unit test of the same history for the derivation).
     expect(Math.abs(body.profile.bookingRates.local.Y - truth)).toBeLessThan(0.025);

@@ -23,6 +23,11 @@ test('an admin trains the rates and reads their calibration for the station and 
   await expect(page.getByRole('table', { name: /Predicted show probability three hours out .*all of BOS/ })).toBeVisible();
   await expect(page.getByRole('table', { name: /Show probabilities of \d+ held-out passengers/ }).getByRole('row', { name: /^Brier score/ })).toBeVisible();
   await expect(page.getByRole('table', { name: /Oversale odds on \d+ held-out flights/ }).getByRole('row', { name: /^Actual people beyond the seats/ })).toBeVisible();
+  // The learned rates per check-in state and channel: checked in by 3 h out, over all channels and per channel.
+  const segments = page.getByRole('table', { name: /Share of bookings that showed, by their check-in state/ });
+  await expect(segments.getByRole('row', { name: /^3 h out checked in \d+\.\d %/ })).toBeVisible();
+  await expect(segments.getByRole('columnheader', { name: 'corporate travel desk' })).toBeVisible();
+  await segments.screenshot({ path: 'test-results/screenshots/calibration-segments.png' });
 
   await page.getByLabel('Show calibration for').selectOption('ORD');
   await expect(page.getByRole('table', { name: /Predicted show probability three hours out .*\(BOS–ORD/ })).toBeVisible();

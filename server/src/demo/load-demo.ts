@@ -40,7 +40,7 @@ async function insertFlight(em: EntityManager, station: StationEntity, demo: Dem
   }));
   const rng = seededRandom(seed);
   for (const b of demoManifest(rng, demo, f, departure, now)) {
-    const booking = await em.save(em.create(BookingEntity, { flightId: flight.id, pnr: b.pnr, contactEmail: b.contactEmail, travelsTogether: true, status: 'active' }));
+    const booking = await em.save(em.create(BookingEntity, { flightId: flight.id, pnr: b.pnr, contactEmail: b.contactEmail, channel: b.channel, travelsTogether: true, status: 'active' }));
     await em.insert(PassengerEntity, b.passengers.map((p, i) => ({
       ...p,
       bookingId: booking.id,

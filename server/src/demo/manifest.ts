@@ -3,6 +3,7 @@
 import type { Random } from './random';
 import { familyName, firstName, personName, pnr } from './people';
 import type { DemoFlight, DemoStation } from './scenario';
+import type { BookingChannel } from '@shared/schemas/booking-channel';
 
 export interface DemoPassenger {
   firstName: string;
@@ -22,6 +23,7 @@ export interface DemoPassenger {
 export interface DemoBooking {
   pnr: string;
   contactEmail: string;
+  channel: BookingChannel;
   passengers: DemoPassenger[];
 }
 
@@ -86,10 +88,28 @@ export function demoManifest(rng: Random, station: DemoStation, flight: DemoFlig
     }
     settleCheckIn(rng, pax, departure, now);
     const code = pnr(rng);
-    bookings.push({ pnr: code, contactEmail: `${pax[0].firstName}.${last}.${code}@passengers.bumpboard.test`.toLowerCase(), passengers: pax });
+    bookings.push({ pnr: code, channel: demoChannel(code), contactEmail: `${pax[0].firstName}.${last}.${code}@passengers.bumpboard.test`.toLowerCase(), passengers: pax });
     people += pax.length;
   }
   return bookings;
+}
+
+/** Demo share of bookings per channel (invented): half on the website, then app, agency and corporate. */
+export const DEMO_CHANNEL_SHARES: ReadonlyArray<[BookingChannel, number]> = [['web', 0.45], ['app', 0.25], ['agency', 0.2], ['corporate', 0.1]];
+
+/**
+ * The channel of a demo booking, read from its PNR's letters rather than drawn from the random stream, so that every
+ * other invented detail of the demo stays as it was before bookings had channels.
+ */
+export function demoChannel(code: string): BookingChannel {
+  let h = 0;
+  for (const ch of code) h = (h * 31 + ch.charCodeAt(0)) % 10_007;
+  let u = h / 10_007;
+  for (const [channel, share] of DEMO_CHANNEL_SHARES) {
+    if (u < share) return channel;
+    u -= share;
+  }
+  return 'web';
 }
 
 /** A party shows together; whether it has checked in (or boarded) by now follows the curve above. */

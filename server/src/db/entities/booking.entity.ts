@@ -1,6 +1,7 @@
 import { Column, CreateDateColumn, Entity, Index, JoinColumn, ManyToOne, OneToMany, PrimaryGeneratedColumn, type Relation } from 'typeorm';
 import type { JourneySegment } from '@shared/compensation';
 import type { Language } from '@shared/i18n';
+import type { BookingChannel } from '@shared/schemas/booking-channel';
 import { FlightEntity } from './flight.entity';
 import { PassengerEntity } from './passenger.entity';
 
@@ -27,6 +28,10 @@ export class BookingEntity {
   /** The language the party reads notices and statements in; null when the booking system did not say. */
   @Column({ type: 'varchar', length: 5, nullable: true, default: null })
   language!: Language | null;
+
+  /** Where the booking was made; null when the booking system did not say. */
+  @Column({ type: 'varchar', length: 16, nullable: true, default: null })
+  channel!: BookingChannel | null;
 
   /** Whether the party must travel (and show) together; a party may choose to split at the gate. */
   @Column({ type: 'boolean', name: 'travels_together', default: true })

@@ -42,7 +42,7 @@ export async function readFlightState(db: DataSource, flightId: number, at?: Dat
     db.getRepository(StationEntity).findOneByOrFail({ id: flight.stationId }),
     ratesFor(db, flight.stationId, flight.destination),
     db.getRepository(PassengerEntity).find({ where: { flightId }, order: { lastName: 'ASC', firstName: 'ASC', id: 'ASC' } }),
-    db.getRepository(BookingEntity).find({ select: { id: true, pnr: true, travelsTogether: true, itinerary: true }, where: { flightId } }),
+    db.getRepository(BookingEntity).find({ select: { id: true, pnr: true, travelsTogether: true, itinerary: true, channel: true }, where: { flightId } }),
     db.getRepository(VolunteerEntity).find({ select: { id: true, passengerIds: true }, where: { flightId, status: In(['accepted']) } }),
     // The trail's own columns only: the stored payload is large and never shown.
     db.getRepository(FlightEventEntity).find({
@@ -51,9 +51,10 @@ export async function readFlightState(db: DataSource, flightId: number, at?: Dat
     }),
   ]);
   const together = new Map(bookings.map((b) => [b.id, b.travelsTogether]));
+  const channelOf = new Map(bookings.map((b) => [b.id, b.channel]));
   const volunteered = new Set(accepted.flatMap((v) => v.passengerIds));
   const result = computeFlightForecast({
-    passengers: passengers.map((p) => ({ ...p, travelsTogether: together.get(p.bookingId) ?? true, volunteered: volunteered.has(p.id) })),
+    passengers: passengers.map((p) => ({ ...p, travelsTogether: together.get(p.bookingId) ?? true, channel: channelOf.get(p.bookingId) ?? null, volunteered: volunteered.has(p.id) })),
     seatsByCabin: flight.seatsByCabin,
     departure: flight.scheduledDeparture,
     now: when,

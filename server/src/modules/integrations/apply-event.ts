@@ -134,6 +134,7 @@ export async function applyEvent(em: EntityManager, flights: BatchFlights, e: In
     booking.status = 'active';
     booking.contactEmail = e.contactEmail;
     booking.language = e.language;
+    booking.channel = e.channel;
     await em.save(booking);
     if (existing) await replacePassengersOf(em, booking.id, e.pnr);
     await em.insert(PassengerEntity, e.passengers.map((p, i) => ({

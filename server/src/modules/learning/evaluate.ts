@@ -20,6 +20,7 @@ interface Scored {
 function passengersAt(f: TrainingFlight): (PassengerState & { travelsTogether: boolean })[] {
   return f.outcomes.map((o, i) => ({
     id: i + 1, bookingId: i + 1, cabin: o.cabin, fareType: o.fareClass, status: o.checkedInT3 ? 'checked-in' : 'booked',
+    checkedInAt: o.checkedInT3 ? o.checkedInAt : null, channel: o.channel,
     inboundFlight: o.connecting ? 'inbound' : null, inboundEstimatedArrival: null, travelsTogether: false,
   }));
 }

@@ -12,11 +12,11 @@ export async function readTrainingFlights(db: DataSource): Promise<TrainingFligh
     id: Number(f.id), stationId: Number(f.station_id), destination: f.destination, scheduledDeparture: asDate(f.scheduled_departure),
     seatsByCabin: typeof f.seats_by_cabin === 'string' ? JSON.parse(f.seats_by_cabin) : f.seats_by_cabin, outcomes: [],
   }]));
-  const rows: { f: number; cabin: string; fare_class: string; connecting: number; checked_in_at: Date | string | null; t3: number; outcome: BookingOutcomeValue }[] =
-    await db.query('SELECT closed_flight_id AS f, cabin, fare_class, connecting, checked_in_at, checked_in_t3 AS t3, outcome FROM booking_outcomes');
+  const rows: { f: number; cabin: string; fare_class: string; connecting: number; channel: string; checked_in_at: Date | string | null; t3: number; outcome: BookingOutcomeValue }[] =
+    await db.query('SELECT closed_flight_id AS f, cabin, fare_class, connecting, channel, checked_in_at, checked_in_t3 AS t3, outcome FROM booking_outcomes');
   for (const r of rows) {
     byId.get(Number(r.f))?.outcomes.push({
-      cabin: r.cabin, fareClass: r.fare_class, connecting: Number(r.connecting) === 1,
+      cabin: r.cabin, fareClass: r.fare_class, connecting: Number(r.connecting) === 1, channel: r.channel,
       checkedInAt: r.checked_in_at === null ? null : asDate(r.checked_in_at), checkedInT3: Number(r.t3) === 1, outcome: r.outcome,
     });
   }

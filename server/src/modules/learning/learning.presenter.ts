@@ -23,5 +23,7 @@ export async function stationLearning(db: DataSource, stationId: number): Promis
     versions: versions.map((v) => v.version),
     calibration,
     shockRho: row ? ((row.model as RatesModel).stations[String(stationId)]?.shockRho ?? null) : null,
+    // Versions learned before segments were kept have none.
+    segments: row ? ((row.model as RatesModel).stations[String(stationId)]?.segments ?? []) : [],
   };
 }

@@ -2,6 +2,7 @@
 import { In, type DataSource, type EntityManager } from 'typeorm';
 import type { SessionUser } from '@shared/schemas/auth';
 import type { OutcomeCorrection } from '@shared/schemas/learning';
+import { UNKNOWN_CHANNEL } from '@shared/schemas/booking-channel';
 import {
   BookingEntity, BookingOutcomeEntity, ClosedFlightEntity, DenialEntity, FlightEntity, PassengerEntity, StationEntity, VolunteerEntity,
 } from '../../db/entities';
@@ -38,7 +39,7 @@ export async function recordClosedFlight(em: EntityManager, flightId: number): P
   const station = await em.findOneByOrFail(StationEntity, { id: flight.stationId });
   const [passengers, bookings, volunteers, denials] = await Promise.all([
     em.find(PassengerEntity, { where: { flightId } }),
-    em.find(BookingEntity, { select: { id: true, pnr: true }, where: { flightId } }),
+    em.find(BookingEntity, { select: { id: true, pnr: true, channel: true }, where: { flightId } }),
     em.find(VolunteerEntity, { select: { id: true, passengerIds: true }, where: { flightId, status: 'accepted' } }),
     em.find(DenialEntity, { select: { id: true, passengerIds: true }, where: { flightId, status: 'authorized' } }),
   ]);
@@ -46,6 +47,7 @@ export async function recordClosedFlight(em: EntityManager, flightId: number): P
   // everyone as a no-show would teach the rates a falsehood. Such a flight is left out.
   if (!passengers.some((p) => p.status === 'boarded')) return null;
   const pnrOf = new Map(bookings.map((b) => [b.id, b.pnr]));
+  const channelOf = new Map(bookings.map((b) => [b.id, b.channel ?? UNKNOWN_CHANNEL]));
   const volunteered = new Set(volunteers.flatMap((v) => v.passengerIds));
   const denied = new Set(denials.flatMap((d) => d.passengerIds));
   const partySize = new Map<number, number>();
@@ -59,7 +61,7 @@ export async function recordClosedFlight(em: EntityManager, flightId: number): P
   const closedFlightId = Number(identifiers[0].id);
   const by = (p: PassengerEntity, hours: number) => p.checkedInAt !== null && p.checkedInAt.getTime() <= departure - hours * HOUR;
   const rows = passengers.filter((p) => p.status !== 'cancelled').map((p) => ({
-    closedFlightId, passengerId: p.id, pnr: pnrOf.get(p.bookingId) ?? '', cabin: p.cabin, fareClass: p.fareType, channel: 'unknown',
+    closedFlightId, passengerId: p.id, pnr: pnrOf.get(p.bookingId) ?? '', cabin: p.cabin, fareClass: p.fareType, channel: channelOf.get(p.bookingId) ?? UNKNOWN_CHANNEL,
     connecting: Boolean(p.inboundFlight), partySize: partySize.get(p.bookingId) ?? 1, checkedInAt: p.checkedInAt,
     checkedInT24: by(p, 24), checkedInT3: by(p, 3), checkedInT1: by(p, 1),
     outcome: outcomeOf(p, volunteered.has(p.id), denied.has(p.id)),

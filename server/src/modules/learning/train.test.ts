@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { DEFAULT_SHOW_UP_PROFILE } from '@shared/schemas/show-up-profile';
 import { SHOWED_OUTCOMES } from '@shared/schemas/learning';
-import { generateHistory, trueShowRate } from '../../demo/history';
+import { generateHistory, trueMixedShowRate } from '../../demo/history';
 import { DEMO_STATIONS } from '../../demo/scenario';
 import { evaluateModel } from './evaluate';
 import { learnModel, splitHeldOut, type TrainingFlight } from './train';
@@ -31,7 +31,7 @@ describe('learning from the demo history', () => {
       const stationModel = model.stations[String(IATA.indexOf(station.iata) + 1)];
       for (const route of new Set(station.flights.map((f) => f.destination))) {
         for (const connecting of [false, true]) {
-          const truth = trueShowRate(station.iata, route, connecting, 'Y', 'standard');
+          const truth = trueMixedShowRate(station.iata, route, connecting, 'Y', 'standard');
           const n = training.filter((f) => f.stationId === IATA.indexOf(station.iata) + 1 && f.destination === route)
             .flatMap((f) => f.outcomes).filter((o) => o.connecting === connecting && o.cabin === 'Y' && o.fareClass === 'standard').length;
           // 4 binomial standard errors, widened by the day shock's design effect 1 + (m - 1) rho with about m = 60

@@ -2,6 +2,7 @@
 import {
   CHECK_IN_GRID, estimateCommonShock, learnCheckInCurve, learnShowRates, lookupRate, type LearnedRate,
 } from '@shared/forecast';
+import { learnSegmentRates, segmentRatesOf, stationSegments, type SegmentRow } from './segments';
 import { SHOWED_OUTCOMES, type BookingOutcomeValue } from '@shared/schemas/learning';
 import { showUpProfileSchema, type ShowUpProfile } from '@shared/schemas/show-up-profile';
 
@@ -9,6 +10,8 @@ export interface TrainingOutcome {
   cabin: string;
   fareClass: string;
   connecting: boolean;
+  /** Where the booking was made, or 'unknown'. */
+  channel: string;
   checkedInAt: Date | null;
   checkedInT3: boolean;
   outcome: BookingOutcomeValue;
@@ -28,6 +31,8 @@ export interface StationModel {
   routes: Record<string, ShowUpProfile>;
   /** Intra-class correlation of the learned day-to-day common shock; null when the flights spread no more than chance. */
   shockRho: number | null;
+  /** The station's rate per check-in segment and channel, with its evidence, for the calibration screen. */
+  segments?: SegmentRow[];
 }
 
 export interface RatesModel {
@@ -68,13 +73,14 @@ export function learnBookingRates(flights: TrainingFlight[]): Map<string, Learne
   return learnShowRates([...counts].map(([key, c]) => ({ segment: key.split('/'), ...c })));
 }
 
-function routeProfile(rates: Map<string, LearnedRate>, station: string, route: string, cabins: string[], base: Omit<ShowUpProfile, 'bookingRates'>): ShowUpProfile {
+function routeProfile(rates: Map<string, LearnedRate>, station: string, route: string, cabins: string[], base: Omit<ShowUpProfile, 'bookingRates'>, segmentRates: Record<string, number>): ShowUpProfile {
   const rate = (conn: string, cabin: string) => lookupRate(rates, [station, route, conn, cabin, 'standard'])?.rate ?? 0.9;
   const bookingRates = {
     local: Object.fromEntries(cabins.map((c) => [c, rate('local', c)])),
     connecting: Object.fromEntries(cabins.map((c) => [c, rate('connecting', c)])),
   };
-  return showUpProfileSchema.parse({ ...base, bookingRates });
+  // Missed connections count as not shown in the history: the rates hold the usual share of them already.
+  return showUpProfileSchema.parse({ ...base, bookingRates, segmentRates, ratesIncludeUsualConnection: true });
 }
 
 /** The check-in curve of a profile: the learned shares on the grid, closing at 1 when check-in closes. */
@@ -89,6 +95,7 @@ function curveOf(points: Array<[number, number]>, closeMinutes: number): Array<[
  */
 export function learnModel(flights: TrainingFlight[], handSet: (stationId: number) => ShowUpProfile): RatesModel {
   const rates = learnBookingRates(flights);
+  const segmentRates = learnSegmentRates(flights);
   const checkedIn = count(flights.flatMap((f) => f.outcomes.filter((o) => o.checkedInAt).map((o): [string, boolean] => [String(f.stationId), showed(o)])));
   const checkedInRates = learnShowRates([...checkedIn].map(([s, c]) => ({ segment: [s], ...c })));
   const curveRows = new Map<string, { showed: number; checkedInBy: number[] }>();
@@ -125,7 +132,7 @@ export function learnModel(flights: TrainingFlight[], handSet: (stationId: numbe
       checkInCloseMinutes: hand.checkInCloseMinutes,
       minimumConnectMinutes: hand.minimumConnectMinutes,
     });
-    const routes = Object.fromEntries([...new Set(mine.map((f) => f.destination))].sort().map((d) => [d, routeProfile(rates, station, d, cabins, base(`${station}/${d}`))]));
+    const routes = Object.fromEntries([...new Set(mine.map((f) => f.destination))].sort().map((d) => [d, routeProfile(rates, station, d, cabins, base(`${station}/${d}`), segmentRatesOf(segmentRates, station, d))]));
     // The common shock: each flight's shows against the sum of its passengers' learned booking rates.
     const shock = estimateCommonShock(mine.map((f) => {
       const ps = f.outcomes.map((o) => lookupRate(rates, bookingSegment(f, o))?.rate ?? 0.9);
@@ -134,7 +141,10 @@ export function learnModel(flights: TrainingFlight[], handSet: (stationId: numbe
         expectedShowed: ps.reduce((s, p) => s + p, 0), independentVariance: ps.reduce((s, p) => s + p * (1 - p), 0),
       };
     }));
-    stations[station] = { profile: routeProfile(rates, station, '*', cabins, base(station)), routes, shockRho: shock.shock ? shock.rho : null };
+    stations[station] = {
+      profile: routeProfile(rates, station, '*', cabins, base(station), segmentRatesOf(segmentRates, station, '*')), routes,
+      shockRho: shock.shock ? shock.rho : null, segments: stationSegments(segmentRates, station),
+    };
   }
   return { stations };
 }

@@ -56,10 +56,11 @@ export async function applyFlightManifest(em: EntityManager, flight: FlightEntit
       booking.status = 'active';
       if (g.contactEmail) booking.contactEmail = g.contactEmail;
       if (g.language) booking.language = g.language;
+      if (g.channel) booking.channel = g.channel;
       booking.itinerary = g.itinerary;
     } else {
       counts.bookingsCreated++;
-      booking = em.create(BookingEntity, { flightId: flight.id, pnr: g.pnr, contactEmail: g.contactEmail, language: g.language, itinerary: g.itinerary, travelsTogether: true, status: 'active' });
+      booking = em.create(BookingEntity, { flightId: flight.id, pnr: g.pnr, contactEmail: g.contactEmail, language: g.language, channel: g.channel, itinerary: g.itinerary, travelsTogether: true, status: 'active' });
     }
     booking = await em.save(booking);
 

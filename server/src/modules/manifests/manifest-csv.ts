@@ -104,7 +104,7 @@ const plusHours = (iso: string, hours: number) => new Date(Date.parse(iso) + hou
  * station's own flights when it has one, so the file imports as it is downloaded.
  */
 export function manifestTemplateCsv(flight: TemplateFlight = PLACEHOLDER): string {
-  const common = { flight_carrier: flight.carrier, flight_number: flight.number, flight_date: flight.date, cabin: flight.cabin, fare_currency: flight.currency, pnr: 'QX7T2M', last_name: 'Testwell', contact_email: 'mira.testwell@example.com', language: 'en' };
+  const common = { flight_carrier: flight.carrier, flight_number: flight.number, flight_date: flight.date, cabin: flight.cabin, fare_currency: flight.currency, pnr: 'QX7T2M', last_name: 'Testwell', contact_email: 'mira.testwell@example.com', language: 'en', channel: 'web' };
   const onward = `ZZ9001 ${flight.destination}-${flight.destination === 'YUL' ? 'BOS' : 'YUL'} ${plusHours(flight.arrival, 2)} ${plusHours(flight.arrival, 4)}`;
   const rows: Record<ManifestColumn, string>[] = [
     {

@@ -3,6 +3,7 @@
 import { manifestRowSchema, type ManifestProblem, type ManifestRow } from '@shared/schemas/manifest';
 import { itineraryCell, type ItinerarySegment } from '@shared/schemas/itinerary';
 import type { Language } from '@shared/i18n';
+import type { BookingChannel } from '@shared/schemas/booking-channel';
 import type { CsvRecord } from './manifest-csv';
 
 export interface ManifestPassengerRow {
@@ -17,6 +18,8 @@ export interface ManifestBookingGroup {
   contactEmail: string | null;
   /** The first language given on the PNR's rows. */
   language: Language | null;
+  /** Where the booking was made; the same on every row that names one. */
+  channel: BookingChannel | null;
   /** Onward flights to the final destination; one journey per PNR. */
   itinerary: ItinerarySegment[];
   passengers: ManifestPassengerRow[];
@@ -62,7 +65,7 @@ export function groupManifestRows(records: CsvRecord[]): { flights: Map<string, 
     flight.lines.push(line);
     let booking = flight.bookings.get(row.pnr);
     if (!booking) {
-      booking = { pnr: row.pnr, firstLine: line, contactEmail: null, language: null, itinerary: row.itinerary, passengers: [] };
+      booking = { pnr: row.pnr, firstLine: line, contactEmail: null, language: null, channel: null, itinerary: row.itinerary, passengers: [] };
       flight.bookings.set(row.pnr, booking);
     }
     if (row.contact_email) {
@@ -73,6 +76,13 @@ export function groupManifestRows(records: CsvRecord[]): { flights: Map<string, 
       booking.contactEmail = row.contact_email;
     }
     if (row.language && !booking.language) booking.language = row.language;
+    if (row.channel) {
+      if (booking.channel && booking.channel !== row.channel) {
+        problems.push({ line, field: 'channel', rule: `must be the same on every row of PNR ${row.pnr} (an earlier row has ${booking.channel})` });
+        continue;
+      }
+      booking.channel = row.channel;
+    }
     if (itineraryCell(row.itinerary) !== itineraryCell(booking.itinerary)) {
       problems.push({ line, field: 'itinerary', rule: `must be the same on every row of PNR ${row.pnr} (line ${booking.firstLine} has "${itineraryCell(booking.itinerary) || 'none'}")` });
       continue;

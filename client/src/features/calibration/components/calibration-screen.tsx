@@ -6,6 +6,7 @@ import { BacktestPanel } from './backtest-panel';
 import { OutcomesPanel } from './outcomes-panel';
 import { ReliabilityChart } from './reliability-chart';
 import { ScoresTable } from './scores-table';
+import { SegmentsTable } from './segments-table';
 import { TrainingPanel } from './training-panel';
 
 /** How well the show rates matched what happened, per station and per route, and which rates the forecasts use. */
@@ -49,6 +50,11 @@ export function CalibrationScreen({ station, isAdmin }: { station: { id: number;
           </>
         ) : (
           <p>No calibration yet: the station has no held-out flights in the latest version.</p>
+        )}
+        {data.segments.length > 0 && (
+          <Panel title={`Show rates by check-in state and booking channel · all of ${station.iata}`}>
+            <SegmentsTable segments={data.segments} />
+          </Panel>
         )}
         <Panel title="Outcomes of closed flights">
           <OutcomesPanel stationId={station.id} />
