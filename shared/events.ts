@@ -10,6 +10,9 @@ export const SOCKET_EVENTS = {
   stationChanged: 'station:changed',
 } as const;
 
+/** The station notice's topic when its alerts may have changed: consoles fetch their alerts again. */
+export const ALERT_TOPIC = 'alerts';
+
 export const flightRoom = (flightId: number) => `flight:${flightId}`;
 export const stationRoom = (stationId: number) => `station:${stationId}`;
 

@@ -37,6 +37,7 @@ import { publicOffersRouter } from './modules/volunteers/public-offers.routes';
 import { createPaymentsRuntime, type PaymentsRuntime } from './modules/payments/payments-runtime';
 import { financeRouter } from './modules/finance/finance.routes';
 import { alertsRouter } from './modules/alerts/alerts.routes';
+import { ALERT_TOPIC } from '@shared/events';
 import { cabinChangesRouter } from './modules/cabin-changes/cabin-changes.routes';
 import { careRouter } from './modules/care/care.routes';
 import { learningRouter } from './modules/learning/learning.routes';
@@ -109,7 +110,7 @@ export function createApp(deps: AppDeps) {
   api.use(denialsRouter({ db: deps.db, changed }));
   api.use(payments.compensationsRouter());
   api.use('/finance', financeRouter({ db: deps.db, reconciliation: payments.reconciliation }));
-  api.use('/alerts', alertsRouter({ db: deps.db }));
+  api.use('/alerts', alertsRouter({ db: deps.db, alertsChanged: (stationId) => publisher.stationChanged?.(stationId, [ALERT_TOPIC]) }));
   api.use(cabinChangesRouter({ db: deps.db, changed }));
   api.use(careRouter({ db: deps.db, changed }));
   // The station run from the screens: flights, schedules, notices and the audit log.

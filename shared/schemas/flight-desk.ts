@@ -58,6 +58,8 @@ export const deskPassengerSchema = z.object({
   onward: z.array(z.string()).optional(),
   status: z.enum(['booked', 'checked-in', 'boarded', 'offloaded', 'cancelled']), checkedInAt: z.string().nullable(), boardedAt: z.string().nullable(),
   showProbability: z.number(), why: z.string(),
+  /** Assigned seat (14C), or null before the booking system or check-in gives one. */
+  seat: z.string().nullable(),
 });
 export type DeskPassenger = z.infer<typeof deskPassengerSchema>;
 export const deskPassengersSchema = z.object({ version: versionField, passengers: z.array(deskPassengerSchema) });

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { seatSchema } from './seat';
 import { minorAmountSchema } from './money';
 import { FARE_TYPE_NAMES } from '../compensation/tickets';
 import { onwardItinerarySchema } from './itinerary';
@@ -43,7 +44,9 @@ export const integrationEventSchema = z.discriminatedUnion('type', [
     channel: bookingChannelSchema.nullable().default(null),
     passengers: z.array(bookingPassengerSchema).min(1).max(9), itinerary: onwardItinerarySchema.default([]) }),
   z.object({ ...base, type: z.literal('booking.cancelled'), pnr }),
-  z.object({ ...base, type: z.literal('passenger.checked-in'), pnr, sequence }),
+  z.object({ ...base, type: z.literal('passenger.checked-in'), pnr, sequence,
+    /** The seat check-in gave; only with a sequence, since a seat belongs to one passenger. */
+    seat: seatSchema('seat').optional() }).refine((e) => !e.seat || e.sequence !== undefined, { path: ['seat'], message: 'seat needs the passenger\'s sequence' }),
   z.object({ ...base, type: z.literal('check-in.cancelled'), pnr, sequence }),
   z.object({ ...base, type: z.literal('passenger.boarded'), pnr, sequence }),
   z.object({ ...base, type: z.literal('passenger.offloaded'), pnr, sequence }),

@@ -4,6 +4,7 @@ import { apiErrorSchema } from './common';
 import { ITINERARY_CELL_EXAMPLE, itineraryCellSchema } from './itinerary';
 import { LANGUAGES } from '../i18n/languages';
 import { BOOKING_CHANNELS, CHANNEL_RULE } from './booking-channel';
+import { seatSchema } from './seat';
 
 /**
  * The manifest CSV a station exports from its booking system: one row per passenger, in our own column layout.
@@ -29,7 +30,7 @@ export const MANIFEST_COLUMNS = [
   'contact_email',
 ] as const;
 /** Columns a file may leave out: older exports without them still import. */
-export const MANIFEST_OPTIONAL_COLUMNS = ['itinerary', 'language', 'channel'] as const;
+export const MANIFEST_OPTIONAL_COLUMNS = ['itinerary', 'language', 'channel', 'seat'] as const;
 export const MANIFEST_ALL_COLUMNS = [...MANIFEST_COLUMNS, ...MANIFEST_OPTIONAL_COLUMNS] as const;
 export type ManifestColumn = (typeof MANIFEST_ALL_COLUMNS)[number];
 
@@ -52,6 +53,7 @@ export const MANIFEST_COLUMN_HELP: Record<ManifestColumn, string> = {
   inbound_flight: 'The connecting flight that brings the passenger (ZZ386), or empty for a local passenger.',
   inbound_scheduled_arrival: 'Scheduled arrival of the inbound flight, ISO 8601 with offset (2026-12-01T14:05:00-05:00).',
   contact_email: 'Booking contact e-mail, the same on every row of the PNR; may be empty.',
+  seat: 'Optional. The seat assigned in advance, a row number and a letter (14C); empty keeps the seat check-in gave.',
   language: 'Optional. The language the passengers read: en, fr, es, de or it; empty when not known.',
   channel: `Optional. Where the booking was made: ${BOOKING_CHANNELS.join(', ')}; the same on every row of the PNR; empty when not known.`,
   itinerary: `Optional. The flights after this one to the final destination on the ticket, separated by ";", each like "${ITINERARY_CELL_EXAMPLE}"; the same on every row of the PNR; empty when this flight ends the journey.`,
@@ -102,6 +104,7 @@ export const manifestRowSchema = z
     ),
     contact_email: cell.pipe(z.union([z.literal('').transform(() => null), z.email({ error: 'contact_email must be an e-mail address' })])),
     itinerary: z.string().optional().transform((s) => s ?? '').pipe(itineraryCellSchema),
+    seat: z.string().optional().transform((s) => s ?? '').pipe(seatSchema('seat')),
     language: z.string().optional().transform((s) => (s ?? '').trim().toLowerCase())
       .pipe(z.enum(['', ...LANGUAGES], { error: `language must be one of ${LANGUAGES.join(', ')}, or empty` })).transform((s) => s || null),
     channel: z.string().optional().transform((s) => (s ?? '').trim().toLowerCase())

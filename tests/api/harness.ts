@@ -11,6 +11,7 @@ import { createSessionSetup } from '../../server/src/http/session';
 import { createSignInThrottle, type SignInThrottle } from '../../server/src/modules/auth/throttle';
 import { createForecastScheduler, type ForecastScheduler } from '../../server/src/modules/forecast/forecast-scheduler';
 import { createSocketServer, disconnectUserSockets, refreshUserSockets, type AppIo } from '../../server/src/realtime/socket-server';
+import { socketPublisher } from '../../server/src/realtime/publisher';
 
 export const DEMO_PASSWORD = 'bumpboard-demo-2026';
 
@@ -31,6 +32,8 @@ export interface TestAppOptions {
   /** Environment overrides, e.g. TRUST_PROXY or NODE_ENV. */
   env?: Record<string, string>;
   sockets?: boolean;
+  /** With sockets: consoles hear change notices as from the real server (silent otherwise, as most tests want). */
+  live?: boolean;
 }
 
 export async function startTestApp(opts: TestAppOptions = {}): Promise<TestApp> {
@@ -48,6 +51,7 @@ export async function startTestApp(opts: TestAppOptions = {}): Promise<TestApp> 
     forecast,
     throttle: opts.throttle ?? createSignInThrottle({ perAccount: 1000, perAddress: 10_000 }),
     demo: true,
+    ...(opts.live ? { publisher: socketPublisher(() => ioRef.io) } : {}),
     disconnectUser: (id) => ioRef.io && disconnectUserSockets(ioRef.io, id),
     userAccessChanged: (id) => void (ioRef.io && refreshUserSockets(ioRef.io, db, id)),
   });

@@ -325,3 +325,20 @@ describe('who may', () => {
     await as.admin.agent.post(url(station.id, 'preview')).attach('file', Buffer.from(csv()), { filename: 'm.csv', contentType: 'text/csv' }).expect(403);
   });
 });
+
+describe('seats', () => {
+  it('stores a seat the file gives, keeps the one check-in gave when the cell is empty, and names the rule for a bad one', async () => {
+    const f = await makeFlight();
+    const header = [...MANIFEST_COLUMNS, 'seat'].join(',');
+    const file = (first: string, second: string) =>
+      `${header}\r\n${csvRow(f, { pnr: 'SEAT01', sequence: '1' })},${first}\r\n${csvRow(f, { pnr: 'SEAT01', sequence: '2', first_name: 'Ola' })},${second}\r\n`;
+    await send(as.admin, 'import', file('14c', '')).expect(200);
+    expect((await passengersOf(f.id)).map((p) => p.seat)).toEqual(['14C', null]);
+    // Check-in seated the second passenger; a later export without a seat for them keeps it.
+    await t.db.query(`UPDATE passengers SET seat = '15A' WHERE flight_id = ? AND pnr_sequence = 2`, [f.id]);
+    await send(as.admin, 'import', file('14D', '')).expect(200);
+    expect((await passengersOf(f.id)).map((p) => p.seat)).toEqual(['14D', '15A']);
+    const preview = manifestPreviewSchema.parse((await send(as.admin, 'preview', file('aisle', '')).expect(200)).body);
+    expect(preview.errors).toEqual([{ line: 2, field: 'seat', rule: 'seat must be a row number and a seat letter A-K (14C), or empty' }]);
+  });
+});

@@ -34,6 +34,8 @@ const NOT_REFERENCES: Record<string, string> = {
 const OWNED_PARTS = new Set([
   'bookings.flight_id', 'passengers.booking_id', 'passengers.flight_id', 'flight_forecasts.flight_id', 'forecast_snapshots.flight_id',
   'reconciliation_differences.run_id', 'user_stations.user_id', 'user_stations.station_id', 'booking_outcomes.closed_flight_id',
+  // An alert about waiting work only points at it (the audit log keeps the history), so it goes with its subject.
+  'alerts.volunteer_id', 'alerts.approval_id', 'alerts.denial_proposal_id',
 ]);
 
 /** References that let go of the row rather than refuse the delete, with the reason. */

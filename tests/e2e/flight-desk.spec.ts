@@ -135,7 +135,7 @@ test('the flight desk shows counts and odds, and both move live as check-ins arr
     expect(await page.evaluate(() => (window as unknown as { __sameDocument?: boolean }).__sameDocument)).toBe(true);
     await shot(page, 'flight-desk-after');
 
-    await page.getByLabel('Search name or PNR').fill(feed.parties[0].pnr);
+    await page.getByLabel('Search name, PNR or seat').fill(feed.parties[0].pnr);
     await expect(page.getByTestId('passenger-count')).toHaveText(new RegExp(`^Showing ${feed.parties[0].people} of \\d+ passengers$`));
     await expect(page.locator(`tr[data-pnr="${feed.parties[0].pnr}"]`).first()).toContainText('Checked in');
   } finally {

@@ -9,6 +9,16 @@ export const ROLE_HOME: Record<Role, string> = {
   admin: '/setup',
 };
 
+/**
+ * Where each role's full list of alerts lives; the alerts bar on every other screen links there. Admins set the
+ * station up and work no queue, so they get no bar.
+ */
+export const ALERT_LISTS: Partial<Record<Role, string>> = {
+  agent: '/departures',
+  supervisor: '/day',
+  finance: '/ledger',
+};
+
 export interface NavItem {
   to: string;
   label: string;

@@ -39,6 +39,14 @@ async function insertFlight(em: EntityManager, station: StationEntity, demo: Dem
     state: stateAt(f.departsIn),
   }));
   const rng = seededRandom(seed);
+  const seated = new Map<string, number>();
+  // Checked-in passengers carry the seat check-in gave, filled front to back per cabin, six abreast (invented).
+  const seatFor = (cabin: string, checkedIn: boolean) => {
+    if (!checkedIn) return null;
+    const n = seated.get(cabin) ?? 0;
+    seated.set(cabin, n + 1);
+    return `${(cabin === 'Y' ? 10 : 1) + Math.floor(n / 6)}${'ABCDEF'[n % 6]}`;
+  };
   for (const b of demoManifest(rng, demo, f, departure, now)) {
     const booking = await em.save(em.create(BookingEntity, { flightId: flight.id, pnr: b.pnr, contactEmail: b.contactEmail, channel: b.channel, travelsTogether: true, status: 'active' }));
     await em.insert(PassengerEntity, b.passengers.map((p, i) => ({
@@ -47,7 +55,7 @@ async function insertFlight(em: EntityManager, station: StationEntity, demo: Dem
       flightId: flight.id,
       pnrSequence: i + 1,
       fareCurrency: station.currency,
-      seat: null,
+      seat: seatFor(p.cabin, Boolean(p.checkedInAt || p.boardedAt)),
       inboundEstimatedArrival: p.inboundScheduledArrival,
       status: p.boardedAt ? 'boarded' : p.checkedInAt ? 'checked-in' : 'booked',
     } as const)));

@@ -1,15 +1,26 @@
 // The one place the server tells consoles that something changed. Called only after the change has committed. A
 // forecast's notice carries the flight's new version and what changed with it, so consoles patch instead of refetching.
-import { flightRoom, stationRoom, type ChangedPayload } from '@shared/events';
+import { ALERT_TOPIC, flightRoom, stationRoom, type ChangedPayload } from '@shared/events';
 import { sharedServers, type AppIo } from './socket-server';
 
 export type NoticeData = Omit<ChangedPayload, 'id' | 'topics'>;
 
 export interface Publisher {
   flightChanged(flightId: number, stationId: number, topics?: string[], data?: NoticeData): void;
+  /** Something of the station's own moved (its alerts), with no flight's notice to carry it. */
+  stationChanged?(stationId: number, topics: string[]): void;
 }
 
 export const silentPublisher: Publisher = { flightChanged: () => undefined };
+
+/**
+ * The flight topics whose changes may raise or close an alert: a volunteer's offer, an amount for a supervisor, a
+ * denial proposal, a payment. The station's consoles then fetch their alerts again; a check-in does not make them.
+ */
+const TOPICS_THAT_MOVE_ALERTS = new Set(['rounds', 'approvals', 'denials', 'compensations']);
+
+export const stationTopicsFor = (flightTopics: string[] | undefined) =>
+  flightTopics?.some((t) => TOPICS_THAT_MOVE_ALERTS.has(t)) ? ['departures', ALERT_TOPIC] : ['departures'];
 
 export function socketPublisher(getIo: () => AppIo | undefined): Publisher {
   return {
@@ -17,9 +28,12 @@ export function socketPublisher(getIo: () => AppIo | undefined): Publisher {
       const io = getIo();
       if (!io) return;
       io.to(flightRoom(flightId)).emit('flight:changed', { id: flightId, topics, ...data });
-      io.to(stationRoom(stationId)).emit('station:changed', { id: stationId, topics: ['departures'] });
+      io.to(stationRoom(stationId)).emit('station:changed', { id: stationId, topics: stationTopicsFor(topics) });
       // The other server processes drop what they hold of this flight from an older state (see peers.ts).
       if (sharedServers.has(io)) io.serverSideEmit('flight:moved', flightId, data?.version ?? null);
+    },
+    stationChanged(stationId, topics) {
+      getIo()?.to(stationRoom(stationId)).emit('station:changed', { id: stationId, topics });
     },
   };
 }

@@ -5,7 +5,8 @@ import { ROLE_LABELS } from '@shared/schemas/common';
 import { useT } from '../../lib/language';
 import { sessionQueryOptions, useSignOut } from '../../lib/session';
 import { onUnauthenticated } from '../../lib/api-client';
-import { NAV_ITEMS } from '../role-homes';
+import { AlertsBar } from '../../features/alerts/components/alerts-bar';
+import { ALERT_LISTS, NAV_ITEMS } from '../role-homes';
 import { STATION_PARAM, useCurrentStation } from '../use-current-station';
 import { useQueryClient } from '@tanstack/react-query';
 
@@ -84,6 +85,14 @@ export function AppShell() {
           <p className="bg-signal px-4 py-1 text-center text-sm font-bold text-ink">{t('staff.demo')}</p>
         )}
       </header>
+      {user && ALERT_LISTS[user.role] && (
+        <AlertsBar
+          stationId={user.role === 'finance' ? null : (station?.id ?? null)}
+          listPath={station ? `${ALERT_LISTS[user.role]}?${STATION_PARAM}=${station.iata}` : ALERT_LISTS[user.role]!}
+          showPanel={!Object.values(ALERT_LISTS).includes(location.pathname) && !location.pathname.startsWith('/sign-in')}
+          linkFlights={user.role !== 'finance'}
+        />
+      )}
       <main id="main">
         <Outlet />
       </main>

@@ -9,7 +9,7 @@ export default function DeparturesPage() {
   if (!station) return <Page title="Departures"><p>You do not belong to a station yet. Ask an admin to add you to one.</p></Page>;
   return (
     <Page title={`Departures · ${station.iata}`} subtitle={`${station.name}. Times in ${zoneLabel(station.timeZone)}.`}>
-      <AlertsList stationId={station.id} hint="The passengers are still owed. Open the flight and re-issue from its compensation panel, giving the reason." />
+      <AlertsList stationId={station.id} hint="Newest first, each with what to do next. “I am on it” tells your colleagues someone has it; “Dismiss” closes a notice." />
       <DeparturesBoard stationId={station.id} timeZone={station.timeZone} />
     </Page>
   );

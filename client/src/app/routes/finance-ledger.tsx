@@ -8,7 +8,7 @@ export default function FinanceLedgerPage() {
   const { stations } = useCurrentStation();
   return (
     <Page title="Compensation ledger" subtitle="Every compensation of your stations: what is owed, what is paid, and what the payment provider holds.">
-      <AlertsList hint="The passengers are still owed. Re-issue from the ledger below, giving the reason." />
+      <AlertsList linkFlights={false} hint="Payments lost or near their deadline. The passengers are still owed: re-issue from the ledger below, giving the reason." />
       <LedgerScreen stations={stations} />
       <CareLedgerPanel stations={stations} />
     </Page>

@@ -11,7 +11,7 @@ export default function StationDayPage() {
   if (!station) return <Page title="Station day"><p>You do not belong to a station yet.</p></Page>;
   return (
     <Page title={`Station day · ${station.iata}`} subtitle={`What needs a supervisor today at ${station.name}. Times in ${zoneLabel(station.timeZone)}.`}>
-      <AlertsList stationId={station.id} hint="The passengers are still owed. Open the flight and re-issue from its compensation panel, giving the reason." />
+      <AlertsList stationId={station.id} hint="Newest first, each with what to do next. “I am on it” tells your colleagues someone has it; “Dismiss” closes a notice." />
       <div className="space-y-4">
         <Panel title="Waiting for you">
           <PendingApprovals stationId={station.id} timeZone={station.timeZone} />

@@ -24,6 +24,7 @@ import { BookingLanguage1796330000000 } from './1796330000000-BookingLanguage';
 import { LearnedShowRates1796340000000 } from './1796340000000-LearnedShowRates';
 import { FlightSchedules1796370000000 } from './1796370000000-FlightSchedules';
 import { BookingChannel1796800000000 } from './1796800000000-BookingChannel';
+import { AlertSubjects1796900000000 } from './1796900000000-AlertSubjects';
 
 export const migrations = [
   Initial1796151413508,
@@ -51,4 +52,5 @@ export const migrations = [
   LearnedShowRates1796340000000,
   FlightSchedules1796370000000,
   BookingChannel1796800000000,
+  AlertSubjects1796900000000,
 ];

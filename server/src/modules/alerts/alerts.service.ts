@@ -1,9 +1,10 @@
 // Alerts for the station and finance. A lost payment (voided, canceled at the provider, refused) puts the passenger
 // back to "owed": the alert is written in the same transaction as that change, once per payment attempt, and is
-// resolved in the transaction that pays the passenger again.
+// resolved in the transaction that pays the passenger again. An alert about waiting work (work-alerts.ts) is open
+// while its subject still waits: the list reads that from the subject itself.
 import type { DataSource, EntityManager } from 'typeorm';
 import type { SessionUser } from '@shared/schemas/auth';
-import type { AlertKind, AlertQuery, AlertView } from '@shared/schemas/alerts';
+import { INFORMATIONAL_ALERT_KINDS, isPaymentAlert, PAYMENT_ALERT_KINDS, type AlertKind, type AlertQuery, type AlertView } from '@shared/schemas/alerts';
 import { AlertEntity, type CompensationEntity } from '../../db/entities';
 import { notFound } from '../../http/errors';
 import { canSeeStation } from '../../http/require-role';
@@ -11,7 +12,9 @@ import { audit } from '../audit/audit.service';
 import { compensationRow, passengerNameOf } from '../payments/compensation-view';
 import { moneyText } from '../finance/scope';
 
-const WHAT: Record<AlertKind, string> = {
+type PaymentAlertKind = (typeof PAYMENT_ALERT_KINDS)[number];
+
+const WHAT: Record<PaymentAlertKind, string> = {
   'payment-voided': 'was voided by finance',
   'payment-canceled': 'was canceled by the payment provider',
   'payment-failed': 'was refused by the payment provider',
@@ -24,7 +27,7 @@ const WHAT: Record<AlertKind, string> = {
  * named by the idempotency key it ran under, so the same loss seen twice (a webhook and finance's void of the same
  * card) raises one alert.
  */
-export async function raisePaymentLost(em: EntityManager, row: CompensationEntity, kind: AlertKind, detail: string | null): Promise<void> {
+export async function raisePaymentLost(em: EntityManager, row: CompensationEntity, kind: PaymentAlertKind, detail: string | null): Promise<void> {
   const view = await compensationRow(em, row.id);
   const attempt = row.idempotencyKey ?? 'never-issued';
   const message = `${view.carrier_code} ${view.flight_number} on ${view.service_date}: the payment of ${moneyText(row.amountMinor, row.currency)} to ${passengerNameOf(view)} ${WHAT[kind]}${detail ? ` (${detail})` : ''}. The passenger is owed it again; finance can re-issue it.`;
@@ -75,15 +78,37 @@ function present(r: AlertRow): AlertView {
   };
 }
 
+/**
+ * A work alert is resolved once its subject no longer waits: the volunteer's offer was answered, the amount decided
+ * (or dropped with its round), the proposal authorized or withdrawn. A decided amount's own alert is not waiting
+ * work: it stays until dismissed.
+ */
+const RESOLVED_AT = `CASE
+    WHEN a.resolved_at IS NOT NULL THEN a.resolved_at
+    WHEN a.volunteer_id IS NOT NULL AND v.status <> 'offered' THEN COALESCE(v.accepted_at, a.created_at)
+    WHEN a.kind = 'approval-waiting' AND oa.status <> 'pending' THEN COALESCE(oa.decided_at, a.created_at)
+    WHEN a.denial_proposal_id IS NOT NULL AND dp.status NOT IN ('proposed', 'changed') THEN COALESCE(dp.decided_at, a.created_at)
+  END`;
+const RESOLUTION = `CASE
+    WHEN a.resolved_at IS NOT NULL THEN a.resolution
+    WHEN a.volunteer_id IS NOT NULL AND v.status <> 'offered' THEN CONCAT('the offer was ', v.status)
+    WHEN a.kind = 'approval-waiting' AND oa.status <> 'pending' THEN CONCAT('the amount was ', IF(oa.status = 'approved', 'approved', 'declined'))
+    WHEN a.denial_proposal_id IS NOT NULL AND dp.status NOT IN ('proposed', 'changed') THEN CONCAT('the proposal was ', dp.status)
+  END`;
+
 const SELECT = `
+  SELECT * FROM (
   SELECT a.id, a.station_id, s.iata AS station_iata, a.flight_id, f.carrier_code, f.flight_number,
          DATE_FORMAT(f.service_date, '%Y-%m-%d') AS service_date, a.compensation_id, p.first_name, p.last_name,
-         a.kind, a.message, a.created_at, a.resolved_at, a.resolution, a.acknowledged_at, u.email AS acknowledged_by
+         a.kind, a.message, a.created_at, ${RESOLVED_AT} AS resolved_at, ${RESOLUTION} AS resolution, a.acknowledged_at, u.email AS acknowledged_by
     FROM alerts a
     JOIN stations s ON s.id = a.station_id
     LEFT JOIN flights f ON f.id = a.flight_id
     LEFT JOIN compensations c ON c.id = a.compensation_id
     LEFT JOIN passengers p ON p.id = c.passenger_id
+    LEFT JOIN volunteers v ON v.id = a.volunteer_id
+    LEFT JOIN offer_approvals oa ON oa.id = a.approval_id
+    LEFT JOIN denial_proposals dp ON dp.id = a.denial_proposal_id
     LEFT JOIN users u ON u.id = a.acknowledged_by_user_id`;
 
 /** The user's stations only (another station's id is "not found"); open alerts first, newest first. */
@@ -91,20 +116,29 @@ export async function listAlerts(db: DataSource, user: SessionUser, query: Alert
   if (query.stationId !== undefined && !canSeeStation(user, query.stationId)) throw notFound('Station');
   const stations = query.stationId !== undefined ? [query.stationId] : user.stations.map((s) => s.id);
   if (!stations.length) return [];
-  const open = query.status === 'open' ? 'AND a.resolved_at IS NULL' : '';
-  const rows: AlertRow[] = await db.query(`${SELECT} WHERE a.station_id IN (?) ${open} ORDER BY a.resolved_at IS NULL DESC, a.created_at DESC, a.id DESC LIMIT 200`, [stations]);
+  const kinds = user.role === 'finance' ? 'AND a.kind IN (?)' : '';
+  const open = query.status === 'open' ? 'WHERE x.resolved_at IS NULL' : '';
+  const rows: AlertRow[] = await db.query(
+    `${SELECT} WHERE a.station_id IN (?) ${kinds}) x ${open} ORDER BY x.resolved_at IS NULL DESC, x.created_at DESC, x.id DESC LIMIT 200`,
+    user.role === 'finance' ? [stations, PAYMENT_ALERT_KINDS] : [stations],
+  );
   return rows.map(present);
 }
 
-/** Someone has seen it and is on it; it stays listed until the passenger is paid. Audited. */
+/**
+ * Someone has seen it and is on it: it leaves the count, and stays listed until the passenger is paid or the work is
+ * decided. An alert that only informs is closed by it (dismissed). Audited.
+ */
 export async function acknowledgeAlert(db: DataSource, user: SessionUser, id: number): Promise<AlertView> {
   await db.transaction(async (em) => {
     const alert = await em.findOne(AlertEntity, { where: { id }, lock: { mode: 'pessimistic_write' } });
-    if (!alert || !canSeeStation(user, alert.stationId)) throw notFound('Alert');
+    if (!alert || !canSeeStation(user, alert.stationId) || (user.role === 'finance' && !isPaymentAlert(alert.kind as AlertKind))) throw notFound('Alert');
     if (alert.acknowledgedAt) return;
-    await em.update(AlertEntity, { id }, { acknowledgedAt: new Date(), acknowledgedByUserId: user.id });
-    await audit(em, { actor: user, action: 'alert.acknowledged', entityType: 'alert', entityId: id, stationId: alert.stationId, before: { acknowledgedAt: null }, after: { acknowledged: true } });
+    const dismissed = INFORMATIONAL_ALERT_KINDS.includes(alert.kind as AlertKind);
+    const now = new Date();
+    await em.update(AlertEntity, { id }, { acknowledgedAt: now, acknowledgedByUserId: user.id, ...(dismissed ? { resolvedAt: now, resolution: `dismissed by ${user.email}`.slice(0, 200) } : {}) });
+    await audit(em, { actor: user, action: 'alert.acknowledged', entityType: 'alert', entityId: id, stationId: alert.stationId, before: { acknowledgedAt: null }, after: { acknowledged: true, dismissed } });
   });
-  const [row]: AlertRow[] = await db.query(`${SELECT} WHERE a.id = ?`, [id]);
+  const [row]: AlertRow[] = await db.query(`${SELECT} WHERE a.id = ?) x`, [id]);
   return present(row);
 }

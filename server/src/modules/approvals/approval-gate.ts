@@ -7,6 +7,7 @@ import { limitForRole, withinLimit, type ApprovalKind } from '@shared/schemas/ap
 import type { VolunteerPolicy } from '@shared/schemas/volunteers';
 import { OfferApprovalEntity, type CompensationEntity } from '../../db/entities';
 import { conflict } from '../../http/errors';
+import { raiseApprovalWaiting } from '../alerts/work-alerts';
 import { audit } from '../audit/audit.service';
 import { policyFor } from '../volunteers/policy.service';
 
@@ -54,6 +55,7 @@ export async function gateAmount(em: EntityManager, user: SessionUser, req: Amou
     actor: user, action: 'approval.requested', entityType: 'offer_approval', entityId: approval.id, stationId: req.stationId,
     after: { kind: req.kind, amountMinor: req.amountMinor, currency: req.currency, limitMinor: limit, roundId: approval.roundId, subjectId: approval.subjectId, flightId: req.flightId },
   });
+  await raiseApprovalWaiting(em, approval);
   return { approved: false, approval };
 }
 

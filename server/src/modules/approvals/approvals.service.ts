@@ -7,6 +7,7 @@ import type { PendingApproval } from '@shared/schemas/approvals';
 import { OfferApprovalEntity, VolunteerRoundEntity } from '../../db/entities';
 import { conflict, forbidden, notFound } from '../../http/errors';
 import { canSeeStation } from '../../http/require-role';
+import { raiseApprovalDecided } from '../alerts/work-alerts';
 import { audit } from '../audit/audit.service';
 import { assertNotDeparted } from '../flights/departure-guard';
 import { acceptApproved } from '../volunteers/accept.service';
@@ -64,6 +65,7 @@ export async function decideApproval(db: DataSource, user: SessionUser, approval
     }
     Object.assign(approval, { status: approve ? 'approved' : 'rejected', decidedByUserId: user.id, decidedAt: new Date(), reason });
     await em.save(approval);
+    await raiseApprovalDecided(em, approval, user);
     if (approve && round && (approval.kind === 'opening-offer' || approval.kind === 'raise')) await applyApprovedOffer(em, user, round, approval);
     if (approve && round && approval.kind === 'sealed-accept') await acceptApproved(em, user, round, approval);
     await audit(em, {

@@ -29,8 +29,12 @@ function message(row: Owed, overdue: boolean): string {
   return (overdue ? `${head} was due by ${when} UTC and is not paid${rule}. Pay it now.` : `${head} is due by ${when} UTC${rule}. Pay it before then.`).slice(0, 400);
 }
 
-/** One pass at `now`: raises what is due soon or overdue; returns how many alerts were new. */
-export async function sweepPaymentDeadlines(db: DataSource, now: Date): Promise<number> {
+/**
+ * One pass at `now`: raises what is due soon or overdue; returns how many alerts were new. `onRaised` hears the
+ * stations with a new alert, once each, after the rows are written (each insert commits on its own).
+ */
+export async function sweepPaymentDeadlines(db: DataSource, now: Date, onRaised?: (stationId: number) => void): Promise<number> {
+  const stations = new Set<number>();
   const horizon = new Date(now.getTime() + DUE_SOON_MINUTES * 60_000);
   const rows: Owed[] = await db.query(
     `SELECT c.id, c.station_id, c.flight_id, c.due_by, c.amount_minor, c.currency, c.due_rule_ref, f.carrier_code, f.flight_number, p.first_name, p.last_name
@@ -47,14 +51,17 @@ export async function sweepPaymentDeadlines(db: DataSource, now: Date): Promise<
       'INSERT IGNORE INTO alerts (station_id, flight_id, compensation_id, kind, message, dedupe_key, created_at) VALUES (?, ?, ?, ?, ?, ?, ?)',
       [row.station_id, row.flight_id, row.id, kind, message(row, overdue), key, now],
     );
-    raised += (result as { affectedRows: number }).affectedRows;
+    const added = (result as { affectedRows: number }).affectedRows;
+    if (added) stations.add(row.station_id);
+    raised += added;
   }
+  stations.forEach((id) => onRaised?.(id));
   return raised;
 }
 
 /** Sweeps every minute; returns the stop function. */
-export function watchPaymentDeadlines(db: DataSource, now: () => Date = () => new Date(), intervalMs = 60_000): () => void {
-  const timer = setInterval(() => void sweepPaymentDeadlines(db, now()).catch(() => undefined), intervalMs);
+export function watchPaymentDeadlines(db: DataSource, onRaised?: (stationId: number) => void, now: () => Date = () => new Date(), intervalMs = 60_000): () => void {
+  const timer = setInterval(() => void sweepPaymentDeadlines(db, now(), onRaised).catch(() => undefined), intervalMs);
   timer.unref();
   return () => clearInterval(timer);
 }

@@ -6,6 +6,7 @@ import type { ChangeDenialsBody, ProposeDenialsBody } from '@shared/schemas/deni
 import { DenialEntity, DenialProposalEntity, FlightEntity, PassengerEntity } from '../../db/entities';
 import { badRequest, conflict, forbidden, notFound } from '../../http/errors';
 import { canSeeStation } from '../../http/require-role';
+import { raiseDenialProposed } from '../alerts/work-alerts';
 import { audit } from '../audit/audit.service';
 import { rankFlight } from './candidates.service';
 import { assertNotDeparted } from '../flights/departure-guard';
@@ -56,6 +57,7 @@ export async function proposeDenials(db: DataSource, user: SessionUser, flightId
       actor: user, action: 'denial_proposal.created', entityType: 'denial_proposal', entityId: proposal.id, stationId: flight.stationId,
       after: { flightId, cabin: cabin.cabin, shortfall: cabin, seatsNeeded: body.seatsNeeded, seatsSelected: covered, reason: body.reason, denials: denials.map(unitSummary) },
     });
+    await raiseDenialProposed(em, proposal, covered);
     return { proposal, flight };
   });
 }

@@ -38,6 +38,7 @@ export function passengersOf(s: FlightState): DeskPassenger[] {
       onward: s.onwardOf.get(p.bookingId) ?? [],
       checkedInAt: p.checkedInAt?.toISOString() ?? null, boardedAt: p.boardedAt?.toISOString() ?? null,
       showProbability: estimate?.probability ?? 0, why: estimate?.why ?? 'Not computed yet.',
+      seat: p.seat,
     };
   });
 }

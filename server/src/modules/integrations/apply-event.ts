@@ -90,6 +90,7 @@ async function applyStatus(em: EntityManager, flight: FlightEntity, e: StatusEve
     );
   }
   if (filled.length) await em.query('UPDATE passengers SET checked_in_at = ? WHERE id IN (?) AND checked_in_at IS NULL', [at, filled]);
+  if (e.type === 'passenger.checked-in' && e.seat && moved.length) await em.query('UPDATE passengers SET seat = ? WHERE id IN (?)', [e.seat, moved]);
   const who = e.sequence === undefined ? `${e.pnr} (${chosen.length})` : `${e.pnr}/${e.sequence}`;
   const newest = moved.length > 0;
   return { flightId: flight.id, status: newest ? 'applied' : 'superseded', summary: newest ? `${who} ${rule.words}` : `${who} ${rule.words}: older than the latest change, kept the newer status` };

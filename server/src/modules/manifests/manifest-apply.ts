@@ -10,7 +10,10 @@ export const emptyCounts = (): ManifestImportCounts => ({ bookingsCreated: 0, bo
 
 export const passengerKey = (pnr: string, sequence: number) => `${pnr}|${sequence}`;
 
-/** The fields a manifest owns; status, check-in, boarding and seat belong to the departure-control feed. */
+/**
+ * The fields a manifest owns; status, check-in and boarding belong to the departure-control feed, and the seat to
+ * whichever of the two gave one last (see below).
+ */
 export function manifestFields({ row }: ManifestPassengerRow) {
   return {
     firstName: row.first_name,
@@ -73,6 +76,8 @@ export async function applyFlightManifest(em: EntityManager, flight: FlightEntit
       if (existing) {
         counts.passengersUpdated++;
         Object.assign(existing, fields, { inboundEstimatedArrival: estimate });
+        // An empty seat cell keeps the seat the feed gave at check-in; a seat in the file is the booking system's.
+        if (p.row.seat) existing.seat = p.row.seat;
         // Back on the manifest after a cancellation: booked again, with no check-in carried over from before.
         if (existing.status === 'cancelled') Object.assign(existing, { status: 'booked', statusChangedAt: now, checkedInAt: null, boardedAt: null });
         toSave.push(existing);
@@ -85,7 +90,7 @@ export async function applyFlightManifest(em: EntityManager, flight: FlightEntit
             flightId: flight.id,
             pnrSequence: p.sequence,
             inboundEstimatedArrival: estimate,
-            seat: null,
+            seat: p.row.seat,
             status: 'booked',
             checkedInAt: null,
             boardedAt: null,

@@ -110,10 +110,12 @@ export function manifestTemplateCsv(flight: TemplateFlight = PLACEHOLDER): strin
     {
       ...common, sequence: '1', first_name: 'Mira', fare_minor: '18950', fare_type: 'standard', ssr_codes: '', frequent_flyer_tier: 'gold', is_child: 'false',
       inbound_flight: 'ZZ340', inbound_scheduled_arrival: plusHours(flight.departure, -1.5), itinerary: onward,
+      seat: '14C',
     },
     {
       ...common, sequence: '2', first_name: 'Oskar', fare_minor: '14200', fare_type: 'flex', ssr_codes: 'CHLD VGML', frequent_flyer_tier: '', is_child: 'true',
       inbound_flight: 'ZZ340', inbound_scheduled_arrival: plusHours(flight.departure, -1.5), itinerary: onward,
+      seat: '14D',
     },
   ];
   return `${Papa.unparse({ fields: [...MANIFEST_ALL_COLUMNS], data: rows.map((r) => MANIFEST_ALL_COLUMNS.map((c) => r[c])) }, { newline: '\n' })}\n`;

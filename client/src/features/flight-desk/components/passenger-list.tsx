@@ -49,7 +49,7 @@ export function PassengerList({ passengers, timeZone, departureIso }: { passenge
   return (
     <Panel title="Passengers">
       <div className="mb-3 flex flex-wrap items-end gap-3">
-        <TextField label="Search name or PNR" value={search} onChange={setSearch} className="w-72" placeholder="e.g. Okafor or K7QX2M" type="search" />
+        <TextField label="Search name, PNR or seat" value={search} onChange={setSearch} className="w-72" placeholder="e.g. Okafor, K7QX2M or 14C" type="search" />
         <PassengerFilterBar filters={filters} onChange={setFilters} cabins={choices.cabins} ssrCodes={choices.ssrCodes} />
         {narrowed && (
           <Button

@@ -13,6 +13,12 @@ describe('search', () => {
   });
   it('finds by the PNR as printed on a boarding pass (common practice: LAST/FIRST)', () => expect(matchesSearch(p, 'MULLER/JURGEN')).toBe(true));
   it('finds by PNR', () => expect(matchesSearch(p, 'k7qx')).toBe(true));
+  it('finds by seat as printed on a boarding pass, in any case', () => {
+    expect(matchesSearch(passenger({ seat: '14C' }), '14c')).toBe(true);
+    expect(matchesSearch(passenger({ seat: '14C' }), 'muller 14C')).toBe(true);
+    expect(matchesSearch(passenger({ seat: '14C' }), '15C')).toBe(false);
+    expect(matchesSearch(passenger({ seat: null }), '14C')).toBe(false);
+  });
   it('does not match someone else', () => expect(matchesSearch(p, 'okafor')).toBe(false));
   it('matches everyone when empty', () => expect(matchesSearch(p, '  ')).toBe(true));
 });

@@ -37,11 +37,14 @@ export function matchesSsr(p: DeskPassenger, f: SsrFilter) {
   return p.ssrCodes.includes(f);
 }
 
-/** Name in either order, or the PNR; case and accents do not matter, so "Muller" finds "Müller". */
+/**
+ * Name in either order, the PNR or the seat; case and accents do not matter, so "Muller" finds "Müller" and "14c"
+ * finds seat 14C.
+ */
 export function matchesSearch(p: DeskPassenger, query: string) {
   const q = fold(query.trim());
   if (!q) return true;
-  const haystack = fold(`${p.firstName} ${p.lastName} ${p.lastName} ${p.firstName} ${p.lastName}/${p.firstName} ${p.pnr}`);
+  const haystack = fold(`${p.firstName} ${p.lastName} ${p.lastName} ${p.firstName} ${p.lastName}/${p.firstName} ${p.pnr} ${p.seat ?? ''}`);
   return q.split(/\s+/).every((word) => haystack.includes(word));
 }
 

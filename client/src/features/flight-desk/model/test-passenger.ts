@@ -6,6 +6,6 @@ export function passenger(over: Partial<DeskPassenger> = {}): DeskPassenger {
     id: 1, bookingId: 1, pnr: 'K7QX2M', pnrSequence: 1, partySize: 1, firstName: 'Jürgen', lastName: 'Müller', cabin: 'Y',
     fareMinor: 18900, fareCurrency: 'USD', fareType: 'standard', ssrCodes: [], frequentFlyerTier: null, isChild: false,
     inboundFlight: null, inboundEstimatedArrival: null, status: 'booked', checkedInAt: null, boardedAt: null,
-    showProbability: 0.93, why: 'Typical for this route', ...over,
+    showProbability: 0.93, why: 'Typical for this route', seat: null, ...over,
   };
 }
