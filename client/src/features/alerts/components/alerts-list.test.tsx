@@ -68,4 +68,17 @@ describe('AlertsList', () => {
     await vi.waitFor(() => expect(document.title).toBe('(3) Station day · BOS · Bumpboard'));
     expect(chimes).toHaveBeenCalled();
   });
+
+  it('keeps the keyboard on the sound toggle when the first alert arrives and when the last one leaves', async () => {
+    const qc = show([]);
+    const toggle = screen.getByRole('checkbox', { name: 'Sound when a new alert arrives' });
+    toggle.focus();
+    act(() => qc.setQueryData(alertKeys.list(7), { alerts: [alert(1)] }));
+    expect(await screen.findByRole('heading', { name: /1 payment needs attention/ })).toBeInTheDocument();
+    // The same element, still focused: not a new toggle drawn in the alert panel while focus falls to the page body.
+    expect(document.activeElement).toBe(toggle);
+    act(() => qc.setQueryData(alertKeys.list(7), { alerts: [] }));
+    expect(await screen.findByText('No alerts need attention.')).toBeInTheDocument();
+    expect(document.activeElement).toBe(toggle);
+  });
 });
