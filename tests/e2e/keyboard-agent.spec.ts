@@ -25,7 +25,8 @@ test('an agent signs in, opens the flight, starts a round, shows the gate QR and
     await page.keyboard.type(DEMO_PASSWORD);
     await page.keyboard.press('Enter');
     // Signed in, the home screen's heading has focus: never the page body.
-    await expect(page.getByRole('heading', { level: 1, name: /^Departures · / })).toBeFocused();
+    // scrypt on purpose: seconds on a busy machine.
+    await expect(page.getByRole('heading', { level: 1, name: /^Departures · / })).toBeFocused({ timeout: 20_000 });
 
     await tabTo(page, page.getByRole('link', { name: 'ZZ 105' }).first());
     await page.keyboard.press('Enter');

@@ -1,13 +1,15 @@
 // The booking channel travels in the feed's booking.added event and in the manifest's optional channel column; a bad
 // value is refused by the field's name, and a PNR whose rows disagree is refused at the line that disagrees.
 import { describe, expect, it } from 'vitest';
-import { MANIFEST_ALL_COLUMNS, MANIFEST_OPTIONAL_COLUMNS } from '@shared/schemas/manifest';
+import { MANIFEST_ALL_COLUMNS, MANIFEST_OPTIONAL_COLUMNS, type ManifestColumn } from '@shared/schemas/manifest';
 import { integrationEventSchema } from '@shared/schemas/integration-events';
 import { groupManifestRows } from './manifest-rows';
 import { manifestTemplateCsv, parseManifestCsv } from './manifest-csv';
 
+// Every column present and empty, then the ones this test sets: a column added later needs no change here.
+const blank = Object.fromEntries(MANIFEST_ALL_COLUMNS.map((c) => [c, ''])) as Record<ManifestColumn, string>;
 const cells = (over: Record<string, string>) => ({
-  flight_carrier: 'ZZ', flight_number: '107', flight_date: '2027-01-15', pnr: 'CHN001', sequence: '1', first_name: 'Ada', last_name: 'Brook',
+  ...blank, flight_carrier: 'ZZ', flight_number: '107', flight_date: '2027-01-15', pnr: 'CHN001', sequence: '1', first_name: 'Ada', last_name: 'Brook',
   cabin: 'Y', fare_minor: '18950', fare_currency: 'USD', fare_type: '', ssr_codes: '', frequent_flyer_tier: '', is_child: '',
   inbound_flight: '', inbound_scheduled_arrival: '', contact_email: '', language: '', itinerary: '', channel: '', ...over,
 });

@@ -36,14 +36,14 @@ describe('parseManifestCsv', () => {
   });
 
   it('names missing, unknown and repeated header columns on line 1 and reads no rows', () => {
-    const header = MANIFEST_COLUMNS.filter((c) => c !== 'pnr').join(',') + ',seat,cabin';
+    const header = MANIFEST_COLUMNS.filter((c) => c !== 'pnr').join(',') + ',gate_number,cabin';
     const parsed = parseManifestCsv(`${header}\n${row()}\n`);
     expect(parsed.records).toEqual([]);
     expect(parsed.problems).toEqual(
       expect.arrayContaining([
         { line: 1, field: 'pnr', rule: 'column is missing from the header' },
         { line: 1, field: 'cabin', rule: 'appears more than once in the header' },
-        expect.objectContaining({ line: 1, field: 'seat' }),
+        expect.objectContaining({ line: 1, field: 'gate_number' }),
       ]),
     );
   });

@@ -1,6 +1,7 @@
 import { useState, type FormEvent } from 'react';
 import type { AdminFlight } from '@shared/schemas/admin-flights';
 import { Button } from '../../../components/ui/button';
+import { useFocusOnOpen } from '../../../components/ui/use-focus-on-open';
 import { TextField } from '../../../components/ui/text-field';
 import { ApiRequestError } from '../../../lib/api-client';
 import { useCreateFlight, useUpdateFlight } from '../api/flights';
@@ -38,9 +39,10 @@ export function FlightForm({ station, flight, defaultDate, onDone }: { station: 
     else create.mutate({ ...common, carrierCode: v.carrierCode, flightNumber: v.flightNumber, serviceDate: v.serviceDate, destination: v.destination.toUpperCase() }, { onSuccess: () => onDone(`Added ${label} from ${station.iata}. It shows on the departures board on its day.`) });
   }
 
+  const heading = useFocusOnOpen();
   return (
     <form onSubmit={submit} noValidate aria-labelledby="flight-form-title" className="space-y-3 rounded-lg border-2 border-harbour bg-card p-4">
-      <h3 id="flight-form-title" className="text-xl font-bold">{flight ? `Edit ${flight.carrierCode}${flight.flightNumber} on ${flight.serviceDate}` : `Add a flight from ${station.iata}`}</h3>
+      <h3 ref={heading} tabIndex={-1} id="flight-form-title" className="text-xl font-bold">{flight ? `Edit ${flight.carrierCode}${flight.flightNumber} on ${flight.serviceDate}` : `Add a flight from ${station.iata}`}</h3>
       <FormProblems error={error} labels={FLIGHT_LABELS} />
       <div className="grid gap-3 sm:grid-cols-3 lg:grid-cols-5">
         {!flight && (

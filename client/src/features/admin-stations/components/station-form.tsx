@@ -3,6 +3,7 @@ import { useQuery } from '@tanstack/react-query';
 import { REGIME_LABELS, REGIMES, type RegimeCode } from '@shared/schemas/common';
 import type { StationSettings } from '@shared/schemas/admin-stations';
 import { Button } from '../../../components/ui/button';
+import { useFocusOnOpen } from '../../../components/ui/use-focus-on-open';
 import { TextField } from '../../../components/ui/text-field';
 import { airportQueryOptions, useCreateStation, useUpdateStation } from '../api/stations';
 import { fieldError, FormProblems } from '../../../components/ui/form-problems';
@@ -38,9 +39,10 @@ export function StationForm({ station, onDone }: { station: StationSettings | nu
   }
 
   const regimeError = fieldError(error, 'regime');
+  const heading = useFocusOnOpen();
   return (
     <form onSubmit={submit} noValidate aria-labelledby="station-form-title" className="space-y-3 rounded-lg border-2 border-harbour bg-card p-4">
-      <h3 id="station-form-title" className="text-xl font-bold">{station ? `Edit ${station.iata} · ${station.name}` : 'Open a station'}</h3>
+      <h3 ref={heading} tabIndex={-1} id="station-form-title" className="text-xl font-bold">{station ? `Edit ${station.iata} · ${station.name}` : 'Open a station'}</h3>
       <FormProblems error={error} labels={LABELS} />
       <div className="grid gap-3 sm:grid-cols-2 lg:grid-cols-4">
         {!station && (

@@ -1,5 +1,5 @@
 import '@testing-library/jest-dom/vitest';
-import { cleanup, render, screen, within } from '@testing-library/react';
+import { act, cleanup, render, screen, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { MemoryRouter } from 'react-router-dom';
 import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
@@ -26,6 +26,7 @@ function show(alerts: AlertView[]) {
       </MemoryRouter>
     </QueryClientProvider>,
   );
+  return qc;
 }
 
 afterEach(() => {
@@ -53,5 +54,18 @@ describe('AlertsList', () => {
     show([alert(1)]);
     await userEvent.setup().click(screen.getByRole('checkbox', { name: 'Sound when a new alert arrives' }));
     expect(localStorage.getItem('bumpboard.alertSound')).toBe('on');
+  });
+
+  it('keeps the keyboard on the sound toggle when the first alert arrives and when the last one leaves', async () => {
+    const qc = show([]);
+    const toggle = screen.getByRole('checkbox', { name: 'Sound when a new alert arrives' });
+    toggle.focus();
+    act(() => qc.setQueryData(alertKeys.list(7), { alerts: [alert(1)] }));
+    expect(await screen.findByRole('heading', { name: /1 alert needs attention/ })).toBeInTheDocument();
+    // The same element, still focused: not a new toggle drawn in the alert panel while focus falls to the page body.
+    expect(document.activeElement).toBe(toggle);
+    act(() => qc.setQueryData(alertKeys.list(7), { alerts: [] }));
+    expect(await screen.findByText('No alerts need attention.')).toBeInTheDocument();
+    expect(document.activeElement).toBe(toggle);
   });
 });

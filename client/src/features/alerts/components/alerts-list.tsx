@@ -21,27 +21,32 @@ export function AlertsList({ stationId, hint, linkFlights = true }: { stationId?
       Sound when a new alert arrives
     </label>
   );
-  if (error) return <p role="alert" className="font-bold text-alert">The alerts could not be loaded: {error.message}</p>;
-  if (!alerts.length) {
-    return (
-      <p className="mb-4 flex flex-wrap items-center gap-x-4 text-ink-soft" data-testid="alerts-none">
-        No alerts need attention. {soundToggle}
-      </p>
+  // The sound toggle keeps its place whatever the list shows, so a list that fills or empties under a keyboard
+  // user's focus never takes the toggle (and the focus) away.
+  let list;
+  if (error) list = <p role="alert" className="font-bold text-alert">The alerts could not be loaded: {error.message}</p>;
+  else if (!data) list = <p className="text-ink-soft">Checking for alerts…</p>;
+  else if (!alerts.length) list = <p className="text-ink-soft" data-testid="alerts-none">No alerts need attention.</p>;
+  else {
+    list = (
+      <section aria-labelledby="alerts-title" data-testid="alerts" className="rounded-lg border-2 border-alert bg-alert-soft p-4">
+        <h2 id="alerts-title" className="text-xl font-bold text-alert">
+          <span aria-hidden>⚠ </span>
+          {alerts.length === 1 ? '1 alert needs attention' : `${alerts.length} alerts need attention`}
+        </h2>
+        <p className="mb-2">{hint}</p>
+        <ul className="space-y-2">
+          {alerts.map((a) => (
+            <AlertCard key={a.id} alert={a} onAcknowledge={(id) => acknowledge.mutate(id)} busy={acknowledge.isPending} linkFlight={linkFlights} />
+          ))}
+        </ul>
+      </section>
     );
   }
   return (
-    <section aria-labelledby="alerts-title" data-testid="alerts" className="mb-4 rounded-lg border-2 border-alert bg-alert-soft p-4">
-      <h2 id="alerts-title" className="text-xl font-bold text-alert">
-        <span aria-hidden>⚠ </span>
-        {alerts.length === 1 ? '1 alert needs attention' : `${alerts.length} alerts need attention`}
-      </h2>
-      <p className="mb-2">{hint}</p>
-      <p className="mb-2">{soundToggle}</p>
-      <ul className="space-y-2">
-        {alerts.map((a) => (
-          <AlertCard key={a.id} alert={a} onAcknowledge={(id) => acknowledge.mutate(id)} busy={acknowledge.isPending} linkFlight={linkFlights} />
-        ))}
-      </ul>
-    </section>
+    <div className="mb-4 flex flex-wrap items-start justify-between gap-x-4 gap-y-2">
+      <div className="min-w-0 flex-1">{list}</div>
+      <p>{soundToggle}</p>
+    </div>
   );
 }

@@ -1,6 +1,7 @@
 import { useState } from 'react';
 import type { DenialCandidates, DenialProposal } from '@shared/schemas/denials';
 import { Button } from '../../../components/ui/button';
+import { ResultMessage } from '../../../components/ui/form-problems';
 import { formatTime } from '../../../lib/format';
 import { useAuthorizeDenials } from '../api/denials';
 import { PROPOSAL_STATUS_WORDS } from '../model/words';
@@ -28,14 +29,19 @@ export function ProposalReview({ proposal, flightId, timeZone, userId, decides, 
   // The selection as shown: a message about an earlier selection is not shown against a new one.
   const selectionKey = proposal.denials.map((d) => `${d.id}:${d.status}`).join(',');
   const [error, setError] = useState<{ key: string; message: string } | null>(null);
+  // The authorize buttons go once the denials are authorized: the words of what happened take their focus.
+  const [authorized, setAuthorized] = useState<string | null>(null);
   const authorize = useAuthorizeDenials(flightId);
   const mayAuthorize = (selectedByUserId: number) => authorizes && waiting && !ownProposal && selectedByUserId !== userId;
 
   /** Always names the denials on screen, so a click never authorizes a selection changed since it was drawn. */
   async function authorizeNow(denialIds: number[]) {
     setError(null);
+    setAuthorized(null);
     try {
       await authorize.mutateAsync({ proposalId: proposal.id, denialIds });
+      const n = denialIds.length;
+      setAuthorized(`Authorized ${n} denial${n === 1 ? '' : 's'} on proposal ${proposal.id}. Next: rebook ${n === 1 ? 'the passenger' : 'each passenger'} below; the compensation and the written statement follow from the new arrival.`);
     } catch (err) {
       setError({ key: selectionKey, message: err instanceof Error ? err.message : 'Not authorized.' });
     }
@@ -81,6 +87,11 @@ export function ProposalReview({ proposal, flightId, timeZone, userId, decides, 
         <p className="mt-2 rounded-md bg-harbour-soft px-3 py-2">Authorizing an involuntary denial is a supervisor’s act: a supervisor of this station authorizes it.</p>
       )}
       {error && error.key === selectionKey && <p role="alert" className="mt-2 font-bold text-alert">{error.message}</p>}
+      {authorized && (
+        <div className="mt-2">
+          <ResultMessage text={authorized} />
+        </div>
+      )}
       {mode === 'change' && <ChangeSelectionForm proposal={proposal} flightId={flightId} candidates={candidates} onDone={() => setMode('none')} />}
       {mode === 'withdraw' && <WithdrawForm proposalId={proposal.id} flightId={flightId} onDone={() => setMode('none')} />}
       <div className="mt-4 space-y-4">

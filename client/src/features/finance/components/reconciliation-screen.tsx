@@ -1,4 +1,4 @@
-import { useState } from 'react';
+import { useEffect, useRef, useState } from 'react';
 import { useQuery } from '@tanstack/react-query';
 import type { ReconciliationRun } from '@shared/schemas/finance';
 import { Button } from '../../../components/ui/button';
@@ -11,14 +11,20 @@ const STATUS_WORDS: Record<ReconciliationRun['status'], string> = { running: 'Ru
 const plural = (n: number, word: string) => `${n} ${word}${n === 1 ? '' : 's'}`;
 const when = (iso: string) => new Intl.DateTimeFormat('en-GB', { dateStyle: 'medium', timeStyle: 'short' }).format(new Date(iso));
 
-function RunDetail({ runId }: { runId: number }) {
+/** `justStarted`: the run the user started here, whose line takes the focus the Start button gives up while it works. */
+function RunDetail({ runId, justStarted }: { runId: number; justStarted: boolean }) {
   const { data, error } = useQuery(runQueryOptions(runId));
+  const status = useRef<HTMLParagraphElement>(null);
+  const loaded = Boolean(data);
+  useEffect(() => {
+    if (justStarted && loaded) status.current?.focus();
+  }, [justStarted, loaded, runId]);
   if (error) return <p role="alert" className="font-bold text-alert">{error.message}</p>;
   if (!data) return <p className="text-ink-soft">Loading the run…</p>;
   const { run, differences } = data;
   return (
     <Panel title={`Run ${run.id} · ${run.stations.join(', ')}`}>
-      <p aria-live="polite" data-testid="run-status">
+      <p ref={status} tabIndex={-1} aria-live="polite" data-testid="run-status">
         <strong>{STATUS_WORDS[run.status]}</strong>: {plural(run.pagesRead, 'page')} read, {plural(run.cardsSeen, 'card')} at the provider
         {run.status !== 'running' && `, ${plural(run.ledgerRows, 'compensation')} in the ledger, ${plural(run.differences, 'difference')} (${run.unresolved} open)`}.
       </p>
@@ -31,6 +37,7 @@ function RunDetail({ runId }: { runId: number }) {
 export function ReconciliationScreen({ stations }: { stations: StationOption[] }) {
   const [stationId, setStationId] = useState<number | null>(null);
   const [selected, setSelected] = useState<number | null>(null);
+  const [started, setStarted] = useState<number | null>(null);
   const runs = useQuery(runsQueryOptions());
   const start = useStartReconciliation();
   const shown = selected ?? runs.data?.runs[0]?.id ?? null;
@@ -42,7 +49,7 @@ export function ReconciliationScreen({ stations }: { stations: StationOption[] }
             <option value="">All my stations</option>
             {stations.map((s) => <option key={s.id} value={s.id}>{s.iata} · {s.name}</option>)}
           </SelectField>
-          <Button type="button" disabled={start.isPending} onClick={() => start.mutate(stationId, { onSuccess: (r) => setSelected(r.run.id) })}>
+          <Button type="button" disabled={start.isPending} onClick={() => start.mutate(stationId, { onSuccess: (r) => { setSelected(r.run.id); setStarted(r.run.id); } })}>
             Start reconciliation
           </Button>
         </div>
@@ -50,7 +57,7 @@ export function ReconciliationScreen({ stations }: { stations: StationOption[] }
         <p className="mt-2 text-sm text-ink-soft">Reads every card at the payment provider page by page and matches it to the ledger by compensation.</p>
       </Panel>
       <Caution />
-      {shown !== null && <RunDetail runId={shown} />}
+      {shown !== null && <RunDetail runId={shown} justStarted={shown === started} />}
       <Panel title="Past runs">
         {runs.isPending && <p className="text-ink-soft">Loading…</p>}
         {runs.data && !runs.data.runs.length && <p className="text-ink-soft">No reconciliation has been run yet.</p>}

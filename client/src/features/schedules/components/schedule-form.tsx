@@ -1,6 +1,7 @@
 import { useState, type FormEvent } from 'react';
 import { WEEKDAY_NAMES, WEEKDAYS, type Schedule, type ScheduleResult } from '@shared/schemas/admin-flights';
 import { Button } from '../../../components/ui/button';
+import { useFocusOnOpen } from '../../../components/ui/use-focus-on-open';
 import { TextField } from '../../../components/ui/text-field';
 import { ApiRequestError } from '../../../lib/api-client';
 import { useCreateSchedule, useUpdateSchedule } from '../api/schedules';
@@ -46,9 +47,10 @@ export function ScheduleForm({ station, schedule, today, onDone }: { station: { 
   }
 
   const daysError = fieldError(error, 'weekdays');
+  const heading = useFocusOnOpen();
   return (
     <form onSubmit={submit} noValidate aria-labelledby="schedule-form-title" className="space-y-3 rounded-lg border-2 border-harbour bg-card p-4">
-      <h3 id="schedule-form-title" className="text-xl font-bold">{schedule ? `Edit schedule ${schedule.carrierCode}${schedule.flightNumber}` : `New weekly schedule from ${station.iata}`}</h3>
+      <h3 ref={heading} tabIndex={-1} id="schedule-form-title" className="text-xl font-bold">{schedule ? `Edit schedule ${schedule.carrierCode}${schedule.flightNumber}` : `New weekly schedule from ${station.iata}`}</h3>
       <p className="text-sm text-ink-soft">Saving makes the dated flights match: missing days are added, flights not yet open move to the new time, and days dropped are cancelled where nobody is booked.</p>
       <FormProblems error={error} labels={LABELS} />
       <div className="grid gap-3 sm:grid-cols-3 lg:grid-cols-5">

@@ -1,4 +1,5 @@
 import type { ManifestFlightPreview, ManifestImportResult, ManifestProblem } from '@shared/schemas/manifest';
+import { useFocusIfLost } from '../../../components/ui/use-focus-if-lost';
 
 /** A file with thousands of bad lines is one mistake repeated: the first few hundred are enough to fix it. */
 const SHOWN_PROBLEMS = 200;
@@ -95,8 +96,10 @@ const plural = (n: number, one: string, many: string) => `${n} ${n === 1 ? one :
 
 export function ImportResult({ result }: { result: ManifestImportResult }) {
   const t = result.totals;
+  // Replaces the Import button: the keyboard continues from the result, and a screen reader reads it.
+  const ref = useFocusIfLost<HTMLElement>();
   return (
-    <section role="status" aria-label="Import result" className="space-y-2 rounded-md border-l-4 border-calm bg-calm-soft px-4 py-3">
+    <section ref={ref} tabIndex={-1} role="status" aria-label="Import result" className="space-y-2 rounded-md border-l-4 border-calm bg-calm-soft px-4 py-3">
       <p className="text-lg font-bold">
         ✓ Imported {plural(result.rows, 'passenger row', 'passenger rows')} for {plural(result.flights.length, 'flight', 'flights')}.
       </p>

@@ -5,6 +5,7 @@ import { createUserBodySchema, updateUserBodySchema, type User } from '@shared/s
 import { sessionQueryOptions } from '../../../lib/session';
 import { ApiRequestError } from '../../../lib/api-client';
 import { Button } from '../../../components/ui/button';
+import { useFocusOnOpen } from '../../../components/ui/use-focus-on-open';
 import { TextField } from '../../../components/ui/text-field';
 import { useCreateUser, useUpdateUser } from '../api/users';
 
@@ -43,9 +44,10 @@ export function UserForm({ user, carrierWideViewer, onDone }: { user: User | nul
     }
   }
 
+  const heading = useFocusOnOpen();
   return (
     <form onSubmit={submit} noValidate className="space-y-3 rounded-lg border-2 border-harbour bg-harbour-soft/40 p-4" aria-label={user ? `Edit ${user.displayName}` : 'New user'}>
-      <h3 className="text-lg font-bold">{user ? `Edit ${user.displayName}` : 'New user'}</h3>
+      <h3 ref={heading} tabIndex={-1} className="text-lg font-bold">{user ? `Edit ${user.displayName}` : 'New user'}</h3>
       <div className="grid gap-3 md:grid-cols-2">
         {!user && <TextField label="E-mail" type="email" value={email} onChange={setEmail} error={errors.email} />}
         <TextField label="Name" value={displayName} onChange={setDisplayName} error={errors.displayName} />

@@ -4,6 +4,7 @@ import { Link } from 'react-router-dom';
 import { APPROVAL_KIND_WORDS, type PendingApproval } from '@shared/schemas/approvals';
 import { Button } from '../../../components/ui/button';
 import { Caution } from '../../../components/ui/page';
+import { ResultMessage } from '../../../components/ui/form-problems';
 import { formatMoney, formatTime } from '../../../lib/format';
 import { approvalsQueryOptions, useDecideApproval } from '../api/rounds';
 import { useApprovalsLive } from '../api/use-live';
@@ -15,6 +16,8 @@ type Approval = PendingApproval;
 export function PendingApprovals({ stationId, timeZone }: { stationId: number; timeZone: string }) {
   const approvals = useQuery(approvalsQueryOptions(stationId));
   useApprovalsLive(stationId);
+  // The decided row leaves the queue: what was decided is said here, and takes the focus the row's button had.
+  const [decided, setDecided] = useState<string | null>(null);
   if (approvals.isPending) return <p className="text-lg text-ink-soft">Loading what waits for you…</p>;
   if (approvals.error) return <p role="alert" className="font-bold text-alert">The approvals could not be loaded: {approvals.error.message}</p>;
   const list = approvals.data.approvals;
@@ -23,6 +26,9 @@ export function PendingApprovals({ stationId, timeZone }: { stationId: number; t
       <h3 className="mb-2 text-xl font-bold">
         Amounts above someone’s limit {list.length > 0 && <span className="rounded-full bg-signal px-3 py-0.5 text-ink">{list.length}</span>}
       </h3>
+      <div className="mb-3 empty:hidden">
+        <ResultMessage text={decided} />
+      </div>
       {list.length === 0 ? (
         <p className="rounded-md border-2 border-calm bg-calm-soft px-4 py-3 text-lg font-bold text-calm">
           <span aria-hidden>● </span>No amount waits for your approval.
@@ -31,7 +37,7 @@ export function PendingApprovals({ stationId, timeZone }: { stationId: number; t
         <>
           <ul className="space-y-3">
             {list.map((a) => (
-              <ApprovalRow key={a.id} a={a} timeZone={timeZone} />
+              <ApprovalRow key={a.id} a={a} timeZone={timeZone} onDecided={setDecided} />
             ))}
           </ul>
           <div className="mt-3">
@@ -43,7 +49,7 @@ export function PendingApprovals({ stationId, timeZone }: { stationId: number; t
   );
 }
 
-function ApprovalRow({ a, timeZone }: { a: Approval; timeZone: string }) {
+function ApprovalRow({ a, timeZone, onDecided }: { a: Approval; timeZone: string; onDecided: (words: string) => void }) {
   const decide = useDecideApproval();
   const [reason, setReason] = useState('');
   const [reasonError, setReasonError] = useState<string | null>(null);
@@ -51,7 +57,15 @@ function ApprovalRow({ a, timeZone }: { a: Approval; timeZone: string }) {
     // A refusal tells the agent why; an approval may go without a word.
     if (!approve && reason.trim().length < 3) return setReasonError('reason must say why the amount is refused (at least 3 characters)');
     setReasonError(null);
-    decide.mutate({ approvalId: a.id, flightId: a.flightId, approve, reason: reason.trim() });
+    const amount = formatMoney(a.offerMinor, a.currency);
+    // Awaited rather than a per-call callback: the row unmounts once the queue refetches, and its callbacks with it.
+    decide
+      .mutateAsync({ approvalId: a.id, flightId: a.flightId, approve, reason: reason.trim() })
+      .then(() =>
+        onDecided(approve
+          ? `Approved ${amount} for ${a.flight}${a.subject ? ` (${a.subject})` : ''}. ${a.requestedBy} sees it on the flight desk now.`
+          : `Rejected ${amount} for ${a.flight}. ${a.requestedBy} sees your reason on the flight desk.`))
+      .catch(() => undefined); // shown by <Problem> from the mutation's state
   };
   return (
     <li className="rounded-lg border-2 border-watch p-3" data-testid="approval-row">
