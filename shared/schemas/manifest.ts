@@ -3,6 +3,7 @@ import { FARE_TYPE_NAMES } from '../compensation/tickets';
 import { apiErrorSchema } from './common';
 import { ITINERARY_CELL_EXAMPLE, itineraryCellSchema } from './itinerary';
 import { LANGUAGES } from '../i18n/languages';
+import { feeCurrencyProblem, OPTIONAL_FEE_KINDS, OPTIONAL_FEES_CELL_EXAMPLE, optionalFeesCellSchema } from './optional-fees';
 
 /**
  * The manifest CSV a station exports from its booking system: one row per passenger, in our own column layout.
@@ -28,7 +29,7 @@ export const MANIFEST_COLUMNS = [
   'contact_email',
 ] as const;
 /** Columns a file may leave out: older exports without them still import. */
-export const MANIFEST_OPTIONAL_COLUMNS = ['itinerary', 'language'] as const;
+export const MANIFEST_OPTIONAL_COLUMNS = ['itinerary', 'language', 'optional_fees'] as const;
 export const MANIFEST_ALL_COLUMNS = [...MANIFEST_COLUMNS, ...MANIFEST_OPTIONAL_COLUMNS] as const;
 export type ManifestColumn = (typeof MANIFEST_ALL_COLUMNS)[number];
 
@@ -52,6 +53,7 @@ export const MANIFEST_COLUMN_HELP: Record<ManifestColumn, string> = {
   inbound_scheduled_arrival: 'Scheduled arrival of the inbound flight, ISO 8601 with offset (2026-12-01T14:05:00-05:00).',
   contact_email: 'Booking contact e-mail, the same on every row of the PNR; may be empty.',
   language: 'Optional. The language the passengers read: en, fr, es, de or it; empty when not known.',
+  optional_fees: `Optional. Extras paid on top of the fare, separated by ";", each kind:minor units:currency ("${OPTIONAL_FEES_CELL_EXAMPLE}"); kinds: ${OPTIONAL_FEE_KINDS.join(', ')}; in the fare's currency; empty when none.`,
   itinerary: `Optional. The flights after this one to the final destination on the ticket, separated by ";", each like "${ITINERARY_CELL_EXAMPLE}"; the same on every row of the PNR; empty when this flight ends the journey.`,
 };
 
@@ -102,12 +104,19 @@ export const manifestRowSchema = z
     itinerary: z.string().optional().transform((s) => s ?? '').pipe(itineraryCellSchema),
     language: z.string().optional().transform((s) => (s ?? '').trim().toLowerCase())
       .pipe(z.union([z.literal('').transform(() => null), z.enum(LANGUAGES, { error: `language must be one of ${LANGUAGES.join(', ')}, or empty` })])),
+    optional_fees: z.string().optional().transform((s) => s ?? '').pipe(optionalFeesCellSchema),
   })
   // Only once every cell passed: a broken cell above should not also raise this rule about the same row.
   .refine((row) => !(row.inbound_scheduled_arrival && !row.inbound_flight), {
     path: ['inbound_flight'],
     message: 'inbound_flight is required when inbound_scheduled_arrival is given',
     when: (payload) => payload.issues.length === 0,
+  })
+  .superRefine((row, ctx) => {
+    // Another cell's problem already reported: the fees are checked against a fare currency that parsed.
+    if (!Array.isArray(row.optional_fees) || typeof row.fare_currency !== 'string') return;
+    const problem = feeCurrencyProblem(row.optional_fees, row.fare_currency);
+    if (problem) ctx.addIssue({ code: 'custom', path: ['optional_fees'], message: `optional_fees ${problem.rule}` });
   });
 export type ManifestRow = z.infer<typeof manifestRowSchema>;
 
