@@ -38,6 +38,7 @@ import { createPaymentsRuntime, type PaymentsRuntime } from './modules/payments/
 import { financeRouter } from './modules/finance/finance.routes';
 import { alertsRouter } from './modules/alerts/alerts.routes';
 import { cabinChangesRouter } from './modules/cabin-changes/cabin-changes.routes';
+import { refundsRouter } from './modules/refunds/refunds.routes';
 import { careRouter } from './modules/care/care.routes';
 import { learningRouter } from './modules/learning/learning.routes';
 import { createLearningRuntime, type LearningRuntime } from './modules/learning/learning-runtime';
@@ -111,6 +112,7 @@ export function createApp(deps: AppDeps) {
   api.use('/finance', financeRouter({ db: deps.db, reconciliation: payments.reconciliation }));
   api.use('/alerts', alertsRouter({ db: deps.db }));
   api.use(cabinChangesRouter({ db: deps.db, changed }));
+  api.use(refundsRouter({ db: deps.db }));
   api.use(careRouter({ db: deps.db, changed }));
   // The station run from the screens: flights, schedules, notices and the audit log.
   api.use(adminFlightsRouter({ db: deps.db, onFlightChanged: (id, stationId) => changed(id, stationId, ['forecast', 'counts']) }));

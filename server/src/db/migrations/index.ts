@@ -24,6 +24,7 @@ import { BookingLanguage1796330000000 } from './1796330000000-BookingLanguage';
 import { LearnedShowRates1796340000000 } from './1796340000000-LearnedShowRates';
 import { FlightSchedules1796370000000 } from './1796370000000-FlightSchedules';
 import { PassengerOptionalFees1796400000000 } from './1796400000000-PassengerOptionalFees';
+import { RuleRefunds1796401000000 } from './1796401000000-RuleRefunds';
 
 export const migrations = [
   Initial1796151413508,
@@ -51,4 +52,5 @@ export const migrations = [
   LearnedShowRates1796340000000,
   FlightSchedules1796370000000,
   PassengerOptionalFees1796400000000,
+  RuleRefunds1796401000000,
 ];
