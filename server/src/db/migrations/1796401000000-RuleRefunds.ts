@@ -12,11 +12,11 @@ export class RuleRefunds1796401000000 implements MigrationInterface {
         '`created_at` datetime(3) NOT NULL DEFAULT CURRENT_TIMESTAMP(3), ' +
         'UNIQUE INDEX `uq_rule_refund_payment` (`payment_compensation_id`), INDEX `ix_rule_refund_flight` (`flight_id`), PRIMARY KEY (`id`), ' +
         'CONSTRAINT `fk_rule_refund_station` FOREIGN KEY (`station_id`) REFERENCES `stations`(`id`) ON DELETE NO ACTION ON UPDATE NO ACTION, ' +
-        'CONSTRAINT `fk_rule_refund_flight` FOREIGN KEY (`flight_id`) REFERENCES `flights`(`id`) ON DELETE CASCADE ON UPDATE NO ACTION, ' +
-        'CONSTRAINT `fk_rule_refund_passenger` FOREIGN KEY (`passenger_id`) REFERENCES `passengers`(`id`) ON DELETE CASCADE ON UPDATE NO ACTION, ' +
-        'CONSTRAINT `fk_rule_refund_base` FOREIGN KEY (`base_compensation_id`) REFERENCES `compensations`(`id`) ON DELETE CASCADE ON UPDATE NO ACTION, ' +
-        'CONSTRAINT `fk_rule_refund_payment` FOREIGN KEY (`payment_compensation_id`) REFERENCES `compensations`(`id`) ON DELETE CASCADE ON UPDATE NO ACTION, ' +
-        'CONSTRAINT `fk_rule_refund_cabin_change` FOREIGN KEY (`cabin_change_id`) REFERENCES `cabin_changes`(`id`) ON DELETE SET NULL ON UPDATE NO ACTION) ENGINE=InnoDB',
+        'CONSTRAINT `fk_rule_refund_flight` FOREIGN KEY (`flight_id`) REFERENCES `flights`(`id`) ON DELETE RESTRICT ON UPDATE NO ACTION, ' +
+        'CONSTRAINT `fk_rule_refund_passenger` FOREIGN KEY (`passenger_id`) REFERENCES `passengers`(`id`) ON DELETE RESTRICT ON UPDATE NO ACTION, ' +
+        'CONSTRAINT `fk_rule_refund_base` FOREIGN KEY (`base_compensation_id`) REFERENCES `compensations`(`id`) ON DELETE RESTRICT ON UPDATE NO ACTION, ' +
+        'CONSTRAINT `fk_rule_refund_payment` FOREIGN KEY (`payment_compensation_id`) REFERENCES `compensations`(`id`) ON DELETE RESTRICT ON UPDATE NO ACTION, ' +
+        'CONSTRAINT `fk_rule_refund_cabin_change` FOREIGN KEY (`cabin_change_id`) REFERENCES `cabin_changes`(`id`) ON DELETE RESTRICT ON UPDATE NO ACTION) ENGINE=InnoDB',
     );
   }
 
