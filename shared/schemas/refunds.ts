@@ -12,6 +12,12 @@ export const REFUND_SOURCE_KINDS = { 'optional-fees': 'fee-refund', downgrade: '
 export const REFUND_PAYMENT_KINDS = Object.values(REFUND_SOURCE_KINDS);
 export const isRefundPayment = (sourceKind: string) => (REFUND_PAYMENT_KINDS as readonly string[]).includes(sourceKind);
 
+/** "Refund: optional fees not received" for a refund's payment row; null for a compensation. */
+export function refundKindLabel(sourceKind: string): string | null {
+  const kind = RULE_REFUND_KINDS.find((k) => REFUND_SOURCE_KINDS[k] === sourceKind);
+  return kind ? `Refund: ${RULE_REFUND_LABELS[kind].toLowerCase()}` : null;
+}
+
 export const ruleRefundViewSchema = z.object({
   id: z.number(),
   flightId: z.number(),
