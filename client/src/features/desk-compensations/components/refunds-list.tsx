@@ -50,7 +50,7 @@ export function RefundsList({ flightId }: { flightId: number }) {
             </ul>
             <p className="mt-1 text-ink-soft">Rule: {r.ruleRef}</p>
             <p className="mt-1">
-              Payment: <strong>{STATE_LABELS[r.paymentState]}</strong>, {MEDIUM_LABELS[r.medium]} (its own card above, no. {r.paymentCompensationId})
+              Payment: <strong>{STATE_LABELS[r.paymentState]}</strong>, {MEDIUM_LABELS[r.medium]} (paid from its own entry above, no. {r.paymentCompensationId})
             </p>
           </li>
         ))}
