@@ -4,6 +4,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { ruleRefundsResponseSchema } from '@shared/schemas/refunds';
 import { ledgerResponseSchema, periodReportSchema } from '@shared/schemas/finance';
+import { receiptResponseSchema } from '@shared/schemas/payment-media';
 import { signedIn, startTestApp, type Client, type TestApp } from './harness';
 import { DEMO } from './helpers';
 import { addBooking, addSingles, createFlight, removeDenialFixtures, type PassengerSpec } from './denials-fixtures';
@@ -64,6 +65,8 @@ describe('refunds the rules add to compensation', () => {
     const count = async (sql: string, id: number) => Number((await t.db.query(sql, [id]))[0].n);
     expect(await count('SELECT COUNT(*) AS n FROM counter_payments WHERE compensation_id = ?', refund.paymentCompensationId)).toBe(1);
     expect((await refundsOf(c.flight.id))[0].paymentState).toBe('settled');
+    const { receipt } = receiptResponseSchema.parse((await agent.get(`/api/compensations/${refund.paymentCompensationId}/receipt`).expect(200)).body);
+    expect(receipt.lines[0]).toBe(`Receipt for refund no. ${refund.paymentCompensationId} (Refund: optional fees not received)`);
     expect(await count(`SELECT COUNT(*) AS n FROM audit_log WHERE action = 'compensation.paid_at_counter' AND entity_id = CAST(? AS CHAR)`, refund.paymentCompensationId)).toBe(1);
 
     // Finance: the compensation totals grow by the compensation only (USD 1,000: 400 % of USD 250 is 1,000, under the
