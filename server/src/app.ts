@@ -39,6 +39,7 @@ import { financeRouter } from './modules/finance/finance.routes';
 import { alertsRouter } from './modules/alerts/alerts.routes';
 import { ALERT_TOPIC } from '@shared/events';
 import { cabinChangesRouter } from './modules/cabin-changes/cabin-changes.routes';
+import { refundsRouter } from './modules/refunds/refunds.routes';
 import { careRouter } from './modules/care/care.routes';
 import { learningRouter } from './modules/learning/learning.routes';
 import { createLearningRuntime, type LearningRuntime } from './modules/learning/learning-runtime';
@@ -112,6 +113,7 @@ export function createApp(deps: AppDeps) {
   api.use('/finance', financeRouter({ db: deps.db, reconciliation: payments.reconciliation }));
   api.use('/alerts', alertsRouter({ db: deps.db, alertsChanged: (stationId) => publisher.stationChanged?.(stationId, [ALERT_TOPIC]) }));
   api.use(cabinChangesRouter({ db: deps.db, changed }));
+  api.use(refundsRouter({ db: deps.db }));
   api.use(careRouter({ db: deps.db, changed }));
   // The station run from the screens: flights, schedules, notices and the audit log.
   api.use(adminFlightsRouter({ db: deps.db, onFlightChanged: (id, stationId) => changed(id, stationId, ['forecast', 'counts']) }));

@@ -83,8 +83,9 @@ export interface FeeRefund extends Refund {
 }
 
 export const FEE_REFUND_RULES: Readonly<Record<Regime, string | null>> = {
-  // §250.5: optional fees for services not received on the oversold flight are refunded to passengers bumped.
-  'us-dot': '14 CFR 250.5(f): optional fees for services not received refunded',
+  // §250.5(f) (paragraph from memory): optional fees for services not received refunded to passengers bumped;
+  // 14 CFR 260.1(a) (89 FR 32832, 2024): fees for ancillary services paid for and not provided are refunded.
+  'us-dot': '14 CFR 250.5(f), 260.1(a): optional fees for services paid for and not received refunded',
   // Reg. 261/2004 has no such rule; Art. 8 reimburses the whole ticket when the passenger chooses it.
   'eu-261': null,
   'uk-261': null,

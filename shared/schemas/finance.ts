@@ -61,7 +61,8 @@ export const compensationViewSchema = z.object({
   passengerId: z.number(),
   passengerName: z.string(),
   pnr: z.string(),
-  sourceKind: z.enum(['volunteer', 'denial', 'top-up']),
+  /** fee-refund and cabin-refund pay the refunds a rule adds to a compensation, counted apart from it. */
+  sourceKind: z.enum(['volunteer', 'denial', 'top-up', 'fee-refund', 'cabin-refund']),
   regime: z.string(),
   voluntary: z.boolean(),
   band: z.string(),
@@ -155,6 +156,8 @@ export const ledgerResponseSchema = z.object({
   totals: z.array(currencyTotalSchema),
   /** The same totals per medium: drawers and cheques, transfers and cards at the provider, credits outstanding. */
   byMedium: z.array(mediumTotalSchema),
+  /** Refunds the rules add (fees, downgrades) among the filtered rows: counted here, never in the totals above. */
+  refundTotals: z.array(currencyTotalSchema),
 });
 export type LedgerResponse = z.infer<typeof ledgerResponseSchema>;
 

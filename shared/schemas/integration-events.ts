@@ -5,6 +5,7 @@ import { FARE_TYPE_NAMES } from '../compensation/tickets';
 import { onwardItinerarySchema } from './itinerary';
 import { LANGUAGES } from '../i18n/languages';
 import { bookingChannelSchema } from './booking-channel';
+import { feeCurrencyProblem, optionalFeesSchema } from './optional-fees';
 
 /** The booking's language for notices, statements and the passenger page; null when the booking system has none. */
 export const bookingLanguageSchema = z.enum(LANGUAGES, { error: `language must be one of ${LANGUAGES.join(', ')}` });
@@ -37,6 +38,11 @@ export const bookingPassengerSchema = z.object({
   isChild: z.boolean().default(false),
   inboundFlight: z.string().max(10).nullable().default(null),
   inboundScheduledArrival: z.iso.datetime({ offset: true }).nullable().default(null),
+  /** Extras paid on top of the fare, each in the fare's currency. */
+  optionalFees: optionalFeesSchema.default([]),
+}).superRefine((p, ctx) => {
+  const problem = feeCurrencyProblem(p.optionalFees, p.fareCurrency);
+  if (problem) ctx.addIssue({ code: 'custom', path: ['optionalFees', problem.index, 'currency'], message: `currency ${problem.rule}` });
 });
 
 export const integrationEventSchema = z.discriminatedUnion('type', [

@@ -5,6 +5,7 @@ import { ITINERARY_CELL_EXAMPLE, itineraryCellSchema } from './itinerary';
 import { LANGUAGES } from '../i18n/languages';
 import { BOOKING_CHANNELS, CHANNEL_RULE } from './booking-channel';
 import { seatSchema } from './seat';
+import { feeCurrencyProblem, OPTIONAL_FEE_KINDS, OPTIONAL_FEES_CELL_EXAMPLE, optionalFeesCellSchema } from './optional-fees';
 
 /**
  * The manifest CSV a station exports from its booking system: one row per passenger, in our own column layout.
@@ -30,7 +31,7 @@ export const MANIFEST_COLUMNS = [
   'contact_email',
 ] as const;
 /** Columns a file may leave out: older exports without them still import. */
-export const MANIFEST_OPTIONAL_COLUMNS = ['itinerary', 'language', 'channel', 'seat'] as const;
+export const MANIFEST_OPTIONAL_COLUMNS = ['itinerary', 'language', 'channel', 'seat', 'optional_fees'] as const;
 export const MANIFEST_ALL_COLUMNS = [...MANIFEST_COLUMNS, ...MANIFEST_OPTIONAL_COLUMNS] as const;
 export type ManifestColumn = (typeof MANIFEST_ALL_COLUMNS)[number];
 
@@ -56,6 +57,7 @@ export const MANIFEST_COLUMN_HELP: Record<ManifestColumn, string> = {
   seat: 'Optional. The seat assigned in advance, a row number and a letter (14C); empty keeps the seat check-in gave.',
   language: 'Optional. The language the passengers read: en, fr, es, de or it; empty when not known.',
   channel: `Optional. Where the booking was made: ${BOOKING_CHANNELS.join(', ')}; the same on every row of the PNR; empty when not known.`,
+  optional_fees: `Optional. Extras paid on top of the fare, separated by ";", each kind:minor units:currency ("${OPTIONAL_FEES_CELL_EXAMPLE}"); kinds: ${OPTIONAL_FEE_KINDS.join(', ')}; in the fare's currency; empty when none.`,
   itinerary: `Optional. The flights after this one to the final destination on the ticket, separated by ";", each like "${ITINERARY_CELL_EXAMPLE}"; the same on every row of the PNR; empty when this flight ends the journey.`,
 };
 
@@ -110,12 +112,19 @@ export const manifestRowSchema = z
     channel: z.string().optional().transform((s) => (s ?? '').trim().toLowerCase())
       // One enum with '' in it rather than a union: a union's refusal reads "Invalid input" and names no rule.
       .pipe(z.enum(['', ...BOOKING_CHANNELS], { error: `${CHANNEL_RULE}, or empty` })).transform((s) => s || null),
+    optional_fees: z.string().optional().transform((s) => s ?? '').pipe(optionalFeesCellSchema),
   })
   // Only once every cell passed: a broken cell above should not also raise this rule about the same row.
   .refine((row) => !(row.inbound_scheduled_arrival && !row.inbound_flight), {
     path: ['inbound_flight'],
     message: 'inbound_flight is required when inbound_scheduled_arrival is given',
     when: (payload) => payload.issues.length === 0,
+  })
+  .superRefine((row, ctx) => {
+    // Another cell's problem already reported: the fees are checked against a fare currency that parsed.
+    if (!Array.isArray(row.optional_fees) || typeof row.fare_currency !== 'string') return;
+    const problem = feeCurrencyProblem(row.optional_fees, row.fare_currency);
+    if (problem) ctx.addIssue({ code: 'custom', path: ['optional_fees'], message: `optional_fees ${problem.rule}` });
   });
 export type ManifestRow = z.infer<typeof manifestRowSchema>;
 

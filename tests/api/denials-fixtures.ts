@@ -1,6 +1,7 @@
 // Flights, bookings and passengers of our own for the denied-boarding API tests, written straight to the shared
 // test database. Flight numbers 8xxx on a service date far ahead keep them off every demo departures board, and
 // removeDenialFixtures() deletes exactly what a run created (audit rows stay: the log is append-only).
+import type { OptionalFee } from '@shared/schemas/optional-fees';
 import { removeFlights } from './volunteers-fixtures';
 import type { DataSource } from 'typeorm';
 import type { SessionUser } from '@shared/schemas/auth';
@@ -63,6 +64,7 @@ export interface PassengerSpec {
   tier?: string | null;
   isChild?: boolean;
   cabin?: string;
+  optionalFees?: OptionalFee[];
 }
 
 let pnrCounter = 0;
@@ -94,7 +96,7 @@ export async function addBooking(
     const checkedIn = status === 'checked-in' || status === 'boarded' ? new Date(flight.scheduledDeparture.getTime() - (p.checkedInBefore ?? 60) * 60_000) : null;
     return db.getRepository(PassengerEntity).create({
       bookingId: booking.id, flightId: flight.id, pnrSequence: i + 1, firstName: p.first, lastName: p.last, cabin: p.cabin ?? 'Y',
-      fareMinor: p.fareMinor ?? 20_000, fareCurrency: p.fareCurrency ?? 'USD', fareType: 'standard', ssrCodes: p.ssr ?? [], frequentFlyerTier: p.tier ?? null,
+      fareMinor: p.fareMinor ?? 20_000, fareCurrency: p.fareCurrency ?? 'USD', fareType: 'standard', ssrCodes: p.ssr ?? [], optionalFees: p.optionalFees ?? [], frequentFlyerTier: p.tier ?? null,
       isChild: p.isChild ?? false, inboundFlight: null, inboundScheduledArrival: null, inboundEstimatedArrival: null, seat: null, status,
       checkedInAt: checkedIn, boardedAt: status === 'boarded' ? new Date(flight.scheduledDeparture.getTime() - 20 * 60_000) : null, statusChangedAt: checkedIn,
     });

@@ -1,5 +1,6 @@
 // Invented manifests: parties, families with children, connections, special-service requests, fares, and the
 // check-in state each passenger would have reached by the moment the demo is loaded.
+import type { OptionalFee } from '@shared/schemas/optional-fees';
 import type { Random } from './random';
 import { familyName, firstName, personName, pnr } from './people';
 import type { DemoFlight, DemoStation } from './scenario';
@@ -12,6 +13,7 @@ export interface DemoPassenger {
   fareMinor: number;
   fareType: string;
   ssrCodes: string[];
+  optionalFees: OptionalFee[];
   frequentFlyerTier: string | null;
   isChild: boolean;
   inboundFlight: string | null;
@@ -57,6 +59,7 @@ function passenger(rng: Random, station: DemoStation, cabin: string, lastName: s
     fareMinor: child ? Math.round(fare * 0.75) * 100 : fare * 100,
     fareType: cabin === 'J' ? 'flex' : rng.chance(0.25) ? 'flex' : rng.chance(0.1) ? 'award' : 'standard',
     ssrCodes: [],
+    optionalFees: demoFees(station, fare),
     frequentFlyerTier: !child && rng.chance(0.18) ? rng.pick(TIERS) : null,
     isChild: child,
     inboundFlight: null,
@@ -64,6 +67,18 @@ function passenger(rng: Random, station: DemoStation, cabin: string, lastName: s
     checkedInAt: null,
     boardedAt: null,
   };
+}
+
+/**
+ * Invented extras (about a third pay for a seat, a quarter for a bag; amounts of our own). Derived from the fare, not
+ * drawn from the random stream, so adding them left every other demo value as it was.
+ */
+function demoFees(station: DemoStation, fare: number): OptionalFee[] {
+  const fees: OptionalFee[] = [];
+  if (fare % 3 === 0) fees.push({ kind: 'seat', amountMinor: (15 + (fare % 5) * 5) * 100, currency: station.currency });
+  if (fare % 4 === 1) fees.push({ kind: 'bag', amountMinor: 3500, currency: station.currency });
+  if (fare % 11 === 2) fees.push({ kind: 'priority', amountMinor: 1500, currency: station.currency });
+  return fees;
 }
 
 export function demoManifest(rng: Random, station: DemoStation, flight: DemoFlight, departure: Date, now: Date): DemoBooking[] {

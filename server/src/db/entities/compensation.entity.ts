@@ -1,6 +1,8 @@
 import type { Medium } from '@shared/compensation/media';
 import { Column, CreateDateColumn, Entity, Index, PrimaryGeneratedColumn, UpdateDateColumn } from 'typeorm';
 
+export type CompensationSourceKind = 'volunteer' | 'denial' | 'top-up' | 'fee-refund' | 'cabin-refund';
+
 export type CompensationState = 'due' | 'issuing' | 'issued' | 'settled' | 'failed' | 'voided' | 'canceled';
 
 /**
@@ -29,10 +31,11 @@ export class CompensationEntity {
 
   /**
    * 'volunteer' (agreed benefits), 'denial' (owed under the regime), or 'top-up' (the rest owed once the real arrival
-   * is known); sourceId is the volunteer, the denial, or the compensation topped up.
+   * is known), 'fee-refund' or 'cabin-refund' (a refund the rule adds, see rule_refunds); sourceId is the volunteer,
+   * the denial, or the compensation topped up or refunded beside.
    */
   @Column({ type: 'varchar', length: 12, name: 'source_kind' })
-  sourceKind!: 'volunteer' | 'denial' | 'top-up';
+  sourceKind!: CompensationSourceKind;
 
   @Column({ type: 'int', name: 'source_id' })
   sourceId!: number;

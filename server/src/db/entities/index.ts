@@ -21,6 +21,7 @@ import { FlightScheduleEntity } from './flight-schedule.entity';
 import { BookingOutcomeEntity, ClosedFlightEntity, LearnedRatesEntity, LearningJobEntity, StationRatesChoiceEntity } from './learning.entity';
 import { PaymentLinkEntity, PayoutEntity } from './payout.entity';
 import { CounterPaymentEntity, PaymentAgreementEntity } from './payment-media.entity';
+import { RuleRefundEntity } from './rule-refund.entity';
 
 export { AuditLogEntity, BookingEntity, FlightEntity, PassengerEntity, StationEntity, UserEntity };
 export { ShowUpProfileEntity, IntegrationKeyEntity, FlightEventEntity, FlightForecastEntity, ForecastSnapshotEntity };
@@ -36,6 +37,7 @@ export { BookingOutcomeEntity, ClosedFlightEntity, LearnedRatesEntity, LearningJ
 export { PaymentLinkEntity, PayoutEntity };
 export type { PaymentLinkPurpose, PayoutState } from './payout.entity';
 export { CounterPaymentEntity, PaymentAgreementEntity };
+export { RuleRefundEntity };
 export const entities = [StationEntity, UserEntity, FlightEntity, BookingEntity, PassengerEntity, AuditLogEntity,
   ShowUpProfileEntity, IntegrationKeyEntity, FlightEventEntity, FlightForecastEntity, ForecastSnapshotEntity, SavedPlanEntity,
   VolunteerPolicyEntity, VolunteerRoundEntity, OfferApprovalEntity, VolunteerEntity, RebookingEntity, OutboxMessageEntity, CompensationEntity,
@@ -43,4 +45,4 @@ export const entities = [StationEntity, UserEntity, FlightEntity, BookingEntity,
   ProviderEventEntity, PaymentIssuanceEntity, ProviderCardEntity, VoucherOfferEntity, ReconciliationRunEntity, ReconciliationDifferenceEntity,
   AlertEntity, CabinChangeEntity, StationCareSettingsEntity, PassengerChoiceEntity, TicketRefundEntity, CareGivenEntity, FlightScheduleEntity,
   ClosedFlightEntity, BookingOutcomeEntity, LearningJobEntity, LearnedRatesEntity, StationRatesChoiceEntity, PaymentLinkEntity, PayoutEntity,
-  PaymentAgreementEntity, CounterPaymentEntity];
+  PaymentAgreementEntity, CounterPaymentEntity, RuleRefundEntity];

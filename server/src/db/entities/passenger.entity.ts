@@ -1,4 +1,5 @@
 import { Column, Entity, Index, JoinColumn, ManyToOne, PrimaryGeneratedColumn, type Relation } from 'typeorm';
+import type { OptionalFee } from '@shared/schemas/optional-fees';
 import { BookingEntity } from './booking.entity';
 
 export type PassengerStatus = 'booked' | 'checked-in' | 'boarded' | 'offloaded' | 'cancelled';
@@ -45,6 +46,10 @@ export class PassengerEntity {
   /** IATA special-service request codes such as UMNR, WCHR, INFT. */
   @Column({ type: 'json', name: 'ssr_codes' })
   ssrCodes!: string[];
+
+  /** Extras paid on top of the fare (seat selection, bags…), each in the fare's currency; refunded by some rules when not received. */
+  @Column({ type: 'json', name: 'optional_fees', default: () => "'[]'" })
+  optionalFees!: OptionalFee[];
 
   @Column({ type: 'varchar', length: 16, name: 'frequent_flyer_tier', nullable: true })
   frequentFlyerTier!: string | null;

@@ -23,6 +23,8 @@ import { CareAndChoice1796320000000 } from './1796320000000-CareAndChoice';
 import { BookingLanguage1796330000000 } from './1796330000000-BookingLanguage';
 import { LearnedShowRates1796340000000 } from './1796340000000-LearnedShowRates';
 import { FlightSchedules1796370000000 } from './1796370000000-FlightSchedules';
+import { PassengerOptionalFees1796400000000 } from './1796400000000-PassengerOptionalFees';
+import { RuleRefunds1796401000000 } from './1796401000000-RuleRefunds';
 import { BookingChannel1796800000000 } from './1796800000000-BookingChannel';
 import { AlertSubjects1796900000000 } from './1796900000000-AlertSubjects';
 
@@ -51,6 +53,8 @@ export const migrations = [
   BookingLanguage1796330000000,
   LearnedShowRates1796340000000,
   FlightSchedules1796370000000,
+  PassengerOptionalFees1796400000000,
+  RuleRefunds1796401000000,
   BookingChannel1796800000000,
   AlertSubjects1796900000000,
 ];

@@ -8,6 +8,7 @@ import { CabinChangeEntity, PassengerEntity, StationEntity, type FlightEntity } 
 import { badRequest, conflict, notFound } from '../../http/errors';
 import { findAirport, isEuAirport, routeDistanceKm } from '../../reference/airports';
 import { audit } from '../audit/audit.service';
+import { refundsAfterCabinChange } from '../refunds/refunds-due';
 import { cabinChangeOwed } from './downgrade-rules';
 
 type Cabin = keyof typeof CABIN_RANK;
@@ -62,6 +63,7 @@ export async function recordCabinChange(db: DataSource, user: SessionUser, fligh
       stationId: flight.stationId, flightId: flight.id, passengerId: passenger.id, bookedCabin: passenger.cabin, flownCabin: body.flownCabin, direction,
       fareDifferenceMinor: body.fareDifferenceMinor, currency: passenger.fareCurrency, regime, owedMinor: owed.owedMinor, owedRule: owed.rule, reason: body.reason, recordedByUserId: user.id,
     }));
+    await refundsAfterCabinChange(em, flight.id, passenger.id);
     await audit(em, { actor: user, action: 'cabin_change.recorded', entityType: 'cabin_change', entityId: saved.id, stationId: flight.stationId, after: { passengerId: passenger.id, bookedCabin: passenger.cabin, flownCabin: body.flownCabin, direction, fareDifferenceMinor: body.fareDifferenceMinor, owedMinor: owed.owedMinor, rule: owed.rule, reason: body.reason } });
     return saved.id;
   });

@@ -1,27 +1,12 @@
 // Creating what a passenger is owed, inside the transaction of the decision that causes it (an accepted volunteer,
 // an authorized denial), one row per passenger. The unique source key makes a repeat of the same decision a no-op.
 import type { EntityManager } from 'typeorm';
-import { CompensationEntity, StationEntity } from '../../db/entities';
+import { CompensationEntity } from '../../db/entities';
 import { conflict } from '../../http/errors';
-import { termsFor } from '../payments/voucher-rules';
+import { recordRefundsDue } from '../refunds/refunds-due';
+import { insertDue, type CompensationFact } from './insert-due';
 
-export interface CompensationFact {
-  stationId: number;
-  flightId: number;
-  bookingId: number;
-  passengerId: number;
-  sourceKind: 'volunteer' | 'denial';
-  sourceId: number;
-  regime: string;
-  voluntary: boolean;
-  amountMinor: number;
-  currency: string;
-  band: string;
-  ruleRef: string;
-  explanation: string;
-  /** How the amount was cleared against a limit; a denial's amount is the rule's (its authorization is a supervisor's). */
-  amountClearedBy?: string | null;
-}
+export type { CompensationFact };
 
 /**
  * Paid first in the rule's lawful default medium (cash for a denial; the card a volunteer accepted), with the rule's
@@ -33,24 +18,10 @@ export interface CompensationFact {
 export async function recordCompensationDue(em: EntityManager, fact: CompensationFact): Promise<CompensationEntity> {
   const existing = await em.findOneBy(CompensationEntity, { sourceKind: fact.sourceKind, sourceId: fact.sourceId, passengerId: fact.passengerId });
   if (existing) return existing;
-  const station = await em.findOneByOrFail(StationEntity, { id: fact.stationId });
-  const terms = termsFor({ regime: fact.regime, voluntary: fact.voluntary, deniedAt: new Date(), timeZone: station.timeZone });
-  const medium = terms.media[0];
-  return em.save(em.create(CompensationEntity, {
-    ...fact,
-    amountClearedBy: fact.amountClearedBy ?? (fact.sourceKind === 'denial' ? 'rule' : null),
-    form: medium === 'travel-credit' ? 'voucher' : 'prepaid-card',
-    medium,
-    dueBy: terms.dueBy ? new Date(terms.dueBy) : null,
-    dueRuleRef: terms.ruleRef,
-    voucherAgreedAt: null,
-    state: 'due',
-    idempotencyKey: null,
-    providerCardholderId: null,
-    providerCardId: null,
-    lastError: null,
-    voidReason: null,
-  }));
+  const saved = await insertDue(em, fact);
+  // The refunds the rule adds (fees not received, a recorded downgrade) become due in the same transaction.
+  if (fact.sourceKind === 'denial' || fact.sourceKind === 'volunteer') await recordRefundsDue(em, saved);
+  return saved;
 }
 
 /**

@@ -5,6 +5,7 @@ import type { DataSource, EntityManager } from 'typeorm';
 import { formatMoney } from '@shared/compensation';
 import type { SessionUser } from '@shared/schemas/auth';
 import type { CounterPaymentBody } from '@shared/schemas/payment-media';
+import { refundKindLabel } from '@shared/schemas/refunds';
 import { CompensationEntity, CounterPaymentEntity, PaymentAgreementEntity } from '../../db/entities';
 import { badRequest, conflict, notFound } from '../../http/errors';
 import { canSeeStation } from '../../http/require-role';
@@ -20,7 +21,8 @@ function sameRequest(paid: CounterPaymentEntity, body: CounterPaymentBody): bool
 
 export function receiptLines(view: CompensationRow, paid: Pick<CounterPaymentEntity, 'medium' | 'drawerId' | 'chequeNumber' | 'amountMinor' | 'currency' | 'paidAt'>, staff: string): string[] {
   return [
-    `Receipt for compensation no. ${view.id}`,
+    // A refund the rule adds is receipted as what it is, never as compensation.
+    refundKindLabel(view.source_kind) ? `Receipt for refund no. ${view.id} (${refundKindLabel(view.source_kind)})` : `Receipt for compensation no. ${view.id}`,
     `Passenger: ${passengerNameOf(view)}${view.pnr ? `, booking ${view.pnr}` : ''}`,
     `Flight: ${view.carrier_code} ${view.flight_number} on ${view.service_date}, station ${view.station_iata}`,
     `Rule: ${view.rule_ref}`,

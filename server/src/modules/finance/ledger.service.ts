@@ -10,6 +10,7 @@ import { compensationRows, COMPENSATION_FROM, passengerNameOf, presentCompensati
 import { decimalAmount, stationScope } from './scope';
 import { DUE_SOON_MINUTES } from '@shared/compensation';
 import { OWED_STATES } from '../compensations/payment-deadlines';
+import { ledgerKind, notARefund, refundLedgerTotals } from './refund-lines';
 
 /** A quarter of a busy network is far below this; an export beyond it should be split by dates. */
 export const CSV_ROW_LIMIT = 100_000;
@@ -47,13 +48,14 @@ const ORDER = 'ORDER BY f.service_date DESC, c.id DESC';
 export async function ledgerPage(db: DataSource, user: SessionUser, query: LedgerQuery): Promise<LedgerResponse> {
   const filter = ledgerFilter(user, query);
   const offset = (query.page - 1) * query.pageSize;
-  const [rows, [{ n }], totals, byMedium] = await Promise.all([
+  const [rows, [{ n }], totals, byMedium, refundTotals] = await Promise.all([
     compensationRows(db, filter.where, [...filter.params, query.pageSize, offset], `${ORDER} LIMIT ? OFFSET ?`),
     db.query(`SELECT COUNT(*) AS n ${COMPENSATION_FROM} WHERE ${filter.where}`, filter.params) as Promise<{ n: string | number }[]>,
     // A lost payment leaves the passenger owed: it counts in the amount and in what is owed, never subtracted;
     // what the passenger already spent on a card since canceled is no longer owed.
-    totalsBy(db, filter, ''),
-    totalsBy(db, filter, 'c.medium,'),
+    totalsBy(db, notARefund(filter.where, filter.params), ''),
+    totalsBy(db, notARefund(filter.where, filter.params), 'c.medium,'),
+    refundLedgerTotals(db, filter),
   ]);
   return {
     rows: rows.map(presentCompensation),
@@ -62,6 +64,7 @@ export async function ledgerPage(db: DataSource, user: SessionUser, query: Ledge
     pageSize: query.pageSize,
     totals: totals.map(totalOf),
     byMedium: byMedium.map((t) => ({ medium: t.medium!, ...totalOf(t) })),
+    refundTotals,
   };
 }
 
@@ -102,7 +105,7 @@ export async function ledgerCsv(db: DataSource, user: SessionUser, query: Omit<L
   );
   const data = rows.map((r) => [
     r.id, r.station_iata, `${r.carrier_code} ${r.flight_number}`, r.service_date, passengerNameOf(r), r.pnr ?? '', r.regime,
-    r.voluntary ? 'volunteer' : 'involuntary', r.form, r.medium, r.currency, decimalAmount(r.amount_minor, r.currency), r.amount_minor,
+    ledgerKind(r), r.form, r.medium, r.currency, decimalAmount(r.amount_minor, r.currency), r.amount_minor,
     r.due_by ? new Date(r.due_by).toISOString() : '', counter.get(r.id)?.drawer_id ?? '', counter.get(r.id)?.cheque_number ?? '', credit.get(r.id) ?? '', r.state, r.pc_status ?? '', r.provider_card_id ?? '', r.pc_spent_minor ?? '', r.void_reason ?? '', r.last_error ?? '', new Date(r.created_at).toISOString(),
   ]);
   // OWASP "CSV Injection": a leading =, +, - or @ is neutralised (papaparse escapeFormulae).

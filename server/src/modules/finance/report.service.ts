@@ -11,6 +11,8 @@ import type { CompensationStateCode } from '@shared/schemas/finance';
 import { isPaid, perDay, type CabinChangeItem } from './report-items';
 import { categoryFromCompensation, form251Lines, paidInMoneyForForm251, type Form251Category, type ReportItem } from './report-lines';
 import { regimeLines } from './regime-lines';
+import { NOT_A_REFUND, refundReportLines } from './refund-lines';
+import { REFUND_PAYMENT_KINDS } from '@shared/schemas/refunds';
 
 const TITLES: Record<string, { form: PeriodReport['form']; title: string }> = {
   'us-dot': { form: 'us-form-251', title: 'Form 251: passengers denied confirmed space (14 CFR 250.10)' },
@@ -58,8 +60,8 @@ async function reportItems(db: DataSource, station: StationEntity, from: string,
             DATE_FORMAT(f.service_date, '%Y-%m-%d') AS service_date,
             (SELECT COALESCE(SUM(pc.spent_minor), 0) FROM provider_cards pc WHERE pc.compensation_id = c.id) AS spent_minor
        FROM compensations c JOIN flights f ON f.id = c.flight_id
-      WHERE c.station_id = ? AND f.service_date BETWEEN ? AND ?`,
-    [station.id, from, to],
+      WHERE c.station_id = ? AND f.service_date BETWEEN ? AND ? AND ${NOT_A_REFUND}`,
+    [station.id, from, to, REFUND_PAYMENT_KINDS],
   );
   const us = station.regime === 'us-dot';
   const volunteers = facts.filter((c) => c.voluntary).map((c) => toItem(c, null));
@@ -101,7 +103,9 @@ export async function periodReport(db: DataSource, user: SessionUser, quarter: s
   stationScope(user, stationId);
   const station = await db.getRepository(StationEntity).findOneByOrFail({ id: stationId });
   const { from, to } = quarterRange(quarter);
-  const [{ items, source }, cabinChanges] = await Promise.all([reportItems(db, station, from, to), cabinChangeItems(db, station.id, from, to)]);
+  const [{ items, source }, cabinChanges, refundLines] = await Promise.all([
+    reportItems(db, station, from, to), cabinChangeItems(db, station.id, from, to), refundReportLines(db, station.id, from, to),
+  ]);
   const [{ boarded }] = await db.query(
     `SELECT COUNT(*) AS boarded FROM passengers p JOIN flights f ON f.id = p.flight_id WHERE f.station_id = ? AND f.service_date BETWEEN ? AND ? AND p.status = 'boarded'`,
     [station.id, from, to],
@@ -122,7 +126,7 @@ export async function periodReport(db: DataSource, user: SessionUser, quarter: s
     quarter, from, to,
     station: { id: station.id, iata: station.iata, name: station.name, regime: station.regime, currency: station.currency },
     form: kind.form, title: kind.title, source,
-    lines: us ? form251Lines(items, Number(boarded), cabinChanges) : regimeLines(station.regime as 'eu-261' | 'uk-261' | 'ca-appr', items, Number(boarded), cabinChanges),
+    lines: [...(us ? form251Lines(items, Number(boarded), cabinChanges) : regimeLines(station.regime as 'eu-261' | 'uk-261' | 'ca-appr', items, Number(boarded), cabinChanges)), ...refundLines],
     perDay: perDay(items, us ? paidInMoneyForForm251 : isPaid),
     notes,
   };

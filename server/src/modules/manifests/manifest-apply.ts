@@ -23,6 +23,7 @@ export function manifestFields({ row }: ManifestPassengerRow) {
     fareCurrency: row.fare_currency,
     fareType: row.fare_type,
     ssrCodes: row.ssr_codes,
+    optionalFees: row.optional_fees,
     frequentFlyerTier: row.frequent_flyer_tier,
     isChild: row.is_child,
     inboundFlight: row.inbound_flight,

@@ -109,3 +109,24 @@ describe('groupManifestRows', () => {
     expect(f?.lines).toEqual([2, 3]);
   });
 });
+
+describe('optional fees in the manifest', () => {
+  const withFees = (fees: string, currency = 'USD') => `${HEADER},optional_fees\n${row({ fare_currency: currency })},"${fees}"\n`;
+
+  it('the template carries a fee, and a row with fees reads them in minor units', () => {
+    const template = groupManifestRows(parseManifestCsv(manifestTemplateCsv()).records);
+    expect([...template.flights.values()][0].bookings.get('QX7T2M')?.passengers[0].row.optional_fees).toEqual([{ kind: 'seat', amountMinor: 3500, currency: 'USD' }]);
+    const grouped = groupManifestRows(parseManifestCsv(withFees('seat:3500:USD; bag:4000:USD')).records);
+    expect(grouped.problems).toEqual([]);
+    expect([...grouped.flights.values()][0].bookings.get('ABC123')?.passengers[0].row.optional_fees).toHaveLength(2);
+  });
+
+  it('a bad fee or a fee in another currency than the fare names the column, the fee and the rule', () => {
+    expect(groupManifestRows(parseManifestCsv(withFees('seat:35.00:USD')).records).problems).toEqual([
+      { line: 2, field: 'optional_fees', rule: 'optional_fees fee 1 must read like "seat:3500:USD" (kind:minor units:currency)' },
+    ]);
+    expect(groupManifestRows(parseManifestCsv(withFees('seat:3500:USD; bag:4000:EUR')).records).problems).toEqual([
+      { line: 2, field: 'optional_fees', rule: "optional_fees must be the fare's currency USD (fee 2 is in EUR)" },
+    ]);
+  });
+});

@@ -108,12 +108,12 @@ export function manifestTemplateCsv(flight: TemplateFlight = PLACEHOLDER): strin
   const onward = `ZZ9001 ${flight.destination}-${flight.destination === 'YUL' ? 'BOS' : 'YUL'} ${plusHours(flight.arrival, 2)} ${plusHours(flight.arrival, 4)}`;
   const rows: Record<ManifestColumn, string>[] = [
     {
-      ...common, sequence: '1', first_name: 'Mira', fare_minor: '18950', fare_type: 'standard', ssr_codes: '', frequent_flyer_tier: 'gold', is_child: 'false',
+      ...common, sequence: '1', first_name: 'Mira', fare_minor: '18950', fare_type: 'standard', ssr_codes: '', frequent_flyer_tier: 'gold', is_child: 'false', optional_fees: `seat:3500:${flight.currency}`,
       inbound_flight: 'ZZ340', inbound_scheduled_arrival: plusHours(flight.departure, -1.5), itinerary: onward,
       seat: '14C',
     },
     {
-      ...common, sequence: '2', first_name: 'Oskar', fare_minor: '14200', fare_type: 'flex', ssr_codes: 'CHLD VGML', frequent_flyer_tier: '', is_child: 'true',
+      ...common, sequence: '2', first_name: 'Oskar', fare_minor: '14200', fare_type: 'flex', ssr_codes: 'CHLD VGML', frequent_flyer_tier: '', is_child: 'true', optional_fees: '',
       inbound_flight: 'ZZ340', inbound_scheduled_arrival: plusHours(flight.departure, -1.5), itinerary: onward,
       seat: '14D',
     },

@@ -4,6 +4,7 @@ import type { DataSource, EntityManager } from 'typeorm';
 import type { Medium } from '@shared/compensation/media';
 import type { CompensationView } from '@shared/schemas/finance';
 import { notFound } from '../../http/errors';
+import type { CompensationSourceKind } from '../../db/entities/compensation.entity';
 
 export const COMPENSATION_FROM = `
   FROM compensations c
@@ -35,7 +36,7 @@ export interface CompensationRow {
   last_name: string | null;
   pnr: string | null;
   contact_email: string | null;
-  source_kind: 'volunteer' | 'denial' | 'top-up';
+  source_kind: CompensationSourceKind;
   regime: string;
   voluntary: number | boolean;
   band: string;

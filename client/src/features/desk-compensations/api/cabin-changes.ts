@@ -2,6 +2,8 @@ import { queryOptions, useMutation, useQueryClient } from '@tanstack/react-query
 import { cabinChangeResponseSchema, cabinChangesResponseSchema, type RecordCabinChangeBody } from '@shared/schemas/cabin-changes';
 import { deskPassengersSchema } from '@shared/schemas/flight-desk';
 import { api } from '../../../lib/api-client';
+import { deskCompensationKeys } from './compensations';
+import { refundKeys } from './refunds';
 
 export const cabinChangeKeys = {
   all: ['cabin-changes'] as const,
@@ -20,6 +22,7 @@ export function useRecordCabinChange(flightId: number) {
   const qc = useQueryClient();
   return useMutation({
     mutationFn: (body: RecordCabinChangeBody) => api.post(`/flights/${flightId}/cabin-changes`, cabinChangeResponseSchema, body),
-    onSettled: () => qc.invalidateQueries({ queryKey: cabinChangeKeys.flight(flightId) }),
+    // A downgrade beside a compensation adds a refund and its payment row.
+    onSettled: () => Promise.all([cabinChangeKeys.flight(flightId), refundKeys.flight(flightId), deskCompensationKeys.flight(flightId)].map((queryKey) => qc.invalidateQueries({ queryKey }))),
   });
 }

@@ -35,4 +35,11 @@ describe('the basis of a compensation, in words', () => {
     show({ ...base, sourceKind: 'volunteer', voluntary: true, band: 'posted offer', ruleRef: 'agreed with the volunteer' });
     expect(screen.getByText(/^Volunteer: the posted offer, accepted/)).toBeInTheDocument();
   });
+
+  it('names a refund as a refund beside the compensation, with its rule, never as a band', () => {
+    // 14 CFR Part 260, 260.1(a): fees for ancillary services paid for and not provided are refunded.
+    show({ ...base, sourceKind: 'fee-refund', band: 'refund', ruleRef: '14 CFR 250.5(f): optional fees for services not received refunded', amountMinor: 7_500 });
+    expect(screen.getByText(/^Refund — optional fees paid for services not received/)).toBeInTheDocument();
+    expect(screen.getByText(/^Refund \(14 CFR/)).toBeInTheDocument();
+  });
 });

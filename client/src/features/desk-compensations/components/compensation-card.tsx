@@ -2,6 +2,7 @@ import { bandLabel } from '@shared/compensation/labels';
 import { isPaymentLost, type DeskCompensation } from '@shared/schemas/finance';
 import { Button } from '../../../components/ui/button';
 import { MEDIUM_LABELS } from '@shared/schemas/payment-media';
+import { isRefundPayment } from '@shared/schemas/refunds';
 import { formatMoney, formatTimeWithZone } from '../../../lib/format';
 import { useIssueCompensation } from '../api/compensations';
 import { paymentStep } from '../model/payment-step';
@@ -21,6 +22,7 @@ export function CompensationCard({ flightId, compensation: c }: { flightId: numb
   const step = paymentStep(c);
   const overdue = c.payment.terms.dueStatus === 'overdue';
   const soon = c.payment.terms.dueStatus === 'due-soon';
+  const refund = isRefundPayment(c.sourceKind);
 
   return (
     <article data-testid="compensation-row" data-state={c.state} data-pnr={c.pnr} aria-label={`Compensation for ${c.passengerName}`} className="rounded-lg border-2 border-line p-4">
@@ -44,10 +46,10 @@ export function CompensationCard({ flightId, compensation: c }: { flightId: numb
       <dl className="mt-3 grid gap-x-6 gap-y-1 text-lg sm:grid-cols-[max-content_1fr]">
         <dt className="font-bold">Basis</dt>
         <dd>
-          {bandLabel(c.band, c.serviceDate)} ({c.ruleRef})
+          {refund ? 'Refund' : bandLabel(c.band, c.serviceDate)} ({c.ruleRef})
         </dd>
         <dt className="font-bold">Why</dt>
-        <dd>{c.voluntary ? 'The volunteer agreed this amount in exchange for the seat.' : 'Set by the station’s regulation for an involuntary denial of boarding.'}</dd>
+        <dd>{refund ? 'A refund the station’s rule adds to this passenger’s compensation; paid on its own, in the same media.' : c.voluntary ? 'The volunteer agreed this amount in exchange for the seat.' : 'Set by the station’s regulation for an involuntary denial of boarding.'}</dd>
         <dt className="font-bold">Paid in</dt>
         <dd data-testid="compensation-medium">{MEDIUM_LABELS[c.medium]}</dd>
         {c.dueBy && (

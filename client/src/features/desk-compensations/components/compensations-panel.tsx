@@ -5,6 +5,7 @@ import { deskCompensationsQueryOptions } from '../api/compensations';
 import { useFlightCompensationsLive } from '../api/use-compensations-live';
 import { CabinChanges } from './cabin-changes';
 import { CompensationCard } from './compensation-card';
+import { RefundsList } from './refunds-list';
 
 /**
  * The flight desk's compensation slot: what each volunteer or denied passenger is owed, and the agent's one press
@@ -53,6 +54,7 @@ export function CompensationsPanel({ flightId }: { flightId: number }) {
             </li>
           ))}
         </ul>
+        <RefundsList flightId={flightId} />
         <CabinChanges flightId={flightId} />
       </div>
     </section>

@@ -21,5 +21,7 @@ export const TONE_CLASS: Record<Tone, string> = {
 };
 
 export function kindLabel(c: Pick<DeskCompensation, 'voluntary' | 'sourceKind'>): string {
+  if (c.sourceKind === 'fee-refund') return 'Refund — optional fees paid for services not received, beside the compensation';
+  if (c.sourceKind === 'cabin-refund') return 'Refund — flown in a lower class than the one paid, beside the compensation';
   return c.voluntary ? 'Voluntary — gave up the seat in a volunteer round' : 'Involuntary — denied boarding against their will';
 }

@@ -8,6 +8,7 @@ import { DownloadLink, type StationOption } from './field';
 import { LedgerFiltersBar } from './ledger-filters-bar';
 import { LedgerTable } from './ledger-table';
 import { LedgerTotals, MediumTotals } from './ledger-totals';
+import { RefundTotals } from './refund-totals';
 
 export function LedgerScreen({ stations }: { stations: StationOption[] }) {
   const [filters, setFilters] = useState(EMPTY_FILTERS);
@@ -29,6 +30,7 @@ export function LedgerScreen({ stations }: { stations: StationOption[] }) {
         <>
           <LedgerTotals totals={data.totals} total={data.total} />
           <MediumTotals byMedium={data.byMedium} />
+          <RefundTotals refundTotals={data.refundTotals} />
           {data.rows.length > 0 && <LedgerTable rows={data.rows} />}
           {pages > 1 && (
             <nav aria-label="Pages" className="flex items-center gap-3">

@@ -2,6 +2,7 @@ import { useState } from 'react';
 import { regimeLabel } from '@shared/compensation/labels';
 import { MEDIUM_LABELS } from '@shared/schemas/payment-media';
 import { isPaymentLost, STATE_LABELS, type CompensationView } from '@shared/schemas/finance';
+import { refundKindLabel } from '@shared/schemas/refunds';
 import { Button } from '../../../components/ui/button';
 import { formatMoney } from '../../../lib/format';
 import { useCompensationAction } from '../api/finance-api';
@@ -27,7 +28,7 @@ function Row({ c }: { c: CompensationView }) {
         <td className="p-2 font-bold">{c.stationIata}</td>
         <td className="p-2">{c.flight}<br /><span className="text-sm text-ink-soft">{c.serviceDate}</span></td>
         <td className="p-2">{c.passengerName}<br /><span className="text-sm text-ink-soft">{c.pnr}</span></td>
-        <td className="p-2">{regimeLabel(c.regime)}<br /><span className="text-sm text-ink-soft">{c.voluntary ? 'Volunteer' : 'Involuntary'}</span></td>
+        <td className="p-2">{regimeLabel(c.regime)}<br /><span className="text-sm text-ink-soft">{refundKindLabel(c.sourceKind) ?? (c.voluntary ? 'Volunteer' : 'Involuntary')}</span></td>
         <td className="p-2">
           {MEDIUM_LABELS[c.medium]}
           {c.dueBy && <><br /><span className="text-sm text-ink-soft">due by {c.dueBy.slice(0, 16).replace('T', ' ')} UTC</span></>}
