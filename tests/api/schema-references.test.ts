@@ -34,6 +34,7 @@ const NOT_REFERENCES: Record<string, string> = {
 const OWNED_PARTS = new Set([
   'bookings.flight_id', 'passengers.booking_id', 'passengers.flight_id', 'flight_forecasts.flight_id', 'forecast_snapshots.flight_id',
   'reconciliation_differences.run_id', 'user_stations.user_id', 'user_stations.station_id', 'booking_outcomes.closed_flight_id',
+  'forecast_recompute_queue.flight_id',
 ]);
 
 /** References that let go of the row rather than refuse the delete, with the reason. */
