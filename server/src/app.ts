@@ -94,7 +94,7 @@ export function createApp(deps: AppDeps) {
   // The passenger's "Offer your seat" page: no session; signed links and booking proof instead.
   // The passenger's card-details and payout pages: single-use links, no session.
   app.use('/api/public/payments', payments.passengerRouter());
-  app.use('/api/public', publicOffersRouter({ db: deps.db, secret: deps.env.SESSION_SECRET, changed }));
+  app.use('/api/public', publicOffersRouter({ db: deps.db, secret: deps.env.SESSION_SECRET, changed, counters: { pool: deps.session.pool.pool, dbName: deps.session.dbName } }));
   app.use('/api/integrations', integrationEventsRouter({ db: deps.db, onFlightsChanged: (ids) => ids.forEach((id) => forecast.markDirty(id)) }));
 
   configurePassport(deps.db);

@@ -24,7 +24,9 @@ await db.initialize();
 const session = createSessionSetup(env);
 const ioRef: { io?: AppIo } = {};
 const publisher = socketPublisher(() => ioRef.io);
-const forecast = createForecastScheduler(db, (o) => publisher.flightChanged(o.flightId, o.stationId, ['forecast', 'counts', 'events'], o.notice));
+const forecast = createForecastScheduler(db, (o) => publisher.flightChanged(o.flightId, o.stationId, ['forecast', 'counts', 'events'], o.notice), {
+  leaseMs: env.RECOMPUTE_LEASE_SECONDS * 1000,
+});
 forecast.startClock();
 const mailTransport = createMailTransport(env);
 const outbox = createOutboxWorker(db, mailTransport, { leaseMs: env.OUTBOX_LEASE_SECONDS * 1000 });

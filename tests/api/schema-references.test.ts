@@ -36,6 +36,7 @@ const OWNED_PARTS = new Set([
   'reconciliation_differences.run_id', 'user_stations.user_id', 'user_stations.station_id', 'booking_outcomes.closed_flight_id',
   // An alert about waiting work only points at it (the audit log keeps the history), so it goes with its subject.
   'alerts.volunteer_id', 'alerts.approval_id', 'alerts.denial_proposal_id',
+  'forecast_recompute_queue.flight_id',
 ]);
 
 /** References that let go of the row rather than refuse the delete, with the reason. */

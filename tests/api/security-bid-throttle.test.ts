@@ -5,7 +5,7 @@
 // memory. Client addresses are from the documentation ranges of RFC 5737.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { FlightEntity } from '../../server/src/db/entities';
-import { signedIn, startTestApp, type Client, type TestApp } from './harness';
+import { Client, signedIn, startTestApp, type TestApp } from './harness';
 import { DEMO, stationIdByIata } from './helpers';
 import { addBooking, makeFlight, removeFlights, tokenOf, type Booked } from './volunteers-fixtures';
 
@@ -63,5 +63,23 @@ describe('identify on a passenger link', () => {
     await agent.post(`/api/rounds/${rounds.find((r) => r.status === 'open')!.id}/close`).expect(200);
     await agent.post(`/api/flights/${flight.id}/rounds`, { kind: 'sealed', volunteersNeeded: 1 }).expect(201);
     await identify(token, shared, { pnr: party.booking.pnr, lastName: 'Quillfeather' }).expect(200);
+  });
+
+  it('counts the guesses of every server process together: two processes give a guesser one allowance, not two', async () => {
+    const { party, token } = await flightWithRound();
+    const second = await startTestApp();
+    try {
+      const other = new Client(second.app);
+      const at = (c: Client, i: number, lastName: string) =>
+        c.agent.post(`/api/public/offers/${token}/identify`).set('X-Forwarded-For', `192.0.2.${i + 1}`).send({ pnr: party.booking.pnr, lastName });
+      // Half the guesses through each process (a balancer spreading them), then the right name through either.
+      for (let i = 0; i < ALLOWANCE; i++) expect((await at(i % 2 ? other : agent, i, `Wrong${i}`)).status).toBe(404);
+      for (const c of [agent, other]) {
+        const res = await at(c, 99, 'Quillfeather');
+        expect([res.status, res.body.error]).toEqual([429, 'too_many_attempts']);
+      }
+    } finally {
+      await second.close();
+    }
   });
 });

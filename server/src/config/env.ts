@@ -49,6 +49,11 @@ const envSchema = z
      * before another worker (or the restarted one) sends them; too short and a slow send is sent twice.
      */
     OUTBOX_LEASE_SECONDS: z.coerce.number().int().min(5, 'OUTBOX_LEASE_SECONDS must be at least 5').max(3600, 'OUTBOX_LEASE_SECONDS must be at most 3600').default(120),
+    /**
+     * How long a flight being recomputed is reserved for the process that claimed it. After a crash, its flights are
+     * recomputed by another process this long after; a recompute takes well under a second.
+     */
+    RECOMPUTE_LEASE_SECONDS: z.coerce.number().int().min(2, 'RECOMPUTE_LEASE_SECONDS must be at least 2').max(3600, 'RECOMPUTE_LEASE_SECONDS must be at most 3600').default(30),
     LOG_REQUESTS: z.enum(['true', 'false']).default('false').transform((v) => v === 'true'),
   })
   .superRefine((v, ctx) => {

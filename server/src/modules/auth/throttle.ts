@@ -2,9 +2,9 @@
 // account AND address together (so failures from elsewhere never lock a real agent out at their own desk), and
 // failures per address are counted to slow a guessing address down. Past a free allowance each failure adds a wait
 // that doubles, capped; nothing locks an account for good, and a password reset clears the account's counts.
-import type { Pool } from 'mysql2';
-import { RateLimiterMemory, RateLimiterMySQL, type RateLimiterAbstract } from 'rate-limiter-flexible';
+import type { RateLimiterAbstract } from 'rate-limiter-flexible';
 import { retryLater } from '../../http/errors';
+import { COUNTER_TABLE, sharedCounter, type CounterStore } from '../../http/shared-counter';
 
 export interface SignInThrottle {
   /** Refuses with 429 and Retry-After while this account-and-address pair, or this address, must wait. */
@@ -27,10 +27,10 @@ export interface SignInThrottleOptions {
   /** Longest wait for an address: short, because a whole airport may share it. */
   maxAddressDelaySeconds?: number;
   /** MariaDB store (the server's own pool and database); without it counts live in this process's memory. */
-  mysql?: { pool: Pool; dbName: string };
+  mysql?: CounterStore;
 }
 
-export const THROTTLE_TABLE = 'sign_in_throttle';
+export const THROTTLE_TABLE = COUNTER_TABLE;
 const PREFIX = { accountFails: 'signin_acct_fails', accountWait: 'signin_acct_wait', addressFails: 'signin_addr_fails', addressWait: 'signin_addr_wait' };
 const DAY = 24 * 3600;
 
@@ -41,10 +41,7 @@ export function createSignInThrottle(opts: SignInThrottleOptions = {}): SignInTh
   const maxAccount = opts.maxAccountDelaySeconds ?? 15 * 60;
   const maxAddress = opts.maxAddressDelaySeconds ?? 60;
 
-  const limiter = (keyPrefix: string, duration: number): RateLimiterAbstract =>
-    opts.mysql
-      ? new RateLimiterMySQL({ storeClient: opts.mysql.pool, storeType: 'pool', dbName: opts.mysql.dbName, tableName: THROTTLE_TABLE, tableCreated: true, keyPrefix, points: 1_000_000, duration })
-      : new RateLimiterMemory({ keyPrefix, points: 1_000_000, duration });
+  const limiter = (keyPrefix: string, duration: number): RateLimiterAbstract => sharedCounter(opts.mysql, { keyPrefix, points: 1_000_000, duration });
   // Counts: consecutive failures of a pair are kept until a success or a reset clears them, or 14 days pass (the
   // pattern keeps 90; the memory store's timers cannot reach past 24.8 days, and two weeks is plenty to slow a guesser).
   const accountFails = limiter(PREFIX.accountFails, 14 * DAY);

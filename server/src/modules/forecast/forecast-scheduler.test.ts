@@ -5,9 +5,14 @@ import type { DataSource } from 'typeorm';
 import { describe, expect, it } from 'vitest';
 import { createForecastScheduler, type Recompute } from './forecast-scheduler';
 import type { RecomputeOutcome, RecomputeResult } from './forecast.service';
+import { memoryRecomputeQueue } from './recompute-queue-memory';
 
 const noDb = {} as DataSource;
-const turn = () => new Promise<void>((r) => setImmediate(r));
+// Asks are written to the queue a turn after they are made, and claims and finishes are awaited: a few turns let
+// every step that can run, run.
+const turn = async () => {
+  for (let i = 0; i < 6; i++) await new Promise<void>((r) => setImmediate(r));
+};
 
 function harness(result: (flightId: number, call: number) => RecomputeResult['status'] = () => 'written') {
   const calls: { flightId: number; onlyIfMoved: boolean; startedAt: number; finish: () => void }[] = [];
@@ -29,7 +34,7 @@ function harness(result: (flightId: number, call: number) => RecomputeResult['st
     });
   });
   const told: number[] = [];
-  const scheduler = createForecastScheduler(noDb, (o) => told.push(o.flightId), { recompute, parallel: 2 });
+  const scheduler = createForecastScheduler(noDb, (o) => told.push(o.flightId), { recompute, parallel: 2, queue: memoryRecomputeQueue() });
   const unfinished = () => calls.filter((c) => !(c as { done?: boolean }).done);
   const finishOldest = async () => {
     const c = unfinished()[0];

@@ -3,11 +3,11 @@
 // the same answer whichever part is wrong), then offers their seat or names the least they would accept.
 import { createHash } from 'node:crypto';
 import express, { Router } from 'express';
-import { RateLimiterMemory } from 'rate-limiter-flexible';
 import type { DataSource } from 'typeorm';
 import { identifyBodySchema, passengerBidBodySchema } from '@shared/schemas/volunteers';
 import { BookingEntity, FlightEntity, FlightForecastEntity, PassengerEntity, RebookingEntity, StationEntity, VolunteerEntity, VolunteerRoundEntity } from '../../db/entities';
 import { HttpError, tooManyRequests } from '../../http/errors';
+import { sharedCounter, type CounterStore } from '../../http/shared-counter';
 import { parse } from '../../http/validate';
 import { passengerToken, readFlightToken, readPassengerToken } from './bid-link';
 import { volunteerDisclosure } from './disclosure';
@@ -17,14 +17,17 @@ import { addVolunteer } from './rounds.service';
 const linkInvalid = () => new HttpError(404, 'link_invalid', 'This link is not valid any more. Ask the gate agent for the current one.');
 const notMatched = () => new HttpError(404, 'booking_not_matched', 'We could not find that booking on this flight. Check the booking reference and the last name as printed on your boarding pass.');
 
-export function publicOffersRouter(deps: { db: DataSource; secret: string; changed: (flightId: number, stationId: number, topics: string[]) => void; identifyLimit?: number }) {
+export function publicOffersRouter(deps: { db: DataSource; secret: string; changed: (flightId: number, stationId: number, topics: string[]) => void; identifyLimit?: number;
+  /** Where the guesses are counted: MariaDB, so every server process holds a guesser to one allowance. */
+  counters?: CounterStore;
+}) {
   const r = Router();
   r.use(express.json({ limit: '16kb' }));
   // OWASP Authentication Cheat Sheet (from memory): throttle guessing of booking references; only failures count.
   // Counted per link and per round, never per address: a whole airport often shares one address, and one guesser
   // behind it must not lock every passenger out. The link is shared by the flight's passengers, so the allowance is
   // generous, and a new round starts a new count.
-  const limiter = new RateLimiterMemory({ keyPrefix: 'identify', points: deps.identifyLimit ?? 30, duration: 15 * 60 });
+  const limiter = sharedCounter(deps.counters, { keyPrefix: 'identify', points: deps.identifyLimit ?? 30, duration: 15 * 60 });
   const throttleKey = (token: string, roundId: number | undefined) => `${createHash('sha256').update(token).digest('base64url')}:${roundId ?? 'none'}`;
 
   async function flightOf(token: string) {
