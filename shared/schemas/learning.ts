@@ -83,6 +83,8 @@ export const closedFlightSchema = z.object({
 });
 export const outcomeRowSchema = z.object({
   id: z.number(), pnr: z.string(), cabin: z.string(), fareClass: z.string(), connecting: z.boolean(), partySize: z.number(),
+  /** Where the booking was made, or 'unknown'. */
+  channel: z.string(),
   checkedInT24: z.boolean(), checkedInT3: z.boolean(), checkedInT1: z.boolean(), outcome: bookingOutcomeSchema, corrected: z.boolean(),
 });
 export type OutcomeRow = z.infer<typeof outcomeRowSchema>;

@@ -121,7 +121,7 @@ export async function closedFlightOutcomes(db: DataSource, closedFlightId: numbe
   if (!flight || !canSee(flight.stationId)) throw notFound('Closed flight');
   const rows = await db.getRepository(BookingOutcomeEntity).find({ where: { closedFlightId }, order: { pnr: 'ASC', id: 'ASC' } });
   return rows.map((r) => ({
-    id: r.id, pnr: r.pnr, cabin: r.cabin, fareClass: r.fareClass, connecting: r.connecting, partySize: r.partySize,
+    id: r.id, pnr: r.pnr, cabin: r.cabin, fareClass: r.fareClass, connecting: r.connecting, partySize: r.partySize, channel: r.channel,
     checkedInT24: r.checkedInT24, checkedInT3: r.checkedInT3, checkedInT1: r.checkedInT1, outcome: r.outcome,
     corrected: r.correctedAt !== null,
   }));

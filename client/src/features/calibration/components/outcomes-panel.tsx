@@ -3,6 +3,7 @@ import { useQuery } from '@tanstack/react-query';
 import { BOOKING_OUTCOMES, type BookingOutcomeValue, type OutcomeRow } from '@shared/schemas/learning';
 import { Button } from '../../../components/ui/button';
 import { closedFlightsQueryOptions, outcomesQueryOptions, useCorrectOutcome } from '../api/learning';
+import { CHANNEL_LABELS, type OutcomeChannel } from '@shared/schemas/booking-channel';
 
 const yesNo = (b: boolean) => (b ? 'yes' : 'no');
 
@@ -13,7 +14,7 @@ function CorrectRow({ row, closedFlightId, stationId }: { row: OutcomeRow; close
   return (
     <tr className="border-b border-line align-top">
       <th scope="row" className="py-1 pr-2 text-left font-normal">{row.pnr}</th>
-      <td className="py-1 pr-2">{row.cabin} · {row.fareClass}{row.connecting ? ' · connecting' : ''}</td>
+      <td className="py-1 pr-2">{row.cabin} · {row.fareClass}{row.connecting ? ' · connecting' : ''} · {CHANNEL_LABELS[row.channel as OutcomeChannel] ?? row.channel}</td>
       <td className="py-1 pr-2">{yesNo(row.checkedInT24)} / {yesNo(row.checkedInT3)} / {yesNo(row.checkedInT1)}</td>
       <td className="py-1 pr-2">
         <select aria-label={`Outcome of ${row.pnr}`} className="rounded border-2 border-line bg-card px-1" value={outcome} onChange={(e) => setOutcome(e.target.value as BookingOutcomeValue)}>
@@ -70,7 +71,7 @@ export function OutcomesPanel({ stationId }: { stationId: number }) {
             <caption className="mb-1 text-left font-bold">Outcomes (checked in at 24 h / 3 h / 1 h before departure)</caption>
             <thead>
               <tr className="border-b-2 border-line">
-                <th scope="col" className="py-1 pr-2">PNR</th><th scope="col" className="py-1 pr-2">Cabin · fare</th>
+                <th scope="col" className="py-1 pr-2">PNR</th><th scope="col" className="py-1 pr-2">Cabin · fare · channel</th>
                 <th scope="col" className="py-1 pr-2">Checked in 24 h / 3 h / 1 h</th><th scope="col" className="py-1 pr-2">Outcome</th><th scope="col" className="py-1">Correction</th>
               </tr>
             </thead>
