@@ -61,6 +61,7 @@ function blockHtml(block: Block, note: string): string {
   }
 }
 
+/** The viewport line lets a phone's mail app lay the notice out at the screen's width instead of a desktop's. */
 function pageHtml(subject: string, body: string, language: Language): string {
-  return `<!doctype html>\n<html lang="${language}"><head><meta charset="utf-8"><title>${escapeHtml(subject)}</title></head>\n<body style="font-family:sans-serif;line-height:1.4">\n${body}\n</body></html>\n`;
+  return `<!doctype html>\n<html lang="${language}"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width, initial-scale=1"><title>${escapeHtml(subject)}</title></head>\n<body style="font-family:sans-serif;line-height:1.4">\n${body}\n</body></html>\n`;
 }
