@@ -23,6 +23,7 @@ import { CareAndChoice1796320000000 } from './1796320000000-CareAndChoice';
 import { BookingLanguage1796330000000 } from './1796330000000-BookingLanguage';
 import { LearnedShowRates1796340000000 } from './1796340000000-LearnedShowRates';
 import { FlightSchedules1796370000000 } from './1796370000000-FlightSchedules';
+import { ReconciliationByMedium1796500000000 } from './1796500000000-ReconciliationByMedium';
 
 export const migrations = [
   Initial1796151413508,
@@ -49,4 +50,5 @@ export const migrations = [
   BookingLanguage1796330000000,
   LearnedShowRates1796340000000,
   FlightSchedules1796370000000,
+  ReconciliationByMedium1796500000000,
 ];
