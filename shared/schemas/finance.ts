@@ -288,6 +288,27 @@ export const reportDaySchema = z.object({
 });
 export type ReportDay = z.infer<typeof reportDaySchema>;
 
+/** The quarter's compensations by the medium they are paid through, with what that medium's own record says. */
+export const reportMediumLineSchema = z.object({
+  medium: mediumSchema,
+  /** Where the paid figure comes from: the drawers, the cheque register, the provider's transfers or cards. */
+  recordedIn: z.string(),
+  currency: z.string(),
+  /** Compensations of the quarter paid, or to be paid, through this medium. */
+  count: z.number(),
+  /** What they are for: owed whatever became of the payment. */
+  owedMinor: z.number(),
+  /** What the medium's record says was paid: counted at the counter, sent by transfer, spent on the card. */
+  paidMinor: z.number(),
+  /** Still on a live card: for a travel credit, the carrier's liability until it is used. */
+  outstandingMinor: z.number(),
+  /** The value of the travel credits issued (it may be more than the money given up); 0 for other media. */
+  creditValueMinor: z.number(),
+  /** E.g. how many drawers or cheques. */
+  detail: z.string(),
+});
+export type ReportMediumLine = z.infer<typeof reportMediumLineSchema>;
+
 export const periodReportSchema = z.object({
   quarter: z.string(),
   from: z.string(),
@@ -299,6 +320,7 @@ export const periodReportSchema = z.object({
   source: z.enum(['denials', 'compensations']),
   lines: z.array(reportLineSchema),
   perDay: z.array(reportDaySchema),
+  byMedium: z.array(reportMediumLineSchema),
   notes: z.array(z.string()),
 });
 export type PeriodReport = z.infer<typeof periodReportSchema>;
