@@ -1,6 +1,6 @@
 import { RECONCILED_AGAINST_LABELS, type ReconciliationRun } from '@shared/schemas/finance';
 import { MEDIUM_LABELS } from '@shared/schemas/payment-media';
-import { formatMoney } from '@shared/compensation';
+import { formatMoney } from '../../../lib/format';
 
 const amounts = (list: { currency: string; amountMinor: number }[]) => (list.length ? list.map((a) => formatMoney(a.amountMinor, a.currency)).join(' · ') : '—');
 
