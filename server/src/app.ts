@@ -35,6 +35,7 @@ import { configureCarrierName } from './modules/denials/statement';
 import { carrierNameFrom } from './config/carrier';
 import { publicOffersRouter } from './modules/volunteers/public-offers.routes';
 import { createPaymentsRuntime, type PaymentsRuntime } from './modules/payments/payments-runtime';
+import { createReconciliationRunner, type ReconciliationRunner } from './modules/finance/reconciliation.service';
 import { financeRouter } from './modules/finance/finance.routes';
 import { alertsRouter } from './modules/alerts/alerts.routes';
 import { ALERT_TOPIC } from '@shared/events';
@@ -62,6 +63,8 @@ export interface AppDeps {
   forecast?: ForecastScheduler;
   /** Compensation payments (provider client, issuer, worker); built from env when absent, its worker not started. */
   payments?: PaymentsRuntime;
+  /** Finance's reconciliation runs; built here over the payments module's reader when absent. */
+  reconciliation?: ReconciliationRunner;
   /** Training runs of the learned show rates; built here (its clock not started) when absent. */
   learning?: LearningRuntime;
 }
@@ -110,7 +113,9 @@ export function createApp(deps: AppDeps) {
   api.use(approvalsRouter({ db: deps.db, changed }));
   api.use(denialsRouter({ db: deps.db, changed }));
   api.use(payments.compensationsRouter());
-  api.use('/finance', financeRouter({ db: deps.db, reconciliation: payments.reconciliation }));
+  // Finance reads the money payments moved through the payments module's read interface, never the provider.
+  const reconciliation = deps.reconciliation ?? createReconciliationRunner({ db: deps.db, reader: payments.reader, log: (line) => console.warn(line) });
+  api.use('/finance', financeRouter({ db: deps.db, reconciliation }));
   api.use('/alerts', alertsRouter({ db: deps.db, alertsChanged: (stationId) => publisher.stationChanged?.(stationId, [ALERT_TOPIC]) }));
   api.use(cabinChangesRouter({ db: deps.db, changed }));
   api.use(refundsRouter({ db: deps.db }));

@@ -12,6 +12,7 @@ import { createForecastScheduler } from './modules/forecast/forecast-scheduler';
 import { createMailTransport } from './integrations/mail/mail-transport';
 import { createOutboxWorker } from './modules/outbox/outbox-worker';
 import { createPaymentsRuntime } from './modules/payments/payments-runtime';
+import { createReconciliationRunner, markInterruptedRuns } from './modules/finance/reconciliation.service';
 import { createLearningRuntime } from './modules/learning/learning-runtime';
 import { stationsOnLatestRates } from './modules/learning/rates.service';
 import { openFlightIds } from './modules/show-up-profiles/show-up-profiles.service';
@@ -34,6 +35,9 @@ outbox.start();
 // Its first pass retries every compensation a stopped server left 'issuing', with the keys fixed on each row.
 const payments = createPaymentsRuntime({ db, env, changed: (flightId, stationId, topics) => publisher.flightChanged(flightId, stationId, topics) });
 await payments.start();
+// Reconciliation runs a stopped process left 'running' are closed as interrupted, never left hanging.
+await markInterruptedRuns(db);
+const reconciliation = createReconciliationRunner({ db, reader: payments.reader, log: (line) => console.warn(line) });
 // Nightly training and the recording of departed flights; a run left unfinished by a stop is queued again.
 const learning = createLearningRuntime(db, {
   forecast,
@@ -45,6 +49,7 @@ await learning.start();
 const stopDeadlineWatch = watchPaymentDeadlines(db, (stationId) => publisher.stationChanged?.(stationId, [ALERT_TOPIC]));
 const app = createApp({
   payments,
+  reconciliation,
   learning,
   publisher,
   forecast,
@@ -87,6 +92,7 @@ async function stop(signal: string) {
   // The send in flight finishes and is recorded before the database goes away.
   await outbox.stop();
   await payments.stop();
+  await reconciliation.idle();
   mailTransport.close();
   await session.close();
   await db.destroy();

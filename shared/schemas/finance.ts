@@ -37,6 +37,11 @@ const isoDate = (field: string) =>
     return !Number.isNaN(d.getTime()) && d.toISOString().slice(0, 10) === s;
   }, `${field} must be a real calendar date`);
 
+/** An amount in one currency (declared here, before the report's amountSchema, for the reconciliation summary). */
+function amountSchemaBase() {
+  return z.object({ currency: z.string(), amountMinor: z.number() });
+}
+
 const positiveId = (field: string) => z.coerce.number({ error: `${field} must be a number` }).int(`${field} must be a whole number`).positive(`${field} must be positive`);
 const reason = (field: string) => z.string({ error: `${field} is required` }).trim().min(3, `${field} must say why, in at least 3 characters`).max(200, `${field} must be at most 200 characters`);
 
@@ -175,13 +180,13 @@ export const DIFFERENCE_KINDS = [
 export type DifferenceKind = (typeof DIFFERENCE_KINDS)[number];
 
 export const DIFFERENCE_LABELS: Record<DifferenceKind, string> = {
-  'missing-at-provider': 'In the ledger, not at the provider',
-  'missing-in-ledger': 'At the provider, not in the ledger',
+  'missing-at-provider': 'In the ledger, not at the provider or in the register',
+  'missing-in-ledger': 'At the provider or in the register, not in the ledger',
   'amount-differs': 'Amount differs',
   'currency-differs': 'Currency differs',
   'state-differs': 'State differs',
-  'card-differs': 'Another card than the ledger names',
-  'duplicate-at-provider': 'More than one card for one compensation',
+  'card-differs': 'Another card or transfer than the ledger names',
+  'duplicate-at-provider': 'More than one card or transfer for one compensation',
 };
 
 export const startReconciliationBodySchema = z.object({ stationId: positiveId('stationId').optional() });
@@ -190,6 +195,30 @@ export const resolveDifferenceBodySchema = z.object({
 });
 
 export const RUN_STATUSES = ['running', 'completed', 'failed', 'interrupted'] as const;
+
+/** Where each medium's other side is read: the provider's cards or transfers, the counter's records, or nowhere. */
+export const RECONCILED_AGAINST = ['provider-cards', 'provider-transfers', 'counter-register', 'outstanding-credits'] as const;
+export const RECONCILED_AGAINST_LABELS: Record<(typeof RECONCILED_AGAINST)[number], string> = {
+  'provider-cards': 'cards at the provider',
+  'provider-transfers': 'bank transfers (outbound payments) at the provider',
+  'counter-register': 'drawers and the cheque register',
+  'outstanding-credits': 'travel credits issued and not yet used',
+};
+
+export const mediumReconciliationSchema = z.object({
+  medium: mediumSchema,
+  against: z.enum(RECONCILED_AGAINST),
+  /** Compensations of this medium in the ledger of the stations compared. */
+  ledgerRows: z.number(),
+  /** Records read on the other side: cards, outbound payments, counter payments. */
+  otherSide: z.number(),
+  differences: z.number(),
+  /** Per currency: money paid through this medium as the other side records it. */
+  paid: z.array(amountSchemaBase()),
+  /** Per currency: still to be used (a travel credit's unspent value), a liability of the carrier. */
+  outstanding: z.array(amountSchemaBase()),
+});
+export type MediumReconciliation = z.infer<typeof mediumReconciliationSchema>;
 
 export const reconciliationRunSchema = z.object({
   id: z.number(),
@@ -205,13 +234,17 @@ export const reconciliationRunSchema = z.object({
   differences: z.number(),
   unresolved: z.number(),
   error: z.string().nullable(),
+  /** Empty for runs from before reconciliation read each medium apart. */
+  byMedium: z.array(mediumReconciliationSchema),
 });
 export type ReconciliationRun = z.infer<typeof reconciliationRunSchema>;
 
 export const reconciliationDifferenceSchema = z.object({
   id: z.number(),
   kind: z.enum(DIFFERENCE_KINDS),
+  medium: mediumSchema.nullable(),
   compensationId: z.number().nullable(),
+  /** The other side's record: a card or outbound payment id, or a drawer or cheque of the counter register. */
   cardId: z.string().nullable(),
   ledgerValue: z.string().nullable(),
   providerValue: z.string().nullable(),
@@ -258,6 +291,27 @@ export const reportDaySchema = z.object({
 });
 export type ReportDay = z.infer<typeof reportDaySchema>;
 
+/** The quarter's compensations by the medium they are paid through, with what that medium's own record says. */
+export const reportMediumLineSchema = z.object({
+  medium: mediumSchema,
+  /** Where the paid figure comes from: the drawers, the cheque register, the provider's transfers or cards. */
+  recordedIn: z.string(),
+  currency: z.string(),
+  /** Compensations of the quarter paid, or to be paid, through this medium. */
+  count: z.number(),
+  /** What they are for: owed whatever became of the payment. */
+  owedMinor: z.number(),
+  /** What the medium's record says was paid: counted at the counter, sent by transfer, spent on the card. */
+  paidMinor: z.number(),
+  /** Still on a live card: for a travel credit, the carrier's liability until it is used. */
+  outstandingMinor: z.number(),
+  /** The value of the travel credits issued (it may be more than the money given up); 0 for other media. */
+  creditValueMinor: z.number(),
+  /** E.g. how many drawers or cheques. */
+  detail: z.string(),
+});
+export type ReportMediumLine = z.infer<typeof reportMediumLineSchema>;
+
 export const periodReportSchema = z.object({
   quarter: z.string(),
   from: z.string(),
@@ -269,6 +323,7 @@ export const periodReportSchema = z.object({
   source: z.enum(['denials', 'compensations']),
   lines: z.array(reportLineSchema),
   perDay: z.array(reportDaySchema),
+  byMedium: z.array(reportMediumLineSchema),
   notes: z.array(z.string()),
 });
 export type PeriodReport = z.infer<typeof periodReportSchema>;

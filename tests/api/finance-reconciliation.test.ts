@@ -7,11 +7,11 @@
 // provider's statement is common practice.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import Stripe from 'stripe';
-import { CompensationEntity, type FlightEntity, type StationEntity, type UserEntity } from '../../server/src/db/entities';
+import { CompensationEntity, PayoutEntity, type FlightEntity, type StationEntity, type UserEntity } from '../../server/src/db/entities';
 import { issueCompensation } from '../../server/src/modules/payments/compensation-actions';
 import { Client, signedIn } from './harness';
 import { DEMO, insertUser, removeRunUsers, TEST_PASSWORD } from './helpers';
-import { insertCompensations, paymentsTestStation, removeFlights, seedFlight, startFake, startPaymentsApp, until, type PaymentsApp, type RunningFake } from './payments-harness';
+import { FIXTURE_SIGNATURE, insertCompensations, paymentsTestStation, removeFlights, seedFlight, startFake, startPaymentsApp, until, type PaymentsApp, type RunningFake } from './payments-harness';
 
 const COUNT = 112;
 let fake: RunningFake;
@@ -23,6 +23,7 @@ let finance: Client;
 let flight: FlightEntity;
 let comps: CompensationEntity[];
 let stripe: Stripe;
+const extraFlights: number[] = [];
 
 beforeAll(async () => {
   fake = await startFake();
@@ -47,7 +48,7 @@ beforeAll(async () => {
 });
 
 afterAll(async () => {
-  await removeFlights(app.db, [flight.id]);
+  await removeFlights(app.db, [flight.id, ...extraFlights]);
   await app.db.query('DELETE FROM reconciliation_runs WHERE JSON_CONTAINS(station_ids, ?)', [String(station.id)]);
   await removeRunUsers(app.db);
   await app.close();
@@ -70,8 +71,8 @@ describe('reconciliation', () => {
     expect(comps.every((c) => c.state === 'issued')).toBe(true);
     const { run, differences } = await runToEnd(finance);
     expect(run).toMatchObject({ status: 'completed', cardsSeen: COUNT, differences: 0 });
-    // Two pages of cards (100 + 12) and one of transactions.
-    expect(run.pagesRead).toBe(3);
+    // Two pages of cards (100 + 12), one of transactions and one of bank transfers.
+    expect(run.pagesRead).toBe(4);
     expect(differences).toEqual([]);
   });
 
@@ -135,5 +136,46 @@ describe('reconciliation', () => {
     const theirs = (await demo.get('/api/finance/reconciliations').expect(200)).body.runs;
     expect(theirs.map((r: { id: number }) => r.id)).not.toContain(runs[0].id);
     await demo.post('/api/finance/reconciliations', { stationId: station.id }).expect(404);
+  });
+});
+
+describe('each medium against its own record', () => {
+  it('compares a bank transfer with its outbound payment and cash with the drawer, never with cards', async () => {
+    const seeded = await seedFlight(app.db, station, { passengers: 2 });
+    extraFlights.push(seeded.flight.id);
+    const [transfer, cash] = await insertCompensations(app.db, seeded.flight, seeded.passengers, (i) => ({ voluntary: false, sourceKind: 'denial', medium: i === 0 ? 'bank-transfer' : 'cash', amountMinor: 10_000 + i * 5_000 }));
+    const repo = app.db.getRepository(CompensationEntity);
+    // The transfer as the payout flow leaves it once sent: the payout names the outbound payment at the provider.
+    const attemptKey = `comp-${transfer.id}`;
+    const method = await stripe.paymentMethods.create({ type: 'us_bank_account', us_bank_account: { account_holder_type: 'individual', account_type: 'checking', routing_number: '110000000', account_number: '000123456789' } });
+    const payment = await stripe.treasury.outboundPayments.create({
+      financial_account: 'fa_bumpboard_compensations', amount: transfer.amountMinor, currency: 'usd', destination_payment_method: method.id,
+      metadata: { compensationId: String(transfer.id), stationId: String(station.id), attemptKey },
+    });
+    await repo.update({ id: transfer.id }, { state: 'issued', idempotencyKey: attemptKey });
+    await app.db.getRepository(PayoutEntity).insert({ compensationId: transfer.id, attemptKey, state: 'processing', amountMinor: transfer.amountMinor, currency: 'USD', providerPaymentId: payment.id, accountLast4: '6789' });
+    const agent = new Client(app.app);
+    await agent.signIn(agentUser.email, TEST_PASSWORD);
+    const drawer = `R${Date.now() % 100_000}`;
+    await agent.post(`/api/compensations/${cash.id}/counter-payment`, { medium: 'cash', drawerId: drawer, amountMinor: cash.amountMinor, signature: FIXTURE_SIGNATURE }).expect(200);
+
+    const mine = new Set([transfer.id, cash.id]);
+    const clean = await runToEnd(finance);
+    expect(clean.differences.filter((d) => d.compensationId !== null && mine.has(d.compensationId))).toEqual([]);
+    const lines = (clean.run as unknown as { byMedium: { medium: string; against: string; ledgerRows: number; otherSide: number; paid: { currency: string; amountMinor: number }[] }[] }).byMedium;
+    expect(lines.map((l) => l.medium)).toEqual(['cash', 'cheque', 'bank-transfer', 'prepaid-card', 'travel-credit']);
+    expect(lines.find((l) => l.medium === 'bank-transfer')).toMatchObject({ against: 'provider-transfers', ledgerRows: 1, otherSide: 1, paid: [{ currency: 'USD', amountMinor: transfer.amountMinor }] });
+    expect(lines.find((l) => l.medium === 'cash')).toMatchObject({ against: 'counter-register', ledgerRows: 1, otherSide: 1, paid: [{ currency: 'USD', amountMinor: cash.amountMinor }] });
+    // The earlier test's cards: one deleted at the provider, one duplicate and one stray added.
+    expect(lines.find((l) => l.medium === 'prepaid-card')).toMatchObject({ against: 'provider-cards', otherSide: COUNT + 1 });
+
+    // The ledger edited on both: each is found against its own record, named by medium and by its record.
+    await repo.update({ id: transfer.id }, { amountMinor: transfer.amountMinor + 1 });
+    await repo.update({ id: cash.id }, { amountMinor: cash.amountMinor + 1 });
+    const found = (await runToEnd(finance)).differences.filter((d) => d.compensationId !== null && mine.has(d.compensationId));
+    expect(found).toEqual([
+      expect.objectContaining({ kind: 'amount-differs', medium: 'bank-transfer', compensationId: transfer.id, cardId: payment.id, providerValue: 'USD 100.00' }),
+      expect.objectContaining({ kind: 'amount-differs', medium: 'cash', compensationId: cash.id, cardId: `drawer ${drawer}`, providerValue: 'USD 150.00' }),
+    ]);
   });
 });

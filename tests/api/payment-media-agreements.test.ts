@@ -74,6 +74,15 @@ describe('the media each rule allows, lawful default first', () => {
     expect(Date.parse(c.payment.terms.dueBy) - comp.createdAt.getTime()).toBe(48 * 3_600_000);
   });
 
+  it('refuses a bank transfer in a currency the provider does not transfer, naming the field and the currency', async () => {
+    const comp = await one(caDenial, yul);
+    const res = await agent.post(`/api/compensations/${comp.id}/medium`, { medium: 'bank-transfer' }).expect(400);
+    expect(res.body.details[0]).toMatchObject({ field: 'medium' });
+    expect(res.body.message).toContain('owed in CAD');
+    // Nothing changed: the compensation stays as it was, to be paid another way.
+    expect((await app.db.getRepository(CompensationEntity).findOneByOrFail({ id: comp.id })).medium).toBe('cash');
+  });
+
   it('refuses a medium the rule does not allow, naming the field', async () => {
     const comp = await one(usDenial);
     const res = await agent.post(`/api/compensations/${comp.id}/medium`, { medium: 'bank-transfer' }).expect(400);
@@ -137,6 +146,28 @@ describe('a card or a credit only with a complete agreement', () => {
     expect(res.body.message).toContain('must not expire');
     const lawful = await one(caDenial, yul);
     expect((await agree(lawful, 'travel-credit', 120_000)).status).toBe(200);
+    // Issued, the credit's card holds the agreed value (CAD 1,200.00), not the money given up (CAD 900.00).
+    await agent.post(`/api/compensations/${lawful.id}/issue`).expect(200);
+    await app.runtime.issuer.attempt(lawful.id);
+    const cards = [...fake.fake.store.state.cards.values()].filter((c) => c.metadata.compensationId === String(lawful.id));
+    expect(cards.map((c) => ({ currency: c.currency, limit: c.spending_limits[0]?.amount }))).toEqual([{ currency: 'cad', limit: 120_000 }]);
+  });
+
+  it('Canada: the worker checks the agreement again before the card exists, and refuses a credit no longer worth more', async () => {
+    const comp = await one(caDenial, yul);
+    expect((await agree(comp, 'travel-credit', 120_000)).status).toBe(200);
+    await agent.post(`/api/compensations/${comp.id}/issue`).expect(200);
+    // Whatever path leaves a row 'issuing' (a crash, a re-issue), the card is made only if the rule still holds.
+    const repo = app.db.getRepository(CompensationEntity);
+    const before = [...fake.fake.store.state.cards.values()].filter((c) => c.metadata.compensationId === String(comp.id));
+    for (const card of before) fake.fake.store.state.cards.delete(card.id);
+    await repo.update({ id: comp.id }, { state: 'issuing', providerCardId: null, providerCardholderId: null });
+    await app.db.getRepository(PaymentAgreementEntity).update({ compensationId: comp.id }, { valueMinor: 90_000 });
+    await app.runtime.issuer.attempt(comp.id);
+    const row = await repo.findOneByOrFail({ id: comp.id });
+    expect(row.state).toBe('failed');
+    expect(row.lastError).toContain('greater than the cash amount');
+    expect([...fake.fake.store.state.cards.values()].filter((c) => c.metadata.compensationId === String(comp.id))).toEqual([]);
   });
 });
 

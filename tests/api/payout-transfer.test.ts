@@ -108,11 +108,14 @@ describe('a bank transfer from the passenger’s own account entry', () => {
     expect((await publicPost(w, '/payout/status', { token })).body.state).toBe('ready');
   });
 
-  it('refuses a currency the provider cannot transfer, as a failed payment with its reason', async () => {
-    const { row } = await transferDue({ currency: 'EUR' });
-    const after = await comp(row.id);
-    expect(after.state).toBe('failed');
-    expect(after.lastError).toContain('EUR');
+  it('refuses, before anything starts, a currency the provider cannot transfer, naming the field and the currency', async () => {
+    const { rows: [row] } = await dueAt(w, 1, () => ({ medium: 'bank-transfer', currency: 'EUR' }));
+    const refused = await w.agent.post(`/api/compensations/${row.id}/issue`).expect(400);
+    expect(refused.body.details[0]).toMatchObject({ field: 'medium' });
+    expect(refused.body.message).toContain('owed in EUR');
+    // Nothing lost and nothing sent: still due, to be paid another way.
+    expect((await comp(row.id)).state).toBe('due');
+    expect(paymentsFor(row.id)).toHaveLength(0);
   });
 
   it('does not send cash to the provider: it is handed over at the counter', async () => {

@@ -60,6 +60,39 @@ export default tseslint.config(
     },
   },
   {
+    // Money moves in one module on the server: payments (with its payouts, counter payments and the provider's client)
+    // owns every movement and lets others read it through payments/reader only; finance reads, it never calls the
+    // provider or payments' other files, and payments never imports finance.
+    files: ['server/src/**/*.ts'],
+    plugins: { boundaries },
+    settings: {
+      'import/resolver': { node: { extensions: ['.ts', '.js'] } },
+      'boundaries/elements': [
+        { type: 'payments-read', pattern: 'server/src/modules/payments/reader' },
+        { type: 'payments', pattern: 'server/src/modules/(payments|payouts|counter-payments)' },
+        { type: 'payments', pattern: 'server/src/integrations/payments' },
+        { type: 'finance', pattern: 'server/src/modules/finance' },
+      ],
+    },
+    rules: {
+      'boundaries/dependencies': [2, {
+        default: 'allow',
+        policies: [
+          {
+            from: { element: { type: 'finance' } },
+            disallow: { to: { element: { type: 'payments' } } },
+            message: 'Finance reads money movements through server/src/modules/payments/reader only.',
+          },
+          {
+            from: { element: { types: { anyOf: ['payments', 'payments-read'] } } },
+            disallow: { to: { element: { type: 'finance' } } },
+            message: 'The payments module must not import finance: finance reads payments, not the other way round.',
+          },
+        ],
+      }],
+    },
+  },
+  {
     // shared/ runs in the browser and in Node: no platform APIs.
     files: ['shared/**/*.ts'],
     ignores: ['shared/**/*.test.ts'],

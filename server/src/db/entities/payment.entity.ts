@@ -1,3 +1,5 @@
+import type { Medium } from '@shared/compensation/media';
+import type { MediumReconciliation } from '@shared/schemas/finance';
 import { Column, CreateDateColumn, Entity, Index, JoinColumn, ManyToOne, PrimaryColumn, PrimaryGeneratedColumn, UpdateDateColumn, type Relation } from 'typeorm';
 
 /**
@@ -169,6 +171,10 @@ export class ReconciliationRunEntity {
   @Column({ type: 'int', name: 'differences_found', default: 0 })
   differencesFound!: number;
 
+  /** What each medium's comparison found, in the run's own words (see MediumReconciliation). */
+  @Column({ type: 'json', name: 'by_medium', nullable: true })
+  byMedium!: MediumReconciliation[] | null;
+
   @Column({ type: 'varchar', length: 500, nullable: true })
   error!: string | null;
 
@@ -192,6 +198,10 @@ export class ReconciliationDifferenceEntity {
 
   @Column({ type: 'varchar', length: 32 })
   kind!: string;
+
+  /** Null on runs from before reconciliation read each medium apart. */
+  @Column({ type: 'varchar', length: 16, nullable: true })
+  medium!: Medium | null;
 
   @Column({ type: 'int', name: 'compensation_id', nullable: true })
   compensationId!: number | null;

@@ -25,6 +25,7 @@ import { LearnedShowRates1796340000000 } from './1796340000000-LearnedShowRates'
 import { FlightSchedules1796370000000 } from './1796370000000-FlightSchedules';
 import { PassengerOptionalFees1796400000000 } from './1796400000000-PassengerOptionalFees';
 import { RuleRefunds1796401000000 } from './1796401000000-RuleRefunds';
+import { ReconciliationByMedium1796500000000 } from './1796500000000-ReconciliationByMedium';
 import { RecomputeQueue1796600000000 } from './1796600000000-RecomputeQueue';
 import { BookingChannel1796800000000 } from './1796800000000-BookingChannel';
 import { AlertSubjects1796900000000 } from './1796900000000-AlertSubjects';
@@ -56,6 +57,7 @@ export const migrations = [
   FlightSchedules1796370000000,
   PassengerOptionalFees1796400000000,
   RuleRefunds1796401000000,
+  ReconciliationByMedium1796500000000,
   RecomputeQueue1796600000000,
   BookingChannel1796800000000,
   AlertSubjects1796900000000,

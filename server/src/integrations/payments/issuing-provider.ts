@@ -17,6 +17,8 @@ export interface CardSnapshot {
   last4: string | null;
   expMonth: number | null;
   expYear: number | null;
+  /** The metadata's form: 'voucher' for a travel credit's restricted card. */
+  form?: string | null;
 }
 
 export interface TransactionSnapshot {
@@ -82,6 +84,7 @@ export function snapshotOf(card: Stripe.Issuing.Card): CardSnapshot {
     last4: card.last4 ?? null,
     expMonth: card.exp_month ?? null,
     expYear: card.exp_year ?? null,
+    form: card.metadata?.form ?? null,
   };
 }
 

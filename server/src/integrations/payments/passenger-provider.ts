@@ -36,6 +36,8 @@ export interface OutboundPaymentSnapshot {
   amountMinor: number;
   currency: string;
   compensationId: number | null;
+  /** The station whose compensation it pays, from its metadata. */
+  stationId: number | null;
   returnCode: string | null;
 }
 
@@ -43,16 +45,20 @@ export interface PassengerPaymentsProvider {
   readCardDetails(cardId: string): Promise<CardDetails>;
   createBankAccount(input: BankAccountInput, idempotencyKey: string): Promise<{ id: string; last4: string }>;
   createOutboundPayment(input: OutboundPaymentInput, idempotencyKey: string): Promise<OutboundPaymentSnapshot>;
+  /** One page of the carrier's financial account's outbound payments, newest first (Stripe's list pagination). */
+  listOutboundPayments(startingAfter: string | null, limit: number): Promise<{ items: OutboundPaymentSnapshot[]; hasMore: boolean; lastId: string | null }>;
 }
 
 export function outboundSnapshotOf(payment: Stripe.Treasury.OutboundPayment): OutboundPaymentSnapshot {
   const id = payment.metadata?.compensationId;
+  const station = payment.metadata?.stationId;
   return {
     id: payment.id,
     status: payment.status,
     amountMinor: payment.amount,
     currency: payment.currency.toUpperCase(),
     compensationId: id && /^\d+$/.test(id) ? Number(id) : null,
+    stationId: station && /^\d+$/.test(station) ? Number(station) : null,
     returnCode: payment.returned_details?.code ?? null,
   };
 }
@@ -111,6 +117,10 @@ export function stripePassengerProvider(stripe: Stripe, financialAccount: string
         { idempotencyKey },
       );
       return outboundSnapshotOf(payment);
+    },
+    async listOutboundPayments(startingAfter, limit) {
+      const page = await stripe.treasury.outboundPayments.list({ financial_account: financialAccount, limit, ...(startingAfter ? { starting_after: startingAfter } : {}) });
+      return { items: page.data.map(outboundSnapshotOf), hasMore: page.has_more, lastId: page.data.at(-1)?.id ?? null };
     },
   };
 }

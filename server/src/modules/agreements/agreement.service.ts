@@ -10,6 +10,7 @@ import type { AgreementMethod } from '../../db/entities/payment-media.entity';
 import { badRequest, conflict } from '../../http/errors';
 import { audit } from '../audit/audit.service';
 import { compensationRow, passengerNameOf } from '../payments/compensation-view';
+import { transferCurrencyProblem } from '../payouts/transfer-currencies';
 import { formFor, lockCompensation, paymentFacts, type PaymentFacts } from './payment-facts';
 
 const COUNTER: readonly Medium[] = ['cash', 'cheque'];
@@ -18,6 +19,13 @@ function assertAllowed(facts: PaymentFacts, medium: Medium): void {
   if (!facts.terms.media.includes(medium)) {
     throw badRequest(`medium: ${medium} is not allowed under ${facts.terms.ruleRef}; allowed: ${facts.terms.media.join(', ')}`, [{ field: 'medium', rule: `allowed: ${facts.terms.media.join(', ')}` }]);
   }
+  assertProviderPays(facts.row, medium);
+}
+
+/** The rule may allow a medium the provider cannot pay in this currency: refused naming the currency. */
+function assertProviderPays(row: Pick<CompensationEntity, 'currency'>, medium: Medium): void {
+  const problem = medium === 'bank-transfer' ? transferCurrencyProblem(row.currency) : null;
+  if (problem) throw badRequest(`medium: ${problem}`, [{ field: 'medium', rule: `bank transfers in ${row.currency} are not available` }]);
 }
 
 /** The agent picks how the passenger will be paid, among the media the rule allows. */
@@ -87,18 +95,23 @@ export async function recordPhoneAcceptance(em: EntityManager, compensationId: n
 }
 
 /**
- * The one check before a compensation goes to the provider, on every path that issues (first issue and re-issue):
- * the medium is one the rule allows and the provider pays, and a card or credit has its complete agreement.
+ * The one check before a compensation goes to the provider, on every path that issues (the desk's first issue, a
+ * re-issue, and the worker just before it creates the card): the medium is one the rule allows and the provider pays,
+ * and a card or credit has its complete agreement. Returns what the provider's card must hold: the money owed, or a
+ * travel credit's agreed value, which a rule may require to be more than the money (Canada) and never less (US).
  */
-export async function assertReadyToIssue(em: EntityManager, row: CompensationEntity): Promise<void> {
+export async function assertReadyToIssue(em: EntityManager, row: CompensationEntity): Promise<number> {
   if (COUNTER.includes(row.medium)) throw conflict('pay_at_counter', `This compensation is paid in ${row.medium} at the counter: record the counter payment with the passenger's signature instead.`);
   const facts = await paymentFacts(em, row);
   if (!facts.terms.media.includes(row.medium)) throw conflict('medium_not_allowed', `${row.medium} is not allowed under ${facts.terms.ruleRef}; choose one of ${facts.terms.media.join(', ')}.`);
-  if (!facts.terms.needsAgreement.includes(row.medium)) return;
+  assertProviderPays(row, row.medium);
+  if (!facts.terms.needsAgreement.includes(row.medium)) return row.amountMinor;
   const agreement = await em.findOneBy(PaymentAgreementEntity, { compensationId: row.id });
   if (!agreement || agreement.medium !== row.medium) throw conflict('agreement_missing', `A ${row.medium} needs the passenger's recorded agreement first (${facts.terms.ruleRef}).`);
   if (agreement.cashAmountMinor !== row.amountMinor || agreement.currency !== row.currency) throw conflict('agreement_stale', 'The amount owed changed after the passenger agreed: show them the new text and record the agreement again.');
   const accepted = agreement.method === 'phone' || (agreement.method === 'desk-signature' && Boolean(agreement.signature)) || (agreement.method === 'recorded-statement' && Boolean(agreement.statement));
   const missing = missingForAlternative({ regime: row.regime as Regime, voluntary: row.voluntary, medium: row.medium, cashAmountMinor: row.amountMinor, valueMinor: agreement.valueMinor, toldInWriting: agreement.text.length > 0, accepted, expiresAt: agreement.expiresOn });
   if (missing.length) throw conflict('agreement_incomplete', `The agreement is incomplete: ${missing.join('; ')}.`);
+  // A prepaid card is money on a card: it holds the amount owed. A credit holds the value the passenger agreed to.
+  return row.medium === 'travel-credit' ? agreement.valueMinor : row.amountMinor;
 }

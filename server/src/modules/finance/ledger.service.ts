@@ -6,7 +6,7 @@ import type { DataSource } from 'typeorm';
 import type { SessionUser } from '@shared/schemas/auth';
 import type { LedgerQuery, LedgerResponse } from '@shared/schemas/finance';
 import type { Medium } from '@shared/compensation/media';
-import { compensationRows, COMPENSATION_FROM, passengerNameOf, presentCompensation } from '../payments/compensation-view';
+import { compensationRows, COMPENSATION_FROM, passengerNameOf, presentCompensation } from '../payments/reader';
 import { decimalAmount, stationScope } from './scope';
 import { DUE_SOON_MINUTES } from '@shared/compensation';
 import { OWED_STATES } from '../compensations/payment-deadlines';

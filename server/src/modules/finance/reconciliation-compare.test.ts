@@ -3,7 +3,7 @@
 // side's items matched by a shared reference (here the card's metadata compensationId), then amount, currency
 // and state compared item by item.
 import { describe, expect, it } from 'vitest';
-import type { CardSnapshot } from '../../integrations/payments/issuing-provider';
+import type { CardSnapshot } from '../payments/reader';
 import { compareLedgerWithProvider, providerState, type CompareInput, type LedgerEntry } from './reconciliation-compare';
 
 const STATION = 7;

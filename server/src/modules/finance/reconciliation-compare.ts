@@ -1,20 +1,27 @@
-// Comparing the ledger with the provider's cards, by the compensation id each card carries in its metadata.
-// Pure: the run gathers both sides, this says where they disagree.
+// Comparing the ledger's card media (prepaid cards, and travel credits issued as restricted cards) with the
+// provider's cards, by the compensation id each card carries in its metadata. Bank transfers, counter payments and
+// their own records are compared elsewhere, each with its own. Pure: the run gathers both sides, this says where
+// they disagree.
+import type { Medium } from '@shared/compensation/media';
 import type { DifferenceKind } from '@shared/schemas/finance';
-import type { CardSnapshot } from '../../integrations/payments/issuing-provider';
+import type { CardSnapshot } from '../payments/reader';
 import { moneyText } from './scope';
 
 export interface LedgerEntry {
   id: number;
   stationId: number;
   state: string;
+  /** What the provider's card should hold: the compensation's amount, or a travel credit's value. */
   amountMinor: number;
   currency: string;
   providerCardId: string | null;
+  /** The card medium of the row; a prepaid card when not given. */
+  medium?: Medium;
 }
 
 export interface Difference {
   kind: DifferenceKind;
+  medium: Medium;
   compensationId: number | null;
   cardId: string | null;
   ledgerValue: string | null;
@@ -48,6 +55,17 @@ function inScope(card: CardSnapshot, ledgerIds: ReadonlySet<number>, input: Comp
   return card.stationId !== null && input.stationIds.has(card.stationId);
 }
 
+/** A card the ledger does not know is a travel credit when its metadata says it was issued as a voucher. */
+export function cardMedium(card: Pick<CardSnapshot, 'form'>): Medium {
+  return card.form === 'voucher' ? 'travel-credit' : 'prepaid-card';
+}
+
+/** The provider's cards that belong to the stations compared. */
+export function cardsInScope(input: CompareInput): CardSnapshot[] {
+  const ledgerIds = new Set(input.ledger.map((l) => l.id));
+  return input.cards.filter((c) => inScope(c, ledgerIds, input));
+}
+
 export function compareLedgerWithProvider(input: CompareInput): Difference[] {
   const ledgerById = new Map(input.ledger.map((l) => [l.id, l]));
   const ledgerIds = new Set(ledgerById.keys());
@@ -58,17 +76,18 @@ export function compareLedgerWithProvider(input: CompareInput): Difference[] {
     if (!inScope(card, ledgerIds, input)) continue;
     const entry = card.compensationId === null ? undefined : ledgerById.get(card.compensationId);
     if (!entry) {
-      out.push({ kind: 'missing-in-ledger', compensationId: card.compensationId, cardId: card.id, ledgerValue: null, providerValue: `${card.status}, ${card.limitMinor === null ? 'no limit' : moneyText(card.limitMinor, card.currency)}` });
+      out.push({ kind: 'missing-in-ledger', medium: cardMedium(card), compensationId: card.compensationId, cardId: card.id, ledgerValue: null, providerValue: `${card.status}, ${card.limitMinor === null ? 'no limit' : moneyText(card.limitMinor, card.currency)}` });
       continue;
     }
     cardsByCompensation.set(entry.id, [...(cardsByCompensation.get(entry.id) ?? []), card]);
   }
 
   for (const entry of input.ledger) {
+    const medium = entry.medium ?? 'prepaid-card';
     const cards = cardsByCompensation.get(entry.id) ?? [];
     if (!cards.length) {
       if (EXPECTS_CARD.has(entry.state) || ((entry.state === 'voided' || entry.state === 'canceled') && entry.providerCardId)) {
-        out.push({ kind: 'missing-at-provider', compensationId: entry.id, cardId: entry.providerCardId, ledgerValue: `${entry.state}, ${moneyText(entry.amountMinor, entry.currency)}`, providerValue: null });
+        out.push({ kind: 'missing-at-provider', medium, compensationId: entry.id, cardId: entry.providerCardId, ledgerValue: `${entry.state}, ${moneyText(entry.amountMinor, entry.currency)}`, providerValue: null });
       }
       continue;
     }
@@ -76,24 +95,24 @@ export function compareLedgerWithProvider(input: CompareInput): Difference[] {
     const primary = named ?? cards.find((c) => c.status !== 'canceled') ?? cards[0];
     for (const extra of cards) {
       // A canceled card beside the one the ledger names is an earlier attempt a re-issue replaced, not a second payment.
-      if (extra !== primary && extra.status !== 'canceled') out.push({ kind: 'duplicate-at-provider', compensationId: entry.id, cardId: extra.id, ledgerValue: entry.providerCardId, providerValue: `${extra.id} (${extra.status})` });
+      if (extra !== primary && extra.status !== 'canceled') out.push({ kind: 'duplicate-at-provider', medium, compensationId: entry.id, cardId: extra.id, ledgerValue: entry.providerCardId, providerValue: `${extra.id} (${extra.status})` });
     }
     const spentEarlier = cards.filter((c) => c !== primary).reduce((sum, c) => sum + (input.spentByCard.get(c.id) ?? 0), 0);
     const expectedLimit = entry.amountMinor - spentEarlier;
     if (entry.providerCardId !== primary.id) {
-      out.push({ kind: 'card-differs', compensationId: entry.id, cardId: primary.id, ledgerValue: entry.providerCardId ?? 'no card', providerValue: primary.id });
+      out.push({ kind: 'card-differs', medium, compensationId: entry.id, cardId: primary.id, ledgerValue: entry.providerCardId ?? 'no card', providerValue: primary.id });
     }
     if (primary.limitMinor !== expectedLimit) {
-      out.push({ kind: 'amount-differs', compensationId: entry.id, cardId: primary.id, ledgerValue: moneyText(expectedLimit, entry.currency), providerValue: primary.limitMinor === null ? 'no all_time limit' : moneyText(primary.limitMinor, primary.currency) });
+      out.push({ kind: 'amount-differs', medium, compensationId: entry.id, cardId: primary.id, ledgerValue: moneyText(expectedLimit, entry.currency), providerValue: primary.limitMinor === null ? 'no all_time limit' : moneyText(primary.limitMinor, primary.currency) });
     }
     if (primary.currency !== entry.currency) {
-      out.push({ kind: 'currency-differs', compensationId: entry.id, cardId: primary.id, ledgerValue: entry.currency, providerValue: primary.currency });
+      out.push({ kind: 'currency-differs', medium, compensationId: entry.id, cardId: primary.id, ledgerValue: entry.currency, providerValue: primary.currency });
     }
     const atProvider = providerState(primary, input.spentByCard.get(primary.id) ?? 0);
     // Voided by finance or canceled by the provider: either way the provider's card is canceled.
     const ledgerState = entry.state === 'canceled' ? 'voided' : entry.state;
     if (atProvider !== ledgerState) {
-      out.push({ kind: 'state-differs', compensationId: entry.id, cardId: primary.id, ledgerValue: entry.state, providerValue: atProvider });
+      out.push({ kind: 'state-differs', medium, compensationId: entry.id, cardId: primary.id, ledgerValue: entry.state, providerValue: atProvider });
     }
   }
   return out;

@@ -1,17 +1,22 @@
-// Reconciliation runs: page through every card the provider holds (limit / starting_after / has_more, as Stripe's
-// list API pages), and its transactions for what was spent, then compare with the ledger. A run works in the
-// background and reports its progress; runs and their differences are kept, and each difference is resolved with
-// a note.
+// Reconciliation runs: each medium is compared with its own record. Cards (prepaid cards and the restricted cards of
+// travel credits) with the provider's cards and their transactions; bank transfers with the provider's outbound
+// payments; cash and cheques with the counter's drawer and cheque register. The provider's lists are read page by
+// page (limit / starting_after / has_more, as Stripe's list API pages). A travel credit's unspent value is shown as
+// outstanding. A run works in the background and reports its progress; runs and their differences are kept, and
+// each difference is resolved with a note.
 import type { DataSource } from 'typeorm';
+import { MEDIA, type Medium } from '@shared/compensation/media';
 import type { SessionUser } from '@shared/schemas/auth';
 import type { ReconciliationDifference, ReconciliationRun } from '@shared/schemas/finance';
 import { ReconciliationDifferenceEntity, ReconciliationRunEntity, StationEntity } from '../../db/entities';
 import { conflict, notFound } from '../../http/errors';
 import { canSeeStation } from '../../http/require-role';
-import type { CardSnapshot, IssuingProvider, Page } from '../../integrations/payments/issuing-provider';
-import { classifyProviderError } from '../../integrations/payments/provider-errors';
+import { readFailureReason, type CardSnapshot, type Page, type PaymentsReader } from '../payments/reader';
 import { audit } from '../audit/audit.service';
-import { compareLedgerWithProvider, type LedgerEntry } from './reconciliation-compare';
+import { compareCounter, type CounterLedgerEntry, type CounterRecord } from './reconcile-counter';
+import { summariseByMedium } from './reconcile-summary';
+import { compareTransfers, transfersInScope, type TransferLedgerEntry } from './reconcile-transfers';
+import { compareLedgerWithProvider, type Difference, type LedgerEntry } from './reconciliation-compare';
 
 const PAGE_SIZE = 100;
 /** A bound on any run: a million cards, far beyond one carrier's compensations (common practice: loops that end). */
@@ -21,7 +26,7 @@ export const STALE_RUN_MS = 5 * 60_000;
 
 export interface ReconciliationDeps {
   db: DataSource;
-  provider: IssuingProvider;
+  reader: PaymentsReader;
   log: (line: string) => void;
 }
 
@@ -44,6 +49,35 @@ async function readAll<T>(fetchPage: (after: string | null) => Promise<Page<T>>,
   throw new Error(`stopped after ${MAX_PAGES} pages; the provider kept answering has_more`);
 }
 
+const CARD_MEDIA: readonly Medium[] = ['prepaid-card', 'travel-credit'];
+const COUNTER_MEDIA: readonly Medium[] = ['cash', 'cheque'];
+
+interface LedgerRow { id: number; station_id: number; state: string; medium: Medium; amount_minor: number; credit_value_minor: number | null; currency: string; provider_card_id: string | null; provider_payment_id: string | null }
+
+async function ledgerOf(db: DataSource, stationIds: number[]): Promise<LedgerRow[]> {
+  // The current attempt's payout names the transfer the ledger expects (an earlier attempt's may have failed).
+  return db.query(
+    `SELECT c.id, c.station_id, c.state, c.medium, c.amount_minor, c.credit_value_minor, c.currency, c.provider_card_id, p.provider_payment_id
+       FROM compensations c LEFT JOIN payouts p ON p.compensation_id = c.id AND p.attempt_key = c.idempotency_key
+      WHERE c.station_id IN (?)`,
+    [stationIds],
+  );
+}
+
+async function counterRecordsOf(db: DataSource, stationIds: number[]): Promise<CounterRecord[]> {
+  const rows: { compensation_id: number; medium: 'cash' | 'cheque'; drawer_id: string | null; cheque_number: string | null; amount_minor: number; currency: string }[] = await db.query(
+    'SELECT compensation_id, medium, drawer_id, cheque_number, amount_minor, currency FROM counter_payments WHERE station_id IN (?)',
+    [stationIds],
+  );
+  return rows.map((r) => ({ compensationId: r.compensation_id, medium: r.medium, drawerId: r.drawer_id, chequeNumber: r.cheque_number, amountMinor: r.amount_minor, currency: r.currency }));
+}
+
+/** Compensation ids the provider's records name that exist, but at other stations: not this run's business. */
+async function existingElsewhere(db: DataSource, named: number[]): Promise<Set<number>> {
+  if (!named.length) return new Set();
+  return new Set((await db.query('SELECT id FROM compensations WHERE id IN (?)', [named])).map((r: { id: number }) => r.id));
+}
+
 export function createReconciliationRunner(deps: ReconciliationDeps): ReconciliationRunner {
   const running = new Set<Promise<void>>();
 
@@ -57,28 +91,45 @@ export function createReconciliationRunner(deps: ReconciliationDeps): Reconcilia
       cardsSeen += newCards;
       return repo.update({ id: run.id }, { pagesRead: pages, cardsSeen }).then(() => undefined);
     };
-    const cards = await readAll<CardSnapshot>((after) => deps.provider.listCards(after, PAGE_SIZE), (n) => pageRead(n));
-    const transactions = await readAll((after) => deps.provider.listTransactions(after, PAGE_SIZE), () => pageRead(0));
+    const cards = await readAll<CardSnapshot>((after) => deps.reader.listCards(after, PAGE_SIZE), (n) => pageRead(n));
+    const transactions = await readAll((after) => deps.reader.listCardTransactions(after, PAGE_SIZE), () => pageRead(0));
+    const payments = await readAll((after) => deps.reader.listTransfers(after, PAGE_SIZE), () => pageRead(0));
     const spentByCard = new Map<string, number>();
     for (const t of transactions) spentByCard.set(t.cardId, (spentByCard.get(t.cardId) ?? 0) + t.spentMinor);
 
-    const ledger: LedgerEntry[] = (
-      await deps.db.query("SELECT id, station_id, state, amount_minor, currency, provider_card_id FROM compensations WHERE station_id IN (?) AND medium NOT IN ('cash', 'cheque')", [run.stationIds])
-    ).map((r: { id: number; station_id: number; state: string; amount_minor: number; currency: string; provider_card_id: string | null }) => ({
-      id: r.id, stationId: r.station_id, state: r.state, amountMinor: r.amount_minor, currency: r.currency, providerCardId: r.provider_card_id,
+    const rows = await ledgerOf(deps.db, run.stationIds);
+    const stationIds = new Set(run.stationIds);
+    const rowIds = new Set(rows.map((r) => r.id));
+    const named = [...cards.map((c) => c.compensationId), ...payments.map((p) => p.compensationId)].filter((id): id is number => id !== null && !rowIds.has(id));
+    const elsewhere = await existingElsewhere(deps.db, [...new Set(named)]);
+
+    const cardLedger: LedgerEntry[] = rows.filter((r) => CARD_MEDIA.includes(r.medium)).map((r) => ({
+      id: r.id, stationId: r.station_id, state: r.state, medium: r.medium, currency: r.currency, providerCardId: r.provider_card_id,
+      // A travel credit's card holds the credit's value, which may be more than the money given up.
+      amountMinor: r.medium === 'travel-credit' ? (r.credit_value_minor ?? r.amount_minor) : r.amount_minor,
     }));
-    const inLedger = new Set(ledger.map((l) => l.id));
-    const named = [...new Set(cards.map((c) => c.compensationId).filter((id): id is number => id !== null && !inLedger.has(id)))];
-    const elsewhere = new Set<number>(
-      named.length ? (await deps.db.query('SELECT id FROM compensations WHERE id IN (?)', [named])).map((r: { id: number }) => r.id) : [],
-    );
-    const differences = compareLedgerWithProvider({ ledger, cards, spentByCard, stationIds: new Set(run.stationIds), elsewhere });
+    const transferLedger: TransferLedgerEntry[] = rows.filter((r) => r.medium === 'bank-transfer').map((r) => ({
+      id: r.id, stationId: r.station_id, state: r.state, amountMinor: r.amount_minor, currency: r.currency, providerPaymentId: r.provider_payment_id,
+    }));
+    const counterLedger: CounterLedgerEntry[] = rows.filter((r) => COUNTER_MEDIA.includes(r.medium)).map((r) => ({ id: r.id, state: r.state, medium: r.medium, amountMinor: r.amount_minor, currency: r.currency }));
+    const records = await counterRecordsOf(deps.db, run.stationIds);
+    const counterIds = new Set(counterLedger.map((l) => l.id));
+    const others = new Map(rows.filter((r) => !counterIds.has(r.id) && records.some((c) => c.compensationId === r.id)).map((r) => [r.id, { id: r.id, state: r.state, medium: r.medium, amountMinor: r.amount_minor, currency: r.currency }]));
+
+    const cardInput = { ledger: cardLedger, cards, spentByCard, stationIds, elsewhere };
+    const transferInput = { ledger: transferLedger, payments, stationIds, elsewhere };
+    const differences: Difference[] = [
+      ...compareLedgerWithProvider(cardInput),
+      ...compareTransfers(transferInput),
+      ...compareCounter({ ledger: counterLedger, records, others }),
+    ];
+    const byMedium = summariseByMedium({ rows, cardInput, transfers: transfersInScope(transferInput), records, differences });
 
     await deps.db.transaction(async (em) => {
       for (let i = 0; i < differences.length; i += 500) {
         await em.insert(ReconciliationDifferenceEntity, differences.slice(i, i + 500).map((d) => ({ ...d, runId: run.id })));
       }
-      await em.update(ReconciliationRunEntity, { id: run.id }, { status: 'completed', finishedAt: new Date(), ledgerRows: ledger.length, differencesFound: differences.length, cardsSeen });
+      await em.update(ReconciliationRunEntity, { id: run.id }, { status: 'completed', finishedAt: new Date(), ledgerRows: rows.length, differencesFound: differences.length, cardsSeen, byMedium });
     });
   }
 
@@ -96,7 +147,7 @@ export function createReconciliationRunner(deps: ReconciliationDeps): Reconcilia
       });
       const work = execute(run)
         .catch(async (error: unknown) => {
-          const reason = classifyProviderError(error, 'reading the provider').reason;
+          const reason = readFailureReason(error, 'reading the provider');
           deps.log(`[finance] reconciliation ${run.id} failed: ${reason}`);
           await deps.db.getRepository(ReconciliationRunEntity).update({ id: run.id }, { status: 'failed', error: reason.slice(0, 500), finishedAt: new Date() }).catch(() => undefined);
         })
@@ -134,6 +185,7 @@ export async function presentRuns(db: DataSource, runs: ReconciliationRunEntity[
     id: r.id, status: r.status, stationIds: r.stationIds, stations: r.stationIds.map((id) => iata.get(id) ?? String(id)), startedBy: r.startedByLabel,
     startedAt: r.startedAt.toISOString(), finishedAt: r.finishedAt?.toISOString() ?? null, pagesRead: r.pagesRead, cardsSeen: r.cardsSeen,
     ledgerRows: r.ledgerRows, differences: r.differencesFound, unresolved: open.get(r.id) ?? 0, error: r.error,
+    byMedium: [...(r.byMedium ?? [])].sort((a, b) => MEDIA.indexOf(a.medium) - MEDIA.indexOf(b.medium)),
   }));
 }
 
@@ -150,7 +202,7 @@ export async function runForUser(db: DataSource, user: SessionUser, id: number):
 
 function presentDifference(d: ReconciliationDifferenceEntity): ReconciliationDifference {
   return {
-    id: d.id, kind: d.kind as ReconciliationDifference['kind'], compensationId: d.compensationId, cardId: d.cardId, ledgerValue: d.ledgerValue,
+    id: d.id, kind: d.kind as ReconciliationDifference['kind'], medium: d.medium, compensationId: d.compensationId, cardId: d.cardId, ledgerValue: d.ledgerValue,
     providerValue: d.providerValue, resolvedAt: d.resolvedAt?.toISOString() ?? null, resolvedBy: d.resolvedByLabel, note: d.note,
   };
 }

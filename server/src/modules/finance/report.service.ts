@@ -13,6 +13,7 @@ import { categoryFromCompensation, form251Lines, paidInMoneyForForm251, type For
 import { regimeLines } from './regime-lines';
 import { NOT_A_REFUND, refundReportLines } from './refund-lines';
 import { REFUND_PAYMENT_KINDS } from '@shared/schemas/refunds';
+import { mediumLines, type MediumFact } from './report-media';
 
 const TITLES: Record<string, { form: PeriodReport['form']; title: string }> = {
   'us-dot': { form: 'us-form-251', title: 'Form 251: passengers denied confirmed space (14 CFR 250.10)' },
@@ -99,12 +100,31 @@ async function cabinChangeItems(db: DataSource, stationId: number, from: string,
   return rows.map((r) => ({ serviceDate: r.service_date, direction: r.direction, owedMinor: r.owed_minor, currency: r.currency }));
 }
 
+/** Each compensation of the quarter with its medium's own record: counter payment, current transfer, cards. */
+async function mediumFacts(db: DataSource, stationId: number, from: string, to: string): Promise<MediumFact[]> {
+  const rows: { medium: MediumFact['medium']; state: string; amount_minor: number; currency: string; credit_value_minor: number | null; counter_paid: number | null; drawer_id: string | null; cheque_number: string | null; transfer_state: string | null; spent_minor: number | string; live_card: number | string }[] = await db.query(
+    `SELECT c.medium, c.state, c.amount_minor, c.currency, c.credit_value_minor, cp.amount_minor AS counter_paid, cp.drawer_id, cp.cheque_number, p.state AS transfer_state,
+            (SELECT COALESCE(SUM(pc.spent_minor), 0) FROM provider_cards pc WHERE pc.compensation_id = c.id) AS spent_minor,
+            EXISTS (SELECT 1 FROM provider_cards pc WHERE pc.compensation_id = c.id AND pc.status <> 'canceled') AS live_card
+       FROM compensations c JOIN flights f ON f.id = c.flight_id
+       LEFT JOIN counter_payments cp ON cp.compensation_id = c.id
+       LEFT JOIN payouts p ON p.compensation_id = c.id AND p.attempt_key = c.idempotency_key
+      WHERE c.station_id = ? AND f.service_date BETWEEN ? AND ?`,
+    [stationId, from, to],
+  );
+  return rows.map((r) => ({
+    medium: r.medium, state: r.state, amountMinor: r.amount_minor, currency: r.currency, creditValueMinor: r.credit_value_minor, counterPaidMinor: r.counter_paid,
+    drawerId: r.drawer_id, chequeNumber: r.cheque_number, transferState: r.transfer_state, spentMinor: Number(r.spent_minor), liveCard: Number(r.live_card) === 1,
+  }));
+}
+
 export async function periodReport(db: DataSource, user: SessionUser, quarter: string, stationId: number): Promise<PeriodReport> {
   stationScope(user, stationId);
   const station = await db.getRepository(StationEntity).findOneByOrFail({ id: stationId });
   const { from, to } = quarterRange(quarter);
-  const [{ items, source }, cabinChanges, refundLines] = await Promise.all([
+  const [{ items, source }, cabinChanges, refundLines, byMedium] = await Promise.all([
     reportItems(db, station, from, to), cabinChangeItems(db, station.id, from, to), refundReportLines(db, station.id, from, to),
+    mediumFacts(db, station.id, from, to).then(mediumLines),
   ]);
   const [{ boarded }] = await db.query(
     `SELECT COUNT(*) AS boarded FROM passengers p JOIN flights f ON f.id = p.flight_id WHERE f.station_id = ? AND f.service_date BETWEEN ? AND ? AND p.status = 'boarded'`,
@@ -118,6 +138,7 @@ export async function periodReport(db: DataSource, user: SessionUser, quarter: s
     us
       ? 'Line 8 counts money paid only (cash or a prepaid card without spending restrictions), never the value of travel vouchers, as the form’s instructions require.'
       : 'Paid amounts count any form the passenger accepted; travel vouchers are shown on their own line.',
+    'By medium: paid is what each medium’s own record shows (the drawers, the cheque register, transfers sent, card spending); outstanding is value still on a live card, for a travel credit a liability until it is used.',
     'The chart adds up to the table: its paid figures are the paid lines, day by day, and its owed figure is the owed line.',
     source === 'compensations' ? 'Involuntary denials were classified from the compensation rules recorded for each passenger.' : 'Involuntary denials were counted from the authorized denial records and their categories.',
     'The tool computes what the configured rules say; the applicable regulation, the contract of carriage and the carrier’s compliance staff decide what is filed.',
@@ -128,6 +149,7 @@ export async function periodReport(db: DataSource, user: SessionUser, quarter: s
     form: kind.form, title: kind.title, source,
     lines: [...(us ? form251Lines(items, Number(boarded), cabinChanges) : regimeLines(station.regime as 'eu-261' | 'uk-261' | 'ca-appr', items, Number(boarded), cabinChanges)), ...refundLines],
     perDay: perDay(items, us ? paidInMoneyForForm251 : isPaid),
+    byMedium,
     notes,
   };
 }
@@ -143,6 +165,12 @@ export function reportCsv(report: PeriodReport): string {
     rows.push(['day', 'voluntary-paid', 'Paid to volunteers', d.date, '', d.currency, d.voluntaryPaidMinor, decimalAmount(d.voluntaryPaidMinor, d.currency), '']);
     rows.push(['day', 'involuntary-paid', 'Paid for involuntary denials', d.date, '', d.currency, d.involuntaryPaidMinor, decimalAmount(d.involuntaryPaidMinor, d.currency), '']);
     rows.push(['day', 'owed', 'Owed, not yet paid', d.date, '', d.currency, d.owedMinor, decimalAmount(d.owedMinor, d.currency), '']);
+  }
+  // One row per medium, currency and figure, so a spreadsheet filters a medium in one click.
+  for (const m of report.byMedium) {
+    const figures: [string, string, number][] = [['owed', 'Owed through it', m.owedMinor], ['paid', `Paid (${m.recordedIn})`, m.paidMinor], ['outstanding', 'Outstanding on live cards', m.outstandingMinor]];
+    if (m.medium === 'travel-credit') figures.push(['credit-value', 'Value of the credits issued', m.creditValueMinor]);
+    for (const [code, label, amount] of figures) rows.push(['medium', `${m.medium}-${code}`, label, '', m.count, m.currency, amount, decimalAmount(amount, m.currency), m.detail, m.recordedIn]);
   }
   return Papa.unparse({ fields: ['section', 'code', 'label', 'date', 'count', 'currency', 'amount_minor', 'amount', 'note', 'source'], data: rows }, { escapeFormulae: true, newline: '\r\n' });
 }

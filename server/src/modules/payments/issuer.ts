@@ -13,6 +13,8 @@ import { recordIssued, recordRefused, spentOnEarlierCards } from './issuance-rec
 import { applyEffects, WORKER_ACTOR, type PaymentsContext } from './payments-context';
 import { VOUCHER_CATEGORIES } from './voucher-rules';
 import { advancePayout } from '../payouts/payout.service';
+import { assertReadyToIssue } from '../agreements/agreement.service';
+import { HttpError } from '../../http/errors';
 
 export interface Issuer {
   /** One attempt for a row in 'issuing'; a second call while one runs joins it. Never throws. */
@@ -38,14 +40,14 @@ export function providerWork(c: Pick<CompensationEntity, 'medium' | 'form'>): 'c
 export function createIssuer(ctx: PaymentsContext): Issuer {
   const inFlight = new Map<number, Promise<void>>();
 
-  async function createCard(row: CompensationRow, baseKey: string, cardholderId: string): Promise<CardSnapshot> {
+  async function createCard(row: CompensationRow, baseKey: string, cardholderId: string, valueMinor: number): Promise<CardSnapshot> {
     // After a re-issue, what was spent on an earlier (now canceled) card is already paid: the new card holds the rest.
     const spent = await spentOnEarlierCards(ctx.db.manager, row.id);
     return ctx.provider.createCard(
       {
         cardholderId,
         currency: row.currency,
-        amountMinor: Math.max(0, row.amount_minor - spent),
+        amountMinor: Math.max(0, valueMinor - spent),
         categories: row.form === 'voucher' ? VOUCHER_CATEGORIES : [],
         metadata: cardMetadata(row),
       },
@@ -63,6 +65,17 @@ export function createIssuer(ctx: PaymentsContext): Issuer {
     }
     if (!(await startedUnderThisAccount(compensationId))) {
       ctx.log(`[payments] compensation ${compensationId}: started under another provider account; left for a server configured for it`);
+      return;
+    }
+    // The rule's conditions (and the currencies the provider pays) are checked again right before money moves, and a
+    // card holds what they allow: a travel credit's agreed value, never simply the cash amount.
+    let valueMinor: number;
+    try {
+      valueMinor = await assertReadyToIssue(ctx.db.manager, entity);
+    } catch (error) {
+      // A rule not met is final; anything else (the database busy) is tried again on the next pass.
+      if (!(error instanceof HttpError)) throw error;
+      await refuse(compensationId, `checking the medium and agreement: ${error.message}`);
       return;
     }
     if (work === 'transfer') return advancePayout(ctx, compensationId);
@@ -99,7 +112,7 @@ export function createIssuer(ctx: PaymentsContext): Issuer {
         card = (await ctx.provider.cardsOfCardholder(cardholderId)).find((c) => c.compensationId === compensationId && c.status !== 'canceled');
       }
       step = 'creating the card';
-      card ??= await createCard(row, baseKey, cardholderId);
+      card ??= await createCard(row, baseKey, cardholderId, valueMinor);
       const issued = card;
       step = 'recording the card';
       applyEffects(ctx, await ctx.db.transaction((em) => recordIssued(em, compensationId, issued, WORKER_ACTOR, ctx)));

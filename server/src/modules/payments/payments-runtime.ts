@@ -1,6 +1,6 @@
-// Assembles the payments module (and finance's reconciliation, which reads the same provider) from configuration:
-// one provider client, one issuer shared by the routes and the worker, so an issuance in flight is never started
-// twice by this process.
+// Assembles the payments module from configuration: one provider client, one issuer shared by the routes and the
+// worker, so an issuance in flight is never started twice by this process, and the read interface others (finance)
+// use to see the money moved, without calling the provider themselves.
 import type Stripe from 'stripe';
 import type { DataSource } from 'typeorm';
 import type { Env } from '../../config/env';
@@ -8,10 +8,10 @@ import { stripeIssuingProvider, type IssuingProvider } from '../../integrations/
 import { createStripeClient, providerAccountOf } from '../../integrations/payments/stripe-client';
 import { stripePassengerProvider } from '../../integrations/payments/passenger-provider';
 import { passengerPaymentsRouter } from '../payouts/public-payments.routes';
-import { createReconciliationRunner, markInterruptedRuns, type ReconciliationRunner } from '../finance/reconciliation.service';
 import { compensationsRouter } from './compensations.routes';
 import { createIssuer, type Issuer } from './issuer';
 import type { PaymentsContext } from './payments-context';
+import { createPaymentsReader, type PaymentsReader } from './reader';
 import { createPaymentsWorker, type PaymentsWorker, type PaymentsWorkerOptions } from './payments-worker';
 import { paymentsWebhookRouter } from './webhook.routes';
 
@@ -42,12 +42,13 @@ export interface PaymentsRuntime {
   provider: IssuingProvider;
   issuer: Issuer;
   worker: PaymentsWorker;
-  reconciliation: ReconciliationRunner;
+  /** Read-only: the provider's cards, card transactions and transfers, for finance. */
+  reader: PaymentsReader;
   webhookRouter(): ReturnType<typeof paymentsWebhookRouter>;
   compensationsRouter(): ReturnType<typeof compensationsRouter>;
   /** The passenger's card-details and bank-account pages' API: no session, single-use links. */
   passengerRouter(): ReturnType<typeof passengerPaymentsRouter>;
-  /** Starts the worker (its first pass sweeps every row left 'issuing') and closes runs a stopped process left open. */
+  /** Starts the worker (its first pass sweeps every row left 'issuing'). */
   start(): Promise<void>;
   stop(): Promise<void>;
 }
@@ -64,24 +65,21 @@ export function createPaymentsRuntime(opts: PaymentsRuntimeOptions): PaymentsRun
   };
   const issuer = createIssuer(ctx);
   const worker = createPaymentsWorker(ctx, issuer, opts.worker);
-  const reconciliation = createReconciliationRunner({ db: opts.db, provider, log });
   return {
     ctx,
     provider,
     issuer,
     worker,
-    reconciliation,
+    reader: createPaymentsReader(provider, passenger),
     webhookRouter: () => paymentsWebhookRouter(ctx),
     compensationsRouter: () => compensationsRouter(ctx, issuer),
     passengerRouter: () => passengerPaymentsRouter(ctx, issuer),
     async start() {
-      await markInterruptedRuns(opts.db);
       worker.start();
     },
     async stop() {
       await worker.stop();
       await issuer.idle();
-      await reconciliation.idle();
     },
   };
 }

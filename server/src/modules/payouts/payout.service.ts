@@ -15,12 +15,11 @@ import { NO_EFFECTS, recordRefused, type Effects } from '../payments/issuance-re
 import { applyEffects, PASSENGER_ACTOR, WORKER_ACTOR, type PaymentsContext } from '../payments/payments-context';
 import { countWrongTry, createLink, findLink, linkState, markUsed, proofMatches, refuseUnlessReady, wrongProof } from './payment-links';
 import { payoutLinkNotice } from './payout-notices';
+import { transferCurrencyProblem } from './transfer-currencies';
 import { recordTransferSent } from './payout-record';
 
 /** How long a worker's claim holds; longer than the SDK's timeout with its retries, so a live call is never joined. */
 const CLAIM_SECONDS = 120;
-/** Treasury OutboundPayments move US dollars only (Stripe Treasury docs); other currencies need another medium. */
-const TRANSFER_CURRENCIES = ['USD'];
 
 export const transferKey = (attemptKey: string) => `${attemptKey}-transfer`;
 
@@ -30,10 +29,8 @@ async function openPayout(em: EntityManager, ctx: PaymentsContext, compensationI
   if (!comp || comp.state !== 'issuing' || !comp.idempotencyKey) return { effects: NO_EFFECTS, ready: null };
   const existing = await em.findOneBy(PayoutEntity, { attemptKey: comp.idempotencyKey });
   if (existing) return { effects: NO_EFFECTS, ready: existing.state === 'ready' ? existing.attemptKey : null };
-  if (!TRANSFER_CURRENCIES.includes(comp.currency)) {
-    const reason = `bank transfer: the provider's outbound payments move ${TRANSFER_CURRENCIES.join(', ')} only, not ${comp.currency}; choose another medium`;
-    return { effects: await recordRefused(em, comp.id, reason, WORKER_ACTOR), ready: null };
-  }
+  const currencyProblem = transferCurrencyProblem(comp.currency);
+  if (currencyProblem) return { effects: await recordRefused(em, comp.id, `bank transfer: ${currencyProblem}`, WORKER_ACTOR), ready: null };
   const row = await compensationRow(em, comp.id);
   if (!row.contact_email) {
     return { effects: await recordRefused(em, comp.id, 'bank transfer: the booking has no e-mail address to send the passenger their payout link', WORKER_ACTOR), ready: null };

@@ -5,6 +5,7 @@ import { Button } from '../../../components/ui/button';
 import { Caution, Panel } from '../../../components/ui/page';
 import { runQueryOptions, runsQueryOptions, useStartReconciliation } from '../api/finance-api';
 import { DifferenceList } from './difference-list';
+import { MediumReconciliationTable } from './medium-reconciliation-table';
 import { SelectField, type StationOption } from './field';
 
 const STATUS_WORDS: Record<ReconciliationRun['status'], string> = { running: 'Running', completed: 'Completed', failed: 'Failed', interrupted: 'Interrupted' };
@@ -29,6 +30,7 @@ function RunDetail({ runId, justStarted }: { runId: number; justStarted: boolean
         {run.status !== 'running' && `, ${plural(run.ledgerRows, 'compensation')} in the ledger, ${plural(run.differences, 'difference')} (${run.unresolved} open)`}.
       </p>
       {run.error && <p role="alert" className="font-bold text-alert">{run.error}</p>}
+      {run.status === 'completed' && <div className="mt-3 overflow-x-auto"><MediumReconciliationTable lines={run.byMedium} /></div>}
       {run.status === 'completed' && <div className="mt-3"><DifferenceList runId={run.id} differences={differences} /></div>}
     </Panel>
   );
@@ -54,7 +56,7 @@ export function ReconciliationScreen({ stations }: { stations: StationOption[] }
           </Button>
         </div>
         {start.error && <p role="alert" className="mt-2 font-bold text-alert">{start.error.message}</p>}
-        <p className="mt-2 text-sm text-ink-soft">Reads every card at the payment provider page by page and matches it to the ledger by compensation.</p>
+        <p className="mt-2 text-sm text-ink-soft">Compares each medium with its own record: cards and bank transfers at the payment provider (read page by page), cash and cheques with the drawers and the cheque register, and shows the travel credits still outstanding.</p>
       </Panel>
       <Caution />
       {shown !== null && <RunDetail runId={shown} justStarted={shown === started} />}

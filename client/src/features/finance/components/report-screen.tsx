@@ -7,6 +7,7 @@ import { recentQuarters } from '../model/quarters';
 import { DownloadLink, SelectField, type StationOption } from './field';
 import { ReportDayChart } from './report-day-chart';
 import { ReportLinesTable } from './report-lines-table';
+import { ReportMediaTable } from './report-media-table';
 
 export function ReportScreen({ stations, defaultStationId, now = new Date() }: { stations: StationOption[]; defaultStationId: number; now?: Date }) {
   const quarters = recentQuarters(now, 8);
@@ -35,6 +36,9 @@ export function ReportScreen({ stations, defaultStationId, now = new Date() }: {
             <p className="mb-3 text-ink-soft">{data.station.iata} · {data.station.name} · flights from {data.from} to {data.to}</p>
             <ReportLinesTable report={data} />
             <ul className="mt-3 list-disc pl-5 text-sm text-ink-soft">{data.notes.map((n) => <li key={n}>{n}</li>)}</ul>
+          </Panel>
+          <Panel title="By medium">
+            <div className="overflow-x-auto"><ReportMediaTable lines={data.byMedium} /></div>
           </Panel>
           <Panel>
             <ReportDayChart days={data.perDay} currency={data.station.currency} />
