@@ -18,8 +18,9 @@ export const ALTERNATIVE_CONDITIONS: Readonly<Record<Regime | 'volunteer', Alter
   // Art. 7(3): the signed agreement of the passenger; the text sets no value condition.
   'eu-261': { value: 'any', writtenInformation: true, noExpiry: false, ruleRef: 'Reg. (EC) 261/2004 Art. 7(3)' },
   'uk-261': { value: 'any', writtenInformation: true, noExpiry: false, ruleRef: 'Retained Reg. 261/2004 (UK) Art. 7(3)' },
-  // Greater monetary value, told in writing, no expiry, confirmed in writing (from memory; section not verified).
-  'ca-appr': { value: 'greater', writtenInformation: true, noExpiry: true, ruleRef: 'SOR/2019-150, compensation in another form' },
+  // Greater monetary value, told in writing, no expiry, confirmed in writing: s. 21 as a secondary reading of the text
+  // places these four conditions (the section's own page was not at hand; the regulator's guide agrees on the substance).
+  'ca-appr': { value: 'greater', writtenInformation: true, noExpiry: true, ruleRef: 'SOR/2019-150 s. 21' },
   // Common practice, no outside source: a volunteer's credit is worth at least the cash they were offered.
   volunteer: { value: 'at-least', writtenInformation: true, noExpiry: false, ruleRef: 'Volunteer: benefits agreed with the carrier' },
 };

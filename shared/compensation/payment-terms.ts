@@ -70,7 +70,7 @@ export const PAYMENT_MEDIA_RULES: Readonly<Record<Regime | 'us-dot-mailed' | 'vo
     media: ['cash', 'bank-transfer', 'cheque', 'prepaid-card', 'travel-credit'],
     needsAgreement: ALTERNATIVES,
     ruleRef: 'SOR/2019-150 s. 20',
-    source: 'Money when the passenger is informed of the denial or no later than 48 h after it, adjusted if the arrival is later (regulator\'s guide and secondary sources; subsection numbers not verified). Another form only if of greater value, told in writing, no expiry, confirmed in writing (from memory).',
+    source: 'Money when the passenger is informed of the denial or no later than 48 h after it, adjusted if the arrival is later (regulator\'s guide and secondary sources; subsection numbers not verified). Another form only if of greater value, told in writing, no expiry, confirmed in writing (s. 21, secondary reading).',
   },
   volunteer: {
     // The volunteer accepted the round's offer, paid by prepaid card, in writing: that acceptance is their agreement

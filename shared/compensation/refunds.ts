@@ -6,10 +6,18 @@ import { assertDistanceKm, assertOptionalBoolean } from './validation';
 
 export interface DowngradeInput {
   regime: Regime;
-  /** eu/uk: the price of the flight on which the passenger was downgraded (CJEU C-255/15 Mennens, from memory). */
+  /**
+   * eu/uk: the price of the flight on which the passenger was downgraded (CJEU C-255/15 Mennens): where the ticket does
+   * not show it, the share of the ticket price that flight's distance bears to the journey's; taxes and charges that do
+   * not depend on the class booked are left out.
+   */
   ticketPriceMinor: number;
   currency: string;
   distanceKm: number;
+  /**
+   * Intra-Community as Art. 10(2)(b) reads it: false for a flight between the European territory of the Member States
+   * and a French overseas department, which point (c) reimburses at 75 % (unlike Art. 7).
+   */
   intraCommunity?: boolean;
   /** us-dot / ca-appr: the fare of the lower class on that flight; the refund is the difference. */
   lowerClassFareMinor?: number;

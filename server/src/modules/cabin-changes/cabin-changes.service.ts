@@ -6,7 +6,8 @@ import { CABIN_RANK, type CabinChangeView, type RecordCabinChangeBody } from '@s
 import type { RegimeCode } from '@shared/schemas/common';
 import { CabinChangeEntity, PassengerEntity, StationEntity, type FlightEntity } from '../../db/entities';
 import { badRequest, conflict, notFound } from '../../http/errors';
-import { findAirport, isEuAirport, routeDistanceKm } from '../../reference/airports';
+import { findAirport, routeDistanceKm } from '../../reference/airports';
+import { art10IntraCommunity } from './art10-scope';
 import { audit } from '../audit/audit.service';
 import { refundsAfterCabinChange } from '../refunds/refunds-due';
 import { cabinChangeOwed } from './downgrade-rules';
@@ -14,8 +15,9 @@ import { cabinChangeOwed } from './downgrade-rules';
 type Cabin = keyof typeof CABIN_RANK;
 const rankOf = (cabin: string) => CABIN_RANK[cabin as Cabin] as number | undefined;
 
+/** Intra-Community as Art. 10(2)(b) reads it (not Art. 7's reading: see art10-scope.ts). */
 function intraCommunity(regime: RegimeCode, flight: FlightEntity): boolean {
-  if (regime === 'eu-261') return isEuAirport(flight.origin) && isEuAirport(flight.destination);
+  if (regime === 'eu-261') return art10IntraCommunity(flight.origin, flight.destination);
   const uk = (iata: string) => findAirport(iata)?.country === 'United Kingdom';
   return uk(flight.origin) && uk(flight.destination);
 }

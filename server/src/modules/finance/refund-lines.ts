@@ -4,7 +4,7 @@
 import type { DataSource } from 'typeorm';
 import { PAID_STATES, type ReportLine } from '@shared/schemas/finance';
 import { REFUND_PAYMENT_KINDS, REFUND_SOURCE_KINDS, RULE_REFUND_KINDS, RULE_REFUND_LABELS, type RuleRefundKind } from '@shared/schemas/refunds';
-import { COMPENSATION_FROM } from '../payments/compensation-view';
+import { COMPENSATION_FROM } from '../payments/reader';
 
 /** SQL for "this compensations row is a compensation, not a refund's payment"; its parameter is REFUND_PAYMENT_KINDS. */
 export const NOT_A_REFUND = 'c.source_kind NOT IN (?)';
