@@ -10,7 +10,7 @@ import { RebookPanel } from './rebook-panel';
 const traveller = (id: number, bookingId: number, pnr: string, firstName: string, lastName: string, status = 'checked-in') => ({
   id, bookingId, pnr, pnrSequence: 1, partySize: 2, firstName, lastName, cabin: 'Y', fareMinor: 20_000, fareCurrency: 'USD', fareType: 'standard',
   ssrCodes: [], frequentFlyerTier: null, isChild: false, inboundFlight: null, inboundEstimatedArrival: null, status, checkedInAt: null, boardedAt: null,
-  showProbability: 1, why: '',
+  showProbability: 1, why: '', seat: null,
 });
 const PASSENGERS = [traveller(1, 10, 'K7Q2XM', 'Ada', 'Okafor'), traveller(2, 10, 'K7Q2XM', 'Ben', 'Okafor'), traveller(3, 11, 'ZZ9AB1', 'Cy', 'Okafor', 'boarded')];
 const ROUND: Round = {
