@@ -4,7 +4,7 @@ import { formatMoney } from '../../../lib/format';
 
 /** The quarter by medium: owed through each, paid as its own record shows, and what is still on live cards. */
 export function ReportMediaTable({ lines }: { lines: PeriodReport['byMedium'] }) {
-  if (!lines.length) return <p className="text-ink-soft">No compensation of this quarter has a medium yet.</p>;
+  if (!lines.length) return <p className="text-ink-soft">No compensation in this quarter, so nothing by medium.</p>;
   return (
     <table className="w-full border-collapse text-left text-sm" aria-label="By medium">
       <thead className="bg-harbour-soft">
