@@ -1,6 +1,7 @@
 // The passenger's own payment pages: a prepaid card's details shown once, and the bank account a transfer goes to.
 // Both are reached from a single-use link mailed to the passenger; both ask for the booking proof first.
 import { z } from 'zod';
+import { LANGUAGES } from '../i18n/languages';
 
 /** ABA routing number check digit: 3·d1 + 7·d2 + d3 + 3·d4 + 7·d5 + d6 + 3·d7 + 7·d8 + d9 ≡ 0 (mod 10) (from memory). */
 export function abaRoutingValid(routing: string): boolean {
@@ -26,6 +27,8 @@ export const cardDetailsLinkSchema = z.object({
   amountMinor: z.number().int(),
   currency: z.string(),
   expiresAt: z.string(),
+  /** The booking's language, so the page opens in it unless the passenger picks another; null when not known. */
+  language: z.enum(LANGUAGES).nullable().optional(),
 });
 export type CardDetailsLink = z.infer<typeof cardDetailsLinkSchema>;
 
@@ -48,6 +51,8 @@ export const payoutLinkSchema = z.object({
   currency: z.string(),
   expiresAt: z.string(),
   payout: z.object({ state: z.enum(PAYOUT_STATES), accountEnding: z.string().nullable() }).nullable(),
+  /** The booking's language, so the page opens in it unless the passenger picks another; null when not known. */
+  language: z.enum(LANGUAGES).nullable().optional(),
 });
 export type PayoutLink = z.infer<typeof payoutLinkSchema>;
 

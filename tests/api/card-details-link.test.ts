@@ -27,6 +27,13 @@ async function issuedCard() {
 }
 
 describe('the card-details link', () => {
+  it('tells the page the booking\'s language, so it opens in it', async () => {
+    const { comp, token } = await issuedCard();
+    expect((await publicPost(w, '/card-details/status', { token })).body.language).toBeNull();
+    await w.app.db.query('UPDATE bookings b JOIN passengers p ON p.booking_id = b.id SET b.language = ? WHERE p.id = ?', ['it', comp.passengerId]);
+    expect((await publicPost(w, '/card-details/status', { token })).body.language).toBe('it');
+  });
+
   it('shows the full details once, to the holder of the booking proof, and never again', async () => {
     const { comp, card, proof, token } = await issuedCard();
     const status = await publicPost(w, '/card-details/status', { token });

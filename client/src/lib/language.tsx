@@ -1,6 +1,6 @@
 // The language a screen speaks, on react-intl with the shared catalogues (the server renders mails from the same
 // ones). Staff screens are in English; the passenger's page picks the passenger's language and can switch.
-import { createContext, useCallback, useContext, useMemo, useState, type ReactNode } from 'react';
+import { createContext, useCallback, useContext, useEffect, useMemo, useState, type ReactNode } from 'react';
 import { IntlProvider, useIntl } from 'react-intl';
 import { formatMoney, userLocale } from './money';
 import { CATALOGUES, LOCALE_OF, isLanguage, pickLanguage, translator, type Language, type MessageKey, type MessageValues, type Translator } from '@shared/i18n';
@@ -88,4 +88,12 @@ export function useMoney(): (amountMinor: number, currency: string) => string {
   const browser = userLocale();
   const locale = browser.toLowerCase().split('-')[0] === language ? browser : LOCALE_OF[language];
   return useCallback((amountMinor: number, currency: string) => formatMoney(amountMinor, currency, locale), [locale]);
+}
+
+/** Opens the page in the booking's language once the server says it, unless the passenger already picked one here. */
+export function useBookingLanguage(language: Language | null | undefined) {
+  const { suggest } = useLanguage();
+  useEffect(() => {
+    if (language) suggest(language);
+  }, [language, suggest]);
 }

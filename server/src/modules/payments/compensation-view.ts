@@ -16,7 +16,7 @@ export const COMPENSATION_FROM = `
 
 export const COMPENSATION_COLUMNS = `
   c.id, c.station_id, s.iata AS station_iata, s.name AS station_name, c.flight_id, f.carrier_code, f.flight_number,
-  DATE_FORMAT(f.service_date, '%Y-%m-%d') AS service_date, c.passenger_id, p.first_name, p.last_name, b.pnr, b.contact_email,
+  DATE_FORMAT(f.service_date, '%Y-%m-%d') AS service_date, c.passenger_id, p.first_name, p.last_name, b.pnr, b.contact_email, b.language AS booking_language,
   c.source_kind, c.regime, c.voluntary, c.band, c.rule_ref, c.form, c.medium, c.due_by, c.amount_minor, c.currency, c.state, c.last_error,
   c.void_reason, c.voucher_agreed_at, c.created_at, c.updated_at, c.provider_card_id, c.provider_cardholder_id,
   pc.status AS pc_status, pc.limit_minor AS pc_limit_minor, pc.spent_minor AS pc_spent_minor, pc.currency AS pc_currency, pc.last4 AS pc_last4,
@@ -61,6 +61,8 @@ export interface CompensationRow {
   pc_last4: string | null;
   pc_exp_month: number | null;
   pc_exp_year: number | null;
+  /** The language the booking reads notices in; null when the booking system did not say. */
+  booking_language: string | null;
 }
 
 export function passengerNameOf(row: Pick<CompensationRow, 'first_name' | 'last_name'>): string {

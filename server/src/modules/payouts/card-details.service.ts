@@ -8,12 +8,12 @@ import { conflict, HttpError } from '../../http/errors';
 import { audit } from '../audit/audit.service';
 import { compensationRow } from '../payments/compensation-view';
 import { PASSENGER_ACTOR, type PaymentsContext } from '../payments/payments-context';
-import { countWrongTry, findLink, linkState, markUsed, proofMatches, refuseUnlessReady, wrongProof } from './payment-links';
+import { bookingLanguage, countWrongTry, findLink, linkState, markUsed, proofMatches, refuseUnlessReady, wrongProof } from './payment-links';
 
 export async function cardLinkStatus(ctx: PaymentsContext, token: string): Promise<CardDetailsLink> {
   const link = await findLink(ctx.db.manager, token, 'card-details');
   const row = await compensationRow(ctx.db, link.compensationId);
-  return { state: linkState(link, ctx.now()), flight: `${row.carrier_code} ${row.flight_number}`, amountMinor: row.amount_minor, currency: row.currency, expiresAt: link.expiresAt.toISOString() };
+  return { state: linkState(link, ctx.now()), flight: `${row.carrier_code} ${row.flight_number}`, amountMinor: row.amount_minor, currency: row.currency, expiresAt: link.expiresAt.toISOString(), language: bookingLanguage(row.booking_language) };
 }
 
 type Outcome = { kind: 'shown'; details: CardDetails } | { kind: 'wrong'; triesLeft: number };

@@ -5,6 +5,7 @@
 import { createHash, randomBytes } from 'node:crypto';
 import type { EntityManager } from 'typeorm';
 import type { BookingProof } from '@shared/schemas/payouts';
+import { isLanguage, type Language } from '@shared/i18n/languages';
 import { PaymentLinkEntity, type PaymentLinkPurpose } from '../../db/entities';
 import { HttpError } from '../../http/errors';
 import type { CompensationRow } from '../payments/compensation-view';
@@ -79,4 +80,9 @@ export function wrongProof(triesLeft: number): HttpError {
 
 export async function markUsed(em: EntityManager, link: PaymentLinkEntity, now: number): Promise<void> {
   await em.update(PaymentLinkEntity, { id: link.id }, { usedAt: new Date(now) });
+}
+
+/** The booking's language for the link's page to open in; the page's switch still lets the passenger pick. */
+export function bookingLanguage(stored: string | null): Language | null {
+  return isLanguage(stored) ? stored : null;
 }

@@ -13,7 +13,7 @@ import { enqueueMessage } from '../outbox/outbox.service';
 import { compensationRow, passengerNameOf } from '../payments/compensation-view';
 import { NO_EFFECTS, recordRefused, type Effects } from '../payments/issuance-record';
 import { applyEffects, PASSENGER_ACTOR, WORKER_ACTOR, type PaymentsContext } from '../payments/payments-context';
-import { countWrongTry, createLink, findLink, linkState, markUsed, proofMatches, refuseUnlessReady, wrongProof } from './payment-links';
+import { bookingLanguage, countWrongTry, createLink, findLink, linkState, markUsed, proofMatches, refuseUnlessReady, wrongProof } from './payment-links';
 import { payoutLinkNotice } from './payout-notices';
 import { transferCurrencyProblem } from './transfer-currencies';
 import { recordTransferSent } from './payout-record';
@@ -107,6 +107,7 @@ export async function payoutLinkStatus(ctx: PaymentsContext, token: string): Pro
   return {
     state: linkState(link, ctx.now()), flight: `${row.carrier_code} ${row.flight_number}`, amountMinor: row.amount_minor, currency: row.currency,
     expiresAt: link.expiresAt.toISOString(), payout: payout ? { state: payout.state, accountEnding: payout.accountLast4 } : null,
+    language: bookingLanguage(row.booking_language),
   };
 }
 

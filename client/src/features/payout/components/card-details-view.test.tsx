@@ -81,4 +81,10 @@ describe('the card-details page', () => {
     // CLDR French money (from memory): decimal comma, the code after the amount.
     expect(screen.getByText(/450,00/)).toHaveTextContent('vol ZZ 105');
   });
+
+  it('opens in the booking’s language when the link says it, from an English start', async () => {
+    linkAnswer = [200, { ...LINK, language: 'de' }];
+    show('en');
+    expect(await screen.findByRole('button', { name: 'Meine Kartendaten anzeigen' })).toBeInTheDocument();
+  });
 });

@@ -1,7 +1,7 @@
 import { useId, useState, type FormEvent } from 'react';
 import { useQuery } from '@tanstack/react-query';
 import { bookingProofSchema, type CardDetails } from '@shared/schemas/payouts';
-import { useMoney, useT } from '../../../lib/language';
+import { useBookingLanguage, useMoney, useT } from '../../../lib/language';
 import { cardLinkQueryOptions, LinkRequestError, useRevealCard } from '../api/passenger-payments';
 import { cardWords } from '../model/card-words';
 import { BigButton, BOX, LinkProblem, linkProblemOf, Problem } from './passenger-frame';
@@ -42,6 +42,7 @@ function Details({ details }: { details: CardDetails }) {
 /** The card-details page: the link's state, then the booking proof, then the details once. */
 export function CardDetailsView({ token }: { token: string }) {
   const status = useQuery(cardLinkQueryOptions(token));
+  useBookingLanguage(status.data?.language);
   const reveal = useRevealCard(token);
   const [pnr, setPnr] = useState('');
   const [lastName, setLastName] = useState('');

@@ -1,7 +1,7 @@
 import { useId, useState, type FormEvent } from 'react';
 import { useQuery } from '@tanstack/react-query';
 import { payoutDetailsBodySchema } from '@shared/schemas/payouts';
-import { useMoney, useT } from '../../../lib/language';
+import { useBookingLanguage, useMoney, useT } from '../../../lib/language';
 import { LinkRequestError, payoutLinkQueryOptions, useGiveAccount } from '../api/passenger-payments';
 import { payoutWords } from '../model/payout-words';
 import { BigButton, BOX, LinkProblem, linkProblemOf, Problem } from './passenger-frame';
@@ -13,6 +13,7 @@ const INPUT_MODE: Partial<Record<Field, 'numeric'>> = { routingNumber: 'numeric'
 /** The bank-transfer page: the link's state, then the booking proof and the passenger's own account, once. */
 export function PayoutView({ token }: { token: string }) {
   const status = useQuery(payoutLinkQueryOptions(token));
+  useBookingLanguage(status.data?.language);
   const give = useGiveAccount(token);
   const [values, setValues] = useState<Record<Field, string>>({ pnr: '', lastName: '', holderName: '', routingNumber: '', accountNumber: '', accountNumberAgain: '' });
   const [accountType, setAccountType] = useState<'checking' | 'savings'>('checking');
