@@ -434,6 +434,7 @@ export const ROUTES: readonly RouteRow[] = [
   },
   // Cabin changes: the desk records and lists them.
   { method: 'GET', pattern: '/api/flights/:flightId/cabin-changes', access: ['agent', 'supervisor'], call: (ctx, scope) => ({ url: `/api/flights/${flightOf(ctx, scope)}/cabin-changes` }), success: 200, otherStation: 404 },
+  { method: 'GET', pattern: '/api/flights/:flightId/refunds', access: ['agent', 'supervisor'], call: (ctx, scope) => ({ url: `/api/flights/${flightOf(ctx, scope)}/refunds` }), success: 200, otherStation: 404 },
   {
     method: 'POST',
     pattern: '/api/flights/:flightId/cabin-changes',
