@@ -18,6 +18,11 @@ afterAll(async () => {
 const ROUTING = '110000000';
 const account = (p: { pnr: string; lastName: string }, token: string, n: string) => ({ token, ...p, holderName: 'Ana Tester', routingNumber: ROUTING, accountNumber: n, accountNumberAgain: n, accountType: 'checking' });
 
+async function deskView(row: { id: number; flightId: number }) {
+  const res = await w.agent.get(`/api/flights/${row.flightId}/compensations`).expect(200);
+  return (res.body.compensations as { id: number; payment: { passengerLink: unknown } }[]).find((c) => c.id === row.id)!;
+}
+
 async function transferDue() {
   const { rows: [row], proofOf } = await dueAt(w, 1, () => ({ medium: 'bank-transfer' }));
   await w.agent.post(`/api/compensations/${row.id}/issue`).expect(200);
@@ -47,19 +52,23 @@ describe('a new passenger link from the desk', () => {
     expect(audits).toHaveLength(1);
     expect(audits[0].actorLabel).toContain('@');
     expect(audits[0].after).toMatchObject({ purpose: 'payout' });
-    // The account is given: a new link would take nothing.
+    // The account is given: a new link would take nothing, and the desk's card says so before anyone asks.
+    expect((await deskView(row)).payment.passengerLink).toMatchObject({ purpose: 'payout', state: 'used', replaceable: false });
     expect((await w.agent.post(`/api/compensations/${row.id}/new-link`).expect(409)).body.error).toBe('link_job_done');
   });
 
   it('replaces a locked card-details link; the new one shows the details once, then no new link is sent', async () => {
     const { row, proof, token: old } = await cardIssued();
+    expect((await deskView(row)).payment.passengerLink).toMatchObject({ purpose: 'card-details', state: 'ready', replaceable: true });
     for (let i = 0; i < 5; i += 1) await publicPost(w, '/card-details/reveal', { token: old, pnr: proof.pnr, lastName: 'Wrongname' });
     expect((await publicPost(w, '/card-details/reveal', { token: old, ...proof })).status).toBe(423);
+    expect((await deskView(row)).payment.passengerLink).toMatchObject({ state: 'locked', replaceable: true });
     expect((await w.agent.post(`/api/compensations/${row.id}/new-link`).expect(200)).body.link.purpose).toBe('card-details');
     const fresh = await linkToken(w, row.id, 'card');
     expect(fresh).not.toBe(old);
     expect((await publicPost(w, '/card-details/reveal', { token: fresh, ...proof })).status).toBe(200);
     expect((await publicPost(w, '/card-details/reveal', { token: fresh, ...proof })).status).toBe(410);
+    expect((await deskView(row)).payment.passengerLink).toMatchObject({ state: 'used', replaceable: false });
     const refused = await w.agent.post(`/api/compensations/${row.id}/new-link`).expect(409);
     expect(refused.body).toMatchObject({ error: 'link_job_done' });
     expect(refused.body.message).toMatch(/already shown/);
@@ -79,5 +88,6 @@ describe('a new passenger link from the desk', () => {
   it('refuses a compensation with no passenger link (not issued yet)', async () => {
     const { rows: [row] } = await dueAt(w, 1, () => ({ medium: 'bank-transfer' }));
     expect((await w.agent.post(`/api/compensations/${row.id}/new-link`).expect(409)).body.error).toBe('no_passenger_link');
+    expect((await deskView(row)).payment.passengerLink).toBeNull();
   });
 });

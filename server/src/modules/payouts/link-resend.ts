@@ -3,15 +3,17 @@
 // to now, so an old mail answers "expired"), a new link is made and mailed through the outbox, and the staff member
 // is audited. Refused once the link's job is done (the card's details were shown, the account was given), because
 // a new link would then either reveal a card twice or take a second account for the same money.
+import { In, type DataSource } from 'typeorm';
 import type { SessionUser } from '@shared/schemas/auth';
+import type { PassengerLinkView } from '@shared/schemas/payment-media';
 import { AuditLogEntity, CompensationEntity, PaymentLinkEntity, PayoutEntity, type PaymentLinkPurpose } from '../../db/entities';
-import { conflict, notFound, tooManyRequests } from '../../http/errors';
+import { conflict, HttpError, notFound, tooManyRequests } from '../../http/errors';
 import { canSeeStation } from '../../http/require-role';
 import { audit } from '../audit/audit.service';
 import { enqueueMessage } from '../outbox/outbox.service';
 import { compensationRow, passengerNameOf } from '../payments/compensation-view';
 import { applyEffects, type PaymentsContext } from '../payments/payments-context';
-import { createLink } from './payment-links';
+import { createLink, linkState } from './payment-links';
 import { cardLinkNotice, payoutLinkNotice } from './payout-notices';
 
 /**
@@ -30,9 +32,43 @@ export interface NewLinkResult {
 
 /** Which link this compensation's current payment attempt uses: a payout for a bank transfer, else the card's page. */
 function purposeOf(comp: CompensationEntity, payout: PayoutEntity | null): PaymentLinkPurpose | null {
+  if (!comp.idempotencyKey) return null;
   if (payout) return 'payout';
   if (comp.providerCardId && ['issued', 'settled'].includes(comp.state)) return 'card-details';
   return null;
+}
+
+/**
+ * The one check, for the desk's button and for the action: why this compensation's link may not be replaced, or
+ * null when it may. `links` are the compensation's links of that purpose.
+ */
+export function replaceRefusal(comp: CompensationEntity, payout: PayoutEntity | null, links: readonly PaymentLinkEntity[]): HttpError | null {
+  const purpose = purposeOf(comp, payout);
+  if (!purpose) return conflict('no_passenger_link', 'This compensation has no passenger link to replace: only a bank transfer waiting for the account, or an issued prepaid card, has one.');
+  if (purpose === 'payout' && payout!.state !== 'awaiting-details') {
+    return conflict('link_job_done', 'The passenger already gave their bank account for this payment, so a new link would take nothing. A lost transfer is re-issued instead.');
+  }
+  if (links.some((l) => l.attemptKey === comp.idempotencyKey && l.usedAt)) {
+    return conflict('link_job_done', 'The card details were already shown to the passenger once; for their safety they are not shown again. A lost card is voided and re-issued instead.');
+  }
+  return null;
+}
+
+/** For the desk: each compensation's current passenger link, where it stands, and whether the desk may replace it. */
+export async function passengerLinks(db: DataSource, ids: number[], now: number): Promise<Map<number, PassengerLinkView>> {
+  const out = new Map<number, PassengerLinkView>();
+  if (!ids.length) return out;
+  const comps = await db.getRepository(CompensationEntity).findBy({ id: In(ids) });
+  const allLinks = await db.getRepository(PaymentLinkEntity).find({ where: { compensationId: In(ids) }, order: { id: 'ASC' } });
+  for (const comp of comps) {
+    const payout = comp.idempotencyKey ? await db.getRepository(PayoutEntity).findOneBy({ attemptKey: comp.idempotencyKey }) : null;
+    const purpose = purposeOf(comp, payout);
+    const links = allLinks.filter((l) => l.compensationId === comp.id && l.purpose === purpose);
+    const current = links.filter((l) => l.attemptKey === comp.idempotencyKey).at(-1);
+    if (!purpose || !current) continue;
+    out.set(comp.id, { purpose, state: linkState(current, now), expiresAt: current.expiresAt.toISOString(), replaceable: replaceRefusal(comp, payout, links) === null });
+  }
+  return out;
 }
 
 export async function sendNewLink(ctx: PaymentsContext, user: SessionUser, id: number): Promise<NewLinkResult> {
@@ -41,17 +77,10 @@ export async function sendNewLink(ctx: PaymentsContext, user: SessionUser, id: n
     if (!comp || !canSeeStation(user, comp.stationId)) throw notFound('Compensation');
     const attemptKey = comp.idempotencyKey;
     const payout = attemptKey ? await em.findOneBy(PayoutEntity, { attemptKey }) : null;
-    const purpose = attemptKey ? purposeOf(comp, payout) : null;
-    if (!attemptKey || !purpose) {
-      throw conflict('no_passenger_link', 'This compensation has no passenger link to replace: only a bank transfer waiting for the account, or an issued prepaid card, has one.');
-    }
-    if (purpose === 'payout' && payout!.state !== 'awaiting-details') {
-      throw conflict('link_job_done', 'The passenger already gave their bank account for this payment, so a new link would take nothing. A lost transfer is re-issued instead.');
-    }
-    const links = await em.find(PaymentLinkEntity, { where: { compensationId: id, purpose }, lock: { mode: 'pessimistic_write' } });
-    if (links.some((l) => l.attemptKey === attemptKey && l.usedAt)) {
-      throw conflict('link_job_done', 'The card details were already shown to the passenger once; for their safety they are not shown again. A lost card is voided and re-issued instead.');
-    }
+    const purpose = purposeOf(comp, payout);
+    const links = purpose ? await em.find(PaymentLinkEntity, { where: { compensationId: id, purpose }, lock: { mode: 'pessimistic_write' } }) : [];
+    const refusal = replaceRefusal(comp, payout, links);
+    if (refusal || !purpose || !attemptKey) throw refusal ?? new Error('a link purpose always has its payment attempt');
     const now = ctx.now();
     // Counted by the app's clock, which the link expiries use too; the first link (mailed at issue) does not count.
     const sent = await em.findBy(AuditLogEntity, { entityType: 'compensation', entityId: String(id), action: 'compensation.link_resent' });
