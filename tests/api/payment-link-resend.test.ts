@@ -43,9 +43,11 @@ describe('a new passenger link from the desk', () => {
     expect(res.body.link.purpose).toBe('payout');
     const fresh = await linkToken(w, row.id, 'payout');
     expect(fresh).not.toBe(old);
-    // Mailed through the outbox, the page marked in the booking's language.
-    const [mail]: { html: string }[] = await w.app.db.query('SELECT html FROM outbox_messages WHERE text LIKE ?', [`%/payout/${fresh}%`]);
+    // Mailed through the outbox in the booking's language.
+    const [mail]: { html: string; text: string; subject: string }[] = await w.app.db.query('SELECT html, text, subject FROM outbox_messages WHERE text LIKE ?', [`%/payout/${fresh}%`]);
     expect(mail.html).toContain('<html lang="de">');
+    expect(mail.subject).toMatch(/^Ein neuer Link für Ihre Entschädigung/);
+    expect(mail.text).toContain('Frühere Links funktionieren nicht mehr');
     expect(await publicPost(w, '/payout/account', account(proof, old, '000123456789'))).toMatchObject({ status: 410, body: { error: 'link_expired' } });
     expect(await publicPost(w, '/payout/account', account(proof, fresh, '000123456789'))).toMatchObject({ status: 200, body: { accountEnding: '6789' } });
     const audits = await w.app.db.getRepository(AuditLogEntity).findBy({ entityType: 'compensation', entityId: String(row.id), action: 'compensation.link_resent' });

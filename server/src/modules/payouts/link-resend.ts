@@ -14,7 +14,7 @@ import { enqueueMessage } from '../outbox/outbox.service';
 import { compensationRow, passengerNameOf } from '../payments/compensation-view';
 import { applyEffects, type PaymentsContext } from '../payments/payments-context';
 import { createLink, linkState } from './payment-links';
-import { cardLinkNotice, payoutLinkNotice } from './payout-notices';
+import { newLinkNotice } from './payout-notices';
 
 /**
  * New links a compensation may get per purpose in any hour: enough for a passenger who lost two mails, few enough
@@ -97,7 +97,7 @@ export async function sendNewLink(ctx: PaymentsContext, user: SessionUser, id: n
       passengerName: passengerNameOf(row), flight: `${row.carrier_code} ${row.flight_number}`, serviceDate: row.service_date,
       amountMinor: comp.amountMinor, currency: comp.currency, url: link.url, expiresAt: link.expiresAt, compensationId: id, language: row.booking_language,
     };
-    const notice = purpose === 'payout' ? payoutLinkNotice(words) : cardLinkNotice(words);
+    const notice = newLinkNotice({ ...words, purpose });
     const [made]: { n: number | string }[] = await em.query('SELECT COUNT(*) AS n FROM payment_links WHERE compensation_id = ? AND purpose = ?', [id, purpose]);
     await enqueueMessage(em, {
       stationId: comp.stationId, flightId: comp.flightId, passengerIds: [comp.passengerId], kind: 'compensation-receipt', to: row.contact_email,

@@ -13,7 +13,7 @@ export interface PayoutLinkInput {
   url: string;
   expiresAt: Date;
   compensationId: number;
-  /** The booking's language: the caution and the page's lang follow it (the body's words are English for now). */
+  /** The booking's language (a new link's mail is written in it; English when absent or unknown). */
   language?: string | null;
 }
 
@@ -27,19 +27,27 @@ export function payoutLinkNotice(input: PayoutLinkInput): Notice {
     { kind: 'paragraph', text: `Please open this link on your phone and enter your bank account there: ${input.url}` },
     { kind: 'paragraph', text: 'The link works once, until the time below. We will never ask for your bank details by e-mail or telephone, and staff never type them for you.' },
     { kind: 'facts', rows: [['Amount', amount], ['Link valid until', `${input.expiresAt.toISOString().slice(0, 16).replace('T', ' ')} UTC`], ['Reference', `C-${input.compensationId}`]] },
-  ], translatorFor(input.language));
+  ]);
 }
 
-/** A new card-details link the desk sent: the card's full details are on the page, never in the mail. */
-export function cardLinkNotice(input: PayoutLinkInput): Notice {
-  const amount = formatMoneyMinor('amount', { amountMinor: input.amountMinor, currency: input.currency });
-  return renderNotice(`Your compensation card for flight ${input.flight}: a new link to see its details`, [
-    { kind: 'paragraph', text: `Dear ${input.passengerName},` },
-    { kind: 'paragraph', text: `Here is a new link to see the full details of your prepaid card of ${amount} for flight ${input.flight} on ${input.serviceDate}. Any earlier link no longer works.` },
-    { kind: 'paragraph', text: `Please open it on your phone: ${input.url}` },
-    { kind: 'paragraph', text: 'The link shows the card number and security code once, until the time below, after you confirm your booking reference and last name. We never send card numbers by e-mail.' },
-    { kind: 'facts', rows: [['Amount', amount], ['Link valid until', `${input.expiresAt.toISOString().slice(0, 16).replace('T', ' ')} UTC`], ['Reference', `C-${input.compensationId}`]] },
-  ], translatorFor(input.language));
+/**
+ * The new link the desk sent, payout or card details, all in the booking's language: what it is for, that older
+ * links stopped working, and the same safety words as the first mail. Never a card or account number.
+ */
+export function newLinkNotice(input: PayoutLinkInput & { purpose: 'payout' | 'card-details' }): Notice {
+  const tr = translatorFor(input.language);
+  const amount = tr.money('amount', { amountMinor: input.amountMinor, currency: input.currency });
+  const card = input.purpose === 'card-details';
+  return renderNotice(tr.t('notice.newLink.subject', { flight: input.flight }), [
+    { kind: 'paragraph', text: tr.t('notice.greeting', { names: input.passengerName }) },
+    { kind: 'paragraph', text: tr.t(card ? 'notice.newLink.card' : 'notice.newLink.payout', { amount, flight: input.flight, date: input.serviceDate }) },
+    { kind: 'paragraph', text: tr.t('notice.newLink.open', { url: input.url }) },
+    { kind: 'paragraph', text: tr.t(card ? 'notice.newLink.cardSafety' : 'notice.newLink.payoutSafety') },
+    {
+      kind: 'facts',
+      rows: [[tr.t('notice.newLink.amount'), amount], [tr.t('notice.newLink.validUntil'), `${input.expiresAt.toISOString().slice(0, 16).replace('T', ' ')} UTC`], [tr.t('notice.newLink.reference'), `C-${input.compensationId}`]],
+    },
+  ], tr);
 }
 
 export interface TransferReceiptInput {
