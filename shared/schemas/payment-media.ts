@@ -90,11 +90,24 @@ export const counterPaymentViewSchema = z.object({
   receiptText: z.string(),
 });
 
+/** The passenger's current payout or card-details link: where it stands, and whether the desk may send a new one. */
+export const passengerLinkViewSchema = z.object({
+  purpose: z.enum(['payout', 'card-details']),
+  state: z.enum(['ready', 'used', 'expired', 'locked']),
+  expiresAt: z.string(),
+  replaceable: z.boolean(),
+});
+export type PassengerLinkView = z.infer<typeof passengerLinkViewSchema>;
+/** The answer to the desk's "send a new link": which link went out and until when it works. */
+export const newLinkResponseSchema = z.object({ link: z.object({ purpose: z.enum(['payout', 'card-details']), expiresAt: z.string() }) });
+
 /** What the desk needs beside the compensation itself to choose a medium and pay. */
 export const paymentMediaViewSchema = z.object({
   terms: paymentTermsViewSchema,
   agreement: agreementViewSchema.nullable(),
   counterPayment: counterPaymentViewSchema.nullable(),
+  /** Absent when the compensation has no passenger link (nothing issued, or paid at the counter). */
+  passengerLink: passengerLinkViewSchema.nullable().optional(),
 });
 export type PaymentMediaView = z.infer<typeof paymentMediaViewSchema>;
 

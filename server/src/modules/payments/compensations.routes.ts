@@ -16,6 +16,7 @@ import { offerVoucher, paymentInfoFor } from './voucher.service';
 import { chooseMedium, recordDeskAgreement } from '../agreements/agreement.service';
 import { payAtCounter, receiptFor } from '../counter-payments/counter-payment.service';
 import { recordActualArrival } from '../compensations/top-up';
+import { sendNewLink } from '../payouts/link-resend';
 
 const flightParams = z.object({ flightId: z.coerce.number().int().positive('flightId must be positive') });
 const agent = requireRole('agent');
@@ -71,6 +72,13 @@ export function compensationsRouter(ctx: PaymentsContext, issuer: Issuer) {
     const top = await recordActualArrival(ctx.db, currentUser(req), id, parse(actualArrivalBodySchema, req.body).arrivalDelayMinutes);
     if (top) ctx.changed(top.flightId, top.stationId, ['compensations']);
     res.json({ topUp: top ? presentCompensation(await compensationRow(ctx.db, top.id)) : null });
+  });
+
+  // A fresh payout or card-details link for the passenger; every older live link of that kind stops working.
+  r.post('/compensations/:id/new-link', agent, async (req, res) => {
+    const id = idOf(req);
+    const link = await sendNewLink(ctx, currentUser(req), id);
+    res.json({ link: { purpose: link.purpose, expiresAt: link.expiresAt }, ...(await answer(id)) });
   });
 
   r.get('/compensations/:id/receipt', requireRole('agent', 'finance'), async (req, res) => {

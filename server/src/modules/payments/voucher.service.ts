@@ -17,6 +17,7 @@ import { compensationRow, passengerNameOf, type CompensationRow } from './compen
 import { voucherOffer } from './payment-notices';
 import { termsView } from './voucher-rules';
 import { OWED_STATES } from '../compensations/payment-deadlines';
+import { passengerLinks } from '../payouts/link-resend';
 
 type VoucherTerms = z.infer<typeof voucherTermsSchema>;
 type VoucherOfferResult = z.infer<typeof voucherOfferResponseSchema>['offer'];
@@ -36,7 +37,7 @@ export async function paymentInfoFor(db: DataSource, rows: CompensationRow[]): P
   const out = new Map<number, DeskPaymentInfo>();
   if (!rows.length) return out;
   const ids = rows.map((r) => r.id);
-  const [offers, agreements, counter] = await Promise.all([byCompensation(db, VoucherOfferEntity, ids), byCompensation(db, PaymentAgreementEntity, ids), byCompensation(db, CounterPaymentEntity, ids)]);
+  const [offers, agreements, counter, links] = await Promise.all([byCompensation(db, VoucherOfferEntity, ids), byCompensation(db, PaymentAgreementEntity, ids), byCompensation(db, CounterPaymentEntity, ids), passengerLinks(db, ids, Date.now())]);
   const stations = new Map<number, { zone: string; restrictions: string[] }>();
   for (const row of rows) {
     if (!stations.has(row.station_id)) {
@@ -70,6 +71,7 @@ export async function paymentInfoFor(db: DataSource, rows: CompensationRow[]): P
         counterPayment: paid
           ? { medium: paid.medium, drawerId: paid.drawerId, chequeNumber: paid.chequeNumber, amountMinor: paid.amountMinor, currency: paid.currency, paidAt: paid.paidAt.toISOString(), paidByUserId: paid.paidByUserId, receiptText: paid.receiptText }
           : null,
+        passengerLink: links.get(row.id) ?? null,
       },
     });
   }

@@ -1,6 +1,7 @@
 // The passenger's mails of a bank transfer: the link to give their account (never asking for it by mail), and the
 // receipt once the transfer has left. Neither carries an account or card number; the receipt names the last four.
 import { formatMoneyMinor } from '../../notices/format';
+import { translator, isLanguage } from '@shared/i18n';
 import { renderNotice, type Notice } from '../../notices/notice';
 
 export interface PayoutLinkInput {
@@ -12,7 +13,11 @@ export interface PayoutLinkInput {
   url: string;
   expiresAt: Date;
   compensationId: number;
+  /** The booking's language (a new link's mail is written in it; English when absent or unknown). */
+  language?: string | null;
 }
+
+const translatorFor = (language: string | null | undefined) => translator(isLanguage(language) ? language : 'en');
 
 export function payoutLinkNotice(input: PayoutLinkInput): Notice {
   const amount = formatMoneyMinor('amount', { amountMinor: input.amountMinor, currency: input.currency });
@@ -23,6 +28,26 @@ export function payoutLinkNotice(input: PayoutLinkInput): Notice {
     { kind: 'paragraph', text: 'The link works once, until the time below. We will never ask for your bank details by e-mail or telephone, and staff never type them for you.' },
     { kind: 'facts', rows: [['Amount', amount], ['Link valid until', `${input.expiresAt.toISOString().slice(0, 16).replace('T', ' ')} UTC`], ['Reference', `C-${input.compensationId}`]] },
   ]);
+}
+
+/**
+ * The new link the desk sent, payout or card details, all in the booking's language: what it is for, that older
+ * links stopped working, and the same safety words as the first mail. Never a card or account number.
+ */
+export function newLinkNotice(input: PayoutLinkInput & { purpose: 'payout' | 'card-details' }): Notice {
+  const tr = translatorFor(input.language);
+  const amount = tr.money('amount', { amountMinor: input.amountMinor, currency: input.currency });
+  const card = input.purpose === 'card-details';
+  return renderNotice(tr.t('notice.newLink.subject', { flight: input.flight }), [
+    { kind: 'paragraph', text: tr.t('notice.greeting', { names: input.passengerName }) },
+    { kind: 'paragraph', text: tr.t(card ? 'notice.newLink.card' : 'notice.newLink.payout', { amount, flight: input.flight, date: input.serviceDate }) },
+    { kind: 'paragraph', text: tr.t('notice.newLink.open', { url: input.url }) },
+    { kind: 'paragraph', text: tr.t(card ? 'notice.newLink.cardSafety' : 'notice.newLink.payoutSafety') },
+    {
+      kind: 'facts',
+      rows: [[tr.t('notice.newLink.amount'), amount], [tr.t('notice.newLink.validUntil'), `${input.expiresAt.toISOString().slice(0, 16).replace('T', ' ')} UTC`], [tr.t('notice.newLink.reference'), `C-${input.compensationId}`]],
+    },
+  ], tr);
 }
 
 export interface TransferReceiptInput {

@@ -1,7 +1,7 @@
 import { queryOptions, useMutation, useQueryClient } from '@tanstack/react-query';
 import type { z } from 'zod';
 import { compensationResponseSchema, deskCompensationsResponseSchema, voucherOfferResponseSchema } from '@shared/schemas/finance';
-import { receiptResponseSchema, type AgreementBody, type CounterPaymentBody } from '@shared/schemas/payment-media';
+import { newLinkResponseSchema, receiptResponseSchema, type AgreementBody, type CounterPaymentBody } from '@shared/schemas/payment-media';
 import type { Medium } from '@shared/compensation/media';
 import { alertKeys } from '../../../lib/alert-keys';
 import { api } from '../../../lib/api-client';
@@ -57,3 +57,7 @@ export const receiptQueryOptions = (id: number) =>
 /** A payment refused, voided or canceled leaves the passenger owed: the desk starts a new one, with the reason. */
 export const useReissueCompensation = (flightId: number) =>
   useFlightMutation(flightId, ({ id, reason }: { id: number; reason: string }) => api.post(`/compensations/${id}/reissue`, compensationResponseSchema, { reason }));
+
+/** A fresh payout or card-details link mailed to the passenger; the older one stops working. */
+export const useSendNewLink = (flightId: number) =>
+  useFlightMutation(flightId, (id: number) => api.post(`/compensations/${id}/new-link`, newLinkResponseSchema));

@@ -10,6 +10,7 @@ import { kindLabel, STATE_LOOK, TONE_CLASS } from '../model/words';
 import { AgreementForm } from './agreement-form';
 import { CounterPaymentForm } from './counter-payment-form';
 import { MediumChoice } from './medium-choice';
+import { NewLinkButton } from './new-link-button';
 import { Problem } from './problem';
 import { ReceiptDialog } from './receipt-dialog';
 import { ReissueForm } from './reissue-form';
@@ -94,6 +95,7 @@ export function CompensationCard({ flightId, compensation: c }: { flightId: numb
           <Problem error={issue.error} />
         </div>
       )}
+      {c.payment.passengerLink && <NewLinkButton flightId={flightId} compensationId={c.id} link={c.payment.passengerLink} timeZone={c.payment.terms.timeZone} />}
       {isPaymentLost(c.state) && c.amountMinor > 0 && <ReissueForm flightId={flightId} compensationId={c.id} amount={amount} />}
       {(step === 'paid-counter' || c.payment.agreement) && (
         <div className="mt-4">
