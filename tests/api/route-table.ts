@@ -402,6 +402,8 @@ export const ROUTES: readonly RouteRow[] = [
   { method: 'POST', pattern: '/api/compensations/:id/issue', access: ['agent'], call: (ctx, scope) => ({ url: `/api/compensations/${scope === 'own' ? ctx.payments.issuedId : ctx.payments.other.compensationId}/issue` }), success: 200, otherStation: 404 },
   { method: 'POST', pattern: '/api/compensations/:id/voucher-offer', access: ['agent'], call: (ctx, scope) => ({ url: `/api/compensations/${scope === 'own' ? ctx.payments.dueId : ctx.payments.other.compensationId}/voucher-offer` }), success: 200, otherStation: 404 },
   { method: 'POST', pattern: '/api/compensations/:id/medium', access: ['agent'], call: (ctx, scope) => ({ url: `/api/compensations/${scope === 'own' ? ctx.payments.dueId : ctx.payments.other.compensationId}/medium`, body: { medium: 'prepaid-card' } }), success: 200, otherStation: 404 },
+  // A compensation not issued yet has no passenger link to replace: past the role and station checks, refused on its state.
+  { method: 'POST', pattern: '/api/compensations/:id/new-link', access: ['agent'], call: (ctx, scope) => ({ url: `/api/compensations/${scope === 'own' ? ctx.payments.dueId : ctx.payments.other.compensationId}/new-link` }), success: 409, otherStation: 404 },
   // A schema-valid agreement whose text is not the one for this compensation: past the role check, refused on its text.
   {
     method: 'POST',
