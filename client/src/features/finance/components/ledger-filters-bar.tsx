@@ -13,12 +13,13 @@ const LABELS: Record<string, string> = { stationId: 'Station', from: 'Flights fr
 /** What the server would refuse in these filters, checked with the same schema before asking. */
 const refusedFilters = (f: LedgerFilters): FieldProblem[] => {
   const parsed = ledgerQuerySchema.safeParse(Object.fromEntries(new URLSearchParams(ledgerQueryString(f, true))));
-  return parsed.success ? [] : issueProblems(parsed.error.issues);
+  // The schema names the other date by its code name; the summary uses the label the screen shows.
+  return parsed.success ? [] : issueProblems(parsed.error.issues).map((p) => ({ ...p, rule: p.rule.replace(/ from$/, ' “Flights from”') }));
 };
 
 /**
  * The ledger's filters apply as they change. One the server would refuse is kept on screen as typed (nothing lost),
- * not applied, and named in the error summary: announced as it happens, and focused when Enter submits the form.
+ * not applied, and named in the error summary: announced as it happens, and focused when Enter is pressed in the form.
  */
 export function LedgerFiltersBar({ stations, filters: applied, onChange }: { stations: StationOption[]; filters: LedgerFilters; onChange: (f: LedgerFilters) => void }) {
   const [draft, setDraft] = useState<LedgerFilters | null>(null);
@@ -43,12 +44,13 @@ export function LedgerFiltersBar({ stations, filters: applied, onChange }: { sta
       role="search"
       aria-label="Filter the ledger"
       className="grid gap-3 sm:grid-cols-2 lg:grid-cols-4"
-      onSubmit={(e) => {
+      onSubmit={(e) => e.preventDefault()}
+      // The form has no submit button and several fields, so the browser submits nothing on Enter: Enter is read here.
+      onKeyDown={(e) => {
+        if (e.key !== 'Enter' || !refused) return;
         e.preventDefault();
-        if (refused) {
-          setFocusSummary(true);
-          setRefused([...refused]);
-        }
+        setFocusSummary(true);
+        setRefused([...refused]);
       }}
     >
       <div className="sm:col-span-2 lg:col-span-4 empty:hidden">
