@@ -11,6 +11,8 @@ interface Props {
   value: string;
   onChange: (v: string) => void;
   error?: string;
+  /** Lets an error summary link to this field. */
+  id?: string;
 }
 
 /** A date-time typed on the clock of the airport where it happens, with that airport and zone in the label. */
@@ -23,9 +25,10 @@ function zoneOn(value: string, timeZone: string) {
   }
 }
 
-export function AirportTimeField({ label, airport, timeZone, value, onChange, error }: Props) {
+export function AirportTimeField({ label, airport, timeZone, value, onChange, error, id }: Props) {
   return (
     <TextField
+      id={id}
       label={`${label} · ${airport} local time`}
       type="datetime-local"
       value={value}

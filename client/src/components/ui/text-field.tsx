@@ -9,8 +9,10 @@ interface Props extends Omit<InputHTMLAttributes<HTMLInputElement>, 'onChange' |
 }
 
 /** A labelled input whose error sits right under it and is announced to screen readers. */
-export function TextField({ label, value, onChange, error, hint, className = '', ...rest }: Props) {
-  const id = useId();
+export function TextField({ label, value, onChange, error, hint, className = '', id: givenId, ...rest }: Props) {
+  const generatedId = useId();
+  // A given id lets an error summary link to this field.
+  const id = givenId ?? generatedId;
   const describedBy = [error ? `${id}-error` : '', hint ? `${id}-hint` : ''].filter(Boolean).join(' ') || undefined;
   return (
     <div className={className}>

@@ -1,4 +1,4 @@
-import { useState } from 'react';
+import { useId, useState } from 'react';
 import { agreementText } from '@shared/compensation/agreement-text';
 import type { DeskCompensation } from '@shared/schemas/finance';
 import { agreementBodySchema } from '@shared/schemas/payment-media';
@@ -7,6 +7,7 @@ import { TextField } from '../../../components/ui/text-field';
 import { moneyFieldText, readMoneyField } from '../../../lib/money';
 import { useOfferVoucher, useRecordAgreement } from '../api/compensations';
 import { Problem } from './problem';
+import { issueProblems, type FieldProblem } from '../../../components/ui/form-problems';
 import { SignaturePad } from './signature-pad';
 
 const VALUE_RULE = { 'at-least': 'at least the cash amount', greater: 'more than the cash amount', any: 'any value the passenger accepts' } as const;
@@ -23,17 +24,18 @@ export function AgreementForm({ flightId, compensation: c }: { flightId: number;
   const [valueText, setValueText] = useState(moneyFieldText(c.amountMinor, c.currency));
   const [expires, setExpires] = useState('');
   const [signature, setSignature] = useState<string | null>(null);
-  const [error, setError] = useState<string | null>(null);
+  const [refused, setRefused] = useState<FieldProblem[] | null>(null);
+  const id = useId();
   const value = readMoneyField(valueText, c.currency, 'valueMinor');
   const valueMinor = value.ok ? value.minor : c.amountMinor;
   const expiresOn = expires === '' ? null : expires;
   const text = agreementText({ passengerName: c.passengerName, flight: c.flight, serviceDate: c.serviceDate, medium, cashAmountMinor: c.amountMinor, valueMinor, currency: c.currency, expiresOn, restrictions: terms.restrictions, ruleRef: terms.ruleRef });
 
   const submit = () => {
-    if (!value.ok) return setError(value.message);
+    if (!value.ok) return setRefused([{ field: 'valueMinor', rule: value.message }]);
     const parsed = agreementBodySchema.safeParse({ medium, valueMinor, expiresOn, text, signature: signature ?? '' });
-    if (!parsed.success) return setError(parsed.error.issues.map((i) => i.message).join('; '));
-    setError(null);
+    if (!parsed.success) return setRefused(issueProblems(parsed.error.issues));
+    setRefused(null);
     record.mutate({ id: c.id, ...parsed.data });
   };
 
@@ -45,9 +47,9 @@ export function AgreementForm({ flightId, compensation: c }: { flightId: number;
         {terms.conditions.noExpiry ? ', and it must not expire' : ''} ({terms.conditions.ruleRef}).
       </p>
       <div className="flex flex-wrap gap-4">
-        <TextField label={`Value to the passenger (${c.currency})`} value={valueText} onChange={setValueText} error={value.ok ? undefined : value.message} />
+        <TextField id={`${id}-value`} label={`Value to the passenger (${c.currency})`} value={valueText} onChange={setValueText} error={value.ok ? undefined : value.message} />
         {medium === 'travel-credit' && (
-          <TextField label="Usable until (leave empty if it never expires)" type="date" value={expires} onChange={setExpires} />
+          <TextField id={`${id}-expires`} label="Usable until (leave empty if it never expires)" type="date" value={expires} onChange={setExpires} />
         )}
       </div>
       <div>
@@ -60,15 +62,15 @@ export function AgreementForm({ flightId, compensation: c }: { flightId: number;
       {offer.data && <p>✓ {offer.data.offer.sentTo ? `Sent to ${offer.data.offer.sentTo}` : 'No e-mail on the booking: shown on screen only'}.</p>}
       <Problem error={offer.error} />
       <SignaturePad label="Passenger’s signature" onChange={setSignature} />
-      {error && (
-        <p role="alert" className="font-bold text-alert">
-          {error}
-        </p>
-      )}
       <Button onClick={submit} disabled={record.isPending}>
         {record.isPending ? 'Recording…' : 'Record the signed agreement'}
       </Button>
-      <Problem error={record.error} />
+      <Problem
+        error={record.error}
+        problems={refused}
+        labels={{ valueMinor: `Value to the passenger (${c.currency})`, expiresOn: 'Usable until', signature: 'Passenger’s signature', text: 'What the passenger reads' }}
+        fieldIds={{ valueMinor: `${id}-value`, expiresOn: `${id}-expires` }}
+      />
     </div>
   );
 }

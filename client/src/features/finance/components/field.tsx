@@ -7,8 +7,9 @@ export interface StationOption {
 }
 
 /** A labelled select in the screens' own style. */
-export function SelectField({ label, value, onChange, children }: { label: string; value: string; onChange: (v: string) => void; children: ReactNode }) {
-  const id = useId();
+export function SelectField({ label, value, onChange, children, id: givenId }: { label: string; value: string; onChange: (v: string) => void; children: ReactNode; id?: string }) {
+  const generatedId = useId();
+  const id = givenId ?? generatedId;
   return (
     <div>
       <label htmlFor={id} className="mb-1 block font-bold">
@@ -21,14 +22,16 @@ export function SelectField({ label, value, onChange, children }: { label: strin
   );
 }
 
-export function DateField({ label, value, onChange }: { label: string; value: string; onChange: (v: string) => void }) {
-  const id = useId();
+/** A given id lets an error summary link to the field. */
+export function DateField({ label, value, onChange, id: givenId, invalid }: { label: string; value: string; onChange: (v: string) => void; id?: string; invalid?: boolean }) {
+  const generatedId = useId();
+  const id = givenId ?? generatedId;
   return (
     <div>
       <label htmlFor={id} className="mb-1 block font-bold">
         {label}
       </label>
-      <input id={id} type="date" value={value} onChange={(e) => onChange(e.target.value)} className="w-full rounded-md border-2 border-line bg-card px-3 py-2 text-lg focus:border-harbour" />
+      <input id={id} type="date" value={value} onChange={(e) => onChange(e.target.value)} aria-invalid={invalid || undefined} className={`w-full rounded-md border-2 ${invalid ? 'border-alert' : 'border-line'} bg-card px-3 py-2 text-lg focus:border-harbour`} />
     </div>
   );
 }

@@ -1,4 +1,4 @@
-import { useState, type FormEvent } from 'react';
+import { useId, useState, type FormEvent } from 'react';
 import { useQuery } from '@tanstack/react-query';
 import type { DeskPassenger } from '@shared/schemas/flight-desk';
 import type { Round } from '@shared/schemas/volunteers';
@@ -8,6 +8,7 @@ import { flightPassengersQueryOptions, useAddVolunteer } from '../api/rounds';
 import { parseMoney } from '../model/money';
 import { matchingBookings } from '../model/passenger-search';
 import { Problem } from './problem';
+import type { FieldProblem } from '../../../components/ui/form-problems';
 
 const MAX_BOOKINGS_SHOWN = 8;
 const canVolunteer = (p: DeskPassenger) => p.status === 'booked' || p.status === 'checked-in';
@@ -32,6 +33,8 @@ function CounterForm({ round, flightId, onClose }: { round: Round; flightId: num
   const [chosen, setChosen] = useState<{ bookingId: number; ids: number[] } | null>(null);
   const [ask, setAsk] = useState('');
   const [askError, setAskError] = useState<string | undefined>();
+  const [refused, setRefused] = useState<FieldProblem[] | null>(null);
+  const askId = useId();
   const already = new Set(round.volunteers.filter((v) => v.status !== 'withdrawn').map((v) => v.bookingId));
   const parties = matchingBookings(passengers.data?.passengers ?? [], query);
 
@@ -48,10 +51,14 @@ function CounterForm({ round, flightId, onClose }: { round: Round; flightId: num
     let askMinor: number | undefined;
     if (round.kind === 'sealed') {
       const parsed = parseMoney(ask, round.currency);
-      if (!parsed.ok) return setAskError(`ask ${parsed.rule}`);
+      if (!parsed.ok) {
+        setAskError(`ask ${parsed.rule}`);
+        return setRefused([{ field: 'askMinor', rule: parsed.rule }]);
+      }
       askMinor = parsed.minor;
     }
     setAskError(undefined);
+    setRefused(null);
     add.mutate({ roundId: round.id, body: { passengerIds: chosen.ids, askMinor } }, { onSuccess: onClose });
   }
 
@@ -63,7 +70,7 @@ function CounterForm({ round, flightId, onClose }: { round: Round; flightId: num
       </div>
       <TextField label="Find by name or PNR" value={query} onChange={setQuery} autoComplete="off" hint="Tick the travellers who volunteer. Ticking only some of a booking splits it, by their choice." />
       {passengers.isPending && <p className="text-ink-soft">Loading the passenger list…</p>}
-      {passengers.error && <Problem error={passengers.error} />}
+      {passengers.error && <Problem error={passengers.error} takeFocus={false} />}
       {query.trim() && parties.length === 0 && passengers.data && <p>No booking matches “{query}”.</p>}
       <ul className="space-y-2">
         {parties.slice(0, MAX_BOOKINGS_SHOWN).map((party) => (
@@ -82,11 +89,11 @@ function CounterForm({ round, flightId, onClose }: { round: Round; flightId: num
         ))}
       </ul>
       {parties.length > MAX_BOOKINGS_SHOWN && <p className="text-ink-soft">{parties.length - MAX_BOOKINGS_SHOWN} more bookings match: type more of the name or PNR.</p>}
-      {round.kind === 'sealed' && <TextField label={`Their ask (${round.currency})`} value={ask} onChange={setAsk} inputMode="decimal" autoComplete="off" error={askError} />}
+      {round.kind === 'sealed' && <TextField id={askId} label={`Their ask (${round.currency})`} value={ask} onChange={setAsk} inputMode="decimal" autoComplete="off" error={askError} />}
       <Button type="submit" disabled={!chosen || add.isPending}>
         {chosen ? `Record ${chosen.ids.length === 1 ? 'this volunteer' : `${chosen.ids.length} volunteers`}` : 'Tick who volunteers'}
       </Button>
-      <Problem error={add.error} />
+      <Problem error={add.error} problems={refused} labels={{ askMinor: `Their ask (${round.currency})`, passengerIds: 'Travellers who volunteer' }} fieldIds={{ askMinor: askId }} />
     </form>
   );
 }

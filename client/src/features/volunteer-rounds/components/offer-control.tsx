@@ -1,4 +1,4 @@
-import { useState, type FormEvent } from 'react';
+import { useId, useState, type FormEvent } from 'react';
 import type { Round, VolunteerPolicy } from '@shared/schemas/volunteers';
 import { Button } from '../../../components/ui/button';
 import { formatMoney, formatTime } from '../../../lib/format';
@@ -7,6 +7,7 @@ import { parseMoney } from '../model/money';
 import { limitForRole } from '@shared/schemas/approvals';
 import { limitWords, needsSupervisor, nextLadderStep } from '../model/round-words';
 import { Problem } from './problem';
+import type { FieldProblem } from '../../../components/ui/form-problems';
 
 const PRICING_WORDS: Record<VolunteerPolicy['sealedBidPricing'], string> = {
   'own-ask': 'Each accepted volunteer is paid their own ask.',
@@ -18,6 +19,8 @@ export function OfferControl({ round, policy, role, flightId, timeZone }: { roun
   const raise = useRaiseOffer(flightId);
   const [custom, setCustom] = useState('');
   const [customError, setCustomError] = useState<string | null>(null);
+  const [refused, setRefused] = useState<FieldProblem[] | null>(null);
+  const customId = useId();
   const money = (m: number) => formatMoney(m, round.currency);
 
   if (round.kind === 'sealed') {
@@ -37,9 +40,13 @@ export function OfferControl({ round, policy, role, flightId, timeZone }: { roun
   function submitCustom(e: FormEvent) {
     e.preventDefault();
     const parsed = parseMoney(custom, round.currency);
-    if (!parsed.ok) return setCustomError(`amount ${parsed.rule}`);
-    if (parsed.minor <= (round.offerMinor ?? 0)) return setCustomError(`amount must be above the current offer of ${money(round.offerMinor ?? 0)}`);
+    const rule = !parsed.ok ? parsed.rule : parsed.minor <= (round.offerMinor ?? 0) ? `must be above the current offer of ${money(round.offerMinor ?? 0)}` : null;
+    if (rule || !parsed.ok) {
+      setCustomError(`amount ${rule}`);
+      return setRefused([{ field: 'offerMinor', rule: rule ?? '' }]);
+    }
     setCustomError(null);
+    setRefused(null);
     raise.mutate({ roundId: round.id, offerMinor: parsed.minor }, { onSuccess: () => setCustom('') });
   }
 
@@ -69,7 +76,7 @@ export function OfferControl({ round, policy, role, flightId, timeZone }: { roun
           <label className="block">
             <span className="mb-1 block text-sm font-bold">Custom amount ({round.currency})</span>
             <input
-              value={custom} onChange={(e) => setCustom(e.target.value)} inputMode="decimal" autoComplete="off" placeholder="e.g. 750"
+              id={customId} value={custom} onChange={(e) => setCustom(e.target.value)} inputMode="decimal" autoComplete="off" placeholder="e.g. 750"
               aria-invalid={customError ? true : undefined}
               className={`w-36 rounded-md border-2 bg-card px-3 py-2 text-lg ${customError ? 'border-alert' : 'border-line'}`}
             />
@@ -82,7 +89,7 @@ export function OfferControl({ round, policy, role, flightId, timeZone }: { roun
       {customError && <p className="mt-1 font-bold text-alert">{customError}</p>}
       {raise.data?.approvalRequested && !pending && <p role="status" className="mt-2 font-bold">Sent to a supervisor for approval.</p>}
       <p className="mt-2 text-sm text-ink-soft">{limitWords(limitForRole(role, policy), money)}</p>
-      <Problem error={raise.error} />
+      <Problem error={raise.error} problems={refused} labels={{ offerMinor: `Custom amount (${round.currency})` }} fieldIds={{ offerMinor: customId }} />
     </div>
   );
 }

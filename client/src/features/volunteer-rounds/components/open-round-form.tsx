@@ -6,8 +6,10 @@ import { useOpenRound } from '../api/rounds';
 import { limitForRole } from '@shared/schemas/approvals';
 import { limitWords, needsSupervisor } from '../model/round-words';
 import { Problem } from './problem';
+import type { FieldProblem } from '../../../components/ui/form-problems';
 
 type Kind = 'posted' | 'sealed';
+const NEEDED_RULE = 'must be a whole number from 1 to 60';
 
 const KINDS: { kind: Kind; title: string; what: string }[] = [
   { kind: 'posted', title: 'Posted offer', what: 'Everyone hears one amount; you raise it step by step until enough people volunteer.' },
@@ -21,6 +23,7 @@ export function OpenRoundForm({ flightId, policy, role, volunteerTarget }: { fli
   const [extras, setExtras] = useState<string[]>(policy.extras);
   const [needed, setNeeded] = useState(String(Math.max(1, volunteerTarget ?? 1)));
   const open = useOpenRound(flightId);
+  const [refused, setRefused] = useState<FieldProblem[] | null>(null);
   const id = useId();
   const neededNumber = Number(needed);
   const neededOk = Number.isInteger(neededNumber) && neededNumber >= 1 && neededNumber <= 60;
@@ -28,7 +31,8 @@ export function OpenRoundForm({ flightId, policy, role, volunteerTarget }: { fli
 
   function submit(e: FormEvent) {
     e.preventDefault();
-    if (!neededOk) return;
+    if (!neededOk) return setRefused([{ field: 'volunteersNeeded', rule: NEEDED_RULE }]);
+    setRefused(null);
     open.mutate({ kind, offerMinor: kind === 'posted' ? offerMinor : undefined, extras, volunteersNeeded: neededNumber });
   }
 
@@ -76,7 +80,7 @@ export function OpenRoundForm({ flightId, policy, role, volunteerTarget }: { fli
               {volunteerTarget && volunteerTarget > 0 ? 'Prefilled from the odds panel’s volunteer target.' : 'The odds panel asks for no volunteers right now: set how many you need.'}
             </p>
           ) : (
-            <p id={`${id}-needed-hint`} className="mt-1 font-bold text-alert">volunteers needed must be a whole number from 1 to 60</p>
+            <p id={`${id}-needed-hint`} className="mt-1 font-bold text-alert">{NEEDED_RULE}</p>
           )}
         </div>
       </div>
@@ -93,10 +97,15 @@ export function OpenRoundForm({ flightId, policy, role, volunteerTarget }: { fli
           </div>
         </fieldset>
       )}
-      <Button type="submit" disabled={open.isPending || !neededOk} className="text-lg">
+      <Button type="submit" disabled={open.isPending} className="text-lg">
         {open.isPending ? 'Opening…' : kind === 'posted' ? `Open a volunteer round at ${money(offerMinor)}` : 'Open a sealed-bid round'}
       </Button>
-      <Problem error={open.error} />
+      <Problem
+        error={open.error}
+        problems={refused}
+        labels={{ volunteersNeeded: 'Volunteers needed', offerMinor: 'First offer', kind: 'How volunteers are asked', extras: 'Extras offered with the amount' }}
+        fieldIds={{ volunteersNeeded: `${id}-needed`, offerMinor: `${id}-offer` }}
+      />
     </form>
   );
 }

@@ -1,4 +1,4 @@
-import { useState } from 'react';
+import { useId, useState } from 'react';
 import { useQuery } from '@tanstack/react-query';
 import { Link } from 'react-router-dom';
 import { APPROVAL_KIND_WORDS, type PendingApproval } from '@shared/schemas/approvals';
@@ -9,6 +9,7 @@ import { formatMoney, formatTime } from '../../../lib/format';
 import { approvalsQueryOptions, useDecideApproval } from '../api/rounds';
 import { useApprovalsLive } from '../api/use-live';
 import { Problem } from './problem';
+import type { FieldProblem } from '../../../components/ui/form-problems';
 
 type Approval = PendingApproval;
 
@@ -49,14 +50,22 @@ export function PendingApprovals({ stationId, timeZone }: { stationId: number; t
   );
 }
 
+const REASON_RULE = 'must say why the amount is refused (at least 3 characters)';
+
 function ApprovalRow({ a, timeZone, onDecided }: { a: Approval; timeZone: string; onDecided: (words: string) => void }) {
   const decide = useDecideApproval();
   const [reason, setReason] = useState('');
   const [reasonError, setReasonError] = useState<string | null>(null);
+  const [refused, setRefused] = useState<FieldProblem[] | null>(null);
+  const reasonId = useId();
   const send = (approve: boolean) => {
     // A refusal tells the agent why; an approval may go without a word.
-    if (!approve && reason.trim().length < 3) return setReasonError('reason must say why the amount is refused (at least 3 characters)');
+    if (!approve && reason.trim().length < 3) {
+      setReasonError(`reason ${REASON_RULE}`);
+      return setRefused([{ field: 'reason', rule: REASON_RULE }]);
+    }
     setReasonError(null);
+    setRefused(null);
     const amount = formatMoney(a.offerMinor, a.currency);
     // Awaited rather than a per-call callback: the row unmounts once the queue refetches, and its callbacks with it.
     decide
@@ -84,7 +93,7 @@ function ApprovalRow({ a, timeZone, onDecided }: { a: Approval; timeZone: string
         <label className="block min-w-64 flex-1">
           <span className="mb-1 block font-bold">Reason (needed to reject)</span>
           <input
-            value={reason} onChange={(e) => setReason(e.target.value)} maxLength={200} autoComplete="off"
+            id={reasonId} value={reason} onChange={(e) => setReason(e.target.value)} maxLength={200} autoComplete="off"
             aria-invalid={reasonError ? true : undefined}
             className={`w-full rounded-md border-2 bg-card px-3 py-2 text-lg ${reasonError ? 'border-alert' : 'border-line'}`}
           />
@@ -93,7 +102,7 @@ function ApprovalRow({ a, timeZone, onDecided }: { a: Approval; timeZone: string
         <Button variant="danger" disabled={decide.isPending} onClick={() => send(false)}>Reject</Button>
       </div>
       {reasonError && <p className="mt-1 font-bold text-alert">{reasonError}</p>}
-      <Problem error={decide.error} />
+      <Problem error={decide.error} problems={refused} labels={{ reason: 'Reason (needed to reject)' }} fieldIds={{ reason: reasonId }} />
     </li>
   );
 }

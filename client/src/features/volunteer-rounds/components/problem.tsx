@@ -1,13 +1,9 @@
-import { ApiRequestError } from '../../../lib/api-client';
+import { FormProblems, type FieldProblem } from '../../../components/ui/form-problems';
 
-/** A failed action said in the server's own words, right where the agent pressed. */
-export function Problem({ error }: { error: unknown }) {
-  if (!error) return null;
-  const text = error instanceof ApiRequestError ? error.message : error instanceof Error ? error.message : String(error);
-  return (
-    <p role="alert" className="mt-2 rounded-md border-l-4 border-alert bg-alert-soft px-3 py-2 font-bold text-alert">
-      <span aria-hidden>⚠ </span>
-      {text}
-    </p>
-  );
+/**
+ * A refused action, right where the agent pressed: the shared error summary, which takes focus and names each field
+ * and the rule it broke (with a link to the field when its id is given).
+ */
+export function Problem(props: { error: unknown; problems?: FieldProblem[] | null; labels?: Record<string, string>; fieldIds?: Record<string, string>; takeFocus?: boolean }) {
+  return <FormProblems {...props} />;
 }

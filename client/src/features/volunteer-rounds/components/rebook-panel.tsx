@@ -1,4 +1,4 @@
-import { useState, type FormEvent } from 'react';
+import { useId, useState, type FormEvent } from 'react';
 import { useQuery } from '@tanstack/react-query';
 import type { Volunteer } from '@shared/schemas/volunteers';
 import { Button } from '../../../components/ui/button';
@@ -10,6 +10,7 @@ import { formatTime, formatTimeWithZone } from '../../../lib/format';
 import { alternatesQueryOptions, useRebook } from '../api/rounds';
 import { delayWords } from '../model/round-words';
 import { Problem } from './problem';
+import type { FieldProblem } from '../../../components/ui/form-problems';
 
 /** The airport a rebooking arrives at and its zone. */
 export interface ArrivalClock {
@@ -42,7 +43,7 @@ export function RebookPanel({ volunteer, flightId, timeZone, arrival, onDone }: 
         <Button variant="quiet" onClick={onDone}>Cancel</Button>
       </div>
       {alternates.isPending && <p className="text-ink-soft">Looking for later flights…</p>}
-      {alternates.error && <Problem error={alternates.error} />}
+      {alternates.error && <Problem error={alternates.error} takeFocus={false} />}
       {alternates.data && alternates.data.alternates.length === 0 && <p className="text-lg">No later flight of ours on this route. Enter another flight by hand.</p>}
       {alternates.data && alternates.data.alternates.length > 0 && (
         <ul className="mt-2 space-y-2" aria-label="Later flights">
@@ -79,6 +80,8 @@ export function RebookPanel({ volunteer, flightId, timeZone, arrival, onDone }: 
   );
 }
 
+const MANUAL_LABELS: Record<string, string> = { carrier: 'Carrier', number: 'Flight number', departure: 'Departure', arrival: 'Arrival', 'manual.carrier': 'Carrier', 'manual.number': 'Flight number', 'manual.departure': 'Departure', 'manual.arrival': 'Arrival' };
+
 type ManualErrors = Partial<Record<'carrier' | 'number' | 'departure' | 'arrival' | 'form', string>>;
 
 function ManualRebooking({ volunteerId, flightId, timeZone, arrival: arrivalClock, onDone }: { volunteerId: number; flightId: number; timeZone: string; arrival?: ArrivalClock; onDone: () => void }) {
@@ -87,6 +90,9 @@ function ManualRebooking({ volunteerId, flightId, timeZone, arrival: arrivalCloc
   const rebook = useRebook(flightId);
   const [f, setF] = useState({ carrier: '', number: '', departure: '', arrival: '' });
   const [errors, setErrors] = useState<ManualErrors>({});
+  const [refused, setRefused] = useState<FieldProblem[] | null>(null);
+  const id = useId();
+  const ids = { carrier: `${id}-carrier`, number: `${id}-number`, departure: `${id}-departure`, arrival: `${id}-arrival` };
   const set = (k: keyof typeof f) => (v: string) => setF({ ...f, [k]: v });
 
   function submit(e: FormEvent) {
@@ -104,7 +110,9 @@ function ManualRebooking({ volunteerId, flightId, timeZone, arrival: arrivalCloc
     if (arr.error) next.arrival = arr.error;
     else if (departure && arrival && arrival <= departure) next.arrival = 'arrival must be after the departure';
     setErrors(next);
-    if (Object.keys(next).length || !departure || !arrival) return;
+    const problems = Object.entries(next).map(([field, rule]) => ({ field, rule: rule.replace(new RegExp(`^${field} `), '') }));
+    setRefused(problems.length ? problems : null);
+    if (problems.length || !departure || !arrival) return;
     rebook.mutate(
       { volunteerId, body: { manual: { carrier, number, departure, arrival } } },
       {
@@ -120,13 +128,13 @@ function ManualRebooking({ volunteerId, flightId, timeZone, arrival: arrivalCloc
     <form onSubmit={submit} noValidate className="mt-3 space-y-3 rounded-md border-2 border-line bg-card p-3" aria-label="Another flight, entered by hand">
       <p className="font-bold">Another flight · each time on the clock of the airport where it happens</p>
       <div className="grid gap-3 sm:grid-cols-2">
-        <TextField label="Carrier" value={f.carrier} onChange={set('carrier')} error={errors.carrier} maxLength={3} autoComplete="off" />
-        <TextField label="Flight number" value={f.number} onChange={set('number')} error={errors.number} maxLength={5} autoComplete="off" />
-        <AirportTimeField label="Departure" airport="this station" timeZone={timeZone} value={f.departure} onChange={set('departure')} error={errors.departure} />
-        <AirportTimeField label="Arrival" airport={arrivesAt.airport} timeZone={arrivesAt.timeZone} value={f.arrival} onChange={set('arrival')} error={errors.arrival} />
+        <TextField id={ids.carrier} label="Carrier" value={f.carrier} onChange={set('carrier')} error={errors.carrier} maxLength={3} autoComplete="off" />
+        <TextField id={ids.number} label="Flight number" value={f.number} onChange={set('number')} error={errors.number} maxLength={5} autoComplete="off" />
+        <AirportTimeField id={ids.departure} label="Departure" airport="this station" timeZone={timeZone} value={f.departure} onChange={set('departure')} error={errors.departure} />
+        <AirportTimeField id={ids.arrival} label="Arrival" airport={arrivesAt.airport} timeZone={arrivesAt.timeZone} value={f.arrival} onChange={set('arrival')} error={errors.arrival} />
       </div>
       <Button type="submit" disabled={rebook.isPending}>Hold the seat on this flight</Button>
-      <Problem error={rebook.error} />
+      <Problem error={rebook.error} problems={refused} labels={MANUAL_LABELS} fieldIds={{ ...ids, 'manual.carrier': ids.carrier, 'manual.number': ids.number, 'manual.departure': ids.departure, 'manual.arrival': ids.arrival }} />
     </form>
   );
 }
