@@ -109,6 +109,18 @@ describe('a travel credit is offered in writing first', () => {
     const sent = await app.db.getRepository(OutboxMessageEntity).findBy({ kind: 'voucher-offer', flightId: comp.flightId });
     expect(sent).toHaveLength(1);
   });
+
+  it('writes the offer and the card receipt in the booking\'s language', async () => {
+    const { rows: [comp] } = await dueCompensations(1);
+    await app.db.query('UPDATE bookings b JOIN passengers p ON p.booking_id = b.id SET b.language = ? WHERE p.id = ?', ['es', comp.passengerId]);
+    await agent.post(`/api/compensations/${comp.id}/voucher-offer`).expect(200);
+    const [offer] = await app.db.getRepository(OutboxMessageEntity).findBy({ kind: 'voucher-offer', flightId: comp.flightId });
+    expect(offer.subject).toMatch(/ en dinero, o un bono de viaje$/);
+    await agent.post(`/api/compensations/${comp.id}/issue`).expect(200);
+    const [receipt] = await app.db.getRepository(OutboxMessageEntity).findBy({ kind: 'compensation-receipt', flightId: comp.flightId });
+    expect(receipt.subject).toMatch(/^Su compensación por el vuelo /);
+    expect(receipt.html).toContain('<html lang="es">');
+  });
 });
 
 describe('finance voids and re-issues', () => {

@@ -75,6 +75,24 @@ describe('a bank transfer from the passenger’s own account entry', () => {
     expect(w.mailText()).toContain(`/payout/${token}`);
   });
 
+  it('writes the payout link and the transfer receipt in the booking\'s language', async () => {
+    const { rows: [row], proofOf } = await dueAt(w, 1, () => ({ medium: 'bank-transfer' }));
+    await w.app.db.query('UPDATE bookings b JOIN passengers p ON p.booking_id = b.id SET b.language = ? WHERE p.id = ?', ['fr', row.passengerId]);
+    await w.agent.post(`/api/compensations/${row.id}/issue`).expect(200);
+    const mailOf = async (dedupeKey: string) => {
+      const [mail]: { subject: string; html: string }[] = await w.app.db.query('SELECT subject, html FROM outbox_messages WHERE dedupe_key LIKE ?', [dedupeKey]);
+      return mail;
+    };
+    const link = await mailOf(`payout-link:${row.id}:%`);
+    expect(link.subject).toMatch(/^Votre indemnisation du vol .+ : indiquez-nous où envoyer /);
+    expect(link.html).toContain('<html lang="fr">');
+    n += 1;
+    const account = `0001234${String(5000 + n).padStart(5, '0')}`;
+    expect((await giveAccount(row, proofOf(0), account)).res.status).toBe(200);
+    await until('the transfer is sent', async () => (await comp(row.id)).state === 'issued');
+    expect((await mailOf(`transfer-receipt:${row.id}:%`)).subject).toMatch(/ est en route$/);
+  });
+
   it('takes the account once: a second entry on the same link is refused', async () => {
     const { row, proof, account } = await transferDue();
     const { token, res } = await giveAccount(row, proof, account);

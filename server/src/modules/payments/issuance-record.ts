@@ -67,6 +67,7 @@ async function enqueueReceipt(em: EntityManager, compensationId: number, attempt
     restrictions: offer?.restrictions ?? [],
     compensationId,
     details,
+    language: row.booking_language,
   });
   await enqueueMessage(em, {
     stationId: row.station_id,

@@ -1,7 +1,8 @@
 // The two e-mails of the payments module: the receipt once a card is issued, and a voucher offer, which states the
-// cash amount and the voucher's restrictions before the passenger is asked to agree to anything.
-import { formatMoneyMinor } from '../../notices/format';
+// cash amount and the voucher's restrictions before the passenger is asked to agree to anything. Both are written in
+// the booking's language; the restrictions the station typed and the rule's reference stay as given.
 import { renderNotice, type Block, type Notice } from '../../notices/notice';
+import { translatorFor, utcMinute } from '../../notices/passenger-language';
 
 export interface ReceiptInput {
   passengerName: string;
@@ -17,38 +18,37 @@ export interface ReceiptInput {
   compensationId: number;
   /** The single-use link to the card's full details; the mail itself never carries them. */
   details: { url: string; expiresAt: Date } | null;
+  /** The booking's language (English when absent or unknown). */
+  language?: string | null;
 }
 
 export function compensationReceipt(input: ReceiptInput): Notice {
-  const amount = formatMoneyMinor('amount', { amountMinor: input.amountMinor, currency: input.currency });
+  const tr = translatorFor(input.language);
+  const amount = tr.money('amount', { amountMinor: input.amountMinor, currency: input.currency });
   const voucher = input.form === 'voucher';
+  const trip = { flight: input.flight, date: input.serviceDate, station: input.stationName };
   const blocks: Block[] = [
-    { kind: 'paragraph', text: `Dear ${input.passengerName},` },
-    {
-      kind: 'paragraph',
-      text: voucher
-        ? `As you agreed, your compensation for flight ${input.flight} on ${input.serviceDate} from ${input.stationName} has been issued as a travel voucher.`
-        : `Your compensation for flight ${input.flight} on ${input.serviceDate} from ${input.stationName} has been issued as a prepaid card. You can spend it like cash.`,
-    },
+    { kind: 'paragraph', text: tr.t('notice.greeting', { names: input.passengerName }) },
+    { kind: 'paragraph', text: tr.t(voucher ? 'notice.receipt.voucher' : 'notice.receipt.card', trip) },
     {
       kind: 'facts',
       rows: [
-        ['Amount', amount],
-        ['Paid as', voucher ? 'Travel voucher (virtual card limited to air travel)' : 'Prepaid virtual card (cash equivalent)'],
-        ...(input.last4 ? [['Card ending', input.last4] as const] : []),
-        ...(input.expiry ? [['Valid until', input.expiry] as const] : []),
-        ['Reference', `C-${input.compensationId}`],
+        [tr.t('notice.newLink.amount'), amount],
+        [tr.t('notice.pay.paidAs'), tr.t(voucher ? 'notice.receipt.paidAsVoucher' : 'notice.receipt.paidAsCard')],
+        ...(input.last4 ? [[tr.t('notice.receipt.cardEnding'), input.last4] as const] : []),
+        ...(input.expiry ? [[tr.t('notice.receipt.validUntil'), input.expiry] as const] : []),
+        [tr.t('notice.newLink.reference'), `C-${input.compensationId}`],
       ],
     },
   ];
-  if (voucher && input.restrictions.length) blocks.push({ kind: 'list', title: 'Conditions of the voucher:', items: input.restrictions });
+  if (voucher && input.restrictions.length) blocks.push({ kind: 'list', title: tr.t('notice.voucher.conditions'), items: input.restrictions });
   if (input.details) {
     blocks.push(
-      { kind: 'paragraph', text: `To see the full card number and security code, open this link on your phone: ${input.details.url}` },
-      { kind: 'paragraph', text: `For your safety the link shows them once, until ${input.details.expiresAt.toISOString().slice(0, 16).replace('T', ' ')} UTC, after you confirm your booking reference and last name. Note them down or add the card to your phone's wallet when you see them. We never send card numbers by e-mail.` },
+      { kind: 'paragraph', text: tr.t('notice.receipt.detailsOpen', { url: input.details.url }) },
+      { kind: 'paragraph', text: tr.t('notice.receipt.detailsSafety', { until: utcMinute(input.details.expiresAt) }) },
     );
   }
-  return renderNotice(`Your compensation for flight ${input.flight}: ${amount}`, blocks);
+  return renderNotice(tr.t('notice.receipt.subject', { flight: input.flight, amount }), blocks, tr);
 }
 
 export interface VoucherOfferInput {
@@ -59,19 +59,18 @@ export interface VoucherOfferInput {
   currency: string;
   restrictions: readonly string[];
   rule: string;
+  /** The booking's language (English when absent or unknown). */
+  language?: string | null;
 }
 
 export function voucherOffer(input: VoucherOfferInput): Notice {
-  const cash = formatMoneyMinor('amount', { amountMinor: input.amountMinor, currency: input.currency });
-  return renderNotice(`Your compensation for flight ${input.flight}: ${cash} in money, or a travel voucher`, [
-    { kind: 'paragraph', text: `Dear ${input.passengerName},` },
-    {
-      kind: 'paragraph',
-      text: `For flight ${input.flight} on ${input.serviceDate} you are owed ${cash}. We pay it in money, on a prepaid card you can spend like cash. ` +
-        `You may instead choose a travel voucher of the same value. You do not have to: if you say nothing, or refuse, you receive the money.`,
-    },
-    { kind: 'facts', rows: [['Cash amount', cash], ['Voucher value', cash]] },
-    { kind: 'list', title: 'Conditions of the voucher:', items: input.restrictions.length ? input.restrictions : ['No conditions were set.'] },
+  const tr = translatorFor(input.language);
+  const cash = tr.money('amount', { amountMinor: input.amountMinor, currency: input.currency });
+  return renderNotice(tr.t('notice.voucherOffer.subject', { flight: input.flight, amount: cash }), [
+    { kind: 'paragraph', text: tr.t('notice.greeting', { names: input.passengerName }) },
+    { kind: 'paragraph', text: tr.t('notice.voucherOffer.body', { flight: input.flight, date: input.serviceDate, amount: cash }) },
+    { kind: 'facts', rows: [[tr.t('notice.voucherOffer.cash'), cash], [tr.t('notice.voucherOffer.value'), cash]] },
+    { kind: 'list', title: tr.t('notice.voucher.conditions'), items: input.restrictions.length ? input.restrictions : [tr.t('notice.voucherOffer.noConditions')] },
     { kind: 'paragraph', text: input.rule },
-  ]);
+  ], tr);
 }

@@ -89,7 +89,7 @@ export async function offerVoucher(db: DataSource, user: SessionUser, id: number
     const restrictions = facts.restrictions;
     const notice = voucherOffer({
       passengerName: passengerNameOf(row), flight: `${row.carrier_code} ${row.flight_number}`, serviceDate: row.service_date,
-      amountMinor: row.amount_minor, currency: row.currency, restrictions, rule: facts.terms.ruleRef,
+      amountMinor: row.amount_minor, currency: row.currency, restrictions, rule: facts.terms.ruleRef, language: row.booking_language,
     });
     const offeredAt = new Date();
     if (row.contact_email) {

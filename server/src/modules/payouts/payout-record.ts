@@ -58,7 +58,7 @@ async function markSent(em: EntityManager, payout: PayoutEntity, comp: Compensat
   await resolvePaymentAlerts(em, comp.id, `Paid: bank transfer ${paymentId} sent.`);
   const row = await compensationRow(em, comp.id);
   if (!row.contact_email) return { mail: false, changed: { flightId: comp.flightId, stationId: comp.stationId } };
-  const notice = transferReceipt({ passengerName: passengerNameOf(row), flight: `${row.carrier_code} ${row.flight_number}`, serviceDate: row.service_date, amountMinor: comp.amountMinor, currency: comp.currency, accountEnding: payout.accountLast4, compensationId: comp.id });
+  const notice = transferReceipt({ passengerName: passengerNameOf(row), flight: `${row.carrier_code} ${row.flight_number}`, serviceDate: row.service_date, amountMinor: comp.amountMinor, currency: comp.currency, accountEnding: payout.accountLast4, compensationId: comp.id, language: row.booking_language });
   await enqueueMessage(em, { stationId: comp.stationId, flightId: comp.flightId, passengerIds: [comp.passengerId], kind: 'compensation-receipt', to: row.contact_email, subject: notice.subject, text: notice.text, html: notice.html, dedupeKey: `transfer-receipt:${comp.id}:${paymentId}` });
   return { mail: true, changed: { flightId: comp.flightId, stationId: comp.stationId } };
 }

@@ -40,6 +40,7 @@ async function openPayout(em: EntityManager, ctx: PaymentsContext, compensationI
   const notice = payoutLinkNotice({
     passengerName: passengerNameOf(row), flight: `${row.carrier_code} ${row.flight_number}`, serviceDate: row.service_date,
     amountMinor: comp.amountMinor, currency: comp.currency, url: link.url, expiresAt: link.expiresAt, compensationId: comp.id,
+    language: row.booking_language,
   });
   await enqueueMessage(em, {
     stationId: comp.stationId, flightId: comp.flightId, passengerIds: [comp.passengerId], kind: 'compensation-receipt', to: row.contact_email,
