@@ -64,6 +64,8 @@ export const paymentTermsViewSchema = z.object({
   restrictions: z.array(z.string()),
   /** The station's zone, in which the deadline is shown. */
   timeZone: z.string(),
+  /** Media the rule allows that cannot pay this case (a transfer in a currency the provider does not move), with why. */
+  unavailable: z.array(z.object({ medium: mediumSchema, reason: z.string() })).optional(),
 });
 
 export const agreementViewSchema = z.object({

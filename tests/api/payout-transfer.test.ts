@@ -134,6 +134,10 @@ describe('a bank transfer from the passenger’s own account entry', () => {
     // Nothing lost and nothing sent: still due, to be paid another way.
     expect((await comp(row.id)).state).toBe('due');
     expect(paymentsFor(row.id)).toHaveLength(0);
+    // The desk is told beforehand: the lawful medium is listed as unavailable here, with the same reason.
+    const desk = await w.agent.get(`/api/flights/${row.flightId}/compensations`).expect(200);
+    const terms = desk.body.compensations.find((c: { id: number }) => c.id === row.id).payment.terms;
+    expect(terms.unavailable).toEqual([{ medium: 'bank-transfer', reason: expect.stringContaining('owed in EUR') }]);
   });
 
   it('does not send cash to the provider: it is handed over at the counter', async () => {

@@ -18,6 +18,7 @@ import { voucherOffer } from './payment-notices';
 import { termsView } from './voucher-rules';
 import { OWED_STATES } from '../compensations/payment-deadlines';
 import { passengerLinks } from '../payouts/link-resend';
+import { transferCurrencyProblem } from '../payouts/transfer-currencies';
 
 type VoucherTerms = z.infer<typeof voucherTermsSchema>;
 type VoucherOfferResult = z.infer<typeof voucherOfferResponseSchema>['offer'];
@@ -45,7 +46,10 @@ export async function paymentInfoFor(db: DataSource, rows: CompensationRow[]): P
       stations.set(row.station_id, { zone: station.timeZone, restrictions: (await policyFor(db, row.station_id)).voucherRestrictions });
     }
     const station = stations.get(row.station_id)!;
-    const terms = termsView({ regime: row.regime, voluntary: Boolean(row.voluntary), deniedAt: new Date(row.created_at), timeZone: station.zone }, station.restrictions, row.due_by, (OWED_STATES as readonly string[]).includes(row.state), new Date());
+    const lawful = termsView({ regime: row.regime, voluntary: Boolean(row.voluntary), deniedAt: new Date(row.created_at), timeZone: station.zone }, station.restrictions, row.due_by, (OWED_STATES as readonly string[]).includes(row.state), new Date());
+    // The desk sees a lawful medium it cannot use here, with why, rather than a choice that is refused once made.
+    const transferProblem = lawful.media.includes('bank-transfer') ? transferCurrencyProblem(row.currency) : null;
+    const terms = { ...lawful, unavailable: transferProblem ? [{ medium: 'bank-transfer' as const, reason: transferProblem }] : [] };
     const offer = offers.get(row.id);
     const agreement = agreements.get(row.id);
     const paid = counter.get(row.id);
