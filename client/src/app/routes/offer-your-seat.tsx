@@ -1,9 +1,8 @@
-import { useEffect } from 'react';
 import { useParams } from 'react-router-dom';
 import { LanguageSwitch } from '../../features/offer-your-seat/components/language-switch';
-import { setPageTitle } from '../../lib/document-title';
 import { OfferYourSeat } from '../../features/offer-your-seat/components/offer-your-seat';
-import { browserLanguages, chosenLanguage, LanguageProvider, pickLanguage, useLanguage, useT } from '../../lib/language';
+import { useT } from '../../lib/language';
+import { PassengerLanguage, usePassengerDocument } from '../passenger-language';
 
 /**
  * The passenger's page, public and phone-first: no staff navigation, no sign-in, large type. The link's token is all
@@ -12,26 +11,16 @@ import { browserLanguages, chosenLanguage, LanguageProvider, pickLanguage, useLa
  */
 export default function OfferYourSeatPage() {
   return (
-    <LanguageProvider initial={pickLanguage([chosenLanguage(), ...browserLanguages()])} remember>
+    <PassengerLanguage>
       <PassengerFrame />
-    </LanguageProvider>
+    </PassengerLanguage>
   );
 }
 
 function PassengerFrame() {
   const { token = '' } = useParams();
-  const { language } = useLanguage();
   const t = useT();
-  const title = t('passenger.title');
-  useEffect(() => setPageTitle(title), [title]);
-  // Screen readers pronounce the page in its language.
-  useEffect(() => {
-    const previous = document.documentElement.lang;
-    document.documentElement.lang = language;
-    return () => {
-      document.documentElement.lang = previous;
-    };
-  }, [language]);
+  const { language } = usePassengerDocument(t('passenger.title'));
   return (
     <div className="min-h-screen bg-paper text-ink" lang={language}>
       <header className="bg-harbour px-4 py-3 text-white">

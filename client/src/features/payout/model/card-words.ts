@@ -1,8 +1,7 @@
 // Every word the card-details page shows the passenger, from the shared catalogues in the passenger's language,
 // in one place so the page reads as a whole.
-import { translator, type MessageKey, type MessageValues } from '@shared/i18n';
-
-type T = (key: MessageKey, values?: MessageValues) => string;
+import { translator } from '@shared/i18n';
+import { linkPageWords, type T } from './link-words';
 
 export function cardWords(t: T) {
   return {
@@ -24,14 +23,7 @@ export function cardWords(t: T) {
     cvc: t('card.cvc'),
     amount: t('card.amount'),
     afterShown: t('card.afterShown'),
-    used: { title: t('paylink.usedTitle'), text: t('card.usedText') },
-    expired: { title: t('paylink.expiredTitle'), text: t('paylink.expiredText') },
-    locked: { title: t('paylink.lockedTitle'), text: t('paylink.lockedText') },
-    invalid: { title: t('passenger.link.title'), text: t('paylink.invalidText') },
-    notMatched: t('paylink.notMatched'),
-    offline: t('paylink.offline'),
-    broken: t('paylink.broken'),
-    caution: t('paylink.caution'),
+    ...linkPageWords(t, t('card.usedText')),
   };
 }
 

@@ -1,8 +1,7 @@
 // Every word the bank-transfer page shows the passenger, from the shared catalogues in the passenger's language,
 // in one place so the page reads as a whole.
-import { translator, type MessageKey, type MessageValues } from '@shared/i18n';
-
-type T = (key: MessageKey, values?: MessageValues) => string;
+import { translator } from '@shared/i18n';
+import { linkPageWords, type T } from './link-words';
 
 export function payoutWords(t: T) {
   return {
@@ -28,14 +27,7 @@ export function payoutWords(t: T) {
     doneTitle: t('passenger.outcome.thanks'),
     done: (ending: string) => t('payout.done', { ending }),
     already: (ending: string | null) => t('payout.already', { ending: ending ?? 'none' }),
-    used: { title: t('paylink.usedTitle'), text: t('payout.usedText') },
-    expired: { title: t('paylink.expiredTitle'), text: t('paylink.expiredText') },
-    locked: { title: t('paylink.lockedTitle'), text: t('paylink.lockedText') },
-    invalid: { title: t('passenger.link.title'), text: t('paylink.invalidText') },
-    notMatched: t('paylink.notMatched'),
-    offline: t('paylink.offline'),
-    broken: t('paylink.broken'),
-    caution: t('paylink.caution'),
+    ...linkPageWords(t, t('payout.usedText')),
   };
 }
 
