@@ -59,8 +59,7 @@ export const ON_TIME_CONNECTION = 0.97;
  * hold the usual share of missed connections (learned ones) are moved only by the inbound's news relative to an
  * on-time inbound; the hand-set rates are of passengers who made it, so the whole chance applies.
  */
-export function connectionFactor(profile: ShowUpProfile, departure: Date, inboundEta: Date | null): number {
-  const chance = connectionProbability(profile, departure, inboundEta);
+export function connectionFactor(profile: ShowUpProfile, chance: number): number {
   return profile.ratesIncludeUsualConnection ? chance / ON_TIME_CONNECTION : chance;
 }
 
@@ -92,8 +91,10 @@ export function passengerShowProbability(p: PassengerState, profile: ShowUpProfi
   if (p.status === 'offloaded' || p.status === 'cancelled') return { probability: 0, why: p.status === 'offloaded' ? 'Offloaded.' : 'Booking cancelled.' };
   const minutesBefore = (departure.getTime() - now.getTime()) / 60_000;
   const connecting = Boolean(p.inboundFlight);
-  const connection = connecting ? connectionFactor(profile, departure, p.inboundEstimatedArrival) : 1;
-  const connectionWhy = connecting ? ` Inbound ${p.inboundFlight}: ${pct(connectionProbability(profile, departure, p.inboundEstimatedArrival))} chance of making the connection.` : '';
+  // The chance is worked out once per passenger: the factor and the desk's words both read it.
+  const chance = connecting ? connectionProbability(profile, departure, p.inboundEstimatedArrival) : 1;
+  const connection = connecting ? connectionFactor(profile, chance) : 1;
+  const connectionWhy = connecting ? ` Inbound ${p.inboundFlight}: ${pct(chance)} chance of making the connection.` : '';
 
   const learned = segmentRate(p, profile, departure, now, minutesBefore, connecting);
   if (learned) {
