@@ -88,6 +88,14 @@ export function checkPassengers(passengers: DenialPassenger[], context: CheckedC
   });
 }
 
+/** One formatter per zone: building an Intl.DateTimeFormat costs far more than formatting with one. */
+const clockFormats = new Map<string, Intl.DateTimeFormat>();
+
 export function formatClock(epochMs: number, timeZone: string): string {
-  return new Intl.DateTimeFormat('en-GB', { hour: '2-digit', minute: '2-digit', hourCycle: 'h23', timeZone }).format(epochMs);
+  let format = clockFormats.get(timeZone);
+  if (!format) {
+    format = new Intl.DateTimeFormat('en-GB', { hour: '2-digit', minute: '2-digit', hourCycle: 'h23', timeZone });
+    clockFormats.set(timeZone, format);
+  }
+  return format.format(epochMs);
 }

@@ -79,6 +79,39 @@ describe('a burst from the feed', () => {
     expect(rows.every((p) => p.status === 'checked-in' && p.checkedInAt?.getTime() === now)).toBe(true);
   });
 
+  it('written together when they arrive together: single-event POSTs at once cost at most 4 statements per event', async () => {
+    const a = await flightOf(20);
+    const b = await flightOf(20);
+    await scheduler.flush();
+    const now = Date.now();
+    const events = [...a.pnrs.map((p) => event(a.flight, p, 'passenger.checked-in', now)), ...b.pnrs.map((p) => event(b.flight, p, 'passenger.checked-in', now))];
+    await feed([event(a.flight, a.pnrs[0], 'check-in.cancelled', now - 1)]).expect(200); // the key is known
+    await scheduler.flush();
+    statements = 0;
+    // As a feed sends at its rate: one event per POST, many POSTs open at once.
+    const answers = await Promise.all(events.map((e) => feed([e]).expect(200)));
+    await scheduler.flush();
+    expect(answers.map((r) => r.body.results[0].status)).toEqual(events.map(() => 'applied'));
+    expect(answers.every((r) => r.body.results[0].index === 0 && r.body.applied === 1)).toBe(true);
+    // Alone, each POST is a transaction of its own: 2 + 1 + 1 + 2 + 1 = 7 statements and the key's look-up, 8 per
+    // event. POSTs that arrive while a station's batch is being written join the next one.
+    expect(statements).toBeGreaterThan(2 * events.length);
+    expect(statements / events.length).toBeLessThanOrEqual(4);
+    const rows = await db.getRepository(PassengerEntity).findBy({ flightId: b.flight.id });
+    expect(rows.every((p) => p.status === 'checked-in')).toBe(true);
+  });
+
+  it('a POST written with others keeps its own answer: a duplicate, a rejection and an applied event side by side', async () => {
+    const { flight, pnrs } = await flightOf(3);
+    const t = Date.now();
+    const first = event(flight, pnrs[0], 'passenger.checked-in', t);
+    const unknown = { ...event(flight, pnrs[1], 'passenger.checked-in', t), pnr: 'ZZZZZZ' };
+    const [x, y, z, again] = await Promise.all([feed([first]), feed([unknown]), feed([event(flight, pnrs[2], 'passenger.checked-in', t)]), feed([first])]);
+    expect(x.body.results[0].status === 'applied' ? again.body.results[0].status : x.body.results[0].status).toBe('duplicate');
+    expect(y.body.results[0]).toMatchObject({ index: 0, status: 'rejected', details: [{ field: 'pnr' }] });
+    expect(z.body).toMatchObject({ applied: 1, rejected: 0 });
+  });
+
   it('a boarding that arrives before its check-in keeps the boarding and fills in the check-in time', async () => {
     const { flight, pnrs } = await flightOf(1);
     const t = Date.now();

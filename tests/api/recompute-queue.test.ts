@@ -1,7 +1,8 @@
 // The queue of flights to recompute, on the real MariaDB, with two data sources standing for two server processes.
 // Hand-worked cases: one row per flight however often it is asked for; a claim is exclusive and skips a row another
-// claimer has locked instead of waiting; a flight asked for during its recompute runs once more under the same claim
-// (the latest wins); a dead claimer's flights are taken again after its lease, and its late finish changes nothing.
+// claimer has locked instead of waiting; a flight asked for during its recompute goes back into the line behind the
+// flights that waited longer, for the claimer that ran it (the latest wins, and nobody starves); a dead claimer's
+// flights are taken again after its lease, and its late finish changes nothing.
 // Outside source: MariaDB documentation "SELECT ... FOR UPDATE SKIP LOCKED" (10.6+: locked rows are passed over),
 // from memory.
 import 'reflect-metadata';
@@ -47,7 +48,7 @@ describe('the recompute queue', () => {
     await a.mark([flight], false);
     expect(await rowOf(flight)).toMatchObject({ requests: 3, onlyIfMoved: false });
     expect(await a.claim(10)).toContainEqual({ flightId: flight, onlyIfMoved: false });
-    expect(await a.finish({ flightId: flight, onlyIfMoved: false })).toBeNull();
+    expect(await a.finish({ flightId: flight, onlyIfMoved: false })).toBe(false);
     expect(await rowOf(flight)).toBeNull();
   });
 
@@ -83,23 +84,31 @@ describe('the recompute queue', () => {
     await a.finish({ flightId: flight, onlyIfMoved: false });
   });
 
-  it('runs a flight asked for during its recompute once more under the same claim: the latest wins', async () => {
+  it('puts a flight asked for during its recompute back into the line, behind a flight that waited longer', async () => {
     const flight = await newFlight();
+    const waiting = await newFlight();
     const a = mariadbRecomputeQueue(one, { claimer: claimer('a') });
     const b = mariadbRecomputeQueue(two, { claimer: claimer('b') });
     await a.mark([flight], true);
     const [claim] = (await a.claim(10)).filter((c) => c.flightId === flight);
     expect(claim).toEqual({ flightId: flight, onlyIfMoved: true });
-    // While it runs, another process asks twice (a check-in, then the clock).
+    // While it runs, another process asks twice (a check-in, then the clock), and a second flight is asked for.
     await b.mark([flight], false);
     await b.mark([flight], true);
+    await a.mark([waiting], false);
     expect((await b.claim(10)).map((c) => c.flightId)).not.toContain(flight);
-    // The first recompute ends: the same claimer runs it again for both asks, as a full one (one of them was full).
-    const again = await a.finish(claim);
-    expect(again).toEqual({ flightId: flight, onlyIfMoved: false });
-    expect(await rowOf(flight)).toMatchObject({ requests: 3, claimedBy: expect.stringContaining('test-a-') });
-    expect(await a.finish(again!)).toBeNull();
+    // The line is ordered by the database clock's milliseconds: let it pass the second flight's ask.
+    await expect.poll(async () => Number((await one.query('SELECT UTC_TIMESTAMP(3) > requested_at AS later FROM forecast_recompute_queue WHERE flight_id = ?', [waiting]))[0].later)).toBe(1);
+    // The first recompute ends: the row stays for both asks, unclaimed, asked by the claimer as of now.
+    expect(await a.finish(claim)).toBe(true);
+    expect(await rowOf(flight)).toMatchObject({ requests: 3, claimedBy: null });
+    // The flight that waited longer comes first; then the busy one, as a full recompute (one of its asks was full).
+    const next = (await a.claim(10)).filter((c) => c.flightId === flight || c.flightId === waiting);
+    expect(next).toEqual([{ flightId: waiting, onlyIfMoved: false }, { flightId: flight, onlyIfMoved: false }]);
+    expect(await a.finish(next[0])).toBe(false);
+    expect(await a.finish(next[1])).toBe(false);
     expect(await rowOf(flight)).toBeNull();
+    expect(await rowOf(waiting)).toBeNull();
   });
 
   it('hands a dead claimer’s flight to another after its lease, and the late finish of the dead one changes nothing', async () => {
@@ -117,9 +126,9 @@ describe('the recompute queue', () => {
       taken ??= (await alive.claim(10)).find((c) => c.flightId === flight);
       return taken;
     }, { timeout: 10_000 }).toEqual({ flightId: flight, onlyIfMoved: false });
-    expect(await dead.finish(claim)).toBeNull();
+    expect(await dead.finish(claim)).toBe(false);
     expect(await rowOf(flight)).toMatchObject({ claimedBy: expect.stringContaining('test-alive-') });
-    expect(await alive.finish(taken!)).toBeNull();
+    expect(await alive.finish(taken!)).toBe(false);
     expect(await rowOf(flight)).toBeNull();
   });
 
@@ -134,7 +143,7 @@ describe('the recompute queue', () => {
       taken ??= (await alive.claim(10)).find((c) => c.flightId === flight);
       return taken?.flightId;
     }, { timeout: 10_000 }).toBe(flight);
-    expect(await alive.finish({ flightId: flight, onlyIfMoved: false })).toBeNull();
+    expect(await alive.finish({ flightId: flight, onlyIfMoved: false })).toBe(false);
   });
 });
 

@@ -90,6 +90,24 @@ describe('forecast scheduler', () => {
     expect(h.calls.map((c) => c.flightId)).toEqual([1, 2, 3]);
   });
 
+  it('puts a flight asked for again behind the flights waiting longer: a busy flight never starves the others', async () => {
+    const h = harness();
+    [1, 2, 3].forEach((id) => h.scheduler.markDirty(id));
+    await turn();
+    expect(h.calls.map((c) => c.flightId)).toEqual([1, 2]);
+    // Flights 1 and 2 get check-ins all the time; flight 3 has waited since the start.
+    h.scheduler.markDirty(1);
+    h.scheduler.markDirty(2);
+    await turn();
+    await h.finishOldest();
+    expect(h.calls.map((c) => c.flightId)).toEqual([1, 2, 3]);
+    h.scheduler.markDirty(2);
+    await turn();
+    await h.finishOldest();
+    // Flight 2's ask came after flight 1's: flight 1 goes first.
+    expect(h.calls.map((c) => c.flightId)).toEqual([1, 2, 3, 1]);
+  });
+
   it('whatever the order of changes and completions: never two at once for a flight, and every change is followed by a recompute that started after it', async () => {
     await fc.assert(
       fc.asyncProperty(fc.array(fc.oneof(fc.integer({ min: 1, max: 3 }), fc.constant(0)), { maxLength: 40 }), async (ops) => {

@@ -96,31 +96,27 @@ export function createForecastScheduler(db: DataSource, onRecomputed: (o: Recomp
     return writes;
   };
 
-  const runOne = async (claim: ClaimedRecompute) => {
-    for (let next: ClaimedRecompute | null = claim; next; ) {
-      const c: ClaimedRecompute = next;
-      try {
-        const r = await recompute(c.flightId, { onlyIfMoved: c.onlyIfMoved });
-        count++;
-        if (r.status === 'written') onRecomputed(r.outcome);
-        // A recompute that read later won the write; this one may have read a change that one missed (the same
-        // millisecond): one more pass makes sure nothing committed is left out.
-        if (r.status === 'stale') await queue.mark([c.flightId], false);
-      } catch (err) {
-        log(`recompute of flight ${c.flightId} failed`, err);
-      }
-      try {
-        next = await queue.finish(c);
-      } catch (err) {
-        // The claim stays until its lease runs out; then the flight is taken again.
-        log(`could not finish the recompute of flight ${c.flightId}`, err);
-        next = null;
-      }
+  const runOne = async (c: ClaimedRecompute) => {
+    try {
+      const r = await recompute(c.flightId, { onlyIfMoved: c.onlyIfMoved });
+      count++;
+      if (r.status === 'written') onRecomputed(r.outcome);
+      // A recompute that read later won the write; this one may have read a change that one missed (the same
+      // millisecond): one more pass makes sure nothing committed is left out.
+      if (r.status === 'stale') await queue.mark([c.flightId], false);
+    } catch (err) {
+      log(`recompute of flight ${c.flightId} failed`, err);
+    }
+    try {
+      if (await queue.finish(c)) wanted = true;
+    } catch (err) {
+      // The claim stays until its lease runs out; then the flight is taken again.
+      log(`could not finish the recompute of flight ${c.flightId}`, err);
     }
   };
 
   // One loop at a time: it claims waiting flights up to `parallel` and goes round again as each finishes or as new
-  // asks are queued. A flight asked for again while it runs is run once more by the same claim (see finish()).
+  // asks are queued. A flight asked for again while it runs goes back into the line when it finishes (see finish()).
   const pump = async () => {
     const inFlight = new Set<Promise<void>>();
     for (;;) {

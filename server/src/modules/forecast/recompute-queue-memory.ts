@@ -33,14 +33,13 @@ export function memoryRecomputeQueue(): RecomputeQueue & { size(): number } {
     },
     async finish(claim) {
       const row = rows.get(claim.flightId);
-      if (!row?.claimed) return null;
-      if (row.requests === row.claimed.requests) {
-        rows.delete(claim.flightId);
-        return null;
-      }
-      row.claimed = { requests: row.requests, onlyIfMoved: row.onlyIfMoved };
-      row.onlyIfMoved = true;
-      return { flightId: claim.flightId, onlyIfMoved: row.claimed.onlyIfMoved };
+      if (!row?.claimed) return false;
+      rows.delete(claim.flightId);
+      if (row.requests === row.claimed.requests) return false;
+      // Asked again meanwhile: back into the line, behind the flights that have waited longer.
+      row.claimed = null;
+      rows.set(claim.flightId, row);
+      return true;
     },
   };
 }

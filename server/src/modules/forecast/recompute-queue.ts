@@ -1,7 +1,8 @@
 // The flights waiting for a recompute, kept in MariaDB (table forecast_recompute_queue) so that several server
 // processes share them. A claim is a lease taken with FOR UPDATE SKIP LOCKED: while it holds, nobody else runs that
-// flight; asking again meanwhile raises the row's `requests`, and the claimer runs the flight once more when it
-// finishes (the latest state wins). A process takes the flights it asked for itself (its notices then leave from
+// flight; asking again meanwhile raises the row's `requests`, and when the claimer finishes the flight goes back into
+// the line, behind the flights that have waited longer (the latest state wins, and a flight with check-ins arriving
+// all the time never keeps the others waiting). A process takes the flights it asked for itself (its notices then leave from
 // where the change came in); another process's rows only once their lease ran out or nobody claimed them for a
 // lease's length (their process died).
 import { hostname } from 'node:os';
@@ -20,10 +21,10 @@ export interface RecomputeQueue {
   /** Takes up to `limit` waiting flights that nobody is running. */
   claim(limit: number): Promise<ClaimedRecompute[]>;
   /**
-   * Done with a claim. The row goes unless someone asked again meanwhile: then the claim is renewed for the newer
-   * request and returned, to be run once more by the same claimer (never two at once for a flight).
+   * Done with a claim. The row goes unless someone asked again meanwhile: then it is released, asked as of now, and
+   * true is returned (the claimer's next claim finds it once the flights that waited longer are taken).
    */
-  finish(claim: ClaimedRecompute): Promise<ClaimedRecompute | null>;
+  finish(claim: ClaimedRecompute): Promise<boolean>;
 }
 
 export interface RecomputeQueueOptions {
@@ -91,21 +92,15 @@ export function mariadbRecomputeQueue(db: DataSource, options: RecomputeQueueOpt
         'DELETE FROM forecast_recompute_queue WHERE flight_id = ? AND claimed_by = ? AND requests = claimed_requests',
         [claim.flightId, me],
       );
-      if (done.affectedRows === 1) return null;
+      if (done.affectedRows === 1) return false;
       // Asked again while running (or the lease ran out and another claimer took it: then nothing matches below).
-      return db.transaction('READ COMMITTED', async (em) => {
-        const [row]: ClaimRow[] = await em.query(
-          'SELECT flight_id, only_if_moved FROM forecast_recompute_queue WHERE flight_id = ? AND claimed_by = ? FOR UPDATE',
-          [claim.flightId, me],
-        );
-        if (!row) return null;
-        await em.query(
-          `UPDATE forecast_recompute_queue SET claimed_only_if_moved = only_if_moved, only_if_moved = 1, claimed_requests = requests,
-                  lease_until = UTC_TIMESTAMP(3) + INTERVAL ? MICROSECOND WHERE flight_id = ?`,
-          [leaseMicros, claim.flightId],
-        );
-        return { flightId: claim.flightId, onlyIfMoved: Number(row.only_if_moved) === 1 };
-      });
+      // Released as asked by this process now: it takes the flight again itself, after the flights asked earlier.
+      const released: { affectedRows?: number } = await db.query(
+        `UPDATE forecast_recompute_queue SET claimed_by = NULL, claimed_requests = NULL, lease_until = NULL,
+                requested_by = ?, requested_at = UTC_TIMESTAMP(3) WHERE flight_id = ? AND claimed_by = ?`,
+        [me, claim.flightId, me],
+      );
+      return released.affectedRows === 1;
     },
   };
 }

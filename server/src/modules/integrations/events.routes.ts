@@ -3,7 +3,7 @@ import type { DataSource } from 'typeorm';
 import { eventBatchSchema } from '@shared/schemas/integration-events';
 import { HttpError } from '../../http/errors';
 import { parse } from '../../http/validate';
-import { applyEventBatch } from './events.service';
+import { applyFeedEvents } from './feed-line';
 import { stationForKey } from './integration-keys.service';
 
 /**
@@ -18,7 +18,7 @@ export function integrationEventsRouter(deps: { db: DataSource; onFlightsChanged
     const key = presented ? await stationForKey(deps.db, presented) : null;
     if (!key) throw new HttpError(401, 'invalid_api_key', 'Send a valid integration key as "Authorization: Bearer <key>". Keys are created by an admin in Station setup.');
     const { events } = parse(eventBatchSchema, req.body);
-    const { results, touchedFlights } = await applyEventBatch(deps.db, key.stationId, events);
+    const { results, touchedFlights } = await applyFeedEvents(deps.db, key.stationId, events);
     if (touchedFlights.size) deps.onFlightsChanged(touchedFlights);
     res.json({ results, applied: results.filter((x) => x.status === 'applied').length, rejected: results.filter((x) => x.status === 'rejected').length });
   });

@@ -21,6 +21,13 @@ export async function createIntegrationKey(db: DataSource, stationId: number, na
   });
 }
 
+/**
+ * Keys found valid, by hash, for a few seconds: a feed presents its key on every POST. A revocation here drops the
+ * key at once; another server process stops accepting it within KNOWN_KEY_MS. Unknown keys are never remembered.
+ */
+const knownKeys = new Map<string, { stationId: number; keyId: number; until: number }>();
+const KNOWN_KEY_MS = 5_000;
+
 export async function revokeIntegrationKey(db: DataSource, stationId: number, keyId: number, actor: SessionUser) {
   return db.transaction(async (em) => {
     const row = await em.findOneBy(IntegrationKeyEntity, { id: keyId, stationId });
@@ -29,6 +36,7 @@ export async function revokeIntegrationKey(db: DataSource, stationId: number, ke
       const before = presentKey(row);
       row.revokedAt = new Date();
       await em.save(row);
+      knownKeys.delete(row.keyHash);
       await audit(em, { actor, action: 'integration_key.revoked', entityType: 'integration_key', entityId: row.id, stationId, before, after: presentKey(row) });
     }
     return presentKey(row);
@@ -41,9 +49,14 @@ const LAST_USED_RESOLUTION_MS = 60_000;
 
 /** The station a presented key belongs to, or null for an unknown or revoked key. */
 export async function stationForKey(db: DataSource, presented: string): Promise<{ stationId: number; keyId: number } | null> {
-  const row = await db.getRepository(IntegrationKeyEntity).findOneBy({ keyHash: hashKey(presented), revokedAt: IsNull() });
+  const hash = hashKey(presented);
+  const known = knownKeys.get(hash);
+  if (known && known.until > Date.now()) return { stationId: known.stationId, keyId: known.keyId };
+  knownKeys.delete(hash);
+  const row = await db.getRepository(IntegrationKeyEntity).findOneBy({ keyHash: hash, revokedAt: IsNull() });
   if (!row) return null;
   const now = Date.now();
+  knownKeys.set(hash, { stationId: row.stationId, keyId: row.id, until: now + KNOWN_KEY_MS });
   if (now - (lastUsedWritten.get(row.id) ?? 0) >= LAST_USED_RESOLUTION_MS) {
     lastUsedWritten.set(row.id, now);
     await db.getRepository(IntegrationKeyEntity).update({ id: row.id }, { lastUsedAt: new Date(now) });
