@@ -1,5 +1,6 @@
 // socket.io event names and payloads. A flight's notice carries what changed with the flight's forecast version, so
 // a console patches its cache and asks the API again only when it missed a version (a gap) or after a reconnect.
+import type { CandidatesAnswer } from './schemas/denial-candidates-patch';
 import type { DeskPassenger, FlightDesk, Forecast } from './schemas/flight-desk';
 
 export const SOCKET_EVENTS = {
@@ -15,6 +16,8 @@ export const ALERT_TOPIC = 'alerts';
 
 export const flightRoom = (flightId: number) => `flight:${flightId}`;
 export const stationRoom = (stationId: number) => `station:${stationId}`;
+/** The flight's consoles that show the denial ranking: their notices carry it. */
+export const flightDeskRoom = (flightId: number) => `flight:${flightId}:desk`;
 
 /**
  * The part of a show-up distribution worth sending: entries below PMF_FLOOR are sent as absent and values keep
@@ -93,6 +96,11 @@ export interface ChangedPayload {
   events?: TrailRow[] | null;
   /** The odds-over-time point this version added, if it added one. */
   point?: HistoryPoint | null;
+  /**
+   * The denial ranking as of this version, for the consoles that show it: unchanged, a patch from the ranking the
+   * previous notice brought, or whole. A console holding another ranking asks the API.
+   */
+  ranking?: CandidatesAnswer;
 }
 
 export interface ServerToClientEvents {

@@ -31,6 +31,7 @@ import { volunteersRouter } from './modules/volunteers/volunteers.routes';
 import { approvalsRouter } from './modules/approvals/approvals.routes';
 import { heldRankingsOf } from './modules/denials/candidates-held';
 import { denialsRouter } from './modules/denials/denials.routes';
+import { forecastAnnouncer } from './modules/denials/ranking-notices';
 import { configureCarrierName } from './modules/denials/statement';
 import { carrierNameFrom } from './config/carrier';
 import { publicOffersRouter } from './modules/volunteers/public-offers.routes';
@@ -82,7 +83,7 @@ export function createApp(deps: AppDeps) {
   app.use('/api/health', healthRouter(deps));
 
   const publisher = deps.publisher ?? silentPublisher;
-  const forecast = deps.forecast ?? createForecastScheduler(deps.db, (o) => publisher.flightChanged(o.flightId, o.stationId, ['forecast', 'counts', 'events'], o.notice));
+  const forecast = deps.forecast ?? createForecastScheduler(deps.db, forecastAnnouncer(deps.db, publisher));
   // The feed authenticates with an API key, not a session: mounted before the session and CSRF middleware.
   const changed = (flightId: number, stationId: number, topics: string[]) => {
     // Rounds, proposals and denials feed the held denial ranking: the next read builds it anew.

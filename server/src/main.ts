@@ -18,6 +18,7 @@ import { stationsOnLatestRates } from './modules/learning/rates.service';
 import { openFlightIds } from './modules/show-up-profiles/show-up-profiles.service';
 import { watchPaymentDeadlines } from './modules/compensations/payment-deadlines';
 import { ALERT_TOPIC } from '@shared/events';
+import { forecastAnnouncer } from './modules/denials/ranking-notices';
 
 const env = loadEnv();
 const db = createDataSource(env.DATABASE_URL);
@@ -25,7 +26,7 @@ await db.initialize();
 const session = createSessionSetup(env);
 const ioRef: { io?: AppIo } = {};
 const publisher = socketPublisher(() => ioRef.io);
-const forecast = createForecastScheduler(db, (o) => publisher.flightChanged(o.flightId, o.stationId, ['forecast', 'counts', 'events'], o.notice), {
+const forecast = createForecastScheduler(db, forecastAnnouncer(db, publisher), {
   leaseMs: env.RECOMPUTE_LEASE_SECONDS * 1000,
 });
 forecast.startClock();

@@ -5,6 +5,8 @@ import { REGIME_NAMES } from '../compensation/labels';
 export const ROLES = ['agent', 'supervisor', 'finance', 'admin'] as const;
 export const roleSchema = z.enum(ROLES, { error: 'role must be one of agent, supervisor, finance, admin' });
 export type Role = z.infer<typeof roleSchema>;
+/** The roles that work a flight's denied boarding (its ranking, proposals and denials). */
+export const DENIAL_DESK_ROLES = ['agent', 'supervisor', 'admin'] as const satisfies readonly Role[];
 
 export const ROLE_LABELS: Record<Role, string> = {
   agent: 'Gate agent',

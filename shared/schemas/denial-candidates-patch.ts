@@ -110,6 +110,17 @@ export function diffCandidates(from: TaggedCandidates, to: TaggedCandidates): Ca
   return { kind: 'patch', tag: to.tag, base: from.tag, counts: to.counts, order: to.candidates.map((c) => c.unitId), added, changed, excluded };
 }
 
+/**
+ * What a console holds after an answer about the ranking (from the API or a notice): the whole one, the one it held
+ * (unchanged), or the held one patched; null when the answer does not fit what it holds (fetch the whole ranking).
+ */
+export function applyCandidatesAnswer(held: TaggedCandidates | undefined, answer: CandidatesAnswer): TaggedCandidates | null {
+  if (answer.kind === 'full') return answer;
+  if (!held) return null;
+  if (answer.kind === 'same') return held.tag === answer.tag ? held : null;
+  return applyCandidatesPatch(held, answer);
+}
+
 /** Applies a patch to the ranking it was made from; null if `held` is not its base or a unit is missing (refetch whole). */
 export function applyCandidatesPatch(held: TaggedCandidates, patch: CandidatesPatch): TaggedCandidates | null {
   if (held.tag !== patch.base) return null;

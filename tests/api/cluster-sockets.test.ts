@@ -25,6 +25,7 @@ import { createSocketServer, type AppIo } from '../../server/src/realtime/socket
 // @ts-expect-error a plain Node script of ours, without type declarations
 import { startPrivateRedis } from '../../server/scripts/lib/redis.mjs';
 import { addBooking, createFlight, removeDenialFixtures } from './denials-fixtures';
+import { forecastAnnouncer } from '../../server/src/modules/denials/ranking-notices';
 import { Client } from './harness';
 import { DEMO, RUN_ID, sessionCookie } from './helpers';
 
@@ -53,7 +54,7 @@ async function startNode(redisUrl: string): Promise<Node> {
   const session = createSessionSetup(env);
   const ioRef: { io?: AppIo } = {};
   const publisher = socketPublisher(() => ioRef.io);
-  const forecast = createForecastScheduler(db, (o) => publisher.flightChanged(o.flightId, o.stationId, ['forecast', 'counts', 'events'], o.notice));
+  const forecast = createForecastScheduler(db, forecastAnnouncer(db, publisher));
   const app = createApp({ env, db, session, forecast, publisher, throttle: createSignInThrottle({ perAccount: 1000, perAddress: 10_000 }), demo: true });
   const http = createServer(app);
   const io = createSocketServer(http, { db, sessionMiddleware: session.middleware });

@@ -7,8 +7,9 @@ import request from 'supertest';
 import type { DataSource } from 'typeorm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import {
-  applyCandidatesPatch, candidatesAnswerSchema, taggedCandidatesSchema, type TaggedCandidates,
+  applyCandidatesAnswer, applyCandidatesPatch, candidatesAnswerSchema, taggedCandidatesSchema, type TaggedCandidates,
 } from '@shared/schemas/denial-candidates-patch';
+import type { ChangedPayload } from '@shared/events';
 import { createApp } from '../../server/src/app';
 import { loadEnv } from '../../server/src/config/env';
 import { createDataSource } from '../../server/src/db/data-source';
@@ -16,9 +17,11 @@ import type { FlightEntity } from '../../server/src/db/entities';
 import { createSessionSetup } from '../../server/src/http/session';
 import { createSignInThrottle } from '../../server/src/modules/auth/throttle';
 import { heldRankingsOf } from '../../server/src/modules/denials/candidates-held';
+import { forecastAnnouncer } from '../../server/src/modules/denials/ranking-notices';
 import { createForecastScheduler, type ForecastScheduler } from '../../server/src/modules/forecast/forecast-scheduler';
 import { liveStoreOf } from '../../server/src/modules/forecast/live-store';
 import { createIntegrationKey } from '../../server/src/modules/integrations/integration-keys.service';
+import type { Publisher } from '../../server/src/realtime/publisher';
 import { addBooking, createFlight, removeDenialFixtures } from './denials-fixtures';
 import { Client } from './harness';
 import { DEMO, RUN_ID } from './helpers';
@@ -31,6 +34,7 @@ let agent: Client;
 let other: Client;
 let key: string;
 let serial = 0;
+const notices: ChangedPayload[] = [];
 
 beforeAll(async () => {
   const env = loadEnv({ ...process.env, NODE_ENV: 'test', SESSION_SECRET: process.env.SESSION_SECRET ?? 'test-secret-test-secret-test-secret-42', STATIC_DIR: 'no-static-in-api-tests' });
@@ -38,7 +42,8 @@ beforeAll(async () => {
   await db.initialize();
   const session = createSessionSetup(env);
   closeSession = () => session.close();
-  scheduler = createForecastScheduler(db, () => undefined);
+  const publisher: Publisher = { flightChanged: (id, _station, topics, data, desk) => notices.push({ id, topics, ...data, ...desk }) };
+  scheduler = createForecastScheduler(db, forecastAnnouncer(db, publisher));
   app = createApp({ env, db, session, throttle: createSignInThrottle({ perAccount: 1000, perAddress: 10_000 }), demo: true, forecast: scheduler });
   agent = new Client(app);
   other = new Client(app);
@@ -100,6 +105,29 @@ describe('the denial ranking served from memory', () => {
     expect(comparable(patched)).toEqual(comparable(await full(other, flight)));
     // The patch is a fraction of the whole ranking.
     expect(JSON.stringify(answer).length).toBeLessThan(JSON.stringify(patched).length);
+  });
+
+  it('rides on the forecast notices: a console holding the ranking the last notice brought gets a patch giving the fresh one', async () => {
+    const flight = await createFlight(db, { station: 'BOS', destination: 'ORD', seats: 1 });
+    const pnrs: string[] = [];
+    for (const first of ['Ada', 'Bo', 'Cy']) pnrs.push((await addBooking(db, flight, [{ first, last: 'Notice', status: 'booked' }])).booking.pnr);
+    const noticeOf = (version: number) => notices.find((n) => n.id === flight.id && n.version === version);
+    await feed([checkIn(flight, pnrs[0])]).expect(200);
+    await expect.poll(() => noticeOf(1), { timeout: 10_000 }).toBeTruthy();
+    // The first notice of the flight brings the whole ranking: nothing was sent before it.
+    const first = noticeOf(1)!.ranking!;
+    expect(first.kind).toBe('full');
+    let held = applyCandidatesAnswer(undefined, first)!;
+    for (const [i, pnr] of pnrs.slice(1).entries()) {
+      await feed([checkIn(flight, pnr)]).expect(200);
+      await expect.poll(() => noticeOf(i + 2), { timeout: 10_000 }).toBeTruthy();
+      const ranking = noticeOf(i + 2)!.ranking!;
+      expect(ranking.kind).toBe('patch');
+      held = applyCandidatesAnswer(held, ranking)!;
+      expect(held).not.toBeNull();
+      expect(comparable(held)).toEqual(comparable(await full(agent, flight)));
+    }
+    expect(held.counts.checkedIn).toBe(3);
   });
 
   it('a proposal through the API reaches the ranking at once: its units show their selection', async () => {

@@ -9,7 +9,7 @@ import { io as connect, type Socket } from 'socket.io-client';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { SOCKET_EVENTS } from '@shared/events';
-import { ROLES, type Role } from '@shared/schemas/common';
+import { DENIAL_DESK_ROLES, ROLES, type Role } from '@shared/schemas/common';
 import { loadEnv } from '../../server/src/config/env';
 import { FlightEntity } from '../../server/src/db/entities';
 import { createSessionSetup, type SessionSetup } from '../../server/src/http/session';
@@ -162,6 +162,22 @@ describe(`${SOCKET_EVENTS.unwatchFlight} takes the caller out of the flight's ro
     socketPublisher(() => io).flightChanged(ctx.flight.own, ctx.station.own);
     await vi.waitFor(() => expect(heard).toContain(`${SOCKET_EVENTS.stationChanged} ${ctx.station.own}`));
     expect(heard).not.toContain(`${SOCKET_EVENTS.flightChanged} ${ctx.flight.own}`);
+    s.disconnect();
+  });
+});
+
+describe('the denial ranking on a forecast notice', () => {
+  it.each(ROLES)('reaches the %s role only if that role works denied boarding, with the notice itself either way', async (role) => {
+    const s = await socketWith(await cookieOf(role));
+    const heard: { id: number; version?: number; ranking?: unknown }[] = [];
+    s.on(SOCKET_EVENTS.flightChanged, (p: { id: number; version?: number; ranking?: unknown }) => heard.push(p));
+    expect(await ack(s, SOCKET_EVENTS.watchFlight, [ctx.flight.own])).toEqual({ ok: true });
+    socketPublisher(() => io).flightChanged(ctx.flight.own, ctx.station.own, ['forecast'], undefined, { ranking: { kind: 'same', tag: 'ranking-test' } });
+    await vi.waitFor(() => expect(heard.map((p) => p.id)).toContain(ctx.flight.own));
+    // One notice per console, whichever room it came through.
+    expect(heard).toHaveLength(1);
+    const works = (DENIAL_DESK_ROLES as readonly Role[]).includes(role);
+    expect(heard[0].ranking).toEqual(works ? { kind: 'same', tag: 'ranking-test' } : undefined);
     s.disconnect();
   });
 });

@@ -6,10 +6,13 @@ import type { RequestHandler } from 'express';
 import passport from 'passport';
 import { Server, type Socket } from 'socket.io';
 import type { DataSource } from 'typeorm';
-import { SOCKET_EVENTS, flightRoom, stationRoom, type ClientToServerEvents, type ServerToClientEvents } from '@shared/events';
+import { SOCKET_EVENTS, flightDeskRoom, flightRoom, stationRoom, type ClientToServerEvents, type ServerToClientEvents } from '@shared/events';
+import { DENIAL_DESK_ROLES, type Role } from '@shared/schemas/common';
 import { FlightEntity } from '../db/entities';
 import { canSeeStation } from '../http/require-role';
 import { loadActiveSessionUser } from '../modules/auth/session-user';
+
+const worksDenials = (role: Role) => (DENIAL_DESK_ROLES as readonly Role[]).includes(role);
 
 interface SocketData {
   userId: number;
@@ -67,14 +70,16 @@ export function createSocketServer(http: HttpServer, deps: { db: DataSource; ses
       const user = await currentUser();
       const flight = user && typeof flightId === 'number' ? await deps.db.getRepository(FlightEntity).findOneBy({ id: flightId }) : null;
       const ok = Boolean(user && flight && canSeeStation(user, flight.stationId));
-      if (ok && flight) {
+      if (ok && user && flight) {
         socket.data.flightStations[flight.id] = flight.stationId;
         socket.join(flightRoom(flight.id));
+        if (worksDenials(user.role)) socket.join(flightDeskRoom(flight.id));
       }
       ack?.({ ok });
     });
     socket.on(SOCKET_EVENTS.unwatchFlight, (flightId) => {
       socket.leave(flightRoom(flightId));
+      socket.leave(flightDeskRoom(flightId));
     });
   });
   return io;
@@ -94,10 +99,11 @@ export async function refreshUserSockets(io: AppIo, db: DataSource, userId: numb
   for (const socket of await io.in(userRoom(userId)).fetchSockets()) {
     for (const room of socket.rooms) {
       const station = /^station:(\d+)$/.exec(room);
-      const flight = /^flight:(\d+)$/.exec(room);
+      const flight = /^flight:(\d+)(:desk)?$/.exec(room);
       const stationId = station ? Number(station[1]) : flight ? socket.data.flightStations?.[Number(flight[1])] : undefined;
       // A flight room whose station is unknown is left too: better a console that asks again than one that overhears.
       if ((station || flight) && (stationId === undefined || !canSeeStation(user, stationId))) socket.leave(room);
+      else if (flight?.[2] && !worksDenials(user.role)) socket.leave(room);
     }
   }
 }

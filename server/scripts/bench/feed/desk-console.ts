@@ -9,8 +9,10 @@
 //  - `refetch` (the client before notices carried data, kept to compare): every notice refetches the four desk
 //    queries; the request in flight runs on and its answer is thrown away;
 //  - the denied-boarding panel (`patch`): a notice without a version refetches its candidates and proposals; a
-//    forecast notice refetches only the candidates, only when passengers moved, naming the ranking it holds
-//    (`?since=tag`) to get a patch; in `refetch` it refetches both whole on every notice, without a signal.
+//    forecast notice that carries the ranking is applied when it fits the ranking held (same tag, or a patch from
+//    it), else the candidates are refetched naming the ranking held (`?since=tag`); a forecast notice without the
+//    ranking refetches the candidates when passengers moved; in `refetch` it refetches both whole on every notice,
+//    without a signal.
 import type { ConsoleSocket } from './consoles';
 
 export interface Held {
@@ -39,6 +41,7 @@ interface DeskNotice {
   version?: number;
   topics?: string[];
   passengers?: unknown[] | null;
+  ranking?: { kind: 'full' | 'same' | 'patch'; tag: string; base?: string };
   desk?: { version: number; forecast: { computedAt: string } | null; totals: { checkedIn: number } };
 }
 
@@ -161,10 +164,19 @@ export class DeskConsole {
     this.denials.forEach((s) => s.refetch());
   }
 
+  /** As the client applies a ranking a notice carries: held unless it does not fit the ranking held. */
+  private takeRanking(r: NonNullable<DeskNotice['ranking']>) {
+    if (this.rankingTag === null) return;
+    const fits = r.kind === 'full' || (r.kind === 'same' ? r.tag === this.rankingTag : r.base === this.rankingTag);
+    if (fits) this.rankingTag = r.tag;
+    else this.candidates.refetch();
+  }
+
   private onNotice(p: DeskNotice) {
     this.counters.notices++;
     this.counters.noticeBytes += JSON.stringify(p).length;
     if (this.opts.model === 'refetch' || p.version === undefined) this.denials.forEach((s) => s.refetch());
+    else if (p.ranking) this.takeRanking(p.ranking);
     else if (p.passengers === undefined || p.passengers === null || p.passengers.length > 0) this.candidates.refetch();
     if (this.opts.model === 'patch' && p.desk && this.held) {
       if (p.desk.version === this.held.version + 1) {

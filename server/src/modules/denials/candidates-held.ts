@@ -68,6 +68,17 @@ export class HeldRankings {
   async current(user: SessionUser, flightId: number): Promise<HeldRanking> {
     const entry = await liveStoreOf(this.db).current(flightId);
     if (!entry || !canSeeStation(user, entry.stationId)) throw notFound('Flight');
+    return this.heldFor(flightId, entry);
+  }
+
+  /** The flight's current ranking, for the notice that carries it to the consoles allowed to see it. */
+  async latest(flightId: number): Promise<HeldRanking> {
+    const entry = await liveStoreOf(this.db).current(flightId);
+    if (!entry) throw notFound('Flight');
+    return this.heldFor(flightId, entry);
+  }
+
+  private async heldFor(flightId: number, entry: { version: number; stationId: number }): Promise<HeldRanking> {
     const key = `${entry.version}.${this.flightMoves.get(flightId) ?? 0}.${this.stationMoves.get(entry.stationId) ?? 0}`;
     const held = this.flights.get(flightId);
     const now = Date.now();

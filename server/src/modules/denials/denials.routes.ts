@@ -3,7 +3,7 @@
 import { Router, type Request } from 'express';
 import type { DataSource } from 'typeorm';
 import { z } from 'zod';
-import { idParamSchema } from '@shared/schemas/common';
+import { DENIAL_DESK_ROLES, idParamSchema } from '@shared/schemas/common';
 import { candidatesSinceQuerySchema } from '@shared/schemas/denial-candidates-patch';
 import {
   authorizeDenialsBodySchema, changeDenialsBodySchema, priorityRulesBodySchema, proposeDenialsBodySchema, rebookDenialBodySchema, recordDenialAfterBodySchema,
@@ -33,7 +33,7 @@ export interface DenialDeps {
 const flightParams = z.object({ flightId: z.coerce.number().int('flightId must be a whole number').positive('flightId must be positive') });
 const stationParams = z.object({ stationId: z.coerce.number().int('stationId must be a whole number').positive('stationId must be positive') });
 const statementQuery = z.object({ passengerId: z.coerce.number().int('passengerId must be a whole number').positive('passengerId must be positive').optional() });
-const desk = requireRole('agent', 'supervisor', 'admin');
+const desk = requireRole(...DENIAL_DESK_ROLES);
 const supervisors = requireRole('supervisor', 'admin');
 
 export function denialsRouter(deps: DenialDeps) {

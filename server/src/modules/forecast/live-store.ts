@@ -24,7 +24,7 @@ export interface LiveEntry {
 }
 
 /** The notice's data: what a console at version - 1 needs to reach `version`. */
-export type NoticeData = Required<Omit<ChangedPayload, 'id' | 'topics'>>;
+export type NoticeData = Required<Omit<ChangedPayload, 'id' | 'topics' | 'ranking'>>;
 
 /** Figures that move with time alone by less than these are not news (the desk shows whole percents). */
 const MOVED = { pOversale: 0.0005, expectedDenied: 0.005, mean: 0.05 };

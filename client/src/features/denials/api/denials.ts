@@ -4,7 +4,7 @@ import {
   stationPriorityRulesSchema, waitingProposalListSchema,
   type ChangeDenialsBody, type PriorityRulesBody, type ProposeDenialsBody, type RebookDenialBody, type RecordDenialAfterBody, type RecordRefusalBody,
 } from '@shared/schemas/denials';
-import { applyCandidatesPatch, candidatesAnswerSchema, taggedCandidatesSchema, type TaggedCandidates } from '@shared/schemas/denial-candidates-patch';
+import { applyCandidatesAnswer, candidatesAnswerSchema, taggedCandidatesSchema, type TaggedCandidates } from '@shared/schemas/denial-candidates-patch';
 import { alternateListSchema } from '@shared/schemas/volunteers';
 import type { z } from 'zod';
 import { api, apiRequest } from '../../../lib/api-client';
@@ -35,9 +35,7 @@ async function fetchCandidates(flightId: number, held: TaggedCandidates | undefi
   const path = `/flights/${flightId}/denial-candidates`;
   if (!held?.tag) return api.get(path, taggedCandidatesSchema, signal);
   const answer = await api.get(`${path}?since=${encodeURIComponent(held.tag)}`, candidatesAnswerSchema, signal);
-  if (answer.kind === 'full') return answer;
-  if (answer.kind === 'same') return held;
-  return applyCandidatesPatch(held, answer) ?? api.get(path, taggedCandidatesSchema, signal);
+  return applyCandidatesAnswer(held, answer) ?? api.get(path, taggedCandidatesSchema, signal);
 }
 
 export const denialCandidatesQueryOptions = (flightId: number) =>

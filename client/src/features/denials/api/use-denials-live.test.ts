@@ -29,4 +29,23 @@ describe('applyDenialNotice', () => {
     expect(applyDenialNotice(qc, 7, { id: 7, version: 4, passengers: [], events: [], desk: figures(101.5) })).toEqual([]);
     expect(qc.getQueryData<TaggedCandidates>(denialKeys.candidates(7))?.counts.expectedShows).toBe(101.5);
   });
+
+  it('a notice that carries the ranking patches the one held and fetches nothing; one that does not fit it refetches', () => {
+    const full = (tag: string, names: string[]) => ({
+      kind: 'full', tag, flight: held.flight, regime: 'US', counts: { expectedShows: 90 }, rules: [], rulesText: [], excluded: [],
+      candidates: names.map((n, i) => ({ position: i + 1, unitId: n, bookingId: i, pnr: n, passengerIds: [i], names: [n], seatsFreed: 1, cabins: ['Y'], priorityGroup: null, reasons: ['fare'], selection: null })),
+    }) as unknown as TaggedCandidates;
+    const qc = new QueryClient();
+    qc.setQueryData(denialKeys.candidates(7), full('a.1', ['u1', 'u2']));
+    const patch = { kind: 'patch', base: 'a.1', tag: 'a.2', counts: { expectedShows: 90 }, order: ['u2', 'u1'], added: [], changed: [], excluded: null } as const;
+    const moved = [{ id: 1 } as NonNullable<ChangedPayload['passengers']>[number]];
+    expect(applyDenialNotice(qc, 7, { id: 7, version: 5, passengers: moved, ranking: patch as never, desk: figures(91) })).toEqual([]);
+    const now = qc.getQueryData<TaggedCandidates>(denialKeys.candidates(7))!;
+    expect([now.tag, now.candidates.map((c) => c.unitId), now.counts.expectedShows]).toEqual(['a.2', ['u2', 'u1'], 91]);
+    // Unchanged: nothing to do.
+    expect(applyDenialNotice(qc, 7, { id: 7, version: 6, passengers: moved, ranking: { kind: 'same', tag: 'a.2' } })).toEqual([]);
+    // Made from a ranking this console does not hold (it fetched a newer one meanwhile): it asks the API.
+    expect(applyDenialNotice(qc, 7, { id: 7, version: 7, passengers: moved, ranking: { ...patch, base: 'a.9', tag: 'a.10' } as never })).toEqual([denialKeys.candidates(7)]);
+    expect(qc.getQueryData<TaggedCandidates>(denialKeys.candidates(7))!.tag).toBe('a.2');
+  });
 });

@@ -1,23 +1,35 @@
 import { useQueryClient, type QueryClient } from '@tanstack/react-query';
 import type { ChangedPayload } from '@shared/events';
-import type { TaggedCandidates } from '@shared/schemas/denial-candidates-patch';
+import { applyCandidatesAnswer, type TaggedCandidates } from '@shared/schemas/denial-candidates-patch';
 import { useLiveRoom } from '../../../lib/socket';
 import { denialKeys } from './denials';
 
 /**
  * What one flight notice does to the denial queries. A notice without a forecast version says rounds, proposals or
- * denials moved: everything of the flight's denials is fetched again. A forecast notice moves only the ranking, and
- * only when passengers changed (then as a patch from the ranking held); when just the figures drifted with time,
- * the expected shows are patched in place and nothing is fetched. Returns the keys to fetch again.
+ * denials moved: everything of the flight's denials is fetched again. A forecast notice moves only the ranking: it
+ * carries it to the consoles that show it (applied here, nothing fetched, unless it does not fit the ranking held);
+ * otherwise the ranking is asked again when passengers changed (as a patch from the ranking held). The expected
+ * shows drift with time and are patched in place from the figures. Returns the keys to fetch again.
  */
 export function applyDenialNotice(qc: QueryClient, flightId: number, p: ChangedPayload): readonly (readonly unknown[])[] {
   if (p.version === undefined) return [denialKeys.flight(flightId)];
+  const key = denialKeys.candidates(flightId);
+  if (p.ranking) {
+    const held = qc.getQueryData<TaggedCandidates>(key);
+    // Not held yet: the first fetch, under way, brings the ranking as it is now.
+    if (held) {
+      const next = applyCandidatesAnswer(held, p.ranking);
+      if (!next) return [key];
+      if (next !== held) qc.setQueryData<TaggedCandidates>(key, next);
+    }
+  }
   const mean = p.desk?.forecast?.mean;
   if (mean !== undefined) {
-    qc.setQueryData<TaggedCandidates>(denialKeys.candidates(flightId), (held) => (held ? { ...held, counts: { ...held.counts, expectedShows: mean } } : held));
+    qc.setQueryData<TaggedCandidates>(key, (held) => (held ? { ...held, counts: { ...held.counts, expectedShows: mean } } : held));
   }
+  if (p.ranking) return [];
   const passengersMoved = p.passengers === undefined || p.passengers === null || p.passengers.length > 0;
-  return passengersMoved ? [denialKeys.candidates(flightId)] : [];
+  return passengersMoved ? [key] : [];
 }
 
 export function useFlightDenialsLive(flightId: number) {
