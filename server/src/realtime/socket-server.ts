@@ -8,7 +8,7 @@ import { Server, type Socket } from 'socket.io';
 import type { DataSource } from 'typeorm';
 import { SOCKET_EVENTS, flightRoom, stationRoom, type ClientToServerEvents, type ServerToClientEvents } from '@shared/events';
 import { FlightEntity } from '../db/entities';
-import { canSeeStation } from '../http/require-role';
+import { canSeeStation } from '../domain/station-scope';
 import { loadActiveSessionUser } from '../modules/auth/session-user';
 
 interface SocketData {

@@ -6,7 +6,7 @@ import {
 import type { PassengerCompensation } from '@shared/schemas/denials';
 import type { RegimeCode } from '@shared/schemas/common';
 import type { BookingEntity, FlightEntity, PassengerEntity, StationEntity } from '../../db/entities';
-import { badRequest } from '../../http/errors';
+import { badRequest } from '../../domain/errors';
 import { flightSegment, journeyAirport } from '../../reference/journey-airports';
 import { seatsOf } from './candidates.service';
 

@@ -1,6 +1,6 @@
 // A flight typed as the station reads it (date, local clock time, block minutes) turned into stored instants.
 import { instantToLocal, localToInstant, minutesBetween } from '@shared/time';
-import { badRequest } from '../../http/errors';
+import { badRequest } from '../../domain/errors';
 import { findAirport } from '../../reference/airports';
 
 const MINUTE = 60_000;
