@@ -7,7 +7,7 @@ import { retryLater } from '../../domain/errors';
 import { COUNTER_TABLE, sharedCounter, type CounterStore } from '../../db/shared-counter';
 
 export interface SignInThrottle {
-  /** Refuses with 429 and Retry-After while this account-and-address pair, or this address, must wait. */
+  /** Refuses (rate limited, with the wait in seconds) while this account-and-address pair, or this address, must wait. */
   check(email: string, ip: string): Promise<void>;
   recordFailure(email: string, ip: string): Promise<void>;
   recordSuccess(email: string, ip: string): Promise<void>;

@@ -25,7 +25,7 @@ export function hasDeparted(flight: DepartureFacts, graceMinutes: number, now: D
 export const departedError = (flightLabel: string, what: string) =>
   conflict('flight_departed', `${flightLabel} has departed: ${what} is no longer possible. What is owed for earlier decisions can still be paid.`);
 
-/** Throws 409 flight_departed when the flight is gone; `what` names the refused action in plain words. */
+/** Throws a conflict, flight_departed, when the flight is gone; `what` names the refused action in plain words. */
 export async function assertNotDeparted(em: EntityManager, flightOrId: FlightEntity | number, what: string, now: Date = new Date()): Promise<void> {
   const flight = typeof flightOrId === 'number' ? await em.findOneByOrFail(FlightEntity, { id: flightOrId }) : flightOrId;
   const station = await em.findOneByOrFail(StationEntity, { id: flight.stationId });

@@ -5,7 +5,7 @@ import { findAirport } from '../../reference/airports';
 
 const MINUTE = 60_000;
 
-/** The departure and arrival instants; a clock time the station's clocks skip that day is a 400 on departureTime. */
+/** The departure and arrival instants; a clock time the station's clocks skip that day is refused as invalid on departureTime. */
 export function flightTimes(serviceDate: string, departureTime: string, blockMinutes: number, timeZone: string): { departure: Date; arrival: Date } {
   let iso: string;
   try {

@@ -10,7 +10,7 @@ import { flightDiff } from './manifest-diff';
 import { parseManifestCsv, type TemplateFlight } from './manifest-csv';
 import { groupManifestRows, type ManifestFlightGroup } from './manifest-rows';
 
-/** The 400 of an import with problems: rendered by the route with every problem and its line. */
+/** The refusal of an import with problems: rendered by the route with every problem and its line. */
 export class ManifestRejectedError extends DomainError {
   constructor(readonly problems: ManifestProblem[]) {
     super('invalid', 'manifest_invalid', `The manifest has ${problems.length} problem${problems.length === 1 ? '' : 's'}; nothing was imported.`, problems.slice(0, 50).map((p) => ({ field: `line ${p.line}: ${p.field}`, rule: p.rule })));

@@ -96,7 +96,7 @@ async function result(em: EntityManager, s: FlightScheduleEntity, station: Stati
 
 export async function createSchedule(db: DataSource, user: SessionUser, station: StationEntity, body: ScheduleCreateBody, now = new Date()): Promise<ScheduleResult> {
   assertKnownAirport('destination', body.destination);
-  // A clock time is checked once on a day that surely has it, so a plainly wrong time is a 400 before anything is stored.
+  // A clock time is checked once on a day that surely has it, so a plainly wrong time is refused as invalid before anything is stored.
   flightTimes(body.validFrom, body.departureTime, body.blockMinutes, 'UTC');
   return db.transaction(async (em) => {
     const s = await em.save(
