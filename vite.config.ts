@@ -24,7 +24,7 @@ export default defineConfig({
         test: {
           name: 'unit',
           root: '.',
-          include: ['shared/**/*.test.ts', 'server/**/*.test.ts', 'mail-fake/**/*.test.ts', 'payments-fake/**/*.test.ts'],
+          include: ['shared/**/*.test.ts', 'server/**/*.test.ts', 'mail-fake/**/*.test.ts', 'payments-fake/**/*.test.ts', 'tests/lint/**/*.test.ts'],
           environment: 'node',
         },
       },

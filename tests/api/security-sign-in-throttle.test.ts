@@ -79,7 +79,7 @@ describe('per account and address', () => {
     const agent = await newAgent('restart');
     for (let i = 0; i < 5; i++) await attempt(t, agent.email, `guess-${i}`, '198.51.100.30');
     const again = createSignInThrottle({ perAccount: 3, mysql: { pool, dbName } });
-    await expect(again.check(agent.email, '198.51.100.30')).rejects.toMatchObject({ status: 429 });
+    await expect(again.check(agent.email, '198.51.100.30')).rejects.toMatchObject({ kind: 'rate_limited', code: 'too_many_attempts' });
   });
 });
 

@@ -63,6 +63,8 @@ export default tseslint.config(
     // Money moves in one module on the server: payments (with its payouts, counter payments and the provider's client)
     // owns every movement and lets others read it through payments/reader only; finance reads, it never calls the
     // provider or payments' other files, and payments never imports finance.
+    // HTTP stays at the edge: only route files, server/src/http itself and the composition (app.ts, main.ts) import
+    // server/src/http; services throw domain errors (server/src/domain/errors.ts) and the edge maps them to statuses.
     files: ['server/src/**/*.ts'],
     plugins: { boundaries },
     settings: {
@@ -72,7 +74,11 @@ export default tseslint.config(
         { type: 'payments', pattern: 'server/src/modules/(payments|payouts|counter-payments)' },
         { type: 'payments', pattern: 'server/src/integrations/payments' },
         { type: 'finance', pattern: 'server/src/modules/finance' },
+        { type: 'http', pattern: 'server/src/http' },
+        { type: 'module', pattern: 'server/src/modules/*', capture: ['name'] },
+        { type: 'server', pattern: 'server/src/*' },
       ],
+      'boundaries/files': [{ category: 'routes', pattern: '**/*.routes.ts' }],
     },
     rules: {
       'boundaries/dependencies': [2, {
@@ -87,6 +93,16 @@ export default tseslint.config(
             from: { element: { types: { anyOf: ['payments', 'payments-read'] } } },
             disallow: { to: { element: { type: 'finance' } } },
             message: 'The payments module must not import finance: finance reads payments, not the other way round.',
+          },
+          {
+            from: { element: { types: { anyOf: ['payments', 'payments-read', 'finance', 'module', 'server'] } } },
+            disallow: { to: { element: { type: 'http' } } },
+            message: 'Only *.routes.ts, server/src/http and app.ts/main.ts may import server/src/http: throw a domain error from server/src/domain/errors.ts and let the edge map it.',
+          },
+          {
+            // Later policies win: a route file is the edge of its module.
+            from: { file: { categories: 'routes' } },
+            allow: { to: { element: { type: 'http' } } },
           },
         ],
       }],

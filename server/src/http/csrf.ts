@@ -8,7 +8,7 @@ import { createHmac, randomBytes, timingSafeEqual } from 'node:crypto';
 import type { Request, RequestHandler, Response } from 'express';
 import { csrfSync } from 'csrf-sync';
 import type { Env } from '../config/env';
-import { HttpError } from './errors';
+import { forbidden } from './errors';
 
 export const CSRF_HEADER = 'x-csrf-token';
 const SAFE_METHODS = new Set(['GET', 'HEAD', 'OPTIONS']);
@@ -22,7 +22,7 @@ export interface Csrf {
   forgetAnonymous(res: Response): void;
 }
 
-export const csrfRefused = () => new HttpError(403, 'csrf_token_invalid', 'The form was stale or not from this app. Reload the page and try again.');
+export const csrfRefused = () => forbidden('The form was stale or not from this app. Reload the page and try again.', 'csrf_token_invalid');
 
 function readCookie(req: Request, name: string): string | undefined {
   for (const part of (req.headers.cookie ?? '').split(';')) {

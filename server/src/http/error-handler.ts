@@ -1,6 +1,7 @@
 import type { ErrorRequestHandler } from 'express';
 import { isDatabaseUnavailable } from '../db/unavailable';
-import { HttpError, RetryLaterError } from './errors';
+import { DomainError } from '../domain/errors';
+import { errorResponse } from './error-status';
 
 interface Known {
   error: string;
@@ -33,10 +34,10 @@ function known(err: { type?: unknown; code?: unknown; errno?: unknown }): Known 
 /** Registered last: the only place a failure becomes a response. Every body is ours; never a stack or a library's text. */
 export function errorHandler(log: (msg: string) => void = console.error): ErrorRequestHandler {
   return (err, req, res, _next) => {
-    if (err instanceof HttpError) {
-      if (err.cause !== undefined) log(`[server] ${req.method} ${req.path} ${err.status} ${err.code}: ${String((err.cause as Error)?.message ?? err.cause)}`);
-      if (err instanceof RetryLaterError) res.set('Retry-After', String(err.retryAfterSeconds));
-      res.status(err.status).json({ error: err.code, message: err.message, ...(err.details ? { details: err.details } : {}) });
+    if (err instanceof DomainError) {
+      const answer = errorResponse(err);
+      if (err.cause !== undefined) log(`[server] ${req.method} ${req.path} ${answer.status} ${err.code}: ${String((err.cause as Error)?.message ?? err.cause)}`);
+      res.set(answer.headers).status(answer.status).json(answer.body);
       return;
     }
     const status = typeof err?.status === 'number' ? err.status : typeof err?.statusCode === 'number' ? err.statusCode : 500;

@@ -27,7 +27,5 @@ export function currentUser(req: Request): SessionUser {
   return req.user;
 }
 
-/** Station scoping: a user sees only the stations they belong to. */
-export function canSeeStation(user: SessionUser, stationId: number): boolean {
-  return user.stations.some((s) => s.id === stationId);
-}
+/** Routes ask the services' own station-scope question. */
+export { canSeeStation } from '../domain/station-scope';

@@ -9,7 +9,7 @@ import type { DataSource } from 'typeorm';
 import { SOCKET_EVENTS, flightDeskRoom, flightRoom, stationRoom, type ClientToServerEvents, type ServerToClientEvents } from '@shared/events';
 import { DENIAL_DESK_ROLES, type Role } from '@shared/schemas/common';
 import { FlightEntity } from '../db/entities';
-import { canSeeStation } from '../http/require-role';
+import { canSeeStation } from '../domain/station-scope';
 import { loadActiveSessionUser } from '../modules/auth/session-user';
 
 const worksDenials = (role: Role) => (DENIAL_DESK_ROLES as readonly Role[]).includes(role);

@@ -7,7 +7,7 @@ import type { SessionUser } from '@shared/schemas/auth';
 import type { AgreementBody } from '@shared/schemas/payment-media';
 import { CompensationEntity, PaymentAgreementEntity } from '../../db/entities';
 import type { AgreementMethod } from '../../db/entities/payment-media.entity';
-import { badRequest, conflict } from '../../http/errors';
+import { badRequest, conflict } from '../../domain/errors';
 import { audit } from '../audit/audit.service';
 import { compensationRow, passengerNameOf } from '../payments/compensation-view';
 import { transferCurrencyProblem } from '../payouts/transfer-currencies';

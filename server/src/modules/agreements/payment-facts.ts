@@ -3,8 +3,8 @@
 import type { EntityManager } from 'typeorm';
 import type { PaymentTerms } from '@shared/compensation';
 import { CompensationEntity, StationEntity } from '../../db/entities';
-import { notFound } from '../../http/errors';
-import { canSeeStation } from '../../http/require-role';
+import { notFound } from '../../domain/errors';
+import { canSeeStation } from '../../domain/station-scope';
 import type { SessionUser } from '@shared/schemas/auth';
 import { policyFor } from '../volunteers/policy.service';
 import { termsFor } from '../payments/voucher-rules';

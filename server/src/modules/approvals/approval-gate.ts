@@ -6,7 +6,7 @@ import type { SessionUser } from '@shared/schemas/auth';
 import { limitForRole, withinLimit, type ApprovalKind } from '@shared/schemas/approvals';
 import type { VolunteerPolicy } from '@shared/schemas/volunteers';
 import { OfferApprovalEntity, type CompensationEntity } from '../../db/entities';
-import { conflict } from '../../http/errors';
+import { conflict } from '../../domain/errors';
 import { raiseApprovalWaiting } from '../alerts/work-alerts';
 import { audit } from '../audit/audit.service';
 import { policyFor } from '../volunteers/policy.service';

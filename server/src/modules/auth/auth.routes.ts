@@ -4,10 +4,9 @@ import { Strategy as LocalStrategy } from 'passport-local';
 import type { DataSource } from 'typeorm';
 import { signInBodySchema, type SessionResponse } from '@shared/schemas/auth';
 import { parse } from '../../http/validate';
-import { HttpError } from '../../http/errors';
 import type { Csrf } from '../../http/csrf';
 import type { SignInThrottle } from './throttle';
-import { authenticate } from './auth.service';
+import { authenticate, refuseSignIn } from './auth.service';
 import { loadActiveSessionUser } from './session-user';
 
 export function configurePassport(db: DataSource) {
@@ -55,11 +54,7 @@ export function authRouter(deps: AuthRouterDeps) {
     passport.authenticate('local', (err: unknown, user: Express.User | false) => {
       if (err) return next(err);
       if (!user) {
-        deps.throttle.recordFailure(body.email, ip).then(
-          // One answer for an unknown e-mail and a wrong password: never reveal which accounts exist.
-          () => next(new HttpError(401, 'sign_in_failed', 'That e-mail and password do not match an active account.')),
-          next,
-        );
+        refuseSignIn(deps.throttle, body.email, ip).catch(next);
         return;
       }
       // req.logIn regenerates the session, so a session id planted before sign-in is worthless afterwards.

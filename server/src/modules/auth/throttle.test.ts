@@ -3,7 +3,7 @@
 // Yardsticks: rate-limiter-flexible's login-protection example (consecutive failures by username and IP; slow brute
 // force by IP) and OWASP ASVS 5.0 V6.3.1 (brute-force and credential-stuffing controls), requirement number from memory.
 import { describe, expect, it } from 'vitest';
-import { RetryLaterError } from '../../http/errors';
+import { RetryLaterError } from '../../domain/errors';
 import { createSignInThrottle } from './throttle';
 
 async function waitFor(check: Promise<void>): Promise<number> {

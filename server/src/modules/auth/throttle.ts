@@ -3,11 +3,11 @@
 // failures per address are counted to slow a guessing address down. Past a free allowance each failure adds a wait
 // that doubles, capped; nothing locks an account for good, and a password reset clears the account's counts.
 import type { RateLimiterAbstract } from 'rate-limiter-flexible';
-import { retryLater } from '../../http/errors';
-import { COUNTER_TABLE, sharedCounter, type CounterStore } from '../../http/shared-counter';
+import { retryLater } from '../../domain/errors';
+import { COUNTER_TABLE, sharedCounter, type CounterStore } from '../../db/shared-counter';
 
 export interface SignInThrottle {
-  /** Refuses with 429 and Retry-After while this account-and-address pair, or this address, must wait. */
+  /** Refuses (rate limited, with the wait in seconds) while this account-and-address pair, or this address, must wait. */
   check(email: string, ip: string): Promise<void>;
   recordFailure(email: string, ip: string): Promise<void>;
   recordSuccess(email: string, ip: string): Promise<void>;

@@ -5,7 +5,7 @@ import type { SessionUser } from '@shared/schemas/auth';
 import { CABIN_RANK, type CabinChangeView, type RecordCabinChangeBody } from '@shared/schemas/cabin-changes';
 import type { RegimeCode } from '@shared/schemas/common';
 import { CabinChangeEntity, PassengerEntity, StationEntity, type FlightEntity } from '../../db/entities';
-import { badRequest, conflict, notFound } from '../../http/errors';
+import { badRequest, conflict, notFound } from '../../domain/errors';
 import { findAirport, routeDistanceKm } from '../../reference/airports';
 import { art10IntraCommunity } from './art10-scope';
 import { audit } from '../audit/audit.service';

@@ -4,8 +4,8 @@ import type { DataSource, EntityManager } from 'typeorm';
 import type { SessionUser } from '@shared/schemas/auth';
 import type { CareSetup, CareSetupBody } from '@shared/schemas/care';
 import { StationCareSettingsEntity, StationEntity, type StoredPartnerHotel } from '../../db/entities';
-import { badRequest, notFound } from '../../http/errors';
-import { canSeeStation } from '../../http/require-role';
+import { badRequest, notFound } from '../../domain/errors';
+import { canSeeStation } from '../../domain/station-scope';
 import { audit } from '../audit/audit.service';
 
 /** The station's setup; a station nobody configured has zero allowances and no hotels, and says so. */

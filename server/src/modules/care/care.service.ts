@@ -5,8 +5,8 @@ import { choiceOffer, type ChoiceKind, type ChoiceOffer } from '@shared/compensa
 import type { SessionUser } from '@shared/schemas/auth';
 import type { FlightCareResponse, PassengerCare, RecordCareBody, RecordChoiceBody } from '@shared/schemas/care';
 import { CareGivenEntity, CompensationEntity, PassengerChoiceEntity, StationEntity, TicketRefundEntity, type FlightEntity } from '../../db/entities';
-import { badRequest, conflict, notFound } from '../../http/errors';
-import { canSeeStation } from '../../http/require-role';
+import { badRequest, conflict, notFound } from '../../domain/errors';
+import { canSeeStation } from '../../domain/station-scope';
 import { audit } from '../audit/audit.service';
 import { passengerCompensation } from '../denials/compensation';
 import { careSetupOf } from './care-setup.service';

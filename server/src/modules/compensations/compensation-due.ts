@@ -2,7 +2,7 @@
 // an authorized denial), one row per passenger. The unique source key makes a repeat of the same decision a no-op.
 import type { EntityManager } from 'typeorm';
 import { CompensationEntity } from '../../db/entities';
-import { conflict } from '../../http/errors';
+import { conflict } from '../../domain/errors';
 import { recordRefundsDue } from '../refunds/refunds-due';
 import { insertDue, type CompensationFact } from './insert-due';
 

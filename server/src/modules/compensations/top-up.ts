@@ -5,7 +5,7 @@ import type { DataSource } from 'typeorm';
 import { apprTopUp, CA_PAYMENT_HOURS, type ApprBand } from '@shared/compensation';
 import type { SessionUser } from '@shared/schemas/auth';
 import { CompensationEntity } from '../../db/entities';
-import { badRequest, conflict } from '../../http/errors';
+import { badRequest, conflict } from '../../domain/errors';
 import { audit } from '../audit/audit.service';
 import { lockCompensation } from '../agreements/payment-facts';
 

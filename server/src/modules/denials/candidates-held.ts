@@ -8,8 +8,8 @@ import type { DataSource } from 'typeorm';
 import type { SessionUser } from '@shared/schemas/auth';
 import { diffCandidates, type CandidatesAnswer, type TaggedCandidates } from '@shared/schemas/denial-candidates-patch';
 import { FlightEntity } from '../../db/entities';
-import { notFound } from '../../http/errors';
-import { canSeeStation } from '../../http/require-role';
+import { notFound } from '../../domain/errors';
+import { canSeeStation } from '../../domain/station-scope';
 import { liveStoreOf } from '../forecast/live-store';
 import { rankFlight } from './candidates.service';
 

@@ -6,7 +6,7 @@ import {
 import type { PassengerCompensation } from '@shared/schemas/denials';
 import type { RegimeCode } from '@shared/schemas/common';
 import type { BookingEntity, FlightEntity, PassengerEntity, StationEntity } from '../../db/entities';
-import { badRequest } from '../../http/errors';
+import { badRequest } from '../../domain/errors';
 import { flightSegment, journeyAirport } from '../../reference/journey-airports';
 import { seatsOf } from './candidates.service';
 
@@ -34,7 +34,7 @@ export function journeyOf(station: StationEntity, flight: FlightEntity, booking:
 
 /**
  * The planned arrival delay where the rule measures it (the final destination, or the US first stopover), from the
- * alternate's arrival at this flight's destination or the planned arrival there given by the agent. A 400 names the field.
+ * alternate's arrival at this flight's destination or the planned arrival there given by the agent. A refusal names the field.
  */
 export function plannedDelayOnJourney(station: StationEntity, flight: FlightEntity, booking: Pick<BookingEntity, 'itinerary'> | null, alternateArrival: Date | null, arrivalAtDestination?: string): number | null {
   try {

@@ -5,7 +5,7 @@ import type { DataSource } from 'typeorm';
 import type { SessionUser } from '@shared/schemas/auth';
 import type { RecordDenialAfterBody } from '@shared/schemas/denials';
 import { DenialEntity, DenialProposalEntity, FlightEntity, PassengerEntity, StationEntity, VolunteerEntity } from '../../db/entities';
-import { badRequest, forbidden } from '../../http/errors';
+import { badRequest, forbidden } from '../../domain/errors';
 import { audit } from '../audit/audit.service';
 import { In } from 'typeorm';
 import { passengersOfOneBooking } from './refusals.service';

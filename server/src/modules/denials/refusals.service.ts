@@ -5,7 +5,7 @@ import { In, type DataSource, type EntityManager } from 'typeorm';
 import type { SessionUser } from '@shared/schemas/auth';
 import type { BoardingRefusal, RecordRefusalBody } from '@shared/schemas/denials';
 import { BoardingRefusalEntity, BookingEntity, FlightEntity, PassengerEntity } from '../../db/entities';
-import { badRequest, conflict } from '../../http/errors';
+import { badRequest, conflict } from '../../domain/errors';
 import { audit } from '../audit/audit.service';
 import { activeDenials } from './candidates.service';
 

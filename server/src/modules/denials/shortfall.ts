@@ -4,7 +4,7 @@
 import { In, type DataSource, type EntityManager } from 'typeorm';
 import type { CabinCounts } from '@shared/schemas/denials';
 import { DenialEntity, DenialProposalEntity, FlightEntity, PassengerEntity, VolunteerEntity } from '../../db/entities';
-import { badRequest, conflict } from '../../http/errors';
+import { badRequest, conflict } from '../../domain/errors';
 import { showUpProfileFor } from '../forecast/profile.service';
 
 type Db = DataSource | EntityManager;

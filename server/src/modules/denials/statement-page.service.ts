@@ -2,8 +2,8 @@
 import { In, type DataSource } from 'typeorm';
 import type { SessionUser } from '@shared/schemas/auth';
 import { BookingEntity, CompensationEntity, DenialEntity, FlightEntity, PassengerEntity, RebookingEntity, StationEntity } from '../../db/entities';
-import { badRequest, conflict, notFound } from '../../http/errors';
-import { canSeeStation } from '../../http/require-role';
+import { badRequest, conflict, notFound } from '../../domain/errors';
+import { canSeeStation } from '../../domain/station-scope';
 import { priorityRulesFor } from './priority-rules.service';
 import { withCurrentAmount } from '../care/care-mail';
 import { choiceAndCareForStatement } from '../care/for-statement';

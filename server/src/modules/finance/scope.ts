@@ -1,8 +1,8 @@
 // Finance sees the stations it belongs to, and only those; a station named outside them is "not found".
 import type { SessionUser } from '@shared/schemas/auth';
 import { minorUnitExponent } from '@shared/compensation/money';
-import { notFound } from '../../http/errors';
-import { canSeeStation } from '../../http/require-role';
+import { notFound } from '../../domain/errors';
+import { canSeeStation } from '../../domain/station-scope';
 
 export function stationScope(user: SessionUser, stationId: number | undefined): number[] {
   if (stationId === undefined) return user.stations.map((s) => s.id);

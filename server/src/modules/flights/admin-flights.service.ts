@@ -4,8 +4,8 @@ import { Between, type DataSource, type EntityManager } from 'typeorm';
 import type { SessionUser } from '@shared/schemas/auth';
 import type { AdminFlight, FlightCreateBody, FlightUpdateBody } from '@shared/schemas/admin-flights';
 import { FlightEntity, StationEntity } from '../../db/entities';
-import { canSeeStation } from '../../http/require-role';
-import { conflict, notFound } from '../../http/errors';
+import { canSeeStation } from '../../domain/station-scope';
+import { conflict, notFound } from '../../domain/errors';
 import { audit } from '../audit/audit.service';
 import { assertKnownAirport, flightTimes, localClock } from './flight-times';
 

@@ -3,7 +3,7 @@
 // to pay run on after the aircraft has left.
 import type { EntityManager } from 'typeorm';
 import { FlightEntity, StationEntity } from '../../db/entities';
-import { HttpError } from '../../http/errors';
+import { conflict } from '../../domain/errors';
 
 const MINUTE = 60_000;
 
@@ -23,9 +23,9 @@ export function hasDeparted(flight: DepartureFacts, graceMinutes: number, now: D
 }
 
 export const departedError = (flightLabel: string, what: string) =>
-  new HttpError(409, 'flight_departed', `${flightLabel} has departed: ${what} is no longer possible. What is owed for earlier decisions can still be paid.`);
+  conflict('flight_departed', `${flightLabel} has departed: ${what} is no longer possible. What is owed for earlier decisions can still be paid.`);
 
-/** Throws 409 flight_departed when the flight is gone; `what` names the refused action in plain words. */
+/** Throws a conflict, flight_departed, when the flight is gone; `what` names the refused action in plain words. */
 export async function assertNotDeparted(em: EntityManager, flightOrId: FlightEntity | number, what: string, now: Date = new Date()): Promise<void> {
   const flight = typeof flightOrId === 'number' ? await em.findOneByOrFail(FlightEntity, { id: flightOrId }) : flightOrId;
   const station = await em.findOneByOrFail(StationEntity, { id: flight.stationId });

@@ -1,11 +1,11 @@
 // A flight typed as the station reads it (date, local clock time, block minutes) turned into stored instants.
 import { instantToLocal, localToInstant, minutesBetween } from '@shared/time';
-import { badRequest } from '../../http/errors';
+import { badRequest } from '../../domain/errors';
 import { findAirport } from '../../reference/airports';
 
 const MINUTE = 60_000;
 
-/** The departure and arrival instants; a clock time the station's clocks skip that day is a 400 on departureTime. */
+/** The departure and arrival instants; a clock time the station's clocks skip that day is refused as invalid on departureTime. */
 export function flightTimes(serviceDate: string, departureTime: string, blockMinutes: number, timeZone: string): { departure: Date; arrival: Date } {
   let iso: string;
   try {

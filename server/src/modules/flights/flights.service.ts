@@ -1,7 +1,7 @@
 import { Between, In, type DataSource } from 'typeorm';
 import type { DepartureRow } from '@shared/schemas/flights';
 import { FlightEntity, FlightForecastEntity, StationEntity } from '../../db/entities';
-import { notFound } from '../../http/errors';
+import { notFound } from '../../domain/errors';
 
 interface CountRow { flight_id: number; bookings: string; checked_in: string; boarded: string }
 

@@ -4,7 +4,7 @@ import type { EntityManager } from 'typeorm';
 import type { IntegrationEvent } from '@shared/schemas/integration-events';
 import { BookingEntity, FlightEntity, PassengerEntity } from '../../db/entities';
 import type { PassengerStatus } from '../../db/entities/passenger.entity';
-import { HttpError } from '../../http/errors';
+import { unprocessable } from '../../domain/errors';
 import { feedBookingProblem } from '../manifests/booking-guard';
 import { driverErrorCode } from '../../db/driver-errors';
 
@@ -14,7 +14,7 @@ export interface Applied {
   summary: string;
 }
 
-const rejected = (field: string, rule: string) => new HttpError(422, 'event_rejected', `${field}: ${rule}`, [{ field, rule }]);
+const rejected = (field: string, rule: string) => unprocessable('event_rejected', `${field}: ${rule}`, [{ field, rule }]);
 
 /** Flights looked up once per batch: a burst of check-ins names the same few flights again and again. */
 export class BatchFlights {

@@ -1,10 +1,9 @@
 import express, { Router } from 'express';
 import type { DataSource } from 'typeorm';
 import { eventBatchSchema } from '@shared/schemas/integration-events';
-import { HttpError } from '../../http/errors';
 import { parse } from '../../http/validate';
 import { applyFeedEvents } from './feed-line';
-import { stationForKey } from './integration-keys.service';
+import { requireStationForKey } from './integration-keys.service';
 
 /**
  * The departure-control feed: authenticated by a per-station API key (Bearer), not by a session, so it sits outside
@@ -15,8 +14,7 @@ export function integrationEventsRouter(deps: { db: DataSource; onFlightsChanged
   r.use(express.json({ limit: '2mb' }));
   r.post('/events', async (req, res) => {
     const presented = /^Bearer (.+)$/.exec(req.get('authorization') ?? '')?.[1];
-    const key = presented ? await stationForKey(deps.db, presented) : null;
-    if (!key) throw new HttpError(401, 'invalid_api_key', 'Send a valid integration key as "Authorization: Bearer <key>". Keys are created by an admin in Station setup.');
+    const key = await requireStationForKey(deps.db, presented);
     const { events } = parse(eventBatchSchema, req.body);
     const { results, touchedFlights } = await applyFeedEvents(deps.db, key.stationId, events);
     if (touchedFlights.size) deps.onFlightsChanged(touchedFlights);

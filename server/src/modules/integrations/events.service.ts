@@ -1,6 +1,6 @@
 import type { DataSource, EntityManager } from 'typeorm';
 import { integrationEventSchema, type EventResult, type IntegrationEvent } from '@shared/schemas/integration-events';
-import { HttpError } from '../../http/errors';
+import { DomainError } from '../../domain/errors';
 import { applyEvent, BatchFlights, type Applied } from './apply-event';
 
 const codeOf = (err: unknown) => (err as { driverError?: { code?: string } })?.driverError?.code ?? (err as { code?: string })?.code ?? '';
@@ -71,7 +71,7 @@ export async function applyEventBatch(db: DataSource, stationId: number, raw: un
               outcome.set(p.index, { status: a.status, message: a.summary });
               touchedFlights.add(a.flightId);
             } catch (err) {
-              if (!(err instanceof HttpError)) throw err;
+              if (!(err instanceof DomainError)) throw err;
               // Rejected: its id stays free, so the feed may send the event again once fixed.
               seen.delete(p.event.id);
               outcome.set(p.index, { status: 'rejected', message: err.message, details: err.details });

@@ -2,7 +2,7 @@ import { createHash, randomBytes } from 'node:crypto';
 import { IsNull, type DataSource } from 'typeorm';
 import type { SessionUser } from '@shared/schemas/auth';
 import { IntegrationKeyEntity } from '../../db/entities';
-import { notFound } from '../../http/errors';
+import { notFound, unauthenticated } from '../../domain/errors';
 import { audit } from '../audit/audit.service';
 
 export const hashKey = (key: string) => createHash('sha256').update(key).digest('hex');
@@ -62,4 +62,11 @@ export async function stationForKey(db: DataSource, presented: string): Promise<
     await db.getRepository(IntegrationKeyEntity).update({ id: row.id }, { lastUsedAt: new Date(now) });
   }
   return { stationId: row.stationId, keyId: row.id };
+}
+
+/** The feed's caller: the station of the key it presented; refuses a missing, unknown or revoked key. */
+export async function requireStationForKey(db: DataSource, presented: string | undefined): Promise<{ stationId: number; keyId: number }> {
+  const key = presented ? await stationForKey(db, presented) : null;
+  if (!key) throw unauthenticated('invalid_api_key', 'Send a valid integration key as "Authorization: Bearer <key>". Keys are created by an admin in Station setup.');
+  return key;
 }

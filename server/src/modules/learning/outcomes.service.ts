@@ -7,7 +7,7 @@ import {
   BookingEntity, BookingOutcomeEntity, ClosedFlightEntity, DenialEntity, FlightEntity, PassengerEntity, StationEntity, VolunteerEntity,
 } from '../../db/entities';
 import type { BookingOutcome } from '../../db/entities/learning.entity';
-import { notFound } from '../../http/errors';
+import { notFound } from '../../domain/errors';
 import { audit } from '../audit/audit.service';
 
 const HOUR = 3_600_000;

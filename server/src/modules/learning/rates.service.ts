@@ -5,7 +5,7 @@ import type { SessionUser } from '@shared/schemas/auth';
 import type { RatesChoice } from '@shared/schemas/learning';
 import { showUpProfileSchema, type ShowUpProfile } from '@shared/schemas/show-up-profile';
 import { LearnedRatesEntity, StationRatesChoiceEntity } from '../../db/entities';
-import { badRequest } from '../../http/errors';
+import { badRequest } from '../../domain/errors';
 import { audit } from '../audit/audit.service';
 import { showUpProfileFor } from '../forecast/profile.service';
 import type { RatesModel } from './train';

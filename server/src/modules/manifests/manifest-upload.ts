@@ -3,7 +3,7 @@
 import type { Request, RequestHandler } from 'express';
 import multer from 'multer';
 import { MANIFEST_MAX_BYTES } from '@shared/schemas/manifest';
-import { badRequest, HttpError } from '../../http/errors';
+import { badRequest, DomainError } from '../../domain/errors';
 
 export const MANIFEST_FIELD = 'file';
 
@@ -27,7 +27,7 @@ const MULTER_RULES: Record<string, string> = {
 /** Parses the upload; multer's errors become field-named 400s. */
 export const manifestUpload: RequestHandler = (req, res, next) => {
   single(req, res, (err?: unknown) => {
-    if (!err || err instanceof HttpError) return next(err);
+    if (!err || err instanceof DomainError) return next(err);
     // A broken multipart body (busboy) is the client's fault like any multer limit.
     const rule = (err instanceof multer.MulterError && MULTER_RULES[err.code]) || 'could not be read as a multipart/form-data upload';
     next(badRequest(`file: ${rule}`, [{ field: 'file', rule }]));

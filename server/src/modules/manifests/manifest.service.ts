@@ -2,7 +2,7 @@ import type { DataSource, EntityManager } from 'typeorm';
 import type { SessionUser } from '@shared/schemas/auth';
 import type { ManifestFlightPreview, ManifestImportResult, ManifestPreview, ManifestProblem } from '@shared/schemas/manifest';
 import { FlightEntity, StationEntity } from '../../db/entities';
-import { badRequest, HttpError } from '../../http/errors';
+import { badRequest, DomainError } from '../../domain/errors';
 import { audit } from '../audit/audit.service';
 import { applyFlightManifest, emptyCounts } from './manifest-apply';
 import { bookingLimit, capacityOf, flightProblems, passengersIn } from './manifest-checks';
@@ -10,10 +10,10 @@ import { flightDiff } from './manifest-diff';
 import { parseManifestCsv, type TemplateFlight } from './manifest-csv';
 import { groupManifestRows, type ManifestFlightGroup } from './manifest-rows';
 
-/** The 400 of an import with problems: rendered by the route with every problem and its line. */
-export class ManifestRejectedError extends HttpError {
+/** The refusal of an import with problems: rendered by the route with every problem and its line. */
+export class ManifestRejectedError extends DomainError {
   constructor(readonly problems: ManifestProblem[]) {
-    super(400, 'manifest_invalid', `The manifest has ${problems.length} problem${problems.length === 1 ? '' : 's'}; nothing was imported.`, problems.slice(0, 50).map((p) => ({ field: `line ${p.line}: ${p.field}`, rule: p.rule })));
+    super('invalid', 'manifest_invalid', `The manifest has ${problems.length} problem${problems.length === 1 ? '' : 's'}; nothing was imported.`, problems.slice(0, 50).map((p) => ({ field: `line ${p.line}: ${p.field}`, rule: p.rule })));
   }
 }
 

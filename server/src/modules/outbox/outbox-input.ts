@@ -1,7 +1,7 @@
 // What a module hands the outbox: checked here so a bad address or an oversized body fails in the caller's
 // transaction with the field named, not later in the worker.
 import { z } from 'zod';
-import { badRequest } from '../../http/errors';
+import { badRequest } from '../../domain/errors';
 
 /** Kinds in use; the column takes any short kebab-case name so a new notice needs no migration. */
 export const OUTBOX_KINDS = ['volunteer-confirmation', 'rebooking-notice', 'written-statement', 'compensation-receipt', 'care-summary'] as const;

@@ -5,7 +5,7 @@ import type { SessionUser } from '@shared/schemas/auth';
 import type { outboxMessageSchema } from '@shared/schemas/volunteers';
 import type { z } from 'zod';
 import { OutboxMessageEntity } from '../../db/entities';
-import { conflict, notFound } from '../../http/errors';
+import { conflict, notFound } from '../../domain/errors';
 import { audit } from '../audit/audit.service';
 import { checkOutboxInput, type OutboxInput } from './outbox-input';
 

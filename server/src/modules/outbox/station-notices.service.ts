@@ -4,7 +4,7 @@ import type { DataSource, EntityManager } from 'typeorm';
 import type { SessionUser } from '@shared/schemas/auth';
 import type { NoticeDetail, NoticesQuery, StationNotice, StationNoticeList } from '@shared/schemas/admin-notices';
 import { FlightEntity, OutboxMessageEntity } from '../../db/entities';
-import { conflict, notFound } from '../../http/errors';
+import { conflict, notFound } from '../../domain/errors';
 import { audit } from '../audit/audit.service';
 
 /** Newest notices shown at once; the filters narrow a busy station's list. */

@@ -4,8 +4,8 @@
 import type { EntityManager } from 'typeorm';
 import type { SessionUser } from '@shared/schemas/auth';
 import { CompensationEntity, PaymentIssuanceEntity } from '../../db/entities';
-import { conflict, HttpError, notFound } from '../../http/errors';
-import { canSeeStation } from '../../http/require-role';
+import { conflict, notFound, upstreamFailed } from '../../domain/errors';
+import { canSeeStation } from '../../domain/station-scope';
 import type { CardSnapshot } from '../../integrations/payments/issuing-provider';
 import { classifyProviderError } from '../../integrations/payments/provider-errors';
 import { audit } from '../audit/audit.service';
@@ -98,7 +98,7 @@ async function cancelAtProvider(ctx: PaymentsContext, id: number, cardId: string
     return await ctx.provider.cancelCard(cardId, voidKey(id));
   } catch (error) {
     const failure = classifyProviderError(error, 'canceling the card');
-    if (failure.retryable) throw new HttpError(502, 'provider_unavailable', `The payment provider did not confirm the cancellation (${failure.reason}). Nothing was voided; try again.`);
+    if (failure.retryable) throw upstreamFailed(`The payment provider did not confirm the cancellation (${failure.reason}). Nothing was voided; try again.`);
     throw conflict('provider_refused', `The payment provider refused to cancel the card: ${failure.reason}`);
   }
 }

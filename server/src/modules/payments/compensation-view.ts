@@ -3,7 +3,7 @@
 import type { DataSource, EntityManager } from 'typeorm';
 import type { Medium } from '@shared/compensation/media';
 import type { CompensationView } from '@shared/schemas/finance';
-import { notFound } from '../../http/errors';
+import { notFound } from '../../domain/errors';
 import type { CompensationSourceKind } from '../../db/entities/compensation.entity';
 
 export const COMPENSATION_FROM = `

@@ -14,7 +14,7 @@ import { applyEffects, WORKER_ACTOR, type PaymentsContext } from './payments-con
 import { VOUCHER_CATEGORIES } from './voucher-rules';
 import { advancePayout } from '../payouts/payout.service';
 import { assertReadyToIssue } from '../agreements/agreement.service';
-import { HttpError } from '../../http/errors';
+import { DomainError } from '../../domain/errors';
 
 export interface Issuer {
   /** One attempt for a row in 'issuing'; a second call while one runs joins it. Never throws. */
@@ -74,7 +74,7 @@ export function createIssuer(ctx: PaymentsContext): Issuer {
       valueMinor = await assertReadyToIssue(ctx.db.manager, entity);
     } catch (error) {
       // A rule not met is final; anything else (the database busy) is tried again on the next pass.
-      if (!(error instanceof HttpError)) throw error;
+      if (!(error instanceof DomainError)) throw error;
       await refuse(compensationId, `checking the medium and agreement: ${error.message}`);
       return;
     }

@@ -7,7 +7,7 @@ import type { z } from 'zod';
 import type { voucherOfferResponseSchema, voucherTermsSchema } from '@shared/schemas/finance';
 import type { PaymentMediaView } from '@shared/schemas/payment-media';
 import { CounterPaymentEntity, PaymentAgreementEntity, StationEntity, VoucherOfferEntity } from '../../db/entities';
-import { conflict } from '../../http/errors';
+import { conflict } from '../../domain/errors';
 import { audit } from '../audit/audit.service';
 import { enqueueMessage } from '../outbox/outbox.service';
 import { notifyOutbox } from '../outbox/outbox-signal';

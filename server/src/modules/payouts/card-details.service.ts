@@ -4,7 +4,7 @@
 // database, not in the audit row (which records that they were shown), not in any log line.
 import type { BookingProof, CardDetails, CardDetailsLink } from '@shared/schemas/payouts';
 import { CompensationEntity } from '../../db/entities';
-import { conflict, HttpError } from '../../http/errors';
+import { conflict, upstreamFailed } from '../../domain/errors';
 import { audit } from '../audit/audit.service';
 import { compensationRow } from '../payments/compensation-view';
 import { PASSENGER_ACTOR, type PaymentsContext } from '../payments/payments-context';
@@ -34,7 +34,7 @@ export async function revealCardDetails(ctx: PaymentsContext, token: string, pro
       read = await ctx.passenger.readCardDetails(comp.providerCardId);
     } catch (error) {
       ctx.log(`[payouts] compensation ${comp.id}: ${(error as Error).message}`);
-      throw new HttpError(502, 'provider_unavailable', 'We could not reach the card issuer just now. Your link still works: please try again in a minute.');
+      throw upstreamFailed('We could not reach the card issuer just now. Your link still works: please try again in a minute.');
     }
     await markUsed(em, link, ctx.now());
     await audit(em, {

@@ -7,8 +7,8 @@ import { In, type DataSource } from 'typeorm';
 import type { SessionUser } from '@shared/schemas/auth';
 import type { PassengerLinkView } from '@shared/schemas/payment-media';
 import { AuditLogEntity, CompensationEntity, PaymentLinkEntity, PayoutEntity, type PaymentLinkPurpose } from '../../db/entities';
-import { conflict, HttpError, notFound, tooManyRequests } from '../../http/errors';
-import { canSeeStation } from '../../http/require-role';
+import { conflict, notFound, tooManyRequests, type DomainError } from '../../domain/errors';
+import { canSeeStation } from '../../domain/station-scope';
 import { audit } from '../audit/audit.service';
 import { enqueueMessage } from '../outbox/outbox.service';
 import { compensationRow, passengerNameOf } from '../payments/compensation-view';
@@ -42,7 +42,7 @@ function purposeOf(comp: CompensationEntity, payout: PayoutEntity | null): Payme
  * The one check, for the desk's button and for the action: why this compensation's link may not be replaced, or
  * null when it may. `links` are the compensation's links of that purpose.
  */
-export function replaceRefusal(comp: CompensationEntity, payout: PayoutEntity | null, links: readonly PaymentLinkEntity[]): HttpError | null {
+export function replaceRefusal(comp: CompensationEntity, payout: PayoutEntity | null, links: readonly PaymentLinkEntity[]): DomainError | null {
   const purpose = purposeOf(comp, payout);
   if (!purpose) return conflict('no_passenger_link', 'This compensation has no passenger link to replace: only a bank transfer waiting for the account, or an issued prepaid card, has one.');
   if (purpose === 'payout' && payout!.state !== 'awaiting-details') {

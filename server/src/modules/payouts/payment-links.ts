@@ -7,7 +7,7 @@ import type { EntityManager } from 'typeorm';
 import type { BookingProof } from '@shared/schemas/payouts';
 import { isLanguage, type Language } from '@shared/i18n/languages';
 import { PaymentLinkEntity, type PaymentLinkPurpose } from '../../db/entities';
-import { HttpError } from '../../http/errors';
+import { DomainError, forbidden, gone, locked } from '../../domain/errors';
 import type { CompensationRow } from '../payments/compensation-view';
 import type { PaymentsContext } from '../payments/payments-context';
 
@@ -40,12 +40,12 @@ export async function createLink(em: EntityManager, ctx: Pick<PaymentsContext, '
   return { url: `${ctx.appBaseUrl}/${PAGE_PATH[input.purpose]}/${token}`, expiresAt };
 }
 
-export const linkInvalid = () => new HttpError(404, 'link_invalid', 'This link does not work. Please check that you opened the whole link from the e-mail.');
+export const linkInvalid = () => new DomainError('not_found', 'link_invalid', 'This link does not work. Please check that you opened the whole link from the e-mail.');
 
-const REFUSALS: Record<Exclude<LinkState, 'ready'>, () => HttpError> = {
-  used: () => new HttpError(410, 'link_used', 'This link has already been used. For your safety it works only once.'),
-  expired: () => new HttpError(410, 'link_expired', 'This link has expired. For your safety it works only for a short time.'),
-  locked: () => new HttpError(423, 'link_locked', 'This link is locked after several attempts with booking details that did not match.'),
+const REFUSALS: Record<Exclude<LinkState, 'ready'>, () => DomainError> = {
+  used: () => gone('link_used', 'This link has already been used. For your safety it works only once.'),
+  expired: () => gone('link_expired', 'This link has expired. For your safety it works only for a short time.'),
+  locked: () => locked('link_locked', 'This link is locked after several attempts with booking details that did not match.'),
 };
 
 export async function findLink(em: EntityManager, token: string, purpose: PaymentLinkPurpose, lock = false): Promise<PaymentLinkEntity> {
@@ -73,9 +73,9 @@ export async function countWrongTry(em: EntityManager, link: PaymentLinkEntity):
   return Math.max(0, MAX_WRONG_TRIES - link.wrongTries - 1);
 }
 
-export function wrongProof(triesLeft: number): HttpError {
+export function wrongProof(triesLeft: number): DomainError {
   if (triesLeft === 0) return REFUSALS.locked();
-  return new HttpError(403, 'booking_not_matched', `These booking details do not match this link. ${triesLeft} ${triesLeft === 1 ? 'try' : 'tries'} left.`);
+  return forbidden(`These booking details do not match this link. ${triesLeft} ${triesLeft === 1 ? 'try' : 'tries'} left.`, 'booking_not_matched');
 }
 
 export async function markUsed(em: EntityManager, link: PaymentLinkEntity, now: number): Promise<void> {

@@ -6,7 +6,7 @@
 import type { EntityManager } from 'typeorm';
 import type { BookingProof, PayoutLink } from '@shared/schemas/payouts';
 import { CompensationEntity, PayoutEntity } from '../../db/entities';
-import { conflict, HttpError } from '../../http/errors';
+import { badRequest, conflict, upstreamFailed } from '../../domain/errors';
 import { classifyProviderError } from '../../integrations/payments/provider-errors';
 import { audit } from '../audit/audit.service';
 import { enqueueMessage } from '../outbox/outbox.service';
@@ -145,9 +145,9 @@ export async function submitPayoutDetails(ctx: PaymentsContext, token: string, p
       ctx.log(`[payouts] compensation ${payout.compensationId}: ${e.message}`);
       if (e.retryable === false) {
         const field = e.param?.includes('routing') ? 'routingNumber' : 'accountNumber';
-        throw new HttpError(400, 'invalid_request', `${field}: the bank did not accept this account; please check it`, [{ field, rule: 'the bank did not accept this account; please check it' }]);
+        throw badRequest(`${field}: the bank did not accept this account; please check it`, [{ field, rule: 'the bank did not accept this account; please check it' }]);
       }
-      throw new HttpError(502, 'provider_unavailable', 'We could not reach the bank just now. Nothing was saved and your link still works: please try again in a minute.');
+      throw upstreamFailed('We could not reach the bank just now. Nothing was saved and your link still works: please try again in a minute.');
     }
     await em.update(PayoutEntity, { id: payout.id }, { state: 'ready', paymentMethodId: method.id, accountLast4: method.last4, lastError: null });
     await markUsed(em, link, ctx.now());

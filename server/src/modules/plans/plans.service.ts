@@ -5,8 +5,8 @@ import { parseRouteKey, type ListPlansQuery, type PlanResult, type SavePlanBody,
 import { optimalBookingLimit } from '@shared/forecast';
 import { StationEntity } from '../../db/entities';
 import { SavedPlanEntity } from '../../db/entities/saved-plan.entity';
-import { badRequest, notFound } from '../../http/errors';
-import { canSeeStation } from '../../http/require-role';
+import { badRequest, notFound } from '../../domain/errors';
+import { canSeeStation } from '../../domain/station-scope';
 import { audit } from '../audit/audit.service';
 import { presentPlan } from './plans.presenter';
 

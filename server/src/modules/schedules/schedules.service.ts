@@ -4,8 +4,8 @@ import { In, MoreThan, type DataSource, type EntityManager } from 'typeorm';
 import type { SessionUser } from '@shared/schemas/auth';
 import type { Schedule, ScheduleCreateBody, ScheduleResult, ScheduleUpdateBody } from '@shared/schemas/admin-flights';
 import { FlightEntity, FlightScheduleEntity, StationEntity } from '../../db/entities';
-import { conflict, HttpError, notFound } from '../../http/errors';
-import { canSeeStation } from '../../http/require-role';
+import { badRequest, conflict, DomainError, notFound } from '../../domain/errors';
+import { canSeeStation } from '../../domain/station-scope';
 import { audit } from '../audit/audit.service';
 import { assertKnownAirport, flightTimes } from '../flights/flight-times';
 import { scheduleDates } from './schedule-dates';
@@ -72,7 +72,7 @@ async function reconcile(em: EntityManager, s: FlightScheduleEntity, station: St
     try {
       times = flightTimes(date, s.departureTime, s.blockMinutes, station.timeZone);
     } catch (err) {
-      if (!(err instanceof HttpError)) throw err;
+      if (!(err instanceof DomainError)) throw err;
       out.skipped.push({ date, reason: `${s.departureTime} does not exist on the station's clock that day` });
       continue;
     }
@@ -96,7 +96,7 @@ async function result(em: EntityManager, s: FlightScheduleEntity, station: Stati
 
 export async function createSchedule(db: DataSource, user: SessionUser, station: StationEntity, body: ScheduleCreateBody, now = new Date()): Promise<ScheduleResult> {
   assertKnownAirport('destination', body.destination);
-  // A clock time is checked once on a day that surely has it, so a plainly wrong time is a 400 before anything is stored.
+  // A clock time is checked once on a day that surely has it, so a plainly wrong time is refused as invalid before anything is stored.
   flightTimes(body.validFrom, body.departureTime, body.blockMinutes, 'UTC');
   return db.transaction(async (em) => {
     const s = await em.save(
@@ -121,7 +121,7 @@ export async function updateSchedule(db: DataSource, user: SessionUser, id: numb
     const { s, station } = await lockedSchedule(em, user, id);
     const before = present(s, station.iata, 0);
     const next = { ...before, ...body, aircraftType: body.aircraftType === undefined ? s.aircraftType : body.aircraftType || null };
-    if (next.validFrom > next.validTo) throw new HttpError(400, 'invalid_request', 'validTo: validTo must not be before validFrom', [{ field: 'validTo', rule: 'validTo must not be before validFrom' }]);
+    if (next.validFrom > next.validTo) throw badRequest('validTo: validTo must not be before validFrom', [{ field: 'validTo', rule: 'validTo must not be before validFrom' }]);
     Object.assign(s, { departureTime: next.departureTime, blockMinutes: next.blockMinutes, seatsByCabin: next.seatsByCabin, aircraftType: next.aircraftType, weekdays: next.weekdays, validFrom: next.validFrom, validTo: next.validTo });
     await em.save(s);
     const outcome = await reconcile(em, s, station, now);

@@ -4,8 +4,8 @@ import { In, type DataSource } from 'typeorm';
 import type { SessionUser } from '@shared/schemas/auth';
 import type { StationCreateBody, StationSettings, StationUpdateBody } from '@shared/schemas/admin-stations';
 import { StationEntity, UserEntity } from '../../db/entities';
-import { badRequest, conflict, forbidden, notFound } from '../../http/errors';
-import { canSeeStation } from '../../http/require-role';
+import { badRequest, conflict, forbidden, notFound } from '../../domain/errors';
+import { canSeeStation } from '../../domain/station-scope';
 import { findAirport } from '../../reference/airports';
 import { audit } from '../audit/audit.service';
 

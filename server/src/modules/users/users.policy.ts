@@ -3,7 +3,7 @@
 // that another station relies on (reset its password, change its role, deactivate it). A carrier-wide admin is an
 // explicit grant on the admin's own row, not inferred from holding many stations.
 import type { UserEntity } from '../../db/entities';
-import { badRequest, forbidden, notFound } from '../../http/errors';
+import { badRequest, forbidden, notFound } from '../../domain/errors';
 
 export interface AdminScope {
   adminId: number;

@@ -2,7 +2,7 @@ import { In, type DataSource, type EntityManager } from 'typeorm';
 import type { SessionUser } from '@shared/schemas/auth';
 import type { CreateUserBody, UpdateUserBody, UserList } from '@shared/schemas/users';
 import { StationEntity, UserEntity } from '../../db/entities';
-import { badRequest, conflict, unauthenticated } from '../../http/errors';
+import { badRequest, conflict, unauthenticated } from '../../domain/errors';
 import { audit } from '../audit/audit.service';
 import { hashPassword } from '../auth/password';
 import { assertMayGrantCarrierWide, assertMayGrantStations, assertMayManage, scopeOf, seesUser, type AdminScope } from './users.policy';

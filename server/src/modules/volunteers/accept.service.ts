@@ -5,7 +5,7 @@ import { recordCompensationDue } from '../compensations/compensation-due';
 import { gateAmount } from '../approvals/approval-gate';
 import { assertNotDeparted } from '../flights/departure-guard';
 import { liftEarlierVolunteers } from './earlier-volunteers';
-import { conflict, notFound } from '../../http/errors';
+import { conflict, notFound } from '../../domain/errors';
 import { audit } from '../audit/audit.service';
 import { enqueueMessage } from '../outbox/outbox.service';
 import { policyFor } from './policy.service';

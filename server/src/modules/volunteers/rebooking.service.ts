@@ -1,8 +1,8 @@
 import { In, MoreThan, Not, type DataSource } from 'typeorm';
 import type { SessionUser } from '@shared/schemas/auth';
 import { FlightEntity, PassengerEntity, RebookingEntity, VolunteerEntity, VolunteerRoundEntity } from '../../db/entities';
-import { badRequest, conflict, notFound } from '../../http/errors';
-import { canSeeStation } from '../../http/require-role';
+import { badRequest, conflict, notFound } from '../../domain/errors';
+import { canSeeStation } from '../../domain/station-scope';
 import { audit } from '../audit/audit.service';
 import { enqueueMessage } from '../outbox/outbox.service';
 import { enqueueRebookingNotice, type Enqueue } from './volunteer-notices';
