@@ -27,9 +27,11 @@ import { schedulesRouter } from './modules/schedules/schedules.routes';
 import { auditRouter } from './modules/audit/audit.routes';
 import { createForecastScheduler, type ForecastScheduler } from './modules/forecast/forecast-scheduler';
 import { silentPublisher, type Publisher } from './realtime/publisher';
+import { announceCommitted, flightMoved } from './events';
+import { announceRecomputes } from './modules/forecast/forecast-notice';
+import { subscribeAppEffects } from './app-effects';
 import { volunteersRouter } from './modules/volunteers/volunteers.routes';
 import { approvalsRouter } from './modules/approvals/approvals.routes';
-import { heldRankingsOf } from './modules/denials/candidates-held';
 import { denialsRouter } from './modules/denials/denials.routes';
 import { configureCarrierName } from './modules/denials/statement';
 import { carrierNameFrom } from './config/carrier';
@@ -82,22 +84,17 @@ export function createApp(deps: AppDeps) {
   app.use('/api/health', healthRouter(deps));
 
   const publisher = deps.publisher ?? silentPublisher;
-  const forecast = deps.forecast ?? createForecastScheduler(deps.db, (o) => publisher.flightChanged(o.flightId, o.stationId, ['forecast', 'counts', 'events'], o.notice));
-  // The feed authenticates with an API key, not a session: mounted before the session and CSRF middleware.
-  const changed = (flightId: number, stationId: number, topics: string[]) => {
-    // Rounds, proposals and denials feed the held denial ranking: the next read builds it anew.
-    heldRankingsOf(deps.db).flightMoved(flightId);
-    publisher.flightChanged(flightId, stationId, topics);
-    if (topics.includes('forecast')) forecast.markDirty(flightId);
-  };
-  const payments = deps.payments ?? createPaymentsRuntime({ db: deps.db, env: deps.env, changed });
+  const forecast = deps.forecast ?? createForecastScheduler(deps.db, announceRecomputes(deps.db));
+  // Services record what a change means inside its transaction; after the commit it reaches these subscribers.
+  subscribeAppEffects(deps.db, publisher, forecast);
+  const payments = deps.payments ?? createPaymentsRuntime({ db: deps.db, env: deps.env });
   // The provider's signed webhooks: the signature covers the raw body, so this comes before any JSON parser and
   // outside the session and CSRF middleware.
   app.use('/api/payments/webhook', payments.webhookRouter());
   // The passenger's "Offer your seat" page: no session; signed links and booking proof instead.
   // The passenger's card-details and payout pages: single-use links, no session.
   app.use('/api/public/payments', payments.passengerRouter());
-  app.use('/api/public', publicOffersRouter({ db: deps.db, secret: deps.env.SESSION_SECRET, changed, counters: { pool: deps.session.pool.pool, dbName: deps.session.dbName } }));
+  app.use('/api/public', publicOffersRouter({ db: deps.db, secret: deps.env.SESSION_SECRET, counters: { pool: deps.session.pool.pool, dbName: deps.session.dbName } }));
   app.use('/api/integrations', integrationEventsRouter({ db: deps.db, onFlightsChanged: (ids) => ids.forEach((id) => forecast.markDirty(id)) }));
 
   configurePassport(deps.db);
@@ -109,19 +106,19 @@ export function createApp(deps: AppDeps) {
   api.use(csrf.protection);
   api.use('/auth', authRouter({ db: deps.db, throttle: deps.throttle, csrf, cookieName: deps.session.cookieName, demo: deps.demo, onSignOut: deps.disconnectUser }));
   api.use('/users', usersRouter({ db: deps.db, throttle: deps.throttle, onUserSignedOut: deps.disconnectUser, onUserAccessChanged: deps.userAccessChanged }));
-  api.use(volunteersRouter({ db: deps.db, secret: deps.env.SESSION_SECRET, appBaseUrl: deps.env.APP_BASE_URL, changed }));
-  api.use(approvalsRouter({ db: deps.db, changed }));
-  api.use(denialsRouter({ db: deps.db, changed }));
+  api.use(volunteersRouter({ db: deps.db, secret: deps.env.SESSION_SECRET, appBaseUrl: deps.env.APP_BASE_URL }));
+  api.use(approvalsRouter({ db: deps.db }));
+  api.use(denialsRouter({ db: deps.db }));
   api.use(payments.compensationsRouter());
   // Finance reads the money payments moved through the payments module's read interface, never the provider.
   const reconciliation = deps.reconciliation ?? createReconciliationRunner({ db: deps.db, reader: payments.reader, log: (line) => console.warn(line) });
   api.use('/finance', financeRouter({ db: deps.db, reconciliation }));
   api.use('/alerts', alertsRouter({ db: deps.db, alertsChanged: (stationId) => publisher.stationChanged?.(stationId, [ALERT_TOPIC]) }));
-  api.use(cabinChangesRouter({ db: deps.db, changed }));
+  api.use(cabinChangesRouter({ db: deps.db }));
   api.use(refundsRouter({ db: deps.db }));
-  api.use(careRouter({ db: deps.db, changed }));
+  api.use(careRouter({ db: deps.db }));
   // The station run from the screens: flights, schedules, notices and the audit log.
-  api.use(adminFlightsRouter({ db: deps.db, onFlightChanged: (id, stationId) => changed(id, stationId, ['forecast', 'counts']) }));
+  api.use(adminFlightsRouter({ db: deps.db, onFlightChanged: (id, stationId) => announceCommitted(deps.db, ...flightMoved(id, stationId, ['forecast', 'counts'])) }));
   api.use(schedulesRouter({ db: deps.db }));
   api.use(stationNoticesRouter({ db: deps.db }));
   api.use(auditRouter({ db: deps.db }));

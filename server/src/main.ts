@@ -9,6 +9,7 @@ import { createSocketServer, disconnectUserSockets, refreshUserSockets, type App
 import { socketPublisher } from './realtime/publisher';
 import { followPeers, shareThroughRedis } from './realtime/peers';
 import { createForecastScheduler } from './modules/forecast/forecast-scheduler';
+import { announceRecomputes } from './modules/forecast/forecast-notice';
 import { createMailTransport } from './integrations/mail/mail-transport';
 import { createOutboxWorker } from './modules/outbox/outbox-worker';
 import { createPaymentsRuntime } from './modules/payments/payments-runtime';
@@ -25,7 +26,7 @@ await db.initialize();
 const session = createSessionSetup(env);
 const ioRef: { io?: AppIo } = {};
 const publisher = socketPublisher(() => ioRef.io);
-const forecast = createForecastScheduler(db, (o) => publisher.flightChanged(o.flightId, o.stationId, ['forecast', 'counts', 'events'], o.notice), {
+const forecast = createForecastScheduler(db, announceRecomputes(db), {
   leaseMs: env.RECOMPUTE_LEASE_SECONDS * 1000,
 });
 forecast.startClock();
@@ -33,7 +34,7 @@ const mailTransport = createMailTransport(env);
 const outbox = createOutboxWorker(db, mailTransport, { leaseMs: env.OUTBOX_LEASE_SECONDS * 1000 });
 outbox.start();
 // Its first pass retries every compensation a stopped server left 'issuing', with the keys fixed on each row.
-const payments = createPaymentsRuntime({ db, env, changed: (flightId, stationId, topics) => publisher.flightChanged(flightId, stationId, topics) });
+const payments = createPaymentsRuntime({ db, env });
 await payments.start();
 // Reconciliation runs a stopped process left 'running' are closed as interrupted, never left hanging.
 await markInterruptedRuns(db);

@@ -61,14 +61,23 @@ describe('effects recorded in a transaction', () => {
     tx.start();
     recordEffect(em, flightChanged(1, 9, ['a']));
     tx.start();
-    recordEffect(em, flightChanged(1, 9, ['undone']));
+    recordEffect(em, flightChanged(2, 9, ['undone']));
     tx.rollback();
     tx.start();
-    recordEffect(em, flightChanged(1, 9, ['kept']));
+    recordEffect(em, flightChanged(3, 9, ['kept']));
     tx.commit();
     expect(seen).toEqual([]);
     tx.commit();
     expect(seen.map((e) => (e.type === 'flight-changed' ? e.topics[0] : e.type))).toEqual(['a', 'kept']);
+  });
+
+  it('merge into one notice per flight and one wake-up per commit', () => {
+    const { em, seen, tx } = fakeDataSource();
+    tx.start();
+    recordEffect(em, flightChanged(1, 9, ['rounds']), mailQueued(), flightChanged(2, 9, ['counts']));
+    recordEffect(em, flightChanged(1, 9, ['approvals', 'rounds']), mailQueued());
+    tx.commit();
+    expect(seen).toEqual([flightChanged(1, 9, ['rounds', 'approvals']), mailQueued(), flightChanged(2, 9, ['counts'])]);
   });
 
   it('outside any transaction go at once, the write having committed already', () => {

@@ -3,7 +3,7 @@
 // its own effects; one that is released hands them to the level around it. This hangs off TypeORM's transaction
 // events, so every `db.transaction(...)` and every `em` passed down from one works, with no wrapper to forget.
 import type { DataSource, EntityManager, EntitySubscriberInterface, QueryRunner } from 'typeorm';
-import type { DomainEvent } from './domain-events';
+import { coalesce, type DomainEvent } from './domain-events';
 import { createEventDispatcher, type EventDispatcher } from './dispatcher';
 
 /** Recorded effects per open transaction, one list per nesting level (index 0 = the outermost). */
@@ -30,7 +30,7 @@ const transactionEffects: EntitySubscriberInterface = {
     if (!closed?.length) return;
     const depth = depthOf(queryRunner);
     if (depth > 0) levelAt(queryRunner, depth).push(...closed);
-    else domainEventsOf(queryRunner.dataSource).dispatch(closed);
+    else domainEventsOf(queryRunner.dataSource).dispatch(coalesce(closed));
   },
   afterTransactionRollback({ queryRunner }) {
     closeLevels(queryRunner);

@@ -13,14 +13,16 @@ export interface EventDispatcher {
 }
 
 export function createEventDispatcher(log: (line: string) => void = (line) => console.error(line)): EventDispatcher {
-  const subscribers = new Map<DomainEventType, Set<Subscriber<DomainEventType>>>();
+  type AnySubscriber = (event: DomainEvent) => void | Promise<void>;
+  const subscribers = new Map<DomainEventType, Set<AnySubscriber>>();
   const failed = (event: DomainEvent, err: unknown) => log(`[events] a subscriber of ${event.type} failed: ${err instanceof Error ? err.message : String(err)}`);
 
   return {
     subscribe(type, subscriber) {
       let set = subscribers.get(type);
       if (!set) subscribers.set(type, (set = new Set()));
-      const entry = subscriber as Subscriber<DomainEventType>;
+      // Filed under its own type, so it is only ever handed events of that type.
+      const entry = subscriber as unknown as AnySubscriber;
       set.add(entry);
       return () => void set.delete(entry);
     },
@@ -28,7 +30,7 @@ export function createEventDispatcher(log: (line: string) => void = (line) => co
       for (const event of events) {
         for (const subscriber of [...(subscribers.get(event.type) ?? [])]) {
           try {
-            const result = subscriber(event as EventOfType<DomainEventType>);
+            const result = subscriber(event);
             if (result instanceof Promise) result.catch((err: unknown) => failed(event, err));
           } catch (err) {
             failed(event, err);

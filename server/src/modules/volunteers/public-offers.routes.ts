@@ -17,7 +17,7 @@ import { addVolunteer } from './rounds.service';
 const linkInvalid = () => new HttpError(404, 'link_invalid', 'This link is not valid any more. Ask the gate agent for the current one.');
 const notMatched = () => new HttpError(404, 'booking_not_matched', 'We could not find that booking on this flight. Check the booking reference and the last name as printed on your boarding pass.');
 
-export function publicOffersRouter(deps: { db: DataSource; secret: string; changed: (flightId: number, stationId: number, topics: string[]) => void; identifyLimit?: number;
+export function publicOffersRouter(deps: { db: DataSource; secret: string; identifyLimit?: number;
   /** Where the guesses are counted: MariaDB, so every server process holds a guesser to one allowance. */
   counters?: CounterStore;
 }) {
@@ -85,7 +85,6 @@ export function publicOffersRouter(deps: { db: DataSource; secret: string; chang
       if (!round) throw new HttpError(409, 'no_open_round', 'The gate is not asking for volunteers right now.');
       return addVolunteer(em, round, bookingId, null, round.kind === 'sealed' ? (body.askMinor ?? null) : null, 'passenger-link', { label: `passenger link (booking ${bookingId})` });
     });
-    deps.changed(flight.id, flight.stationId, ['rounds']);
     res.status(201).json({ status: v.status });
   });
 
