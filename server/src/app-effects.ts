@@ -16,6 +16,7 @@ export function subscribeAppEffects(db: DataSource, publisher: Publisher, foreca
       publisher.flightChanged(e.flightId, e.stationId, e.topics, e.data);
     }),
     events.subscribe('station-changed', (e) => publisher.stationChanged?.(e.stationId, e.topics)),
+    events.subscribe('priority-rules-changed', (e) => heldRankingsOf(db).stationMoved(e.stationId)),
     events.subscribe('forecast-stale', (e) => forecast.markDirty(e.flightId)),
   ];
   return () => unsubscribe.forEach((off) => off());

@@ -27,7 +27,6 @@ import { schedulesRouter } from './modules/schedules/schedules.routes';
 import { auditRouter } from './modules/audit/audit.routes';
 import { createForecastScheduler, type ForecastScheduler } from './modules/forecast/forecast-scheduler';
 import { silentPublisher, type Publisher } from './realtime/publisher';
-import { announceCommitted, flightMoved } from './events';
 import { announceRecomputes } from './modules/forecast/forecast-notice';
 import { subscribeAppEffects } from './app-effects';
 import { volunteersRouter } from './modules/volunteers/volunteers.routes';
@@ -40,7 +39,6 @@ import { createPaymentsRuntime, type PaymentsRuntime } from './modules/payments/
 import { createReconciliationRunner, type ReconciliationRunner } from './modules/finance/reconciliation.service';
 import { financeRouter } from './modules/finance/finance.routes';
 import { alertsRouter } from './modules/alerts/alerts.routes';
-import { ALERT_TOPIC } from '@shared/events';
 import { cabinChangesRouter } from './modules/cabin-changes/cabin-changes.routes';
 import { refundsRouter } from './modules/refunds/refunds.routes';
 import { careRouter } from './modules/care/care.routes';
@@ -95,7 +93,7 @@ export function createApp(deps: AppDeps) {
   // The passenger's card-details and payout pages: single-use links, no session.
   app.use('/api/public/payments', payments.passengerRouter());
   app.use('/api/public', publicOffersRouter({ db: deps.db, secret: deps.env.SESSION_SECRET, counters: { pool: deps.session.pool.pool, dbName: deps.session.dbName } }));
-  app.use('/api/integrations', integrationEventsRouter({ db: deps.db, onFlightsChanged: (ids) => ids.forEach((id) => forecast.markDirty(id)) }));
+  app.use('/api/integrations', integrationEventsRouter({ db: deps.db }));
 
   configurePassport(deps.db);
   const csrf = createCsrf(deps.env);
@@ -113,21 +111,21 @@ export function createApp(deps: AppDeps) {
   // Finance reads the money payments moved through the payments module's read interface, never the provider.
   const reconciliation = deps.reconciliation ?? createReconciliationRunner({ db: deps.db, reader: payments.reader, log: (line) => console.warn(line) });
   api.use('/finance', financeRouter({ db: deps.db, reconciliation }));
-  api.use('/alerts', alertsRouter({ db: deps.db, alertsChanged: (stationId) => publisher.stationChanged?.(stationId, [ALERT_TOPIC]) }));
+  api.use('/alerts', alertsRouter({ db: deps.db }));
   api.use(cabinChangesRouter({ db: deps.db }));
   api.use(refundsRouter({ db: deps.db }));
   api.use(careRouter({ db: deps.db }));
   // The station run from the screens: flights, schedules, notices and the audit log.
-  api.use(adminFlightsRouter({ db: deps.db, onFlightChanged: (id, stationId) => announceCommitted(deps.db, ...flightMoved(id, stationId, ['forecast', 'counts'])) }));
+  api.use(adminFlightsRouter({ db: deps.db }));
   api.use(schedulesRouter({ db: deps.db }));
   api.use(stationNoticesRouter({ db: deps.db }));
   api.use(auditRouter({ db: deps.db }));
   api.use('/stations/:stationId/integration-keys', integrationKeysRouter(deps));
-  api.use('/stations/:stationId/manifests', manifestsRouter({ db: deps.db, onFlightsChanged: (ids) => ids.forEach((id) => forecast.markDirty(id)) }));
-  api.use('/stations/:stationId/show-up-profile', showUpProfilesRouter({ db: deps.db, onFlightsChanged: (ids) => ids.forEach((id) => forecast.markDirty(id)) }));
+  api.use('/stations/:stationId/manifests', manifestsRouter({ db: deps.db }));
+  api.use('/stations/:stationId/show-up-profile', showUpProfilesRouter({ db: deps.db }));
   api.use('/stations', stationsRouter(deps));
   api.use('/flights/:flightId/notices', noticesRouter({ db: deps.db }));
-  api.use('/flights', flightDeskRouter({ db: deps.db, onFlightChanged: (id, stationId, data) => publisher.flightChanged(id, stationId, ['forecast', 'shock'], data) }));
+  api.use('/flights', flightDeskRouter({ db: deps.db }));
   api.use('/departures', departuresRouter(deps));
   api.use('/plans', plansRouter(deps));
   // Forecasts of a station whose rates changed are recomputed; the answer does not wait for them.

@@ -18,7 +18,6 @@ import { createLearningRuntime } from './modules/learning/learning-runtime';
 import { stationsOnLatestRates } from './modules/learning/rates.service';
 import { openFlightIds } from './modules/show-up-profiles/show-up-profiles.service';
 import { watchPaymentDeadlines } from './modules/compensations/payment-deadlines';
-import { ALERT_TOPIC } from '@shared/events';
 
 const env = loadEnv();
 const db = createDataSource(env.DATABASE_URL);
@@ -47,7 +46,7 @@ const learning = createLearningRuntime(db, {
   }).catch(() => undefined),
 });
 await learning.start();
-const stopDeadlineWatch = watchPaymentDeadlines(db, (stationId) => publisher.stationChanged?.(stationId, [ALERT_TOPIC]));
+const stopDeadlineWatch = watchPaymentDeadlines(db);
 const app = createApp({
   payments,
   reconciliation,

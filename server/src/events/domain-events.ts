@@ -21,6 +21,12 @@ export interface StationChanged {
   topics: string[];
 }
 
+/** A station's denial priority rules changed: every ranking held for its flights is built anew (no console notice). */
+export interface PriorityRulesChanged {
+  type: 'priority-rules-changed';
+  stationId: number;
+}
+
 /** Rows were written to the mail outbox: the workers look now instead of at their next poll. */
 export interface MailQueued {
   type: 'mail-queued';
@@ -32,7 +38,7 @@ export interface ForecastStale {
   flightId: number;
 }
 
-export type DomainEvent = FlightChanged | StationChanged | ForecastStale | MailQueued;
+export type DomainEvent = FlightChanged | StationChanged | ForecastStale | PriorityRulesChanged | MailQueued;
 export type DomainEventType = DomainEvent['type'];
 export type EventOfType<T extends DomainEventType> = Extract<DomainEvent, { type: T }>;
 

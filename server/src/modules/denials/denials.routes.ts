@@ -56,7 +56,6 @@ export function denialsRouter(deps: DenialDeps) {
     const stationId = stationOf(req);
     const body = parse(priorityRulesBodySchema, req.body);
     const saved = await savePriorityRules(deps.db, currentUser(req), stationId, body);
-    heldRankingsOf(deps.db).stationMoved(stationId);
     res.json(presentPriorityRules(stationId, saved, await regimeOf(stationId)));
   });
 

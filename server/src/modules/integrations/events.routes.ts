@@ -10,7 +10,7 @@ import { stationForKey } from './integration-keys.service';
  * The departure-control feed: authenticated by a per-station API key (Bearer), not by a session, so it sits outside
  * the session and CSRF middleware. Answers 200 with one result per event.
  */
-export function integrationEventsRouter(deps: { db: DataSource; onFlightsChanged: (flightIds: Set<number>) => void }) {
+export function integrationEventsRouter(deps: { db: DataSource }) {
   const r = Router();
   r.use(express.json({ limit: '2mb' }));
   r.post('/events', async (req, res) => {
@@ -18,8 +18,7 @@ export function integrationEventsRouter(deps: { db: DataSource; onFlightsChanged
     const key = presented ? await stationForKey(deps.db, presented) : null;
     if (!key) throw new HttpError(401, 'invalid_api_key', 'Send a valid integration key as "Authorization: Bearer <key>". Keys are created by an admin in Station setup.');
     const { events } = parse(eventBatchSchema, req.body);
-    const { results, touchedFlights } = await applyEventBatch(deps.db, key.stationId, events);
-    if (touchedFlights.size) deps.onFlightsChanged(touchedFlights);
+    const { results } = await applyEventBatch(deps.db, key.stationId, events);
     res.json({ results, applied: results.filter((x) => x.status === 'applied').length, rejected: results.filter((x) => x.status === 'rejected').length });
   });
   return r;

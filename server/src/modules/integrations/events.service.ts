@@ -1,5 +1,6 @@
 import type { DataSource, EntityManager } from 'typeorm';
 import { integrationEventSchema, type EventResult, type IntegrationEvent } from '@shared/schemas/integration-events';
+import { forecastStale, recordEffect } from '../../events';
 import { HttpError } from '../../http/errors';
 import { applyEvent, BatchFlights, type Applied } from './apply-event';
 
@@ -70,6 +71,8 @@ export async function applyEventBatch(db: DataSource, stationId: number, raw: un
               rows.push({ event: p.event, a });
               outcome.set(p.index, { status: a.status, message: a.summary });
               touchedFlights.add(a.flightId);
+              // Once the batch commits, the flight is recomputed (its notice follows the new version).
+              recordEffect(em, forecastStale(a.flightId));
             } catch (err) {
               if (!(err instanceof HttpError)) throw err;
               // Rejected: its id stays free, so the feed may send the event again once fixed.
