@@ -29,6 +29,7 @@ import { createForecastScheduler, type ForecastScheduler } from './modules/forec
 import { silentPublisher, type Publisher } from './realtime/publisher';
 import { announceRecomputes } from './modules/forecast/forecast-notice';
 import { subscribeAppEffects } from './app-effects';
+import { announceCommitted, forecastStale } from './events';
 import { volunteersRouter } from './modules/volunteers/volunteers.routes';
 import { approvalsRouter } from './modules/approvals/approvals.routes';
 import { denialsRouter } from './modules/denials/denials.routes';
@@ -129,7 +130,7 @@ export function createApp(deps: AppDeps) {
   api.use('/departures', departuresRouter(deps));
   api.use('/plans', plansRouter(deps));
   // Forecasts of a station whose rates changed are recomputed; the answer does not wait for them.
-  const recomputeStation = (stationId: number) => void openFlightIds(deps.db, stationId).then((ids) => ids.forEach((id) => forecast.markDirty(id))).catch(() => undefined);
+  const recomputeStation = (stationId: number) => void openFlightIds(deps.db, stationId).then((ids) => announceCommitted(deps.db, ...ids.map(forecastStale))).catch(() => undefined);
   const learning = deps.learning ?? createLearningRuntime(deps.db, { forecast, onNewVersion: () => void stationsOnLatestRates(deps.db).then((ids) => ids.forEach(recomputeStation)).catch((err: unknown) => console.error(`[learning] could not refresh the stations on the new rates: ${String(err)}`)) });
   api.use('/learning', learningRouter({ db: deps.db, runtime: learning, onChoiceChanged: recomputeStation }));
   api.use((req) => {

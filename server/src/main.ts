@@ -10,6 +10,7 @@ import { socketPublisher } from './realtime/publisher';
 import { followPeers, shareThroughRedis } from './realtime/peers';
 import { createForecastScheduler } from './modules/forecast/forecast-scheduler';
 import { announceRecomputes } from './modules/forecast/forecast-notice';
+import { announceCommitted, forecastStale } from './events';
 import { createMailTransport } from './integrations/mail/mail-transport';
 import { createOutboxWorker } from './modules/outbox/outbox-worker';
 import { createPaymentsRuntime } from './modules/payments/payments-runtime';
@@ -42,7 +43,7 @@ const reconciliation = createReconciliationRunner({ db, reader: payments.reader,
 const learning = createLearningRuntime(db, {
   forecast,
   onNewVersion: () => void stationsOnLatestRates(db).then(async (stations) => {
-    for (const s of stations) (await openFlightIds(db, s)).forEach((id) => forecast.markDirty(id));
+    for (const s of stations) announceCommitted(db, ...(await openFlightIds(db, s)).map(forecastStale));
   }).catch(() => undefined),
 });
 await learning.start();
