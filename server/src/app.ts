@@ -27,9 +27,10 @@ import { schedulesRouter } from './modules/schedules/schedules.routes';
 import { auditRouter } from './modules/audit/audit.routes';
 import { createForecastScheduler, type ForecastScheduler } from './modules/forecast/forecast-scheduler';
 import { silentPublisher, type Publisher } from './realtime/publisher';
+import { subscribeAppEffects } from './app-effects';
+import { announceCommitted, forecastStale } from './events';
 import { volunteersRouter } from './modules/volunteers/volunteers.routes';
 import { approvalsRouter } from './modules/approvals/approvals.routes';
-import { heldRankingsOf } from './modules/denials/candidates-held';
 import { denialsRouter } from './modules/denials/denials.routes';
 import { forecastAnnouncer } from './modules/denials/ranking-notices';
 import { configureCarrierName } from './modules/denials/statement';
@@ -39,7 +40,6 @@ import { createPaymentsRuntime, type PaymentsRuntime } from './modules/payments/
 import { createReconciliationRunner, type ReconciliationRunner } from './modules/finance/reconciliation.service';
 import { financeRouter } from './modules/finance/finance.routes';
 import { alertsRouter } from './modules/alerts/alerts.routes';
-import { ALERT_TOPIC } from '@shared/events';
 import { cabinChangesRouter } from './modules/cabin-changes/cabin-changes.routes';
 import { refundsRouter } from './modules/refunds/refunds.routes';
 import { careRouter } from './modules/care/care.routes';
@@ -83,23 +83,18 @@ export function createApp(deps: AppDeps) {
   app.use('/api/health', healthRouter(deps));
 
   const publisher = deps.publisher ?? silentPublisher;
-  const forecast = deps.forecast ?? createForecastScheduler(deps.db, forecastAnnouncer(deps.db, publisher));
-  // The feed authenticates with an API key, not a session: mounted before the session and CSRF middleware.
-  const changed = (flightId: number, stationId: number, topics: string[]) => {
-    // Rounds, proposals and denials feed the held denial ranking: the next read builds it anew.
-    heldRankingsOf(deps.db).flightMoved(flightId);
-    publisher.flightChanged(flightId, stationId, topics);
-    if (topics.includes('forecast')) forecast.markDirty(flightId);
-  };
-  const payments = deps.payments ?? createPaymentsRuntime({ db: deps.db, env: deps.env, changed });
+  const forecast = deps.forecast ?? createForecastScheduler(deps.db, forecastAnnouncer(deps.db));
+  // Services record what a change means inside its transaction; after the commit it reaches these subscribers.
+  subscribeAppEffects(deps.db, publisher, forecast);
+  const payments = deps.payments ?? createPaymentsRuntime({ db: deps.db, env: deps.env });
   // The provider's signed webhooks: the signature covers the raw body, so this comes before any JSON parser and
   // outside the session and CSRF middleware.
   app.use('/api/payments/webhook', payments.webhookRouter());
   // The passenger's "Offer your seat" page: no session; signed links and booking proof instead.
   // The passenger's card-details and payout pages: single-use links, no session.
   app.use('/api/public/payments', payments.passengerRouter());
-  app.use('/api/public', publicOffersRouter({ db: deps.db, secret: deps.env.SESSION_SECRET, changed, counters: { pool: deps.session.pool.pool, dbName: deps.session.dbName } }));
-  app.use('/api/integrations', integrationEventsRouter({ db: deps.db, onFlightsChanged: (ids) => ids.forEach((id) => forecast.markDirty(id)) }));
+  app.use('/api/public', publicOffersRouter({ db: deps.db, secret: deps.env.SESSION_SECRET, counters: { pool: deps.session.pool.pool, dbName: deps.session.dbName } }));
+  app.use('/api/integrations', integrationEventsRouter({ db: deps.db }));
 
   configurePassport(deps.db);
   const csrf = createCsrf(deps.env);
@@ -110,32 +105,32 @@ export function createApp(deps: AppDeps) {
   api.use(csrf.protection);
   api.use('/auth', authRouter({ db: deps.db, throttle: deps.throttle, csrf, cookieName: deps.session.cookieName, demo: deps.demo, onSignOut: deps.disconnectUser }));
   api.use('/users', usersRouter({ db: deps.db, throttle: deps.throttle, onUserSignedOut: deps.disconnectUser, onUserAccessChanged: deps.userAccessChanged }));
-  api.use(volunteersRouter({ db: deps.db, secret: deps.env.SESSION_SECRET, appBaseUrl: deps.env.APP_BASE_URL, changed }));
-  api.use(approvalsRouter({ db: deps.db, changed }));
-  api.use(denialsRouter({ db: deps.db, changed }));
+  api.use(volunteersRouter({ db: deps.db, secret: deps.env.SESSION_SECRET, appBaseUrl: deps.env.APP_BASE_URL }));
+  api.use(approvalsRouter({ db: deps.db }));
+  api.use(denialsRouter({ db: deps.db }));
   api.use(payments.compensationsRouter());
   // Finance reads the money payments moved through the payments module's read interface, never the provider.
   const reconciliation = deps.reconciliation ?? createReconciliationRunner({ db: deps.db, reader: payments.reader, log: (line) => console.warn(line) });
   api.use('/finance', financeRouter({ db: deps.db, reconciliation }));
-  api.use('/alerts', alertsRouter({ db: deps.db, alertsChanged: (stationId) => publisher.stationChanged?.(stationId, [ALERT_TOPIC]) }));
-  api.use(cabinChangesRouter({ db: deps.db, changed }));
+  api.use('/alerts', alertsRouter({ db: deps.db }));
+  api.use(cabinChangesRouter({ db: deps.db }));
   api.use(refundsRouter({ db: deps.db }));
-  api.use(careRouter({ db: deps.db, changed }));
+  api.use(careRouter({ db: deps.db }));
   // The station run from the screens: flights, schedules, notices and the audit log.
-  api.use(adminFlightsRouter({ db: deps.db, onFlightChanged: (id, stationId) => changed(id, stationId, ['forecast', 'counts']) }));
+  api.use(adminFlightsRouter({ db: deps.db }));
   api.use(schedulesRouter({ db: deps.db }));
   api.use(stationNoticesRouter({ db: deps.db }));
   api.use(auditRouter({ db: deps.db }));
   api.use('/stations/:stationId/integration-keys', integrationKeysRouter(deps));
-  api.use('/stations/:stationId/manifests', manifestsRouter({ db: deps.db, onFlightsChanged: (ids) => ids.forEach((id) => forecast.markDirty(id)) }));
-  api.use('/stations/:stationId/show-up-profile', showUpProfilesRouter({ db: deps.db, onFlightsChanged: (ids) => ids.forEach((id) => forecast.markDirty(id)) }));
+  api.use('/stations/:stationId/manifests', manifestsRouter({ db: deps.db }));
+  api.use('/stations/:stationId/show-up-profile', showUpProfilesRouter({ db: deps.db }));
   api.use('/stations', stationsRouter(deps));
   api.use('/flights/:flightId/notices', noticesRouter({ db: deps.db }));
-  api.use('/flights', flightDeskRouter({ db: deps.db, onFlightChanged: (id, stationId, data) => publisher.flightChanged(id, stationId, ['forecast', 'shock'], data) }));
+  api.use('/flights', flightDeskRouter({ db: deps.db }));
   api.use('/departures', departuresRouter(deps));
   api.use('/plans', plansRouter(deps));
   // Forecasts of a station whose rates changed are recomputed; the answer does not wait for them.
-  const recomputeStation = (stationId: number) => void openFlightIds(deps.db, stationId).then((ids) => ids.forEach((id) => forecast.markDirty(id))).catch(() => undefined);
+  const recomputeStation = (stationId: number) => void openFlightIds(deps.db, stationId).then((ids) => announceCommitted(deps.db, ...ids.map(forecastStale))).catch(() => undefined);
   const learning = deps.learning ?? createLearningRuntime(deps.db, { forecast, onNewVersion: () => void stationsOnLatestRates(deps.db).then((ids) => ids.forEach(recomputeStation)).catch((err: unknown) => console.error(`[learning] could not refresh the stations on the new rates: ${String(err)}`)) });
   api.use('/learning', learningRouter({ db: deps.db, runtime: learning, onChoiceChanged: recomputeStation }));
   api.use((req) => {

@@ -9,6 +9,7 @@ import { createSocketServer, disconnectUserSockets, refreshUserSockets, type App
 import { socketPublisher } from './realtime/publisher';
 import { followPeers, shareThroughRedis } from './realtime/peers';
 import { createForecastScheduler } from './modules/forecast/forecast-scheduler';
+import { announceCommitted, forecastStale } from './events';
 import { createMailTransport } from './integrations/mail/mail-transport';
 import { createOutboxWorker } from './modules/outbox/outbox-worker';
 import { createPaymentsRuntime } from './modules/payments/payments-runtime';
@@ -17,7 +18,6 @@ import { createLearningRuntime } from './modules/learning/learning-runtime';
 import { stationsOnLatestRates } from './modules/learning/rates.service';
 import { openFlightIds } from './modules/show-up-profiles/show-up-profiles.service';
 import { watchPaymentDeadlines } from './modules/compensations/payment-deadlines';
-import { ALERT_TOPIC } from '@shared/events';
 import { forecastAnnouncer } from './modules/denials/ranking-notices';
 
 const env = loadEnv();
@@ -26,7 +26,7 @@ await db.initialize();
 const session = createSessionSetup(env);
 const ioRef: { io?: AppIo } = {};
 const publisher = socketPublisher(() => ioRef.io);
-const forecast = createForecastScheduler(db, forecastAnnouncer(db, publisher), {
+const forecast = createForecastScheduler(db, forecastAnnouncer(db), {
   leaseMs: env.RECOMPUTE_LEASE_SECONDS * 1000,
 });
 forecast.startClock();
@@ -34,7 +34,7 @@ const mailTransport = createMailTransport(env);
 const outbox = createOutboxWorker(db, mailTransport, { leaseMs: env.OUTBOX_LEASE_SECONDS * 1000 });
 outbox.start();
 // Its first pass retries every compensation a stopped server left 'issuing', with the keys fixed on each row.
-const payments = createPaymentsRuntime({ db, env, changed: (flightId, stationId, topics) => publisher.flightChanged(flightId, stationId, topics) });
+const payments = createPaymentsRuntime({ db, env });
 await payments.start();
 // Reconciliation runs a stopped process left 'running' are closed as interrupted, never left hanging.
 await markInterruptedRuns(db);
@@ -43,11 +43,11 @@ const reconciliation = createReconciliationRunner({ db, reader: payments.reader,
 const learning = createLearningRuntime(db, {
   forecast,
   onNewVersion: () => void stationsOnLatestRates(db).then(async (stations) => {
-    for (const s of stations) (await openFlightIds(db, s)).forEach((id) => forecast.markDirty(id));
+    for (const s of stations) announceCommitted(db, ...(await openFlightIds(db, s)).map(forecastStale));
   }).catch(() => undefined),
 });
 await learning.start();
-const stopDeadlineWatch = watchPaymentDeadlines(db, (stationId) => publisher.stationChanged?.(stationId, [ALERT_TOPIC]));
+const stopDeadlineWatch = watchPaymentDeadlines(db);
 const app = createApp({
   payments,
   reconciliation,

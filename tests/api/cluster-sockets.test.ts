@@ -54,7 +54,7 @@ async function startNode(redisUrl: string): Promise<Node> {
   const session = createSessionSetup(env);
   const ioRef: { io?: AppIo } = {};
   const publisher = socketPublisher(() => ioRef.io);
-  const forecast = createForecastScheduler(db, forecastAnnouncer(db, publisher));
+  const forecast = createForecastScheduler(db, forecastAnnouncer(db));
   const app = createApp({ env, db, session, forecast, publisher, throttle: createSignInThrottle({ perAccount: 1000, perAddress: 10_000 }), demo: true });
   const http = createServer(app);
   const io = createSocketServer(http, { db, sessionMiddleware: session.middleware });

@@ -11,7 +11,7 @@ import { createSessionSetup } from '../../server/src/http/session';
 import { createSignInThrottle, type SignInThrottle } from '../../server/src/modules/auth/throttle';
 import { createForecastScheduler, type ForecastScheduler } from '../../server/src/modules/forecast/forecast-scheduler';
 import { createSocketServer, disconnectUserSockets, refreshUserSockets, type AppIo } from '../../server/src/realtime/socket-server';
-import { socketPublisher } from '../../server/src/realtime/publisher';
+import { socketPublisher, type Publisher } from '../../server/src/realtime/publisher';
 
 export const DEMO_PASSWORD = 'bumpboard-demo-2026';
 
@@ -34,6 +34,8 @@ export interface TestAppOptions {
   sockets?: boolean;
   /** With sockets: consoles hear change notices as from the real server (silent otherwise, as most tests want). */
   live?: boolean;
+  /** Hears every notice the app sends, instead of the sockets (tests that count notices). */
+  publisher?: Publisher;
 }
 
 export async function startTestApp(opts: TestAppOptions = {}): Promise<TestApp> {
@@ -52,6 +54,7 @@ export async function startTestApp(opts: TestAppOptions = {}): Promise<TestApp> 
     throttle: opts.throttle ?? createSignInThrottle({ perAccount: 1000, perAddress: 10_000 }),
     demo: true,
     ...(opts.live ? { publisher: socketPublisher(() => ioRef.io) } : {}),
+    ...(opts.publisher ? { publisher: opts.publisher } : {}),
     disconnectUser: (id) => ioRef.io && disconnectUserSockets(ioRef.io, id),
     userAccessChanged: (id) => void (ioRef.io && refreshUserSockets(ioRef.io, db, id)),
   });

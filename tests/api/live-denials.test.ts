@@ -43,8 +43,8 @@ beforeAll(async () => {
   const session = createSessionSetup(env);
   closeSession = () => session.close();
   const publisher: Publisher = { flightChanged: (id, _station, topics, data, desk) => notices.push({ id, topics, ...data, ...desk }) };
-  scheduler = createForecastScheduler(db, forecastAnnouncer(db, publisher));
-  app = createApp({ env, db, session, throttle: createSignInThrottle({ perAccount: 1000, perAddress: 10_000 }), demo: true, forecast: scheduler });
+  scheduler = createForecastScheduler(db, forecastAnnouncer(db));
+  app = createApp({ env, db, session, throttle: createSignInThrottle({ perAccount: 1000, perAddress: 10_000 }), demo: true, publisher, forecast: scheduler });
   agent = new Client(app);
   other = new Client(app);
   expect((await agent.signIn(DEMO.agent)).status).toBe(200);

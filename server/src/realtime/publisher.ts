@@ -1,4 +1,5 @@
-// The one place the server tells consoles that something changed. Called only after the change has committed. A
+// The one place the server tells consoles that something changed. Its only caller is the domain event dispatcher
+// (app-effects.ts), so it runs only after the change has committed. A
 // forecast's notice carries the flight's new version and what changed with it, so consoles patch instead of refetching.
 import { ALERT_TOPIC, flightDeskRoom, flightRoom, stationRoom, type ChangedPayload } from '@shared/events';
 import { sharedServers, type AppIo } from './socket-server';

@@ -8,6 +8,7 @@ import type { AgreementBody } from '@shared/schemas/payment-media';
 import { CompensationEntity, PaymentAgreementEntity } from '../../db/entities';
 import type { AgreementMethod } from '../../db/entities/payment-media.entity';
 import { badRequest, conflict } from '../../domain/errors';
+import { flightChanged, recordEffect } from '../../events';
 import { audit } from '../audit/audit.service';
 import { compensationRow, passengerNameOf } from '../payments/compensation-view';
 import { transferCurrencyProblem } from '../payouts/transfer-currencies';
@@ -37,6 +38,7 @@ export async function chooseMedium(db: DataSource, user: SessionUser, id: number
     assertAllowed(await paymentFacts(em, row), medium);
     await em.update(CompensationEntity, { id }, { medium, form: formFor(medium) });
     await audit(em, { actor: user, action: 'compensation.medium_chosen', entityType: 'compensation', entityId: id, stationId: row.stationId, before: { medium: row.medium }, after: { medium } });
+    recordEffect(em, flightChanged(row.flightId, row.stationId, ['compensations']));
     return em.findOneByOrFail(CompensationEntity, { id });
   });
 }
@@ -78,6 +80,7 @@ export async function storeAgreement(em: EntityManager, actor: SessionUser | nul
     before: { medium: row.medium },
     after: { medium: input.medium, method: input.method, text: input.text, cashGivenUpMinor: row.amountMinor, valueMinor: input.valueMinor, currency: row.currency, expiresOn: input.expiresOn, acceptedAt: acceptedAt.toISOString(), signatureChars: input.signature?.length ?? 0 },
   });
+  recordEffect(em, flightChanged(row.flightId, row.stationId, ['compensations']));
 }
 
 export async function recordDeskAgreement(db: DataSource, user: SessionUser, id: number, body: AgreementBody): Promise<CompensationEntity> {

@@ -7,7 +7,7 @@ import { ANY_SIGNED_IN, currentUser, requireRole } from '../../http/require-role
 import { parse } from '../../http/validate';
 import { acknowledgeAlert, listAlerts } from './alerts.service';
 
-export function alertsRouter(deps: { db: DataSource; alertsChanged?: (stationId: number) => void }) {
+export function alertsRouter(deps: { db: DataSource }) {
   const r = Router();
   r.use(requireRole(...ANY_SIGNED_IN));
 
@@ -17,8 +17,6 @@ export function alertsRouter(deps: { db: DataSource; alertsChanged?: (stationId:
 
   r.post('/:id/acknowledge', async (req, res) => {
     const alert = await acknowledgeAlert(deps.db, currentUser(req), parse(idParamSchema, req.params, 'params').id);
-    // Colleagues' consoles drop it from their count too.
-    deps.alertsChanged?.(alert.stationId);
     res.json({ alert });
   });
 

@@ -8,6 +8,8 @@ import { INFORMATIONAL_ALERT_KINDS, isPaymentAlert, PAYMENT_ALERT_KINDS, type Al
 import { AlertEntity, type CompensationEntity } from '../../db/entities';
 import { notFound } from '../../domain/errors';
 import { canSeeStation } from '../../domain/station-scope';
+import { recordEffect, stationChanged } from '../../events';
+import { ALERT_TOPIC } from '@shared/events';
 import { audit } from '../audit/audit.service';
 import { compensationRow, passengerNameOf } from '../payments/compensation-view';
 import { moneyText } from '../finance/scope';
@@ -138,6 +140,8 @@ export async function acknowledgeAlert(db: DataSource, user: SessionUser, id: nu
     const now = new Date();
     await em.update(AlertEntity, { id }, { acknowledgedAt: now, acknowledgedByUserId: user.id, ...(dismissed ? { resolvedAt: now, resolution: `dismissed by ${user.email}`.slice(0, 200) } : {}) });
     await audit(em, { actor: user, action: 'alert.acknowledged', entityType: 'alert', entityId: id, stationId: alert.stationId, before: { acknowledgedAt: null }, after: { acknowledged: true, dismissed } });
+    // Colleagues' consoles drop it from their count too.
+    recordEffect(em, stationChanged(alert.stationId, [ALERT_TOPIC]));
   });
   const [row]: AlertRow[] = await db.query(`${SELECT} WHERE a.id = ?) x`, [id]);
   return present(row);

@@ -8,6 +8,7 @@ import type { VolunteerPolicy } from '@shared/schemas/volunteers';
 import { OfferApprovalEntity, type CompensationEntity } from '../../db/entities';
 import { conflict } from '../../domain/errors';
 import { raiseApprovalWaiting } from '../alerts/work-alerts';
+import { flightChanged, recordEffect } from '../../events';
 import { audit } from '../audit/audit.service';
 import { policyFor } from '../volunteers/policy.service';
 
@@ -56,6 +57,7 @@ export async function gateAmount(em: EntityManager, user: SessionUser, req: Amou
     after: { kind: req.kind, amountMinor: req.amountMinor, currency: req.currency, limitMinor: limit, roundId: approval.roundId, subjectId: approval.subjectId, flightId: req.flightId },
   });
   await raiseApprovalWaiting(em, approval);
+  if (req.flightId !== null) recordEffect(em, flightChanged(req.flightId, req.stationId, ['approvals']));
   return { approved: false, approval };
 }
 

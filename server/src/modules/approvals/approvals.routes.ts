@@ -4,12 +4,10 @@ import { idParamSchema } from '@shared/schemas/common';
 import { approvalsQuerySchema, decideApprovalBodySchema } from '@shared/schemas/approvals';
 import { currentUser, requireRole } from '../../http/require-role';
 import { parse } from '../../http/validate';
-import { notifyOutbox } from '../outbox/outbox-signal';
 import { decideApproval, pendingApprovals } from './approvals.service';
 
 export interface ApprovalDeps {
   db: DataSource;
-  changed: (flightId: number, stationId: number, topics: string[]) => void;
 }
 
 /** Admins may look at the queue; only a supervisor decides. */
@@ -25,8 +23,6 @@ export function approvalsRouter(deps: ApprovalDeps) {
     const { id } = parse(idParamSchema, req.params, 'params');
     const body = parse(decideApprovalBodySchema, req.body);
     const { approval, round } = await decideApproval(deps.db, currentUser(req), id, body.approve, body.reason);
-    if (approval.kind === 'sealed-accept' && approval.status === 'approved') notifyOutbox();
-    if (approval.flightId) deps.changed(approval.flightId, approval.stationId, ['rounds', 'approvals', 'compensations', 'forecast']);
     res.json({ id: approval.id, status: approval.status, offerMinor: round?.offerMinor ?? null });
   });
 

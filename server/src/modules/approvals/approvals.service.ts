@@ -8,6 +8,7 @@ import { OfferApprovalEntity, VolunteerRoundEntity } from '../../db/entities';
 import { conflict, forbidden, notFound } from '../../domain/errors';
 import { canSeeStation } from '../../domain/station-scope';
 import { raiseApprovalDecided } from '../alerts/work-alerts';
+import { flightMoved, recordEffect } from '../../events';
 import { audit } from '../audit/audit.service';
 import { assertNotDeparted } from '../flights/departure-guard';
 import { acceptApproved } from '../volunteers/accept.service';
@@ -66,6 +67,8 @@ export async function decideApproval(db: DataSource, user: SessionUser, approval
     Object.assign(approval, { status: approve ? 'approved' : 'rejected', decidedByUserId: user.id, decidedAt: new Date(), reason });
     await em.save(approval);
     await raiseApprovalDecided(em, approval, user);
+    // A decided amount may move the round's offer, accept a volunteer (the forecast loses a show) or clear a payment.
+    if (approval.flightId) recordEffect(em, ...flightMoved(approval.flightId, approval.stationId, ['rounds', 'approvals', 'compensations', 'forecast']));
     if (approve && round && (approval.kind === 'opening-offer' || approval.kind === 'raise')) await applyApprovedOffer(em, user, round, approval);
     if (approve && round && approval.kind === 'sealed-accept') await acceptApproved(em, user, round, approval);
     await audit(em, {

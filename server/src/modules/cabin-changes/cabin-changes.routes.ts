@@ -10,7 +10,7 @@ import { listCabinChanges, recordCabinChange } from './cabin-changes.service';
 
 const flightParams = z.object({ flightId: z.coerce.number({ error: 'flightId must be a number' }).int().positive('flightId must be positive') });
 
-export function cabinChangesRouter(deps: { db: DataSource; changed: (flightId: number, stationId: number, topics: string[]) => void }) {
+export function cabinChangesRouter(deps: { db: DataSource }) {
   const r = Router();
   const desk = requireRole('agent', 'supervisor');
 
@@ -22,7 +22,6 @@ export function cabinChangesRouter(deps: { db: DataSource; changed: (flightId: n
   r.post('/flights/:flightId/cabin-changes', desk, async (req, res) => {
     const flight = await flightForUser(deps.db, currentUser(req), parse(flightParams, req.params, 'params').flightId);
     const cabinChange = await recordCabinChange(deps.db, currentUser(req), flight, parse(recordCabinChangeBodySchema, req.body));
-    deps.changed(flight.id, flight.stationId, ['cabin-changes']);
     res.status(201).json({ cabinChange });
   });
 

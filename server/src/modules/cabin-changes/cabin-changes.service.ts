@@ -8,6 +8,7 @@ import { CabinChangeEntity, PassengerEntity, StationEntity, type FlightEntity } 
 import { badRequest, conflict, notFound } from '../../domain/errors';
 import { findAirport, routeDistanceKm } from '../../reference/airports';
 import { art10IntraCommunity } from './art10-scope';
+import { flightChanged, recordEffect } from '../../events';
 import { audit } from '../audit/audit.service';
 import { refundsAfterCabinChange } from '../refunds/refunds-due';
 import { cabinChangeOwed } from './downgrade-rules';
@@ -67,6 +68,7 @@ export async function recordCabinChange(db: DataSource, user: SessionUser, fligh
     }));
     await refundsAfterCabinChange(em, flight.id, passenger.id);
     await audit(em, { actor: user, action: 'cabin_change.recorded', entityType: 'cabin_change', entityId: saved.id, stationId: flight.stationId, after: { passengerId: passenger.id, bookedCabin: passenger.cabin, flownCabin: body.flownCabin, direction, fareDifferenceMinor: body.fareDifferenceMinor, owedMinor: owed.owedMinor, rule: owed.rule, reason: body.reason } });
+    recordEffect(em, flightChanged(flight.id, flight.stationId, ['cabin-changes']));
     return saved.id;
   });
   const [row]: Row[] = await db.query(`${SELECT} WHERE cc.id = ?`, [id]);

@@ -9,6 +9,7 @@ import { BookingEntity, CompensationEntity, DenialEntity, FlightEntity, Passenge
 import { badRequest, conflict, notFound } from '../../domain/errors';
 import { canSeeStation } from '../../domain/station-scope';
 import { careSummaryNotice } from '../../notices/care-summary';
+import { flightChanged, recordEffect } from '../../events';
 import { audit } from '../audit/audit.service';
 import { priorityRulesFor } from '../denials/priority-rules.service';
 import { statementFor, statementMail } from '../denials/statement';
@@ -66,6 +67,7 @@ export async function queueCareMail(db: DataSource, user: SessionUser, compensat
       dedupeKey: contentKey(compensationId, mail.text),
     });
     if (queued.created) {
+      recordEffect(em, flightChanged(comp.flightId, comp.stationId, ['care']));
       await audit(em, {
         actor: user, action: 'care.mail_queued', entityType: 'compensation', entityId: compensationId, stationId: comp.stationId,
         after: { kind, messageId: queued.id, to: booking.contactEmail, language, choice: choiceAndCare.choice?.kind ?? null, careItems: choiceAndCare.care.length },

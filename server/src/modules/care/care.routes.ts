@@ -16,7 +16,7 @@ import { flightCare, recordCare, recordChoice } from './care.service';
 const flightParams = z.object({ flightId: z.coerce.number({ error: 'flightId must be a number' }).int('flightId must be a whole number').positive('flightId must be positive') });
 const stationParams = z.object({ stationId: z.coerce.number({ error: 'stationId must be a number' }).int('stationId must be a whole number').positive('stationId must be positive') });
 
-export function careRouter(deps: { db: DataSource; changed: (flightId: number, stationId: number, topics: string[]) => void }) {
+export function careRouter(deps: { db: DataSource }) {
   const r = Router();
   const desk = requireRole('agent', 'supervisor');
 
@@ -29,7 +29,6 @@ export function careRouter(deps: { db: DataSource; changed: (flightId: number, s
     const { id } = parse(idParamSchema, req.params, 'params');
     const body = parse(recordChoiceBodySchema, req.body);
     const done = await recordChoice(deps.db, currentUser(req), id, body);
-    deps.changed(done.flightId, done.stationId, ['care', 'compensations']);
     res.status(201).json({ choice: { id: done.choice.id, kind: done.choice.kind } });
   });
 
@@ -37,7 +36,6 @@ export function careRouter(deps: { db: DataSource; changed: (flightId: number, s
     const { id } = parse(idParamSchema, req.params, 'params');
     const body = parse(recordCareBodySchema, req.body);
     const done = await recordCare(deps.db, currentUser(req), id, body);
-    deps.changed(done.flightId, done.stationId, ['care']);
     res.status(201).json({ given: done.given });
   });
 
@@ -45,7 +43,6 @@ export function careRouter(deps: { db: DataSource; changed: (flightId: number, s
   r.post('/compensations/:id/care-mail', desk, async (req, res) => {
     const { id } = parse(idParamSchema, req.params, 'params');
     const done = await queueCareMail(deps.db, currentUser(req), id);
-    if (done.created) deps.changed(done.flightId, done.stationId, ['care', 'notices']);
     // 200 either way: asking again for the same text finds the mail already queued and queues nothing.
     res.json({ messageId: done.messageId, created: done.created, kind: done.kind });
   });

@@ -7,6 +7,7 @@ import type { FlightCareResponse, PassengerCare, RecordCareBody, RecordChoiceBod
 import { CareGivenEntity, CompensationEntity, PassengerChoiceEntity, StationEntity, TicketRefundEntity, type FlightEntity } from '../../db/entities';
 import { badRequest, conflict, notFound } from '../../domain/errors';
 import { canSeeStation } from '../../domain/station-scope';
+import { flightChanged, recordEffect } from '../../events';
 import { audit } from '../audit/audit.service';
 import { passengerCompensation } from '../denials/compensation';
 import { careSetupOf } from './care-setup.service';
@@ -71,6 +72,8 @@ export async function recordChoice(db: DataSource, user: SessionUser, compensati
       }));
       await audit(em, { actor: user, action: 'ticket_refund.owed', entityType: 'ticket_refund', entityId: refund.id, stationId: refund.stationId, after: { compensationId, amountMinor: refund.amountMinor, currency: refund.currency, returnFlightOwed: refund.returnFlightOwed, ruleRef: refund.ruleRef } });
     }
+    // A choice may withdraw a reduction or owe a refund: the compensations move with the care.
+    recordEffect(em, flightChanged(c.compensation.flightId, c.compensation.stationId, ['care', 'compensations']));
     return { choice, flightId: c.compensation.flightId, stationId: c.compensation.stationId };
   });
 }
@@ -91,6 +94,7 @@ export async function recordCare(db: DataSource, user: SessionUser, compensation
       providedBy: body.providedBy, recordedByUserId: user.id, recordedByLabel: user.email,
     }));
     await audit(em, { actor: user, action: 'care.given', entityType: 'care_given', entityId: given.id, stationId: given.stationId, after: { compensationId, kind: given.kind, description: given.description, amountMinor: given.amountMinor, currency: given.currency, hotelName, providedBy: given.providedBy } });
+    recordEffect(em, flightChanged(c.compensation.flightId, c.compensation.stationId, ['care']));
     return { given: presentGiven(given), flightId: c.compensation.flightId, stationId: c.compensation.stationId };
   });
 }

@@ -3,6 +3,7 @@
 import type { EntityManager } from 'typeorm';
 import { CompensationEntity } from '../../db/entities';
 import { conflict } from '../../domain/errors';
+import { flightChanged, recordEffect } from '../../events';
 import { recordRefundsDue } from '../refunds/refunds-due';
 import { insertDue, type CompensationFact } from './insert-due';
 
@@ -19,6 +20,7 @@ export async function recordCompensationDue(em: EntityManager, fact: Compensatio
   const existing = await em.findOneBy(CompensationEntity, { sourceKind: fact.sourceKind, sourceId: fact.sourceId, passengerId: fact.passengerId });
   if (existing) return existing;
   const saved = await insertDue(em, fact);
+  recordEffect(em, flightChanged(fact.flightId, fact.stationId, ['compensations']));
   // The refunds the rule adds (fees not received, a recorded downgrade) become due in the same transaction.
   if (fact.sourceKind === 'denial' || fact.sourceKind === 'volunteer') await recordRefundsDue(em, saved);
   return saved;
@@ -36,4 +38,5 @@ export async function repriceVolunteerCompensation(em: EntityManager, volunteerI
     throw conflict('price_locked', `An earlier volunteer of this common-price round is already being paid ${settled[0].amountMinor} ${settled[0].currency}; accepting a higher ask would change what they are owed.`);
   }
   await em.update(CompensationEntity, { sourceKind: 'volunteer', sourceId: volunteerId, state: 'due' }, { amountMinor });
+  if (rows.length) recordEffect(em, flightChanged(rows[0].flightId, rows[0].stationId, ['compensations']));
 }

@@ -3,6 +3,8 @@
 // and finance already watch. Paying the passenger resolves them. The clock is injected, so tests move time by hand.
 import type { DataSource } from 'typeorm';
 import { DUE_SOON_MINUTES, formatMoney } from '@shared/compensation';
+import { ALERT_TOPIC } from '@shared/events';
+import { announceCommitted, stationChanged } from '../../events';
 
 /** States in which the passenger still waits for the money. */
 export const OWED_STATES = ['due', 'issuing', 'failed', 'voided', 'canceled'] as const;
@@ -30,10 +32,10 @@ function message(row: Owed, overdue: boolean): string {
 }
 
 /**
- * One pass at `now`: raises what is due soon or overdue; returns how many alerts were new. `onRaised` hears the
- * stations with a new alert, once each, after the rows are written (each insert commits on its own).
+ * One pass at `now`: raises what is due soon or overdue; returns how many alerts were new. The stations with a new
+ * alert are told once each, after the rows are written (each insert commits on its own).
  */
-export async function sweepPaymentDeadlines(db: DataSource, now: Date, onRaised?: (stationId: number) => void): Promise<number> {
+export async function sweepPaymentDeadlines(db: DataSource, now: Date): Promise<number> {
   const stations = new Set<number>();
   const horizon = new Date(now.getTime() + DUE_SOON_MINUTES * 60_000);
   const rows: Owed[] = await db.query(
@@ -55,13 +57,13 @@ export async function sweepPaymentDeadlines(db: DataSource, now: Date, onRaised?
     if (added) stations.add(row.station_id);
     raised += added;
   }
-  stations.forEach((id) => onRaised?.(id));
+  announceCommitted(db, ...[...stations].map((id) => stationChanged(id, [ALERT_TOPIC])));
   return raised;
 }
 
 /** Sweeps every minute; returns the stop function. */
-export function watchPaymentDeadlines(db: DataSource, onRaised?: (stationId: number) => void, now: () => Date = () => new Date(), intervalMs = 60_000): () => void {
-  const timer = setInterval(() => void sweepPaymentDeadlines(db, now(), onRaised).catch(() => undefined), intervalMs);
+export function watchPaymentDeadlines(db: DataSource, now: () => Date = () => new Date(), intervalMs = 60_000): () => void {
+  const timer = setInterval(() => void sweepPaymentDeadlines(db, now()).catch(() => undefined), intervalMs);
   timer.unref();
   return () => clearInterval(timer);
 }

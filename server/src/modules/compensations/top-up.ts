@@ -6,6 +6,7 @@ import { apprTopUp, CA_PAYMENT_HOURS, type ApprBand } from '@shared/compensation
 import type { SessionUser } from '@shared/schemas/auth';
 import { CompensationEntity } from '../../db/entities';
 import { badRequest, conflict } from '../../domain/errors';
+import { flightChanged, recordEffect } from '../../events';
 import { audit } from '../audit/audit.service';
 import { lockCompensation } from '../agreements/payment-facts';
 
@@ -33,6 +34,7 @@ export async function recordActualArrival(db: DataSource, user: SessionUser, id:
       if (existing.state !== 'due') throw conflict('top_up_paid', 'A top-up was already paid or is being paid; record the rest with finance.');
       await em.update(CompensationEntity, { id: existing.id }, { amountMinor: top.topUpMinor, band: top.actualBand, explanation: top.explanation, dueBy });
       await audit(em, { actor: user, action: 'compensation.top_up_changed', entityType: 'compensation', entityId: existing.id, stationId: base.stationId, before: { amountMinor: existing.amountMinor }, after: { amountMinor: top.topUpMinor, band: top.actualBand } });
+      recordEffect(em, flightChanged(base.flightId, base.stationId, ['compensations']));
       return em.findOneByOrFail(CompensationEntity, { id: existing.id });
     }
     const row = await em.save(em.create(CompensationEntity, {
@@ -41,6 +43,7 @@ export async function recordActualArrival(db: DataSource, user: SessionUser, id:
       explanation: top.explanation, amountClearedBy: 'rule', form: 'prepaid-card', medium: 'cash', dueBy, dueRuleRef: 'SOR/2019-150 s. 20 (top-up)', voucherAgreedAt: null,
       state: 'due', idempotencyKey: null, providerCardholderId: null, providerCardId: null, lastError: null, voidReason: null,
     }));
+    recordEffect(em, flightChanged(base.flightId, base.stationId, ['compensations']));
     await audit(em, { actor: user, action: 'compensation.top_up_created', entityType: 'compensation', entityId: row.id, stationId: base.stationId, after: { topUpOf: base.id, amountMinor: row.amountMinor, currency: row.currency, band: top.actualBand, dueBy: dueBy.toISOString() } });
     return row;
   });

@@ -9,6 +9,7 @@ import { refundKindLabel } from '@shared/schemas/refunds';
 import { CompensationEntity, CounterPaymentEntity, PaymentAgreementEntity } from '../../db/entities';
 import { badRequest, conflict, notFound } from '../../domain/errors';
 import { canSeeStation } from '../../domain/station-scope';
+import { flightChanged, recordEffect } from '../../events';
 import { audit } from '../audit/audit.service';
 import { resolvePaymentAlerts } from '../alerts/alerts.service';
 import { gateIssue } from '../approvals/approval-gate';
@@ -68,6 +69,7 @@ export async function payAtCounter(db: DataSource, user: SessionUser, id: number
         before: { state: row.state, medium: row.medium },
         after: { state: 'settled', medium: body.medium, drawerId: paid.drawerId, chequeNumber: paid.chequeNumber, amountMinor: row.amountMinor, currency: row.currency, paidAt: paidAt.toISOString() },
       });
+      recordEffect(em, flightChanged(row.flightId, row.stationId, ['compensations']));
       return { replay: false, row: await em.findOneByOrFail(CompensationEntity, { id }) };
     });
   } catch (error) {

@@ -14,7 +14,6 @@ import { notFound } from '../../http/errors';
 import { canSeeStation, currentUser, requireRole } from '../../http/require-role';
 import { parse } from '../../http/validate';
 import { flightForUser } from '../flights/flight-desk.service';
-import { notifyOutbox } from '../outbox/outbox-signal';
 import { heldRankingsOf } from './candidates-held';
 import { priorityRulesFor, presentPriorityRules, savePriorityRules } from './priority-rules.service';
 import { presentProposals, waitingProposals } from './proposals.presenter';
@@ -26,8 +25,6 @@ import { statementPageFor } from './statement-page.service';
 
 export interface DenialDeps {
   db: DataSource;
-  /** After a commit: tell the flight's and the station's consoles what moved. */
-  changed: (flightId: number, stationId: number, topics: string[]) => void;
 }
 
 const flightParams = z.object({ flightId: z.coerce.number().int('flightId must be a whole number').positive('flightId must be positive') });
@@ -59,7 +56,6 @@ export function denialsRouter(deps: DenialDeps) {
     const stationId = stationOf(req);
     const body = parse(priorityRulesBodySchema, req.body);
     const saved = await savePriorityRules(deps.db, currentUser(req), stationId, body);
-    heldRankingsOf(deps.db).stationMoved(stationId);
     res.json(presentPriorityRules(stationId, saved, await regimeOf(stationId)));
   });
 
@@ -94,7 +90,6 @@ export function denialsRouter(deps: DenialDeps) {
     const flight = await flightOf(req);
     const body = parse(proposeDenialsBodySchema, req.body);
     const { proposal } = await proposeDenials(deps.db, currentUser(req), flight.id, body);
-    deps.changed(flight.id, flight.stationId, ['denials']);
     res.status(201).json(await proposalOf(flight.id, proposal.id));
   });
 
@@ -102,9 +97,7 @@ export function denialsRouter(deps: DenialDeps) {
   r.post('/denial-proposals/:id/authorize', requireRole('supervisor'), async (req, res) => {
     const { id } = parse(idParamSchema, req.params, 'params');
     const body = parse(authorizeDenialsBodySchema, req.body);
-    const { proposal, authorized } = await authorizeDenials(deps.db, currentUser(req), id, body.denialIds);
-    // Authorized passengers are offloaded: the counts and the forecast move with them.
-    if (authorized.length > 0) deps.changed(proposal.flightId, proposal.stationId, ['denials', 'counts', 'forecast']);
+    const { proposal } = await authorizeDenials(deps.db, currentUser(req), id, body.denialIds);
     res.json(await proposalOf(proposal.flightId, proposal.id));
   });
 
@@ -112,15 +105,13 @@ export function denialsRouter(deps: DenialDeps) {
     const { id } = parse(idParamSchema, req.params, 'params');
     const body = parse(changeDenialsBodySchema, req.body);
     const { proposal } = await changeDenials(deps.db, currentUser(req), id, body);
-    deps.changed(proposal.flightId, proposal.stationId, ['denials']);
     res.json(await proposalOf(proposal.flightId, proposal.id));
   });
 
   r.post('/denial-proposals/:id/withdraw', desk, async (req, res) => {
     const { id } = parse(idParamSchema, req.params, 'params');
     const { reason } = parse(withdrawDenialsBodySchema, req.body);
-    const { proposal, changed } = await withdrawProposal(deps.db, currentUser(req), id, reason);
-    if (changed) deps.changed(proposal.flightId, proposal.stationId, ['denials']);
+    const { proposal } = await withdrawProposal(deps.db, currentUser(req), id, reason);
     res.json(await proposalOf(proposal.flightId, proposal.id));
   });
 
@@ -129,7 +120,6 @@ export function denialsRouter(deps: DenialDeps) {
     const flight = await flightOf(req);
     const body = parse(recordDenialAfterBodySchema, req.body);
     const { proposal } = await recordDenialAfter(deps.db, currentUser(req), flight.id, body);
-    deps.changed(flight.id, flight.stationId, ['denials', 'counts', 'forecast']);
     res.status(201).json(await proposalOf(flight.id, proposal.id));
   });
 
@@ -142,17 +132,13 @@ export function denialsRouter(deps: DenialDeps) {
     const flight = await flightOf(req);
     const body = parse(recordRefusalBodySchema, req.body);
     const { refusal } = await recordRefusal(deps.db, currentUser(req), flight.id, body);
-    deps.changed(flight.id, flight.stationId, ['denials', 'counts', 'forecast']);
     res.status(201).json((await refusalsOf(deps.db, flight)).find((r) => r.id === refusal.id)!);
   });
 
   r.post('/denials/:id/rebook', desk, async (req, res) => {
     const { id } = parse(idParamSchema, req.params, 'params');
     const body = parse(rebookDenialBodySchema, req.body);
-    const { denial, flight, rebooking } = await rebookDenial(deps.db, currentUser(req), id, body);
-    notifyOutbox();
-    deps.changed(flight.id, flight.stationId, ['denials', 'compensations', 'notices']);
-    if (rebooking?.alternateFlightId) deps.changed(rebooking.alternateFlightId, flight.stationId, ['counts']);
+    const { denial, flight } = await rebookDenial(deps.db, currentUser(req), id, body);
     const proposal = await proposalOf(flight.id, denial.proposalId);
     res.json({ denial: proposal.denials.find((d) => d.id === denial.id)! });
   });

@@ -5,6 +5,7 @@ import type { SessionUser } from '@shared/schemas/auth';
 import { describeRules, parsePriorityRules, type PriorityRule } from '@shared/denial';
 import type { StationPriorityRules } from '@shared/schemas/denials';
 import { StationPriorityRulesEntity } from '../../db/entities';
+import { recordEffect } from '../../events';
 import { audit } from '../audit/audit.service';
 
 /**
@@ -53,6 +54,7 @@ export async function savePriorityRules(db: DataSource, user: SessionUser, stati
       actor: user, action: 'priority_rules.updated', entityType: 'station', entityId: stationId, stationId,
       before: { rules: before.rules, tierOrder: before.tierOrder, isDefault: before.isDefault }, after: body,
     });
+    recordEffect(em, { type: 'priority-rules-changed', stationId });
     return priorityRulesFor(em, stationId);
   });
 }

@@ -7,6 +7,7 @@ import { DenialEntity, DenialProposalEntity, FlightEntity, PassengerEntity } fro
 import { badRequest, conflict, forbidden, notFound } from '../../domain/errors';
 import { canSeeStation } from '../../domain/station-scope';
 import { raiseDenialProposed } from '../alerts/work-alerts';
+import { flightChanged, flightMoved, recordEffect } from '../../events';
 import { audit } from '../audit/audit.service';
 import { rankFlight } from './candidates.service';
 import { assertNotDeparted } from '../flights/departure-guard';
@@ -58,6 +59,7 @@ export async function proposeDenials(db: DataSource, user: SessionUser, flightId
       after: { flightId, cabin: cabin.cabin, shortfall: cabin, seatsNeeded: body.seatsNeeded, seatsSelected: covered, reason: body.reason, denials: denials.map(unitSummary) },
     });
     await raiseDenialProposed(em, proposal, covered);
+    recordEffect(em, flightChanged(flight.id, flight.stationId, ['denials']));
     return { proposal, flight };
   });
 }
@@ -109,6 +111,7 @@ export async function changeDenials(db: DataSource, user: SessionUser, proposalI
       actor: user, action: 'denial_proposal.changed', entityType: 'denial_proposal', entityId: proposal.id, stationId: proposal.stationId,
       before, after: { status: 'changed', reason: body.reason, removed: removed.map(unitSummary), added: created.map(unitSummary) },
     });
+    recordEffect(em, flightChanged(proposal.flightId, proposal.stationId, ['denials']));
     return { proposal, flight };
   });
 }
@@ -137,6 +140,7 @@ export async function withdrawProposal(db: DataSource, user: SessionUser, propos
       actor: user, action: 'denial_proposal.withdrawn', entityType: 'denial_proposal', entityId: proposal.id, stationId: proposal.stationId,
       before, after: { status: proposal.status, reason, removed: waiting.map(unitSummary) },
     });
+    recordEffect(em, flightChanged(proposal.flightId, proposal.stationId, ['denials']));
     return { proposal, changed: true };
   });
 }
@@ -186,6 +190,8 @@ export async function authorizeDenials(db: DataSource, user: SessionUser, propos
       await em.save(proposal);
       await audit(em, { actor: user, action: 'denial_proposal.authorized', entityType: 'denial_proposal', entityId: proposal.id, stationId: proposal.stationId, before, after: { status: 'authorized' } });
     }
+    // Authorized passengers are offloaded: the counts and the forecast move with them.
+    if (toAuthorize.length > 0) recordEffect(em, ...flightMoved(proposal.flightId, proposal.stationId, ['denials', 'counts', 'forecast']));
     return { proposal, authorized: toAuthorize.map((d) => d.id) };
   });
 }

@@ -3,8 +3,9 @@
 // here and sent, as a patch from the one the previous notice brought, to the consoles that show it.
 import type { DataSource } from 'typeorm';
 import type { CandidatesAnswer } from '@shared/schemas/denial-candidates-patch';
-import type { Publisher } from '../../realtime/publisher';
+import { announceCommitted } from '../../events';
 import type { RecomputeOutcome } from '../forecast/forecast.service';
+import { forecastNotice } from '../forecast/forecast-notice';
 import { liveStoreOf } from '../forecast/live-store';
 import { heldRankingsOf } from './candidates-held';
 
@@ -46,16 +47,13 @@ export function rankingNotices(db: DataSource, log: (line: string) => void = (li
   };
 }
 
-/** The topics of a forecast's own notice. */
-export const FORECAST_TOPICS = ['forecast', 'counts', 'events'];
-
 /**
- * What the scheduler calls with each forecast written: the notice goes out with the ranking for the consoles that
- * show it, in the order the versions were written.
+ * What the scheduler calls with each forecast written (and committed): the notice goes out with the ranking for the
+ * consoles that show it, in the order the versions were written.
  */
-export function forecastAnnouncer(db: DataSource, publisher: Publisher): (o: RecomputeOutcome) => void {
+export function forecastAnnouncer(db: DataSource): (o: RecomputeOutcome) => void {
   const rankings = rankingNotices(db);
   return (o) => {
-    void rankings.next(o.flightId).then((ranking) => publisher.flightChanged(o.flightId, o.stationId, FORECAST_TOPICS, o.notice, ranking && { ranking }));
+    void rankings.next(o.flightId).then((ranking) => announceCommitted(db, ranking ? { ...forecastNotice(o), desk: { ranking } } : forecastNotice(o)));
   };
 }

@@ -9,6 +9,7 @@ import { badRequest, conflict, notFound } from '../../domain/errors';
 import { canSeeStation } from '../../domain/station-scope';
 import { rebookingNotice } from '../../notices';
 import { formatDuration } from '../../notices/format';
+import { flightChanged, recordEffect } from '../../events';
 import { audit } from '../audit/audit.service';
 import { recordCompensationDue } from '../compensations/compensation-due';
 import { enqueueMessage } from '../outbox/outbox.service';
@@ -120,6 +121,8 @@ export async function rebookDenial(db: DataSource, user: SessionUser, denialId: 
       actor: user, action: 'denial.statements_queued', entityType: 'denial', entityId: denial.id, stationId,
       after: { to: booking.contactEmail, messageIds, passengersWithoutAddress: booking.contactEmail ? [] : denial.passengerIds },
     });
+    // The alternate's consoles see its seats taken.
+    recordEffect(em, flightChanged(original.id, original.stationId, ['denials', 'compensations']), ...(rebooking?.alternateFlightId ? [flightChanged(rebooking.alternateFlightId, original.stationId, ['counts'])] : []));
     return { denial, flight: original, rebooking };
   });
 }

@@ -6,6 +6,7 @@ import type { SessionUser } from '@shared/schemas/auth';
 import type { RecordDenialAfterBody } from '@shared/schemas/denials';
 import { DenialEntity, DenialProposalEntity, FlightEntity, PassengerEntity, StationEntity, VolunteerEntity } from '../../db/entities';
 import { badRequest, forbidden } from '../../domain/errors';
+import { flightMoved, recordEffect } from '../../events';
 import { audit } from '../audit/audit.service';
 import { In } from 'typeorm';
 import { passengersOfOneBooking } from './refusals.service';
@@ -68,6 +69,7 @@ export async function recordDenialAfter(db: DataSource, user: SessionUser, fligh
       before: { statuses: passengers.map((p) => ({ passengerId: p.id, status: p.status })) },
       after: { proposalId: proposal.id, flightId, passengerIds: denial.passengerIds, occurredAt: occurredAt.toISOString(), deniedOn: stationDate(occurredAt, station.timeZone), reason: body.reason },
     });
+    recordEffect(em, ...flightMoved(flight.id, flight.stationId, ['denials', 'counts', 'forecast']));
     return { denial, proposal, flight };
   });
 }

@@ -6,6 +6,7 @@ import type { SessionUser } from '@shared/schemas/auth';
 import type { BoardingRefusal, RecordRefusalBody } from '@shared/schemas/denials';
 import { BoardingRefusalEntity, BookingEntity, FlightEntity, PassengerEntity } from '../../db/entities';
 import { badRequest, conflict } from '../../domain/errors';
+import { flightMoved, recordEffect } from '../../events';
 import { audit } from '../audit/audit.service';
 import { activeDenials } from './candidates.service';
 
@@ -48,6 +49,7 @@ export async function recordRefusal(db: DataSource, user: SessionUser, flightId:
       before: { statuses: passengers.map((p) => ({ passengerId: p.id, status: p.status })) },
       after: { flightId, ground: body.ground, reason: body.reason, passengerIds: refusal.passengerIds, compensation: 'none: not a denial of boarding' },
     });
+    recordEffect(em, ...flightMoved(flight.id, flight.stationId, ['denials', 'counts', 'forecast']));
     return { refusal, flight };
   });
 }

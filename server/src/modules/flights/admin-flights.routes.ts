@@ -10,7 +10,7 @@ import { cancelFlight, createFlight, listAdminFlights, stationForUser, updateFli
 const stationParams = z.object({ stationId: z.coerce.number({ error: 'stationId must be a number' }).int('stationId must be a whole number').positive('stationId must be positive') });
 const flightParams = z.object({ flightId: z.coerce.number({ error: 'flightId must be a number' }).int('flightId must be a whole number').positive('flightId must be positive') });
 
-export function adminFlightsRouter(deps: { db: DataSource; onFlightChanged?: (flightId: number, stationId: number) => void }) {
+export function adminFlightsRouter(deps: { db: DataSource }) {
   const r = Router();
   r.get('/stations/:stationId/flights', requireRole('admin'), async (req, res) => {
     const station = await stationForUser(deps.db, currentUser(req), parse(stationParams, req.params, 'params').stationId);
@@ -25,21 +25,12 @@ export function adminFlightsRouter(deps: { db: DataSource; onFlightChanged?: (fl
   r.patch('/flights/:flightId', requireRole('admin'), async (req, res) => {
     const { flightId } = parse(flightParams, req.params, 'params');
     const body = parse(flightUpdateBodySchema, req.body);
-    const flight = await updateFlight(deps.db, currentUser(req), flightId, body);
-    deps.onFlightChanged?.(flight.id, (await stationIdOf(deps.db, flight.id)));
-    res.json(flight);
+    res.json(await updateFlight(deps.db, currentUser(req), flightId, body));
   });
   r.post('/flights/:flightId/cancel', requireRole('admin'), async (req, res) => {
     const { flightId } = parse(flightParams, req.params, 'params');
     const { reason } = parse(flightCancelBodySchema, req.body);
-    const flight = await cancelFlight(deps.db, currentUser(req), flightId, reason);
-    deps.onFlightChanged?.(flight.id, await stationIdOf(deps.db, flight.id));
-    res.json(flight);
+    res.json(await cancelFlight(deps.db, currentUser(req), flightId, reason));
   });
   return r;
-}
-
-async function stationIdOf(db: DataSource, flightId: number): Promise<number> {
-  const [row]: { station_id: number }[] = await db.query('SELECT station_id FROM flights WHERE id = ?', [flightId]);
-  return Number(row.station_id);
 }

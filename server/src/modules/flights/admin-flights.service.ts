@@ -6,6 +6,7 @@ import type { AdminFlight, FlightCreateBody, FlightUpdateBody } from '@shared/sc
 import { FlightEntity, StationEntity } from '../../db/entities';
 import { canSeeStation } from '../../domain/station-scope';
 import { conflict, notFound } from '../../domain/errors';
+import { flightMoved, recordEffect } from '../../events';
 import { audit } from '../audit/audit.service';
 import { assertKnownAirport, flightTimes, localClock } from './flight-times';
 
@@ -79,6 +80,8 @@ export async function updateFlight(db: DataSource, user: SessionUser, flightId: 
     if (body.gate !== undefined) flight.gate = body.gate || null;
     await em.save(flight);
     const after = presentAdminFlight(flight, station.timeZone, before.bookings);
+    // Capacity and times feed the forecast; the consoles' counts move with the seats.
+    recordEffect(em, ...flightMoved(flight.id, flight.stationId, ['forecast', 'counts']));
     await audit(em, { actor: user, action: 'flight.updated', entityType: 'flight', entityId: flight.id, stationId: flight.stationId, before: { ...before, flightId: flight.id }, after: { ...after, flightId: flight.id } });
     return after;
   });
@@ -92,6 +95,7 @@ export async function cancelFlight(db: DataSource, user: SessionUser, flightId: 
     flight.state = 'cancelled';
     await em.save(flight);
     const out = presentAdminFlight(flight, station.timeZone, counts.get(flight.id) ?? 0);
+    recordEffect(em, ...flightMoved(flight.id, flight.stationId, ['forecast', 'counts']));
     await audit(em, { actor: user, action: 'flight.cancelled', entityType: 'flight', entityId: flight.id, stationId: flight.stationId, before: { state: before, flightId: flight.id }, after: { state: 'cancelled', reason, bookings: out.bookings, flightId: flight.id } });
     return out;
   });

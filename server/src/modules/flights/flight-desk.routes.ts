@@ -4,11 +4,10 @@ import { idParamSchema } from '@shared/schemas/common';
 import { setShockBodySchema } from '@shared/schemas/flight-desk';
 import { currentUser, requireRole } from '../../http/require-role';
 import { parse } from '../../http/validate';
-import type { NoticeData } from '../../realtime/publisher';
 import type { PayloadKind } from '../forecast/live-store';
 import { deskPayload, etagOf, flightForUser, liveFlightForUser, setShock } from './flight-desk.service';
 
-export function flightDeskRouter(deps: { db: DataSource; onFlightChanged: (flightId: number, stationId: number, data?: NoticeData) => void }) {
+export function flightDeskRouter(deps: { db: DataSource }) {
   const r = Router();
   const desk = requireRole('agent', 'supervisor', 'admin');
 
@@ -35,8 +34,7 @@ export function flightDeskRouter(deps: { db: DataSource; onFlightChanged: (fligh
   r.put('/:id/shock', requireRole('supervisor', 'admin'), async (req, res) => {
     const flight = await flightForUser(deps.db, currentUser(req), parse(idParamSchema, req.params, 'params').id);
     const body = parse(setShockBodySchema, req.body);
-    const { desk: figures, outcome } = await setShock(deps.db, currentUser(req), flight, body.shock, body.reason);
-    deps.onFlightChanged(flight.id, flight.stationId, outcome?.notice);
+    const { desk: figures } = await setShock(deps.db, currentUser(req), flight, body.shock, body.reason);
     res.json(figures);
   });
   return r;

@@ -5,6 +5,7 @@ import type { CommonShock } from '@shared/forecast';
 import { FlightEntity } from '../../db/entities';
 import { notFound } from '../../domain/errors';
 import { canSeeStation } from '../../domain/station-scope';
+import { announceCommitted, flightChanged } from '../../events';
 import { audit } from '../audit/audit.service';
 import { recomputeFlightDetailed, type RecomputeOutcome } from '../forecast/forecast.service';
 import { liveStoreOf, type LiveEntry, type PayloadKind } from '../forecast/live-store';
@@ -38,6 +39,8 @@ export async function setShock(db: DataSource, user: SessionUser, flight: Flight
     await audit(em, { actor: user, action: 'flight.shock_set', entityType: 'flight', entityId: flight.id, stationId: flight.stationId, before, after: { shock, reason } });
   });
   const r = await recomputeFlightDetailed(db, flight.id);
+  // Recomputed at once, so the supervisor sees the new figures in the answer; the consoles get them in the notice.
+  announceCommitted(db, flightChanged(flight.id, flight.stationId, ['forecast', 'shock'], r.status === 'written' ? r.outcome.notice : undefined));
   const entry = await liveStoreOf(db).current(flight.id);
   if (!entry) throw notFound('Flight');
   return { desk: entry.desk, outcome: r.status === 'written' ? r.outcome : null };

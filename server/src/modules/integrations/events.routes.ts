@@ -9,15 +9,14 @@ import { requireStationForKey } from './integration-keys.service';
  * The departure-control feed: authenticated by a per-station API key (Bearer), not by a session, so it sits outside
  * the session and CSRF middleware. Answers 200 with one result per event.
  */
-export function integrationEventsRouter(deps: { db: DataSource; onFlightsChanged: (flightIds: Set<number>) => void }) {
+export function integrationEventsRouter(deps: { db: DataSource }) {
   const r = Router();
   r.use(express.json({ limit: '2mb' }));
   r.post('/events', async (req, res) => {
     const presented = /^Bearer (.+)$/.exec(req.get('authorization') ?? '')?.[1];
     const key = await requireStationForKey(deps.db, presented);
     const { events } = parse(eventBatchSchema, req.body);
-    const { results, touchedFlights } = await applyFeedEvents(deps.db, key.stationId, events);
-    if (touchedFlights.size) deps.onFlightsChanged(touchedFlights);
+    const { results } = await applyFeedEvents(deps.db, key.stationId, events);
     res.json({ results, applied: results.filter((x) => x.status === 'applied').length, rejected: results.filter((x) => x.status === 'rejected').length });
   });
   return r;

@@ -1,6 +1,7 @@
 import type { DataSource, EntityManager } from 'typeorm';
 import { integrationEventSchema, type EventResult, type IntegrationEvent } from '@shared/schemas/integration-events';
 import { DomainError } from '../../domain/errors';
+import { forecastStale, recordEffect } from '../../events';
 import { applyEvent, BatchFlights, type Applied } from './apply-event';
 
 const codeOf = (err: unknown) => (err as { driverError?: { code?: string } })?.driverError?.code ?? (err as { code?: string })?.code ?? '';
@@ -70,6 +71,8 @@ export async function applyEventBatch(db: DataSource, stationId: number, raw: un
               rows.push({ event: p.event, a });
               outcome.set(p.index, { status: a.status, message: a.summary });
               touchedFlights.add(a.flightId);
+              // Once the batch commits, the flight is recomputed (its notice follows the new version).
+              recordEffect(em, forecastStale(a.flightId));
             } catch (err) {
               if (!(err instanceof DomainError)) throw err;
               // Rejected: its id stays free, so the feed may send the event again once fixed.

@@ -3,6 +3,7 @@ import type { SessionUser } from '@shared/schemas/auth';
 import type { ManifestFlightPreview, ManifestImportResult, ManifestPreview, ManifestProblem } from '@shared/schemas/manifest';
 import { FlightEntity, StationEntity } from '../../db/entities';
 import { badRequest, DomainError } from '../../domain/errors';
+import { forecastStale, recordEffect } from '../../events';
 import { audit } from '../audit/audit.service';
 import { applyFlightManifest, emptyCounts } from './manifest-apply';
 import { bookingLimit, capacityOf, flightProblems, passengersIn } from './manifest-checks';
@@ -101,6 +102,7 @@ export async function importManifest(db: DataSource, stationId: number, text: st
       const counts = await applyFlightManifest(em, flight, group, now);
       for (const k of Object.keys(totals) as (keyof typeof totals)[]) totals[k] += counts[k];
       flights.push({ flightId: flight.id, carrier: group.carrier, number: group.number, date: group.date, counts });
+      recordEffect(em, forecastStale(flight.id));
       await audit(em, {
         actor,
         action: 'manifest.imported',

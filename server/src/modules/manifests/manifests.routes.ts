@@ -4,7 +4,6 @@ import type { DataSource } from 'typeorm';
 import { canSeeStation, currentUser, requireRole } from '../../http/require-role';
 import { notFound } from '../../http/errors';
 import { parse } from '../../http/validate';
-import { recomputeInBackground, type FlightsChanged } from '../show-up-profiles/recompute-flights';
 import { manifestTemplateCsv } from './manifest-csv';
 import { MANIFEST_CONFIRM_FIELD } from '@shared/schemas/manifest';
 import { importManifest, ManifestRejectedError, previewManifest, templateFlight } from './manifest.service';
@@ -20,8 +19,7 @@ const stationParams = z.object({ stationId: z.coerce.number().int().positive('st
  * Mounted at /api/stations/:stationId/manifests, admins of the station only. The station check runs before the
  * upload is read, so nobody else's file is ever parsed.
  */
-export function manifestsRouter(deps: { db: DataSource; onFlightsChanged?: FlightsChanged }) {
-  const flightsChanged = deps.onFlightsChanged ?? recomputeInBackground(deps.db);
+export function manifestsRouter(deps: { db: DataSource }) {
   const r = Router({ mergeParams: true });
   r.use(requireRole('admin'));
   r.use((req, res, next) => {
@@ -47,7 +45,6 @@ export function manifestsRouter(deps: { db: DataSource; onFlightsChanged?: Fligh
     try {
       const result = await importManifest(deps.db, res.locals.stationId as number, text, currentUser(req), fileName, confirm === 'true');
       res.json(result);
-      flightsChanged(result.flights.map((f) => f.flightId));
     } catch (err) {
       if (!(err instanceof ManifestRejectedError)) throw err;
       res.status(400).json({ error: err.code, message: err.message, details: err.details, errors: err.problems });

@@ -4,7 +4,7 @@ import type { MailTransport } from '../../integrations/mail/mail-transport';
 import { classifySmtpFailure } from '../../integrations/mail/smtp-failure';
 import { DEFAULT_BACKOFF, DEFAULT_MAX_ATTEMPTS, retryDelayMs, type BackoffPolicy } from './outbox-backoff';
 import { claimDueMessages, markFailed, markRetry, markSent, releaseClaim, type ClaimedMessage } from './outbox-claims';
-import { onOutboxWork } from './outbox-signal';
+import { domainEventsOf } from '../../events';
 
 export const MESSAGE_ID_HEADER = 'X-Bumpboard-Message-Id';
 const MESSAGE_ID_DOMAIN = 'bumpboard';
@@ -145,7 +145,7 @@ export function createOutboxWorker(db: DataSource, transport: MailTransport, opt
       if (!stopped) return;
       stopped = false;
       stopRequested = false;
-      unsubscribe = onOutboxWork(kick);
+      unsubscribe = domainEventsOf(db).subscribe('mail-queued', kick);
       schedule(0);
     },
     kick,

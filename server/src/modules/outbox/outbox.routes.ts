@@ -7,7 +7,6 @@ import { currentUser, requireRole } from '../../http/require-role';
 import { parse } from '../../http/validate';
 import { flightForUser } from '../flights/flight-desk.service';
 import { listFlightNotices, requeueFailedNotice } from './outbox.service';
-import { notifyOutbox } from './outbox-signal';
 import { noticesQuerySchema } from '@shared/schemas/admin-notices';
 import { canSeeStation } from '../../http/require-role';
 import { notFound } from '../../http/errors';
@@ -31,7 +30,6 @@ export function noticesRouter(deps: { db: DataSource }) {
   r.post('/:id/retry', requireRole('supervisor', 'admin'), async (req, res) => {
     const { id } = parse(noticeParamSchema, req.params, 'params');
     const message = await requeueFailedNotice(deps.db, currentUser(req), await load(req), id);
-    notifyOutbox();
     res.json(message);
   });
 
@@ -66,13 +64,11 @@ export function stationNoticesRouter(deps: { db: DataSource }) {
   r.post('/stations/:stationId/notices/:id/retry', roles, async (req, res) => {
     const { stationId, id } = notice(req);
     const out = await retryStationNotice(deps.db, currentUser(req), stationId, id);
-    notifyOutbox();
     res.json(out);
   });
   r.post('/stations/:stationId/notices/:id/resend', roles, async (req, res) => {
     const { stationId, id } = notice(req);
     const out = await resendStationNotice(deps.db, currentUser(req), stationId, id);
-    notifyOutbox();
     res.status(201).json(out);
   });
   return r;

@@ -6,6 +6,7 @@ import type { outboxMessageSchema } from '@shared/schemas/volunteers';
 import type { z } from 'zod';
 import { OutboxMessageEntity } from '../../db/entities';
 import { conflict, notFound } from '../../domain/errors';
+import { flightChanged, mailQueued, recordEffect, type DomainEvent } from '../../events';
 import { audit } from '../audit/audit.service';
 import { checkOutboxInput, type OutboxInput } from './outbox-input';
 
@@ -24,7 +25,8 @@ const LIST_LIMIT = 500;
 /**
  * Adds a message in the caller's transaction: it is sent only if that transaction commits. A message whose
  * dedupeKey is already in the table is not added again, so retrying a business action cannot mail twice.
- * All times come from the database clock, the same clock the worker compares against.
+ * All times come from the database clock, the same clock the worker compares against. The workers are woken once
+ * that transaction commits, so no caller has to remember to.
  */
 export async function enqueueMessage(em: EntityManager, input: OutboxInput): Promise<EnqueueResult> {
   const msg = checkOutboxInput(input);
@@ -39,8 +41,14 @@ export async function enqueueMessage(em: EntityManager, input: OutboxInput): Pro
      ON DUPLICATE KEY UPDATE id = id`,
     [id, msg.stationId, msg.flightId, JSON.stringify(msg.passengerIds), msg.kind, msg.to, msg.subject, msg.text, msg.html, msg.dedupeKey],
   );
-  if (msg.dedupeKey === null) return { id, created: true };
+  // Once committed: the workers look now, and the flight's consoles see the notice in its list.
+  const queued: DomainEvent[] = [mailQueued(), ...(msg.flightId === null ? [] : [flightChanged(msg.flightId, msg.stationId, ['notices'])])];
+  if (msg.dedupeKey === null) {
+    recordEffect(em, ...queued);
+    return { id, created: true };
+  }
   const [holder]: { id: string }[] = await em.query('SELECT id FROM outbox_messages WHERE dedupe_key = ?', [msg.dedupeKey]);
+  if (holder.id === id) recordEffect(em, ...queued);
   return { id: holder.id, created: holder.id === id };
 }
 
@@ -82,6 +90,7 @@ export async function requeueFailedNotice(db: DataSource, user: SessionUser, fli
     // last_error is kept: until a try replaces it, and after a successful one, the list shows what went wrong.
     await em.query(`UPDATE outbox_messages SET status = 'pending', attempts = 0, next_attempt_at = UTC_TIMESTAMP(3) WHERE id = ?`, [row.id]);
     await audit(em, { actor: user, action: 'notice.requeued', entityType: 'outbox_message', entityId: row.id, stationId: row.stationId, before, after: { status: 'pending', attempts: 0 } });
+    recordEffect(em, mailQueued());
     const updated = await em.findOneByOrFail(OutboxMessageEntity, { id: row.id });
     return presentOutboxMessage(updated);
   });

@@ -5,6 +5,7 @@ import type { SessionUser } from '@shared/schemas/auth';
 import type { NoticeDetail, NoticesQuery, StationNotice, StationNoticeList } from '@shared/schemas/admin-notices';
 import { FlightEntity, OutboxMessageEntity } from '../../db/entities';
 import { conflict, notFound } from '../../domain/errors';
+import { mailQueued, recordEffect } from '../../events';
 import { audit } from '../audit/audit.service';
 
 /** Newest notices shown at once; the filters narrow a busy station's list. */
@@ -60,6 +61,7 @@ export async function retryStationNotice(db: DataSource, user: SessionUser, stat
     const before = { status: row.status, attempts: row.attempts, lastError: row.lastError };
     await em.query(`UPDATE outbox_messages SET status = 'pending', attempts = 0, next_attempt_at = UTC_TIMESTAMP(3) WHERE id = ?`, [row.id]);
     await audit(em, { actor: user, action: 'notice.requeued', entityType: 'outbox_message', entityId: row.id, stationId, before: { ...before, flightId: row.flightId }, after: { status: 'pending', attempts: 0, flightId: row.flightId } });
+    recordEffect(em, mailQueued());
     const updated = await find(em, stationId, id);
     return present(updated, await flightsOf(em, [updated]));
   });
@@ -82,6 +84,7 @@ export async function resendStationNotice(db: DataSource, user: SessionUser, sta
       [copyId, row.stationId, row.flightId, JSON.stringify(row.passengerIds), row.kind, row.toAddress, row.subject, row.text, row.html, `${RESEND_PREFIX}${row.id}:${copyId.slice(0, 8)}`],
     );
     await audit(em, { actor: user, action: 'notice.resent', entityType: 'outbox_message', entityId: copyId, stationId, before: { original: row.id, flightId: row.flightId }, after: { status: 'pending', to: row.toAddress, subject: row.subject, flightId: row.flightId } });
+    recordEffect(em, mailQueued());
     const copy = await find(em, stationId, copyId);
     return present(copy, await flightsOf(em, [copy]));
   });

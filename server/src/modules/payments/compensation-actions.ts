@@ -8,6 +8,7 @@ import { conflict, notFound, upstreamFailed } from '../../domain/errors';
 import { canSeeStation } from '../../domain/station-scope';
 import type { CardSnapshot } from '../../integrations/payments/issuing-provider';
 import { classifyProviderError } from '../../integrations/payments/provider-errors';
+import { flightChanged, recordEffect } from '../../events';
 import { audit } from '../audit/audit.service';
 import { raisePaymentLost } from '../alerts/alerts.service';
 import { gateIssue } from '../approvals/approval-gate';
@@ -54,7 +55,11 @@ export async function issueCompensation(ctx: PaymentsContext, issuer: Issuer, us
     if (row.state !== 'due') return row.state === 'issuing';
     if (row.amountMinor <= 0) throw conflict('nothing_to_pay', 'This compensation is for no money; there is nothing to issue.');
     await assertReadyToIssue(em, row);
-    if (!(await gateIssue(em, user, row)).approved) return { awaiting: row };
+    if (!(await gateIssue(em, user, row)).approved) {
+      // The request is stored (and listed on the station's day); nothing is paid until a supervisor approves it.
+      recordEffect(em, flightChanged(row.flightId, row.stationId, ['compensations']));
+      return { awaiting: row };
+    }
     const key = row.idempotencyKey ?? baseKeyFor(row.id);
     await em.update(CompensationEntity, { id: row.id }, { state: 'issuing', idempotencyKey: key });
     await rememberAccount(em, ctx, row.id);
@@ -62,8 +67,6 @@ export async function issueCompensation(ctx: PaymentsContext, issuer: Issuer, us
     return true;
   });
   if (typeof started === 'object') {
-    // The request is stored (and listed on the station's day); nothing is paid until a supervisor approves it.
-    ctx.changed(started.awaiting.flightId, started.awaiting.stationId, ['approvals', 'compensations']);
     throw conflict('awaiting_approval', 'This amount is above your limit: it now waits for a supervisor of the station to approve it. Issue it again once approved.');
   }
   if (started) await waitBriefly(issuer.attempt(id));
@@ -125,6 +128,6 @@ export async function voidCompensation(ctx: PaymentsContext, user: SessionUser, 
     await audit(em, { actor: user, action: 'compensation.voided', entityType: 'compensation', entityId: row.id, stationId: row.stationId, before: { state: row.state, voidReason: row.voidReason }, after: { state: 'voided', reason, canceledCardId: canceled?.id ?? null } });
     // The denial or the volunteer's agreement still stands: the passenger is owed again, and the station must know.
     await raisePaymentLost(em, row, 'payment-voided', reason);
+    recordEffect(em, flightChanged(row.flightId, row.stationId, ['compensations']));
   });
-  ctx.changed(current.flightId, current.stationId, ['compensations']);
 }

@@ -47,22 +47,19 @@ export function compensationsRouter(ctx: PaymentsContext, issuer: Issuer) {
 
   r.post('/compensations/:id/medium', agent, async (req, res) => {
     const id = idOf(req);
-    const row = await chooseMedium(ctx.db, currentUser(req), id, parse(mediumBodySchema, req.body).medium);
-    ctx.changed(row.flightId, row.stationId, ['compensations']);
+    await chooseMedium(ctx.db, currentUser(req), id, parse(mediumBodySchema, req.body).medium);
     res.json(await answer(id));
   });
 
   r.post('/compensations/:id/agreement', agent, async (req, res) => {
     const id = idOf(req);
-    const row = await recordDeskAgreement(ctx.db, currentUser(req), id, parse(agreementBodySchema, req.body));
-    ctx.changed(row.flightId, row.stationId, ['compensations']);
+    await recordDeskAgreement(ctx.db, currentUser(req), id, parse(agreementBodySchema, req.body));
     res.json(await answer(id));
   });
 
   r.post('/compensations/:id/counter-payment', agent, async (req, res) => {
     const id = idOf(req);
-    const { row } = await payAtCounter(ctx.db, currentUser(req), id, parse(counterPaymentBodySchema, req.body));
-    ctx.changed(row.flightId, row.stationId, ['compensations']);
+    await payAtCounter(ctx.db, currentUser(req), id, parse(counterPaymentBodySchema, req.body));
     res.json(await answer(id));
   });
 
@@ -70,7 +67,6 @@ export function compensationsRouter(ctx: PaymentsContext, issuer: Issuer) {
   r.post('/compensations/:id/actual-arrival', agent, async (req, res) => {
     const id = idOf(req);
     const top = await recordActualArrival(ctx.db, currentUser(req), id, parse(actualArrivalBodySchema, req.body).arrivalDelayMinutes);
-    if (top) ctx.changed(top.flightId, top.stationId, ['compensations']);
     res.json({ topUp: top ? presentCompensation(await compensationRow(ctx.db, top.id)) : null });
   });
 

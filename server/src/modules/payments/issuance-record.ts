@@ -4,6 +4,7 @@ import type { EntityManager } from 'typeorm';
 import { CompensationEntity, VoucherOfferEntity } from '../../db/entities';
 import type { CardSnapshot } from '../../integrations/payments/issuing-provider';
 import { resolvePaymentAlerts, raisePaymentLost } from '../alerts/alerts.service';
+import { flightChanged, recordEffect } from '../../events';
 import { audit, type AuditEntry } from '../audit/audit.service';
 import { enqueueMessage } from '../outbox/outbox.service';
 import { AWAITING_CARD } from './compensation-states';
@@ -13,14 +14,6 @@ import { createLink } from '../payouts/payment-links';
 import type { PaymentsContext } from './payments-context';
 
 export type Actor = AuditEntry['actor'];
-
-/** What to tell the rest of the app once the transaction committed. */
-export interface Effects {
-  mail: boolean;
-  changed: { flightId: number; stationId: number } | null;
-}
-
-export const NO_EFFECTS: Effects = { mail: false, changed: null };
 
 /** What making a passenger's card-details link needs: the app's address and the clock. */
 export type LinkMaker = Pick<PaymentsContext, 'appBaseUrl' | 'now'>;
@@ -88,13 +81,13 @@ async function enqueueReceipt(em: EntityManager, compensationId: number, attempt
  * The card exists at the provider: 'issued' with its ids, audited, and the receipt queued (once: the outbox's
  * dedupe key). A row already past 'issuing' keeps its state; it only learns ids it lacked.
  */
-export async function recordIssued(em: EntityManager, compensationId: number, card: CardSnapshot, actor: Actor, links: LinkMaker): Promise<Effects> {
+export async function recordIssued(em: EntityManager, compensationId: number, card: CardSnapshot, actor: Actor, links: LinkMaker): Promise<void> {
   const row = await em.findOne(CompensationEntity, { where: { id: compensationId }, lock: { mode: 'pessimistic_write' } });
-  if (!row) return NO_EFFECTS;
+  if (!row) return;
   await upsertProviderCard(em, card, compensationId);
   if (!AWAITING_CARD.includes(row.state)) {
     if (!row.providerCardId) await em.update(CompensationEntity, { id: row.id }, { providerCardId: card.id, providerCardholderId: row.providerCardholderId ?? card.cardholderId });
-    return NO_EFFECTS;
+    return;
   }
   const before = { state: row.state, providerCardId: row.providerCardId, lastError: row.lastError };
   await em.update(CompensationEntity, { id: row.id }, { state: 'issued', providerCardId: card.id, providerCardholderId: card.cardholderId ?? row.providerCardholderId, lastError: null });
@@ -103,16 +96,16 @@ export async function recordIssued(em: EntityManager, compensationId: number, ca
     before, after: { state: 'issued', providerCardId: card.id, amountMinor: row.amountMinor, currency: row.currency, form: row.form },
   });
   await resolvePaymentAlerts(em, row.id, `Paid: card ${card.id} issued.`);
-  const mail = await enqueueReceipt(em, row.id, row.idempotencyKey, card, links);
-  return { mail, changed: { flightId: row.flightId, stationId: row.stationId } };
+  await enqueueReceipt(em, row.id, row.idempotencyKey, card, links);
+  recordEffect(em, flightChanged(row.flightId, row.stationId, ['compensations']));
 }
 
 /** The provider refused the request itself: 'failed' with its reason, for finance to look at and re-issue. */
-export async function recordRefused(em: EntityManager, compensationId: number, reason: string, actor: Actor): Promise<Effects> {
+export async function recordRefused(em: EntityManager, compensationId: number, reason: string, actor: Actor): Promise<void> {
   const row = await em.findOne(CompensationEntity, { where: { id: compensationId }, lock: { mode: 'pessimistic_write' } });
-  if (!row || row.state !== 'issuing') return NO_EFFECTS;
+  if (!row || row.state !== 'issuing') return;
   await em.update(CompensationEntity, { id: row.id }, { state: 'failed', lastError: reason });
   await audit(em, { actor, action: 'compensation.issue_failed', entityType: 'compensation', entityId: row.id, stationId: row.stationId, before: { state: 'issuing' }, after: { state: 'failed', reason } });
   await raisePaymentLost(em, row, 'payment-failed', reason);
-  return { mail: false, changed: { flightId: row.flightId, stationId: row.stationId } };
+  recordEffect(em, flightChanged(row.flightId, row.stationId, ['compensations']));
 }

@@ -10,7 +10,7 @@ import { classifyProviderError } from '../../integrations/payments/provider-erro
 import { cardKey, cardholderKey } from './compensation-states';
 import { compensationRow, type CompensationRow } from './compensation-view';
 import { recordIssued, recordRefused, spentOnEarlierCards } from './issuance-record';
-import { applyEffects, WORKER_ACTOR, type PaymentsContext } from './payments-context';
+import { WORKER_ACTOR, type PaymentsContext } from './payments-context';
 import { VOUCHER_CATEGORIES } from './voucher-rules';
 import { advancePayout } from '../payouts/payout.service';
 import { assertReadyToIssue } from '../agreements/agreement.service';
@@ -115,7 +115,7 @@ export function createIssuer(ctx: PaymentsContext): Issuer {
       card ??= await createCard(row, baseKey, cardholderId, valueMinor);
       const issued = card;
       step = 'recording the card';
-      applyEffects(ctx, await ctx.db.transaction((em) => recordIssued(em, compensationId, issued, WORKER_ACTOR, ctx)));
+      await ctx.db.transaction((em) => recordIssued(em, compensationId, issued, WORKER_ACTOR, ctx));
     } catch (error) {
       const failure = classifyProviderError(error, step);
       if (failure.retryable) {
@@ -138,7 +138,6 @@ export function createIssuer(ctx: PaymentsContext): Issuer {
   async function refuse(compensationId: number, reason: string): Promise<void> {
     await ctx.db
       .transaction((em) => recordRefused(em, compensationId, reason, WORKER_ACTOR))
-      .then((effects) => applyEffects(ctx, effects))
       .catch((e: unknown) => ctx.log(`[payments] compensation ${compensationId}: could not record the refusal: ${(e as Error).message}`));
   }
 

@@ -30,7 +30,6 @@ export interface PaymentsRuntimeOptions {
   financialAccount?: string;
   /** Clock for the passenger's links (epoch ms); tests step it past an expiry. */
   now?: () => number;
-  changed?: PaymentsContext['changed'];
   log?: (line: string) => void;
   worker?: PaymentsWorkerOptions;
   /** Per-request timeout of the SDK (tests use a short one to exercise timeouts). */
@@ -60,7 +59,7 @@ export function createPaymentsRuntime(opts: PaymentsRuntimeOptions): PaymentsRun
   const providerAccount = providerAccountOf({ apiUrl: opts.env.STRIPE_API_URL, secretKey: opts.env.STRIPE_SECRET_KEY });
   const passenger = stripePassengerProvider(stripe, opts.financialAccount ?? DEFAULT_FINANCIAL_ACCOUNT);
   const ctx: PaymentsContext = {
-    db: opts.db, provider, providerAccount, changed: opts.changed ?? (() => undefined), log, passenger,
+    db: opts.db, provider, providerAccount, log, passenger,
     appBaseUrl: (opts.env.APP_BASE_URL ?? 'http://127.0.0.1:4600').replace(/\/$/, ''), now: opts.now ?? Date.now,
   };
   const issuer = createIssuer(ctx);

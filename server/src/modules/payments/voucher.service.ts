@@ -10,7 +10,6 @@ import { CounterPaymentEntity, PaymentAgreementEntity, StationEntity, VoucherOff
 import { conflict } from '../../domain/errors';
 import { audit } from '../audit/audit.service';
 import { enqueueMessage } from '../outbox/outbox.service';
-import { notifyOutbox } from '../outbox/outbox-signal';
 import { policyFor } from '../volunteers/policy.service';
 import { lockCompensation, paymentFacts } from '../agreements/payment-facts';
 import { compensationRow, passengerNameOf, type CompensationRow } from './compensation-view';
@@ -107,6 +106,5 @@ export async function offerVoucher(db: DataSource, user: SessionUser, id: number
     await audit(em, { actor: user, action: 'compensation.voucher_offered', entityType: 'compensation', entityId: id, stationId: entity.stationId, after: { cashAmountMinor: row.amount_minor, currency: row.currency, restrictions, sentTo: row.contact_email } });
     return { cashAmountMinor: row.amount_minor, currency: row.currency, restrictions, text: notice.text, sentTo: row.contact_email, offeredAt: offeredAt.toISOString() };
   });
-  if (result.sentTo) notifyOutbox();
   return result;
 }

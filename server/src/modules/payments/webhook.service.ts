@@ -6,10 +6,11 @@ import type { EntityManager } from 'typeorm';
 import { CompensationEntity } from '../../db/entities';
 import { snapshotOf, type CardSnapshot } from '../../integrations/payments/issuing-provider';
 import { raisePaymentLost } from '../alerts/alerts.service';
+import { flightChanged, recordEffect } from '../../events';
 import { audit } from '../audit/audit.service';
 import { AWAITING_CARD, isForward } from './compensation-states';
-import { NO_EFFECTS, recordIssued, upsertProviderCard, type Effects, type LinkMaker } from './issuance-record';
-import { applyEffects, PROVIDER_ACTOR, type PaymentsContext } from './payments-context';
+import { recordIssued, upsertProviderCard, type LinkMaker } from './issuance-record';
+import { PROVIDER_ACTOR, type PaymentsContext } from './payments-context';
 import { outboundSnapshotOf } from '../../integrations/payments/passenger-provider';
 import { applyTransfer } from '../payouts/payout-record';
 
@@ -18,10 +19,9 @@ export type WebhookOutcome = { duplicate: true } | { duplicate: false; outcome: 
 interface Applied {
   outcome: string;
   compensationId: number | null;
-  effects: Effects;
 }
 
-const ignored = (outcome: string, compensationId: number | null = null): Applied => ({ outcome: `ignored: ${outcome}`, compensationId, effects: NO_EFFECTS });
+const ignored = (outcome: string, compensationId: number | null = null): Applied => ({ outcome: `ignored: ${outcome}`, compensationId });
 const isDuplicateKey = (error: unknown) => (error as { driverError?: { code?: string } })?.driverError?.code === 'ER_DUP_ENTRY';
 
 async function lockCompensation(em: EntityManager, id: number) {
@@ -52,14 +52,16 @@ async function applyCard(em: EntityManager, card: CardSnapshot, links: LinkMaker
   if (dead && known?.compensation_id === row.id && row.providerCardId !== card.id) return ignored('an earlier card of this compensation, replaced by a re-issue', row.id);
   if (!dead) {
     if (!AWAITING_CARD.includes(row.state)) return ignored(`already ${row.state}`, row.id);
-    return { outcome: 'issued', compensationId: row.id, effects: await recordIssued(em, row.id, card, PROVIDER_ACTOR, links) };
+    await recordIssued(em, row.id, card, PROVIDER_ACTOR, links);
+    return { outcome: 'issued', compensationId: row.id };
   }
   if (!isForward(row.state, 'canceled')) return ignored(`already ${row.state}`, row.id);
   // Never a silent void: the provider ended the payment, not the debt. The passenger is owed again, with an alert.
   await em.update(CompensationEntity, { id: row.id }, { state: 'canceled', providerCardId: card.id, providerCardholderId: row.providerCardholderId ?? card.cardholderId });
   await audit(em, { actor: PROVIDER_ACTOR, action: 'compensation.canceled_at_provider', entityType: 'compensation', entityId: row.id, stationId: row.stationId, before: { state: row.state }, after: { state: 'canceled', providerCardId: card.id } });
   await raisePaymentLost(em, row, 'payment-canceled', null);
-  return { outcome: 'canceled', compensationId: row.id, effects: { mail: false, changed: { flightId: row.flightId, stationId: row.stationId } } };
+  recordEffect(em, flightChanged(row.flightId, row.stationId, ['compensations']));
+  return { outcome: 'canceled', compensationId: row.id };
 }
 
 async function applyTransaction(em: EntityManager, transaction: Stripe.Issuing.Transaction, card: CardSnapshot | null, links: LinkMaker): Promise<Applied> {
@@ -71,14 +73,14 @@ async function applyTransaction(em: EntityManager, transaction: Stripe.Issuing.T
   if (compensationId === null) return ignored('spend on a card that pays no known compensation');
   const row = await lockCompensation(em, compensationId);
   if (!row) return ignored('no such compensation in the ledger', compensationId);
-  let effects = NO_EFFECTS;
   // The spend may arrive before any news of the card itself: record the card first, receipt included.
-  if (AWAITING_CARD.includes(row.state) && card) effects = await recordIssued(em, row.id, card, PROVIDER_ACTOR, links);
+  if (AWAITING_CARD.includes(row.state) && card) await recordIssued(em, row.id, card, PROVIDER_ACTOR, links);
   const current = await em.findOneByOrFail(CompensationEntity, { id: row.id });
-  if (!isForward(current.state, 'settled')) return { ...ignored(`already ${current.state}`, row.id), effects };
+  if (!isForward(current.state, 'settled')) return ignored(`already ${current.state}`, row.id);
   await em.update(CompensationEntity, { id: row.id }, { state: 'settled', providerCardId: current.providerCardId ?? cardId });
   await audit(em, { actor: PROVIDER_ACTOR, action: 'compensation.settled', entityType: 'compensation', entityId: row.id, stationId: row.stationId, before: { state: current.state }, after: { state: 'settled', spentMinor: -transaction.amount, currency: transaction.currency.toUpperCase(), transactionId: transaction.id } });
-  return { outcome: 'settled', compensationId: row.id, effects: { mail: effects.mail, changed: { flightId: row.flightId, stationId: row.stationId } } };
+  recordEffect(em, flightChanged(row.flightId, row.stationId, ['compensations']));
+  return { outcome: 'settled', compensationId: row.id };
 }
 
 /** A bank transfer's news: its metadata names the payment attempt (the payout row) it belongs to. */
@@ -86,8 +88,8 @@ async function applyOutbound(em: EntityManager, payment: Stripe.Treasury.Outboun
   const snapshot = outboundSnapshotOf(payment);
   const attemptKey = payment.metadata?.attemptKey;
   if (!attemptKey) return ignored('transfer without an attempt key', snapshot.compensationId);
-  const effects = await applyTransfer(em, attemptKey, snapshot, PROVIDER_ACTOR);
-  return { outcome: `transfer ${payment.status}`, compensationId: snapshot.compensationId, effects };
+  await applyTransfer(em, attemptKey, snapshot, PROVIDER_ACTOR);
+  return { outcome: `transfer ${payment.status}`, compensationId: snapshot.compensationId };
 }
 
 /** For a spend on a card we have not heard of yet, the card itself says which compensation it pays. */
@@ -139,6 +141,5 @@ export async function receiveProviderEvent(ctx: PaymentsContext, event: Stripe.E
     return applied;
   });
   if (!result) return { duplicate: true };
-  applyEffects(ctx, result.effects);
   return { duplicate: false, outcome: result.outcome, compensationId: result.compensationId };
 }

@@ -9,10 +9,11 @@ import type { PassengerLinkView } from '@shared/schemas/payment-media';
 import { AuditLogEntity, CompensationEntity, PaymentLinkEntity, PayoutEntity, type PaymentLinkPurpose } from '../../db/entities';
 import { conflict, notFound, tooManyRequests, type DomainError } from '../../domain/errors';
 import { canSeeStation } from '../../domain/station-scope';
+import { flightChanged, recordEffect } from '../../events';
 import { audit } from '../audit/audit.service';
 import { enqueueMessage } from '../outbox/outbox.service';
 import { compensationRow, passengerNameOf } from '../payments/compensation-view';
-import { applyEffects, type PaymentsContext } from '../payments/payments-context';
+import type { PaymentsContext } from '../payments/payments-context';
 import { createLink, linkState } from './payment-links';
 import { newLinkNotice } from './payout-notices';
 
@@ -107,8 +108,8 @@ export async function sendNewLink(ctx: PaymentsContext, user: SessionUser, id: n
       actor: user, action: 'compensation.link_resent', entityType: 'compensation', entityId: id, stationId: comp.stationId,
       before: { liveLinksKilled: live, linksInLastHour: lastHour }, after: { purpose, attemptKey, sentAt: new Date(now).toISOString(), linkExpiresAt: link.expiresAt.toISOString() },
     });
+    recordEffect(em, flightChanged(comp.flightId, comp.stationId, ['compensations']));
     return { compensationId: id, purpose, expiresAt: link.expiresAt.toISOString(), flightId: comp.flightId, stationId: comp.stationId };
   });
-  applyEffects(ctx, { mail: true, changed: { flightId: result.flightId, stationId: result.stationId } });
   return result;
 }

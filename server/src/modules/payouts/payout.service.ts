@@ -8,11 +8,12 @@ import type { BookingProof, PayoutLink } from '@shared/schemas/payouts';
 import { CompensationEntity, PayoutEntity } from '../../db/entities';
 import { badRequest, conflict, upstreamFailed } from '../../domain/errors';
 import { classifyProviderError } from '../../integrations/payments/provider-errors';
+import { flightChanged, recordEffect } from '../../events';
 import { audit } from '../audit/audit.service';
 import { enqueueMessage } from '../outbox/outbox.service';
 import { compensationRow, passengerNameOf } from '../payments/compensation-view';
-import { NO_EFFECTS, recordRefused, type Effects } from '../payments/issuance-record';
-import { applyEffects, PASSENGER_ACTOR, WORKER_ACTOR, type PaymentsContext } from '../payments/payments-context';
+import { recordRefused } from '../payments/issuance-record';
+import { PASSENGER_ACTOR, WORKER_ACTOR, type PaymentsContext } from '../payments/payments-context';
 import { bookingLanguage, countWrongTry, createLink, findLink, linkState, markUsed, proofMatches, refuseUnlessReady, wrongProof } from './payment-links';
 import { payoutLinkNotice } from './payout-notices';
 import { transferCurrencyProblem } from './transfer-currencies';
@@ -24,16 +25,20 @@ const CLAIM_SECONDS = 120;
 export const transferKey = (attemptKey: string) => `${attemptKey}-transfer`;
 
 /** First step for a row in 'issuing' whose medium is a bank transfer: the payout row and the passenger's link, once. */
-async function openPayout(em: EntityManager, ctx: PaymentsContext, compensationId: number): Promise<{ effects: Effects; ready: string | null }> {
+async function openPayout(em: EntityManager, ctx: PaymentsContext, compensationId: number): Promise<{ ready: string | null }> {
   const comp = await em.findOne(CompensationEntity, { where: { id: compensationId }, lock: { mode: 'pessimistic_write' } });
-  if (!comp || comp.state !== 'issuing' || !comp.idempotencyKey) return { effects: NO_EFFECTS, ready: null };
+  if (!comp || comp.state !== 'issuing' || !comp.idempotencyKey) return { ready: null };
   const existing = await em.findOneBy(PayoutEntity, { attemptKey: comp.idempotencyKey });
-  if (existing) return { effects: NO_EFFECTS, ready: existing.state === 'ready' ? existing.attemptKey : null };
+  if (existing) return { ready: existing.state === 'ready' ? existing.attemptKey : null };
   const currencyProblem = transferCurrencyProblem(comp.currency);
-  if (currencyProblem) return { effects: await recordRefused(em, comp.id, `bank transfer: ${currencyProblem}`, WORKER_ACTOR), ready: null };
+  if (currencyProblem) {
+    await recordRefused(em, comp.id, `bank transfer: ${currencyProblem}`, WORKER_ACTOR);
+    return { ready: null };
+  }
   const row = await compensationRow(em, comp.id);
   if (!row.contact_email) {
-    return { effects: await recordRefused(em, comp.id, 'bank transfer: the booking has no e-mail address to send the passenger their payout link', WORKER_ACTOR), ready: null };
+    await recordRefused(em, comp.id, 'bank transfer: the booking has no e-mail address to send the passenger their payout link', WORKER_ACTOR);
+    return { ready: null };
   }
   await em.insert(PayoutEntity, { compensationId: comp.id, attemptKey: comp.idempotencyKey, state: 'awaiting-details', amountMinor: comp.amountMinor, currency: comp.currency });
   const link = await createLink(em, ctx, { compensationId: comp.id, purpose: 'payout', attemptKey: comp.idempotencyKey });
@@ -50,7 +55,8 @@ async function openPayout(em: EntityManager, ctx: PaymentsContext, compensationI
     actor: WORKER_ACTOR, action: 'compensation.payout_link_sent', entityType: 'compensation', entityId: comp.id, stationId: comp.stationId,
     before: { state: 'issuing' }, after: { medium: 'bank-transfer', attemptKey: comp.idempotencyKey, linkExpiresAt: link.expiresAt.toISOString() },
   });
-  return { effects: { mail: true, changed: { flightId: comp.flightId, stationId: comp.stationId } }, ready: null };
+  recordEffect(em, flightChanged(comp.flightId, comp.stationId, ['compensations']));
+  return { ready: null };
 }
 
 /** The claim: one UPDATE that only one process can win; a claim past its time (a dead worker) is free again. */
@@ -85,19 +91,17 @@ async function sendTransfer(ctx: PaymentsContext, attemptKey: string): Promise<v
   } catch (error) {
     const failure = classifyProviderError(error, 'sending the bank transfer');
     if (failure.retryable) return release(ctx, attemptKey, failure.reason);
-    const effects = await ctx.db.transaction(async (em) => {
+    return ctx.db.transaction(async (em) => {
       await em.update(PayoutEntity, { id: payout.id }, { state: 'failed', claimedUntil: null, lastError: failure.reason });
-      return recordRefused(em, payout.compensationId, failure.reason, WORKER_ACTOR);
+      await recordRefused(em, payout.compensationId, failure.reason, WORKER_ACTOR);
     });
-    return applyEffects(ctx, effects);
   }
-  applyEffects(ctx, await ctx.db.transaction((em) => recordTransferSent(em, attemptKey, sent, WORKER_ACTOR)));
+  await ctx.db.transaction((em) => recordTransferSent(em, attemptKey, sent, WORKER_ACTOR));
 }
 
 /** One step of a bank-transfer compensation: open it (link mailed), or send it once the passenger's account is in. */
 export async function advancePayout(ctx: PaymentsContext, compensationId: number): Promise<void> {
   const opened = await ctx.db.transaction((em) => openPayout(em, ctx, compensationId));
-  applyEffects(ctx, opened.effects);
   if (opened.ready) await sendTransfer(ctx, opened.ready);
 }
 

@@ -5,14 +5,12 @@ import { showUpProfileSchema } from '@shared/schemas/show-up-profile';
 import { canSeeStation, currentUser, requireRole } from '../../http/require-role';
 import { notFound } from '../../http/errors';
 import { parse } from '../../http/validate';
-import { recomputeInBackground, type FlightsChanged } from './recompute-flights';
-import { getShowUpProfile, openFlightIds, putShowUpProfile } from './show-up-profiles.service';
+import { getShowUpProfile, putShowUpProfile } from './show-up-profiles.service';
 
 const stationParams = z.object({ stationId: z.coerce.number().int().positive('stationId must be positive') });
 
 /** Mounted at /api/stations/:stationId/show-up-profile: supervisors read it, admins change it. */
-export function showUpProfilesRouter(deps: { db: DataSource; onFlightsChanged?: FlightsChanged }) {
-  const flightsChanged = deps.onFlightsChanged ?? recomputeInBackground(deps.db);
+export function showUpProfilesRouter(deps: { db: DataSource }) {
   const r = Router({ mergeParams: true });
   r.use(requireRole('admin', 'supervisor'));
   r.use((req, res, next) => {
@@ -30,10 +28,6 @@ export function showUpProfilesRouter(deps: { db: DataSource; onFlightsChanged?: 
     const stationId = res.locals.stationId as number;
     const profile = parse(showUpProfileSchema, req.body);
     res.json(await putShowUpProfile(deps.db, stationId, profile, currentUser(req)));
-    // The odds of flights already on the boards move with the profile; the answer does not wait for them.
-    openFlightIds(deps.db, stationId)
-      .then(flightsChanged)
-      .catch((err: unknown) => console.error(`[show-up-profile] listing flights to recompute failed: ${err instanceof Error ? err.message : err}`));
   });
   return r;
 }

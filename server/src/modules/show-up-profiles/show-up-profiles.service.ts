@@ -1,7 +1,8 @@
-import { Between, In, Not, type DataSource } from 'typeorm';
+import { Between, In, Not, type DataSource, type EntityManager } from 'typeorm';
 import type { SessionUser } from '@shared/schemas/auth';
 import { DEFAULT_SHOW_UP_PROFILE, showUpProfileSchema, type ShowUpProfile } from '@shared/schemas/show-up-profile';
 import { FlightEntity, ShowUpProfileEntity } from '../../db/entities';
+import { forecastStale, recordEffect } from '../../events';
 import { audit } from '../audit/audit.service';
 
 export interface StationShowUpProfile {
@@ -31,12 +32,14 @@ export async function putShowUpProfile(db: DataSource, stationId: number, profil
     await em.upsert(ShowUpProfileEntity, { stationId, profile, updatedByUserId: actor.id }, ['stationId']);
     const after = present(stationId, await em.findOneByOrFail(ShowUpProfileEntity, { stationId }));
     await audit(em, { actor, action: 'show_up_profile.updated', entityType: 'show_up_profile', entityId: stationId, stationId, before: before.isDefault ? { default: true, profile: before.profile } : before.profile, after: after.profile });
+    // The odds of flights already on the boards move with the profile; the answer does not wait for them.
+    recordEffect(em, ...(await openFlightIds(em, stationId)).map(forecastStale));
     return after;
   });
 }
 
 /** The station's flights still to leave in the next 24 hours: the ones whose odds a new profile moves. */
-export async function openFlightIds(db: DataSource, stationId: number, now = new Date()): Promise<number[]> {
+export async function openFlightIds(db: DataSource | EntityManager, stationId: number, now = new Date()): Promise<number[]> {
   const flights = await db.getRepository(FlightEntity).find({
     select: { id: true },
     where: { stationId, scheduledDeparture: Between(new Date(now.getTime() - 15 * 60_000), new Date(now.getTime() + 24 * 3_600_000)), state: Not(In(['departed', 'cancelled'])) },

@@ -6,6 +6,7 @@ import { gateAmount } from '../approvals/approval-gate';
 import { assertNotDeparted } from '../flights/departure-guard';
 import { liftEarlierVolunteers } from './earlier-volunteers';
 import { conflict, notFound } from '../../domain/errors';
+import { flightChanged, flightMoved, recordEffect } from '../../events';
 import { audit } from '../audit/audit.service';
 import { enqueueMessage } from '../outbox/outbox.service';
 import { policyFor } from './policy.service';
@@ -36,6 +37,7 @@ export async function acceptVolunteer(db: DataSource, user: SessionUser, roundId
 async function acceptInTransaction(em: EntityManager, user: SessionUser, roundId: number, volunteerId: number, enqueue: Enqueue) {
   const round = await roundForUser(em, user, roundId, true);
   const { v, agreed, accepted, commonPrice } = await prepareAccept(em, round, volunteerId);
+  recordEffect(em, flightChanged(round.flightId, round.stationId, ['rounds']));
   // A posted offer was already through the gate when it was set; a sealed bid's amount is fixed here, by this accept.
   if (round.kind === 'sealed') {
     const gate = await gateAmount(em, user, { kind: 'sealed-accept', stationId: round.stationId, flightId: round.flightId, roundId: round.id, subjectId: v.id, amountMinor: agreed, currency: round.currency });
@@ -84,6 +86,8 @@ async function completeAccept(em: EntityManager, actor: SessionUser, acceptedBy:
     });
   }
   const notice = await enqueueConfirmation(em, round, v, enqueue);
+  // Accepted volunteers leave the forecast's count of shows.
+  recordEffect(em, ...flightMoved(round.flightId, round.stationId, ['rounds', 'forecast']));
   await audit(em, { actor, action: 'volunteer.accepted', entityType: 'volunteer', entityId: v.id, stationId: round.stationId, before: { status: 'offered' }, after: { status: 'accepted', agreedMinor: agreed, currency: round.currency, passengerIds: v.passengerIds, notice } });
 }
 
@@ -111,6 +115,7 @@ export async function declineVolunteer(db: DataSource, user: SessionUser, roundI
     v.status = 'declined';
     await em.save(v);
     await dropWaitingAccept(em, v.id, 'the volunteer was declined');
+    recordEffect(em, flightChanged(round.flightId, round.stationId, ['rounds']));
     await audit(em, { actor: user, action: 'volunteer.declined', entityType: 'volunteer', entityId: v.id, stationId: round.stationId, before: { status: 'offered' }, after: { status: 'declined' } });
     return { round, volunteer: v };
   });

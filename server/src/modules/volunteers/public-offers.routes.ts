@@ -5,7 +5,7 @@ import { identifyBodySchema, passengerBidBodySchema } from '@shared/schemas/volu
 import { parse } from '../../http/validate';
 import { publicOffers, type PublicOffersDeps } from './public-offers.service';
 
-export function publicOffersRouter(deps: PublicOffersDeps & { changed: (flightId: number, stationId: number, topics: string[]) => void }) {
+export function publicOffersRouter(deps: PublicOffersDeps) {
   const r = Router();
   r.use(express.json({ limit: '16kb' }));
   const offers = publicOffers(deps);
@@ -21,9 +21,7 @@ export function publicOffersRouter(deps: PublicOffersDeps & { changed: (flightId
 
   r.post('/offers/:token/bids', async (req, res) => {
     const link = await offers.open(req.params.token);
-    const { flight } = link;
     const v = await offers.offerSeat(link, parse(passengerBidBodySchema, req.body));
-    deps.changed(flight.id, flight.stationId, ['rounds']);
     res.status(201).json({ status: v.status });
   });
 

@@ -3,6 +3,7 @@ import type { SessionUser } from '@shared/schemas/auth';
 import { FlightEntity, PassengerEntity, RebookingEntity, VolunteerEntity, VolunteerRoundEntity } from '../../db/entities';
 import { badRequest, conflict, notFound } from '../../domain/errors';
 import { canSeeStation } from '../../domain/station-scope';
+import { flightChanged, recordEffect } from '../../events';
 import { audit } from '../audit/audit.service';
 import { enqueueMessage } from '../outbox/outbox.service';
 import { enqueueRebookingNotice, type Enqueue } from './volunteer-notices';
@@ -72,6 +73,8 @@ export async function rebookVolunteer(db: DataSource, user: SessionUser, volunte
     }
     const row = await em.save(em.create(RebookingEntity, { ...hold, volunteerId, originalFlightId: original.id, plannedArrivalDelayMinutes: delayMinutes(original, hold.arrival!), seats: v.passengerIds.length, createdByUserId: user.id }));
     const notice = await enqueueRebookingNotice(em, round, v, { ...designator, departure: row.departure, arrival: row.arrival, plannedArrivalDelayMinutes: row.plannedArrivalDelayMinutes }, enqueue);
+    // The alternate's consoles see its seats taken.
+    recordEffect(em, flightChanged(round.flightId, round.stationId, ['rounds']), ...(row.alternateFlightId ? [flightChanged(row.alternateFlightId, round.stationId, ['counts'])] : []));
     await audit(em, { actor: user, action: 'volunteer.rebooked', entityType: 'volunteer', entityId: v.id, stationId: round.stationId, after: { label: row.label, departure: row.departure, arrival: row.arrival, plannedArrivalDelayMinutes: row.plannedArrivalDelayMinutes, seats: row.seats, notice } });
     return { round, volunteer: v, rebooking: row, original };
   });

@@ -5,6 +5,7 @@ import type { openRoundBodySchema } from '@shared/schemas/volunteers';
 import { BookingEntity, FlightEntity, OfferApprovalEntity, PassengerEntity, VolunteerEntity, VolunteerRoundEntity } from '../../db/entities';
 import { badRequest, conflict, notFound } from '../../domain/errors';
 import { canSeeStation } from '../../domain/station-scope';
+import { flightChanged, recordEffect } from '../../events';
 import { audit } from '../audit/audit.service';
 import { raiseVolunteerOffered } from '../alerts/work-alerts';
 import { gateAmount } from '../approvals/approval-gate';
@@ -41,6 +42,7 @@ export async function openRound(db: DataSource, user: SessionUser, flight: Fligh
       openedByUserId: user.id, openedByLabel: user.email, closedAt: null,
     }));
     await audit(em, { actor: user, action: 'round.opened', entityType: 'volunteer_round', entityId: round.id, stationId: flight.stationId, after: { ...body, currency: policy.currency, flightId: flight.id } });
+    recordEffect(em, flightChanged(flight.id, flight.stationId, ['rounds']));
     if (body.kind !== 'posted') return { round, approvalRequested: false };
     const gate = await gateAmount(em, user, { kind: 'opening-offer', stationId: round.stationId, flightId: round.flightId, roundId: round.id, amountMinor: body.offerMinor!, currency: round.currency });
     if (!gate.approved) return { round, approvalRequested: true };
@@ -57,6 +59,7 @@ export async function raiseOffer(db: DataSource, user: SessionUser, roundId: num
     if (round.kind !== 'posted') throw badRequest('offerMinor: only a posted offer can be raised', [{ field: 'offerMinor', rule: 'the round takes sealed bids' }]);
     if (offerMinor <= (round.offerMinor ?? 0)) throw badRequest('offerMinor: must be above the current offer', [{ field: 'offerMinor', rule: 'must be above the current offer' }]);
     await assertNotDeparted(em, round.flightId, 'raising the offer');
+    recordEffect(em, flightChanged(round.flightId, round.stationId, ['rounds']));
     const gate = await gateAmount(em, user, { kind: 'raise', stationId: round.stationId, flightId: round.flightId, roundId: round.id, amountMinor: offerMinor, currency: round.currency });
     if (!gate.approved) return { round, approvalRequested: true };
     await setOffer(em, user, round, offerMinor);
@@ -96,6 +99,8 @@ export async function closeRound(db: DataSource, user: SessionUser, roundId: num
     await em.save(round);
     await em.update(OfferApprovalEntity, { roundId, status: 'pending' }, { status: 'rejected', reason: 'round closed', decidedAt: new Date() });
     await audit(em, { actor: user, action: 'round.closed', entityType: 'volunteer_round', entityId: round.id, stationId: round.stationId, after: { status: 'closed' } });
+    // Amounts that waited on the round are closed with it.
+    recordEffect(em, flightChanged(round.flightId, round.stationId, ['rounds', 'approvals']));
     return round;
   });
 }
@@ -124,5 +129,6 @@ export async function addVolunteer(em: EntityManager, round: VolunteerRoundEntit
   await em.save(v);
   await raiseVolunteerOffered(em, v, round.stationId, round.currency);
   await audit(em, { actor, action: existing ? 'volunteer.offer_updated' : 'volunteer.offered', entityType: 'volunteer', entityId: v.id, stationId: round.stationId, after: { bookingId, passengerIds: chosen, askMinor: v.askMinor, source } });
+  recordEffect(em, flightChanged(round.flightId, round.stationId, ['rounds']));
   return v;
 }

@@ -9,7 +9,6 @@ import { canSeeStation, currentUser, requireRole } from '../../http/require-role
 import { parse } from '../../http/validate';
 import { audit } from '../audit/audit.service';
 import { flightForUser } from '../flights/flight-desk.service';
-import { notifyOutbox } from '../outbox/outbox-signal';
 import { acceptVolunteer, declineVolunteer } from './accept.service';
 import { flightToken } from './bid-link';
 import { policyFor } from './policy.service';
@@ -21,8 +20,6 @@ export interface VolunteerDeps {
   db: DataSource;
   secret: string;
   appBaseUrl: string;
-  /** After a commit: tell the consoles, and let the forecast drop accepted volunteers. */
-  changed: (flightId: number, stationId: number, topics: string[]) => void;
 }
 
 const flightParams = z.object({ flightId: z.coerce.number().int().positive('flightId must be positive') });
@@ -44,7 +41,6 @@ export function volunteersRouter(deps: VolunteerDeps) {
     const flight = await flightOf(req);
     const body = parse(openRoundBodySchema, req.body);
     const { round, approvalRequested } = await openRound(deps.db, currentUser(req), flight, body);
-    deps.changed(flight.id, flight.stationId, approvalRequested ? ['rounds', 'approvals'] : ['rounds']);
     res.status(201).json({ id: round.id, approvalRequested });
   });
 
@@ -55,16 +51,12 @@ export function volunteersRouter(deps: VolunteerDeps) {
   r.post('/rounds/:id/raise', desk, async (req, res) => {
     const { id } = parse(idParamSchema, req.params, 'params');
     const { offerMinor } = parse(raiseOfferBodySchema, req.body);
-    const { round, approvalRequested } = await raiseOffer(deps.db, currentUser(req), id, offerMinor);
-    // Earlier volunteers lifted to the new offer are told in writing.
-    if (!approvalRequested) notifyOutbox();
-    deps.changed(round.flightId, round.stationId, approvalRequested ? ['rounds', 'approvals'] : ['rounds']);
+    const { approvalRequested } = await raiseOffer(deps.db, currentUser(req), id, offerMinor);
     res.json({ approvalRequested });
   });
 
   r.post('/rounds/:id/close', desk, async (req, res) => {
     const round = await closeRound(deps.db, currentUser(req), parse(idParamSchema, req.params, 'params').id);
-    deps.changed(round.flightId, round.stationId, ['rounds', 'approvals']);
     res.json({ status: round.status });
   });
 
@@ -76,39 +68,28 @@ export function volunteersRouter(deps: VolunteerDeps) {
       const round = await roundForUser(em, user, id, true);
       const first = await em.findOneBy(PassengerEntity, { id: body.passengerIds[0], flightId: round.flightId });
       if (!first) throw badRequest('passengerIds: must be passengers of this flight', [{ field: 'passengerIds', rule: 'must be passengers of this flight' }]);
-      return { v: await addVolunteer(em, round, first.bookingId, body.passengerIds, body.askMinor ?? null, 'agent', user), round };
+      return addVolunteer(em, round, first.bookingId, body.passengerIds, body.askMinor ?? null, 'agent', user);
     });
-    deps.changed(v.round.flightId, v.round.stationId, ['rounds']);
-    res.status(201).json({ id: v.v.id });
+    res.status(201).json({ id: v.id });
   });
 
   r.post('/rounds/:id/volunteers/:volunteerId/accept', desk, async (req, res) => {
     const { id, volunteerId } = parse(volunteerParams, req.params, 'params');
-    const { round, approvalRequested } = await acceptVolunteer(deps.db, currentUser(req), id, volunteerId);
-    if (approvalRequested) {
-      deps.changed(round.flightId, round.stationId, ['rounds', 'approvals']);
-      res.status(202).json({ status: 'awaiting-approval' });
-      return;
-    }
-    notifyOutbox();
-    deps.changed(round.flightId, round.stationId, ['rounds', 'forecast', 'notices']);
-    res.json({ status: 'accepted' });
+    const { approvalRequested } = await acceptVolunteer(deps.db, currentUser(req), id, volunteerId);
+    if (approvalRequested) res.status(202).json({ status: 'awaiting-approval' });
+    else res.json({ status: 'accepted' });
   });
 
   r.post('/rounds/:id/volunteers/:volunteerId/decline', desk, async (req, res) => {
     const { id, volunteerId } = parse(volunteerParams, req.params, 'params');
-    const { round } = await declineVolunteer(deps.db, currentUser(req), id, volunteerId);
-    deps.changed(round.flightId, round.stationId, ['rounds']);
+    await declineVolunteer(deps.db, currentUser(req), id, volunteerId);
     res.json({ status: 'declined' });
   });
 
   r.post('/volunteers/:id/rebook', desk, async (req, res) => {
     const { id } = parse(idParamSchema, req.params, 'params');
     const choice = parse(rebookBodySchema, req.body);
-    const { round, rebooking } = await rebookVolunteer(deps.db, currentUser(req), id, choice);
-    notifyOutbox();
-    deps.changed(round.flightId, round.stationId, ['rounds', 'notices']);
-    if (rebooking.alternateFlightId) deps.changed(rebooking.alternateFlightId, round.stationId, ['counts']);
+    const { rebooking } = await rebookVolunteer(deps.db, currentUser(req), id, choice);
     res.json({ plannedArrivalDelayMinutes: rebooking.plannedArrivalDelayMinutes, label: rebooking.label });
   });
 
