@@ -77,6 +77,8 @@ export interface PaymentsAppOptions {
   log?: (line: string) => void;
   /** Clock of the passenger's payment links (epoch ms). */
   now?: () => number;
+  /** How long a claim on a row being paid holds (the default is two minutes); tests of a crash take it shorter. */
+  claimLeaseSeconds?: number;
 }
 
 export async function startPaymentsApp(opts: PaymentsAppOptions): Promise<PaymentsApp> {
@@ -88,6 +90,7 @@ export async function startPaymentsApp(opts: PaymentsAppOptions): Promise<Paymen
     STRIPE_API_URL: opts.stripeApiUrl,
     STRIPE_SECRET_KEY: 'sk_test_bumpboard_api_tests',
     STRIPE_WEBHOOK_SECRET: WEBHOOK_SECRET,
+    ...(opts.claimLeaseSeconds ? { PAYMENTS_LEASE_SECONDS: String(opts.claimLeaseSeconds) } : {}),
   });
   const db = createDataSource(env.DATABASE_URL);
   await db.initialize();

@@ -58,16 +58,18 @@ export interface RowClaimer {
 
 const NOT_CLAIMED = '(lease_until IS NULL OR lease_until < UTC_TIMESTAMP(3))';
 
+/** Counts the claims of this process, so no two claims here share a token, whichever claimer object made them. */
+let claimsMade = 0;
+
 export function rowClaimer(db: DataSource, spec: ClaimableTable, claimer: string = newClaimerId()): RowClaimer {
-  let claims = 0;
   const { table, key } = spec;
 
   return {
     claimer,
 
     async claim<Row extends Record<string, unknown>>(request: ClaimRequest): Promise<Claim<Row>> {
-      claims += 1;
-      const token = `${claimer}/${claims}`;
+      claimsMade += 1;
+      const token = `${claimer}/${claimsMade}`;
       if (request.limit <= 0 || request.keys?.length === 0) return { token, rows: [] };
       const only = request.keys ? `AND ${key} IN (?)` : '';
       const params = [...(request.dueParams ?? []), ...(request.keys ? [request.keys] : []), request.limit];

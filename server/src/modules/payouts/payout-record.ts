@@ -31,7 +31,7 @@ export async function applyTransfer(em: EntityManager, attemptKey: string, payme
   if (RANK[payout.state] < RANK.processing) effects = await markSent(em, payout, comp, payment.id, actor);
   if (RANK[target] <= Math.max(RANK[payout.state], RANK.processing)) return effects;
   const changed = { flightId: comp.flightId, stationId: comp.stationId };
-  await em.update(PayoutEntity, { id: payout.id }, { state: target, providerPaymentId: payment.id, claimedUntil: null });
+  await em.update(PayoutEntity, { id: payout.id }, { state: target, providerPaymentId: payment.id, claimedBy: null, leaseUntil: null });
   if (target === 'posted') {
     if (comp.state !== 'issued') return effects;
     await em.update(CompensationEntity, { id: comp.id }, { state: 'settled' });
@@ -50,7 +50,7 @@ export async function applyTransfer(em: EntityManager, attemptKey: string, payme
 }
 
 async function markSent(em: EntityManager, payout: PayoutEntity, comp: CompensationEntity, paymentId: string, actor: Actor): Promise<Effects> {
-  await em.update(PayoutEntity, { id: payout.id }, { state: 'processing', providerPaymentId: paymentId, claimedUntil: null, lastError: null });
+  await em.update(PayoutEntity, { id: payout.id }, { state: 'processing', providerPaymentId: paymentId, claimedBy: null, leaseUntil: null, lastError: null });
   if (comp.state !== 'issuing' || comp.idempotencyKey !== payout.attemptKey) return NO_EFFECTS;
   await em.update(CompensationEntity, { id: comp.id }, { state: 'issued', lastError: null });
   comp.state = 'issued';
