@@ -18,10 +18,9 @@ const flightIds: number[] = [];
 
 beforeAll(async () => {
   fake = await startFake();
-  [one, two] = await Promise.all([
-    startPaymentsApp({ stripeApiUrl: fake.url, startWorker: false }),
-    startPaymentsApp({ stripeApiUrl: fake.url, startWorker: false }),
-  ]);
+  // An account of this run: the workers' passes see only this file's rows, not what other suites left 'issuing'.
+  const account = { stripeApiUrl: fake.url, startWorker: false, secretKey: `sk_test_bumpboard_claims_${RUN_ID}` };
+  [one, two] = await Promise.all([startPaymentsApp(account), startPaymentsApp(account)]);
   station = await paymentsTestStation(one.db, 'PWM');
 });
 afterAll(async () => {

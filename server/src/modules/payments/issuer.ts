@@ -189,10 +189,10 @@ export function createIssuer(ctx: PaymentsContext): Issuer {
     attempt(compensationId) {
       return once(compensationId, () => claim(compensationId));
     },
-    attemptClaimed(compensationId, token) {
-      // An attempt of this process under an earlier claim still runs (its lease ran out meanwhile): it does the work.
-      const running = inFlight.get(compensationId);
-      if (running) return running.then(() => endClaim(compensationId, token));
+    async attemptClaimed(compensationId, token) {
+      // Another attempt of this process is under way (a route's, whose own claim may have lost to this one): wait for
+      // it, then run under this claim; the run finds the row done, or does what the other could not.
+      for (let running = inFlight.get(compensationId); running; running = inFlight.get(compensationId)) await running;
       return once(compensationId, () => token);
     },
     async idle() {
