@@ -6,6 +6,7 @@ import { resolve } from 'node:path';
 import { countResults, summaryLine } from './lib/test-results.mjs';
 import { ensureDependencies } from './lib/deps.mjs';
 import { aptInstall } from './lib/mariadb.mjs';
+import { ensureRedisInstalled } from './lib/redis.mjs';
 import { buildClientIfStale } from './lib/client-build.mjs';
 import { migrateAndLoadDemo, serviceEnv, startDatabase, startServices } from './lib/stack.mjs';
 import { run, stopChildren } from './lib/processes.mjs';
@@ -59,6 +60,8 @@ async function main() {
     rmSync(`${local}/mail-fake`, { recursive: true, force: true });
     rmSync(`${local}/payments-fake`, { recursive: true, force: true });
     migrateAndLoadDemo(db.url, { local });
+    // The tests of several app processes start a Redis of their own; installed here once, like MariaDB.
+    if (wanted('api')) ensureRedisInstalled();
   });
   if (wanted('lint')) await step('lint (ESLint)', () => run('node_modules/.bin/eslint', ['--config', 'tests/lint/eslint.config.js', '.']) === 0);
   if (wanted('typecheck')) await step('type-check (tsc)', () => run('node_modules/.bin/tsc', ['-p', 'tsconfig.json', '--noEmit']) === 0);

@@ -24,9 +24,9 @@ export interface FaultDatabase {
   stop(): Promise<void>;
 }
 
-/** A private MariaDB under .local/test/faults-db on a port of its own, emptied and migrated. */
-export async function startFaultDatabase(): Promise<FaultDatabase> {
-  const baseDir = path.resolve('.local/test/faults-db');
+/** A private MariaDB under .local/test/`name` (faults-db unless named) on a port of its own, emptied and migrated. */
+export async function startFaultDatabase(name = 'faults-db'): Promise<FaultDatabase> {
+  const baseDir = path.resolve('.local/test', name);
   const port = await freePort();
   let db: PrivateMariadb = await startPrivateMariadb({ baseDir, port });
   db.resetDatabase();

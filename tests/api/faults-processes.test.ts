@@ -49,6 +49,7 @@ beforeAll(async () => {
     STRIPE_API_URL: provider.url, STRIPE_SECRET_KEY: 'sk_test_bumpboard_fault_tests', STRIPE_WEBHOOK_SECRET: WEBHOOK_SECRET,
     // Claims a killed server held are free again after this long (the default is two minutes).
     OUTBOX_LEASE_SECONDS: '5',
+    PAYMENTS_LEASE_SECONDS: '5',
   };
   server = await startServerProcess(serverEnv);
 }, 240_000);

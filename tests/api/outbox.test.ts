@@ -12,7 +12,7 @@ import { outboxListSchema } from '@shared/schemas/volunteers';
 import { createMailFake, type MailFake } from '../../mail-fake/src/app';
 import { AuditLogEntity, FlightEntity, OutboxMessageEntity } from '../../server/src/db/entities';
 import { createMailTransport, type MailTransport } from '../../server/src/integrations/mail/mail-transport';
-import { claimDueMessages, releaseClaim } from '../../server/src/modules/outbox/outbox-claims';
+import { claimDueMessages, markSent, releaseClaim } from '../../server/src/modules/outbox/outbox-claims';
 import { createOutboxWorker, type OutboxWorkerOptions } from '../../server/src/modules/outbox/outbox-worker';
 import { enqueueMessage } from '../../server/src/modules/outbox/outbox.service';
 import { Client, signedIn, startTestApp, type TestApp } from './harness';
@@ -320,6 +320,21 @@ describe('several workers', () => {
     expect(await claimDueMessages(t.db, opts)).toEqual([]);
     for (const claim of [...a, ...b]) expect(await releaseClaim(t.db, claim)).toBe(true);
     expect((await claimDueMessages(t.db, { ...opts, limit: 20 })).length).toBe(12);
+  });
+
+  it('a worker whose lease ran out records nothing over the claim that took its row after', async () => {
+    const flightId = await makeFlight();
+    const id = await enqueueCommitted(flightId);
+    const opts = { limit: 1, leaseMs: 60_000, onlyFlightIds: [flightId] };
+    const [stale] = await claimDueMessages(t.db, opts);
+    // The first worker hangs past its lease (time passing, set by hand): the row is due again.
+    await t.db.query('UPDATE outbox_messages SET lease_until = UTC_TIMESTAMP(3) - INTERVAL 1 SECOND WHERE id = ?', [id]);
+    const [fresh] = await claimDueMessages(t.db, opts);
+    expect([stale.attempt, fresh.attempt]).toEqual([1, 2]);
+    expect(await markSent(t.db, stale)).toBe(false);
+    expect(await row(id)).toMatchObject({ status: 'pending', attempts: 2 });
+    expect(await markSent(t.db, fresh)).toBe(true);
+    expect(await row(id)).toMatchObject({ status: 'sent', attempts: 2, claimedBy: null, leaseUntil: null });
   });
 
   it('stop() waits for the send in flight and hands back what it had not tried', async () => {

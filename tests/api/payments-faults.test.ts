@@ -32,7 +32,8 @@ const FAULTS: ApiFaultSpec[] = [
   { kind: 'drop', phase: 'before' },
   { kind: 'drop', phase: 'after' },
 ].map((f, i) => ({ ...f, kind: f.kind as ApiFaultSpec['kind'], phase: f.phase as ApiFaultSpec['phase'], probability: P_EACH, seed: 1_000 + i, count: FAULT_BUDGET }));
-const APP_OPTIONS = { worker: { pollMs: 50, retryAfterMs: 300, concurrency: 32 }, stripeTimeoutMs: 600 };
+// The crashed instance's claims are free again after 10 s: longer than an attempt's calls with their retries here.
+const APP_OPTIONS = { worker: { pollMs: 50, retryAfterMs: 300, concurrency: 32 }, stripeTimeoutMs: 600, claimLeaseSeconds: 10 };
 
 let setupDb: PaymentsApp;
 let station: StationEntity;
@@ -180,7 +181,8 @@ describe('a thousand issuances under provider faults, duplicated and reordered w
       // Calls were in flight when it died: those rows wait in 'issuing' for the next server's sweep.
       expect(midway.issuing ?? 0).toBeGreaterThan(0);
 
-      // A new instance on the same port and database: its first pass sweeps every row left 'issuing'.
+      // A new instance on the same port and database: its worker takes up every row left 'issuing' (the crashed
+      // instance's claims once their lease ends).
       appB = await startPaymentsApp({ stripeApiUrl: fake.url, port, ...APP_OPTIONS });
       const b = await clientsOf(appB);
       const stillDue = (await setupDb.db.getRepository(CompensationEntity).findBy({ flightId: flight.id, state: 'due' })).map((r) => r.id);

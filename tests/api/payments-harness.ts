@@ -77,6 +77,10 @@ export interface PaymentsAppOptions {
   log?: (line: string) => void;
   /** Clock of the passenger's payment links (epoch ms). */
   now?: () => number;
+  /** How long a claim on a row being paid holds (the default is two minutes); tests of a crash take it shorter. */
+  claimLeaseSeconds?: number;
+  /** A provider account of the test's own (the worker passes over rows started under another): the shared one when absent. */
+  secretKey?: string;
 }
 
 export async function startPaymentsApp(opts: PaymentsAppOptions): Promise<PaymentsApp> {
@@ -86,8 +90,9 @@ export async function startPaymentsApp(opts: PaymentsAppOptions): Promise<Paymen
     SESSION_SECRET: process.env.SESSION_SECRET ?? 'test-secret-test-secret-test-secret-42',
     STATIC_DIR: 'no-static-in-api-tests',
     STRIPE_API_URL: opts.stripeApiUrl,
-    STRIPE_SECRET_KEY: 'sk_test_bumpboard_api_tests',
+    STRIPE_SECRET_KEY: opts.secretKey ?? 'sk_test_bumpboard_api_tests',
     STRIPE_WEBHOOK_SECRET: WEBHOOK_SECRET,
+    ...(opts.claimLeaseSeconds ? { PAYMENTS_LEASE_SECONDS: String(opts.claimLeaseSeconds) } : {}),
   });
   const db = createDataSource(env.DATABASE_URL);
   await db.initialize();

@@ -165,7 +165,7 @@ describe('nothing paid twice under the stand-in’s faults', () => {
     // The three failures are spent either by one attempt (its error recorded, the claim released) or across the
     // issue path's attempt and the account entry's; either way the next pass sends it, and only once.
     await until('the failures are spent', async () => w.fake.fake.faults.api.list().length === 0);
-    await until('the claim released', async () => (await payoutOf(row.id)).claimedUntil === null || (await comp(row.id)).state === 'issued');
+    await until('the claim released', async () => (await payoutOf(row.id)).claimedBy === null || (await comp(row.id)).state === 'issued');
     await w.app.runtime.worker.runOnce({ all: true });
     await until('sent', async () => (await comp(row.id)).state === 'issued');
     expect(paymentsFor(row.id)).toHaveLength(1);

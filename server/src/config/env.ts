@@ -50,6 +50,13 @@ const envSchema = z
      */
     OUTBOX_LEASE_SECONDS: z.coerce.number().int().min(5, 'OUTBOX_LEASE_SECONDS must be at least 5').max(3600, 'OUTBOX_LEASE_SECONDS must be at most 3600').default(120),
     /**
+     * How long a compensation (or bank transfer) being paid is reserved for the process that claimed it. After a
+     * crash its claims wait this long before another process (or the restarted one) takes them up; the provider's
+     * keys make even a too-short lease pay once, but a lease longer than a provider call with its retries saves the
+     * second call.
+     */
+    PAYMENTS_LEASE_SECONDS: z.coerce.number().int().min(5, 'PAYMENTS_LEASE_SECONDS must be at least 5').max(3600, 'PAYMENTS_LEASE_SECONDS must be at most 3600').default(120),
+    /**
      * How long a flight being recomputed is reserved for the process that claimed it. After a crash, its flights are
      * recomputed by another process this long after; a recompute takes well under a second.
      */

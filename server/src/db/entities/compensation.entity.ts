@@ -112,6 +112,13 @@ export class CompensationEntity {
   @Column({ type: 'varchar', length: 40, name: 'amount_cleared_by', nullable: true })
   amountClearedBy!: string | null;
 
+  /** The claim of the worker issuing it at the provider (see db/claim-rows): a token of that claim, and when it lapses. */
+  @Column({ type: 'varchar', length: 96, name: 'claimed_by', nullable: true })
+  claimedBy!: string | null;
+
+  @Column({ type: 'datetime', precision: 3, name: 'lease_until', nullable: true })
+  leaseUntil!: Date | null;
+
   @CreateDateColumn({ type: 'datetime', precision: 3, default: () => 'CURRENT_TIMESTAMP(3)', name: 'created_at' })
   createdAt!: Date;
 

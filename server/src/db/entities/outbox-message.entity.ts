@@ -55,13 +55,20 @@ export class OutboxMessageEntity {
   @Column({ type: 'varchar', length: 10, default: 'pending' })
   status!: OutboxStatus;
 
-  /** Sends tried so far; also the fencing token that keeps a stale worker from recording a result. */
+  /** Sends tried so far. */
   @Column({ type: 'int', default: 0 })
   attempts!: number;
 
-  /** When a worker may next take the row: the retry time, or the end of a worker's claim while it sends. */
+  /** When a worker may next take the row (the retry time). */
   @Column({ type: 'datetime', precision: 3, name: 'next_attempt_at' })
   nextAttemptAt!: Date;
+
+  /** The claim of the worker sending it (see db/claim-rows): a token of that claim, and when it lapses. */
+  @Column({ type: 'varchar', length: 96, name: 'claimed_by', nullable: true })
+  claimedBy!: string | null;
+
+  @Column({ type: 'datetime', precision: 3, name: 'lease_until', nullable: true })
+  leaseUntil!: Date | null;
 
   @Column({ type: 'varchar', length: 500, name: 'last_error', nullable: true })
   lastError!: string | null;

@@ -41,7 +41,7 @@ export type PayoutState = 'awaiting-details' | 'ready' | 'processing' | 'posted'
 /** One bank transfer attempt: the passenger's account as the provider's payment method, never its number. */
 @Entity({ name: 'payouts' })
 @Index('ix_payout_compensation', ['compensationId'])
-@Index('ix_payout_state', ['state', 'claimedUntil'])
+@Index('ix_payout_state', ['state', 'leaseUntil'])
 export class PayoutEntity {
   @PrimaryGeneratedColumn({ type: 'int' })
   id!: number;
@@ -72,9 +72,12 @@ export class PayoutEntity {
   @Column({ type: 'varchar', length: 64, name: 'provider_payment_id', nullable: true })
   providerPaymentId!: string | null;
 
-  /** A worker's claim while it calls the provider; a claim past its time is free again (the worker died). */
-  @Column({ type: 'datetime', precision: 3, name: 'claimed_until', nullable: true })
-  claimedUntil!: Date | null;
+  /** A worker's claim while it calls the provider (see db/claim-rows); past its lease it is free again (the worker died). */
+  @Column({ type: 'varchar', length: 96, name: 'claimed_by', nullable: true })
+  claimedBy!: string | null;
+
+  @Column({ type: 'datetime', precision: 3, name: 'lease_until', nullable: true })
+  leaseUntil!: Date | null;
 
   @Column({ type: 'varchar', length: 300, name: 'last_error', nullable: true })
   lastError!: string | null;

@@ -27,6 +27,7 @@ import { PassengerOptionalFees1796400000000 } from './1796400000000-PassengerOpt
 import { RuleRefunds1796401000000 } from './1796401000000-RuleRefunds';
 import { ReconciliationByMedium1796500000000 } from './1796500000000-ReconciliationByMedium';
 import { RecomputeQueue1796600000000 } from './1796600000000-RecomputeQueue';
+import { ClaimedRows1797000000000 } from './1797000000000-ClaimedRows';
 import { BookingChannel1796800000000 } from './1796800000000-BookingChannel';
 import { AlertSubjects1796900000000 } from './1796900000000-AlertSubjects';
 
@@ -61,4 +62,5 @@ export const migrations = [
   RecomputeQueue1796600000000,
   BookingChannel1796800000000,
   AlertSubjects1796900000000,
+  ClaimedRows1797000000000,
 ];

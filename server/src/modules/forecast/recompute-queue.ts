@@ -4,10 +4,10 @@
 // the line, behind the flights that have waited longer (the latest state wins, and a flight with check-ins arriving
 // all the time never keeps the others waiting). A process takes the flights it asked for itself (its notices then leave from
 // where the change came in); another process's rows only once their lease ran out or nobody claimed them for a
-// lease's length (their process died).
-import { hostname } from 'node:os';
-import { randomUUID } from 'node:crypto';
+// lease's length (their process died). Its claims count the requests made meanwhile, which the shared claim helper
+// (db/claim-rows) does not; the claimer's name is the helper's.
 import type { DataSource } from 'typeorm';
+import { newClaimerId } from '../../db/claim-rows';
 
 export interface ClaimedRecompute {
   flightId: number;
@@ -35,10 +35,6 @@ export interface RecomputeQueueOptions {
 }
 
 export const DEFAULT_RECOMPUTE_LEASE_MS = 30_000;
-
-export function newClaimerId(): string {
-  return `${hostname()}:${process.pid}:${randomUUID().slice(0, 8)}`;
-}
 
 interface ClaimRow {
   flight_id: number;

@@ -1,12 +1,14 @@
-// The worker's SQL. A claim is a lease: in one short transaction a worker locks due rows (skipping rows another
-// worker holds), bumps attempts and pushes next_attempt_at past the lease, then commits and sends without a
-// lock. Every later write is fenced on (status 'pending', the attempts value of the claim), so a worker whose
-// lease ran out can never record over a newer claim.
+// The worker's SQL, on the claim helper every worker uses (db/claim-rows): a worker claims due rows for a lease,
+// counting the attempt, then sends without a lock. Every later write is fenced on the claim's token, so a worker
+// whose lease ran out can never record over a newer claim.
 import type { DataSource } from 'typeorm';
+import { rowClaimer, type RowClaimer } from '../../db/claim-rows';
 
 export interface ClaimedMessage {
   id: string;
-  /** attempts after this claim: 1 on the first send. Also the fence for the writes below. */
+  /** The claim's token: the fence for the writes below. */
+  token: string;
+  /** attempts after this claim: 1 on the first send. */
   attempt: number;
   to: string;
   subject: string;
@@ -21,7 +23,7 @@ export interface ClaimOptions {
   onlyFlightIds?: readonly number[];
 }
 
-interface ClaimRow {
+interface ClaimRow extends Record<string, unknown> {
   id: string;
   attempts: number;
   to_address: string;
@@ -31,35 +33,33 @@ interface ClaimRow {
 }
 
 const LAST_ERROR_MAX = 500;
+const OUTBOX = { table: 'outbox_messages', key: 'id' };
+
+/** One claimer per database per process: its tokens name this process. */
+const claimers = new WeakMap<DataSource, RowClaimer>();
+function claimerFor(db: DataSource): RowClaimer {
+  let claimer = claimers.get(db);
+  if (!claimer) claimers.set(db, (claimer = rowClaimer(db, OUTBOX)));
+  return claimer;
+}
 
 export async function claimDueMessages(db: DataSource, opts: ClaimOptions): Promise<ClaimedMessage[]> {
   if (opts.onlyFlightIds?.length === 0) return [];
   const scope = opts.onlyFlightIds ? 'AND flight_id IN (?)' : '';
-  const params: unknown[] = opts.onlyFlightIds ? [opts.onlyFlightIds, opts.limit] : [opts.limit];
-  // READ COMMITTED: no gap locks, so a claim never holds up the inserts of enqueueMessage.
-  return db.transaction('READ COMMITTED', async (em) => {
-    // SKIP LOCKED (MariaDB 10.6+): rows another worker is claiming right now are passed over, not waited for.
-    const rows: ClaimRow[] = await em.query(
-      `SELECT id, attempts, to_address, subject, text, html FROM outbox_messages
-        WHERE status = 'pending' AND next_attempt_at <= UTC_TIMESTAMP(3) ${scope}
-        ORDER BY next_attempt_at LIMIT ? FOR UPDATE SKIP LOCKED`,
-      params,
-    );
-    if (rows.length === 0) return [];
-    await em.query(
-      `UPDATE outbox_messages SET attempts = attempts + 1, next_attempt_at = UTC_TIMESTAMP(3) + INTERVAL ? MICROSECOND WHERE id IN (?)`,
-      [opts.leaseMs * 1000, rows.map((r) => r.id)],
-    );
-    return rows.map((r) => ({ id: r.id, attempt: r.attempts + 1, to: r.to_address, subject: r.subject, text: r.text, html: r.html }));
+  const claim = await claimerFor(db).claim<ClaimRow>({
+    limit: opts.limit,
+    leaseMs: opts.leaseMs,
+    due: `status = 'pending' AND next_attempt_at <= UTC_TIMESTAMP(3) ${scope}`,
+    dueParams: opts.onlyFlightIds ? [opts.onlyFlightIds] : [],
+    orderBy: 'next_attempt_at',
+    columns: 'id, attempts, to_address, subject, text, html',
+    alsoSet: 'attempts = attempts + 1',
   });
+  return claim.rows.map((r) => ({ id: r.id, token: claim.token, attempt: r.attempts + 1, to: r.to_address, subject: r.subject, text: r.text, html: r.html }));
 }
 
-async function fencedUpdate(db: DataSource, claim: ClaimedMessage, set: string, params: unknown[]): Promise<boolean> {
-  const result: { affectedRows?: number } = await db.query(
-    `UPDATE outbox_messages SET ${set} WHERE id = ? AND status = 'pending' AND attempts = ?`,
-    [...params, claim.id, claim.attempt],
-  );
-  return result.affectedRows === 1;
+function fencedUpdate(db: DataSource, claim: ClaimedMessage, set: string, params: unknown[]): Promise<boolean> {
+  return claimerFor(db).finish(claim.token, claim.id, set, params);
 }
 
 /** After the server's 250: the only way a row becomes 'sent'. */
@@ -77,7 +77,7 @@ export function markFailed(db: DataSource, claim: ClaimedMessage, reason: string
 
 /** Hands back a claim that was never tried (the worker is stopping), as if it had not been taken. */
 export function releaseClaim(db: DataSource, claim: ClaimedMessage): Promise<boolean> {
-  return fencedUpdate(db, claim, 'attempts = attempts - 1, next_attempt_at = UTC_TIMESTAMP(3)', []);
+  return fencedUpdate(db, claim, 'attempts = attempts - 1', []);
 }
 
 function clip(reason: string): string {

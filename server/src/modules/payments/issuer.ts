@@ -2,6 +2,7 @@
 // amount. Every call carries a key derived from the compensation, fixed before the first attempt, so the HTTP
 // route, the worker and a restarted server all send the same keys and the provider issues one card, however
 // often the answer is lost (Stripe docs, "Idempotent requests"; Issuing "Virtual cards" and "Spending controls").
+// Every attempt runs under a claim on the row (db/claim-rows), so two processes never call for it at once.
 import { CompensationEntity } from '../../db/entities';
 import { cardholderName } from '../../integrations/payments/cardholder-name';
 import { stationBillingAddress } from '../../integrations/payments/billing-address';
@@ -17,8 +18,13 @@ import { assertReadyToIssue } from '../agreements/agreement.service';
 import { DomainError } from '../../domain/errors';
 
 export interface Issuer {
-  /** One attempt for a row in 'issuing'; a second call while one runs joins it. Never throws. */
+  /**
+   * One attempt for a row in 'issuing', under a claim taken for it; a second call while one runs here joins it, and
+   * a row another process holds is left to that process. Never throws.
+   */
   attempt(compensationId: number): Promise<void>;
+  /** One attempt for a row the caller (the worker) has already claimed with `token`; ends the claim. Never throws. */
+  attemptClaimed(compensationId: number, token: string): Promise<void>;
   /** Attempts still running, e.g. for a clean stop. */
   idle(): Promise<void>;
 }
@@ -36,6 +42,9 @@ export function providerWork(c: Pick<CompensationEntity, 'medium' | 'form'>): 'c
   if (c.medium === 'prepaid-card' || c.form === 'voucher') return 'card';
   return null;
 }
+
+/** A claim is not a change of the compensation: its updated_at (the worker's retry clock) stays as it was. */
+export const KEEP_UPDATED_AT = 'updated_at = updated_at';
 
 export function createIssuer(ctx: PaymentsContext): Issuer {
   const inFlight = new Map<number, Promise<void>>();
@@ -141,15 +150,49 @@ export function createIssuer(ctx: PaymentsContext): Issuer {
       .catch((e: unknown) => ctx.log(`[payments] compensation ${compensationId}: could not record the refusal: ${(e as Error).message}`));
   }
 
+  /** Claims the row for this attempt: null when it is not 'issuing' or another process holds it. */
+  async function claim(compensationId: number): Promise<string | null> {
+    const claimed = await ctx.claims.compensations.claim({
+      limit: 1, leaseMs: ctx.claims.leaseMs, due: `state = 'issuing'`, keys: [compensationId], alsoSet: KEEP_UPDATED_AT,
+    });
+    return claimed.rows.length === 1 ? claimed.token : null;
+  }
+
+  /** Runs under the claim and then ends it, whatever happened; an end that fails leaves the lease to run out. */
+  async function underClaim(compensationId: number, token: string | Promise<string | null>): Promise<void> {
+    const held = await token;
+    if (!held) return;
+    try {
+      await run(compensationId);
+    } finally {
+      await endClaim(compensationId, held);
+    }
+  }
+
+  async function endClaim(compensationId: number, token: string): Promise<void> {
+    await ctx.claims.compensations.finish(token, compensationId, KEEP_UPDATED_AT)
+      .catch((e: unknown) => ctx.log(`[payments] compensation ${compensationId}: could not end the claim (its lease will): ${(e as Error).message}`));
+  }
+
+  function once(compensationId: number, token: () => string | Promise<string | null>): Promise<void> {
+    const running = inFlight.get(compensationId);
+    if (running) return running;
+    const attempt = underClaim(compensationId, token())
+      .catch((error: unknown) => ctx.log(`[payments] compensation ${compensationId}: ${(error as Error).message}`))
+      .finally(() => inFlight.delete(compensationId));
+    inFlight.set(compensationId, attempt);
+    return attempt;
+  }
+
   return {
     attempt(compensationId) {
-      const running = inFlight.get(compensationId);
-      if (running) return running;
-      const attempt = run(compensationId)
-        .catch((error: unknown) => ctx.log(`[payments] compensation ${compensationId}: ${(error as Error).message}`))
-        .finally(() => inFlight.delete(compensationId));
-      inFlight.set(compensationId, attempt);
-      return attempt;
+      return once(compensationId, () => claim(compensationId));
+    },
+    async attemptClaimed(compensationId, token) {
+      // Another attempt of this process is under way (a route's, whose own claim may have lost to this one): wait for
+      // it, then run under this claim; the run finds the row done, or does what the other could not.
+      for (let running = inFlight.get(compensationId); running; running = inFlight.get(compensationId)) await running;
+      return once(compensationId, () => token);
     },
     async idle() {
       await Promise.allSettled([...inFlight.values()]);

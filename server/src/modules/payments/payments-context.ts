@@ -1,4 +1,5 @@
 import type { DataSource } from 'typeorm';
+import type { RowClaimer } from '../../db/claim-rows';
 import type { IssuingProvider } from '../../integrations/payments/issuing-provider';
 import type { PassengerPaymentsProvider } from '../../integrations/payments/passenger-provider';
 
@@ -15,6 +16,11 @@ export interface PaymentsContext {
   appBaseUrl: string;
   /** The clock the passenger's links expire by; tests step it forward. */
   now: () => number;
+  /**
+   * Claims on the rows this process pays (see db/claim-rows), so two processes never call the provider for the same
+   * compensation or transfer at once, and a dead process's rows are taken up after the lease.
+   */
+  claims: { compensations: RowClaimer; payouts: RowClaimer; leaseMs: number };
 }
 
 export const WORKER_ACTOR = { label: 'payments worker' };

@@ -4,6 +4,7 @@
 import type Stripe from 'stripe';
 import type { DataSource } from 'typeorm';
 import type { Env } from '../../config/env';
+import { newClaimerId, rowClaimer } from '../../db/claim-rows';
 import { stripeIssuingProvider, type IssuingProvider } from '../../integrations/payments/issuing-provider';
 import { createStripeClient, providerAccountOf } from '../../integrations/payments/stripe-client';
 import { stripePassengerProvider } from '../../integrations/payments/passenger-provider';
@@ -25,7 +26,7 @@ export interface PaymentsRuntimeOptions {
   db: DataSource;
   /** The SDK pointed at Stripe or the local stand-in; built from env when absent. */
   stripe?: Stripe;
-  env: Pick<Env, 'STRIPE_SECRET_KEY' | 'STRIPE_API_URL' | 'STRIPE_WEBHOOK_SECRET'> & Partial<Pick<Env, 'APP_BASE_URL'>>;
+  env: Pick<Env, 'STRIPE_SECRET_KEY' | 'STRIPE_API_URL' | 'STRIPE_WEBHOOK_SECRET'> & Partial<Pick<Env, 'APP_BASE_URL' | 'PAYMENTS_LEASE_SECONDS'>>;
   /** The carrier's Treasury financial account that bank transfers leave from. */
   financialAccount?: string;
   /** Clock for the passenger's links (epoch ms); tests step it past an expiry. */
@@ -58,9 +59,15 @@ export function createPaymentsRuntime(opts: PaymentsRuntimeOptions): PaymentsRun
   const log = opts.log ?? ((line: string) => console.warn(line));
   const providerAccount = providerAccountOf({ apiUrl: opts.env.STRIPE_API_URL, secretKey: opts.env.STRIPE_SECRET_KEY });
   const passenger = stripePassengerProvider(stripe, opts.financialAccount ?? DEFAULT_FINANCIAL_ACCOUNT);
+  const claimer = newClaimerId();
   const ctx: PaymentsContext = {
     db: opts.db, provider, providerAccount, log, passenger,
     appBaseUrl: (opts.env.APP_BASE_URL ?? 'http://127.0.0.1:4600').replace(/\/$/, ''), now: opts.now ?? Date.now,
+    claims: {
+      compensations: rowClaimer(opts.db, { table: 'compensations', key: 'id' }, claimer),
+      payouts: rowClaimer(opts.db, { table: 'payouts', key: 'attempt_key' }, claimer),
+      leaseMs: (opts.env.PAYMENTS_LEASE_SECONDS ?? 120) * 1000,
+    },
   };
   const issuer = createIssuer(ctx);
   const worker = createPaymentsWorker(ctx, issuer, opts.worker);

@@ -1,15 +1,20 @@
 // Finishes what an interrupted issuance left in 'issuing': a timeout, a 500, a dropped connection, or a server that
 // stopped mid-call. It retries with the keys fixed on the row, so the provider answers with what it already did
-// instead of issuing again. On start it sweeps every 'issuing' row at once: a crash resolves on restart.
-import type { Issuer } from './issuer';
+// instead of issuing again. It claims the rows it takes (db/claim-rows), so a second process's worker, or a route of
+// either process, never calls for the same row at once. On start it sweeps every 'issuing' row nobody holds; a
+// crashed process's rows are taken up once their lease runs out.
+import { KEEP_UPDATED_AT, type Issuer } from './issuer';
 import type { PaymentsContext } from './payments-context';
 
 /**
  * Rows the provider has something to do for: cards and transfers (see providerWork), and not a transfer that waits
  * for the passenger to give their account, which only the passenger's page moves on.
  */
-const PROVIDER_WORK = `(c.medium IN ('prepaid-card', 'bank-transfer') OR c.form = 'voucher')
-  AND NOT EXISTS (SELECT 1 FROM payouts po WHERE po.attempt_key = c.idempotency_key AND po.state = 'awaiting-details')`;
+const PROVIDER_WORK = `(compensations.medium IN ('prepaid-card', 'bank-transfer') OR compensations.form = 'voucher')
+  AND NOT EXISTS (SELECT 1 FROM payouts po WHERE po.attempt_key = compensations.idempotency_key AND po.state = 'awaiting-details')`;
+
+/** Only issuances started under this server's provider account: elsewhere their keys would issue a second card. */
+const THIS_ACCOUNT = `EXISTS (SELECT 1 FROM payment_issuances pi WHERE pi.compensation_id = compensations.id AND pi.provider_account = ?)`;
 
 export interface PaymentsWorkerOptions {
   /** Wait between passes when nothing was due. */
@@ -42,22 +47,25 @@ export function createPaymentsWorker(ctx: PaymentsContext, issuer: Issuer, opts:
   let stopRequested = false;
 
   async function pass(all: boolean): Promise<number> {
-    const age = all ? '' : 'AND c.updated_at <= CURRENT_TIMESTAMP(3) - INTERVAL ? MICROSECOND';
-    // Only issuances started under this server's provider account: elsewhere their keys would issue a second card.
-    const rows: { id: number }[] = await ctx.db.query(
-      `SELECT c.id FROM compensations c JOIN payment_issuances pi ON pi.compensation_id = c.id AND pi.provider_account = ?
-        WHERE c.state = 'issuing' ${age} AND ${PROVIDER_WORK}
-        ORDER BY c.updated_at, c.id LIMIT ?`,
-      all ? [ctx.providerAccount, batchSize] : [ctx.providerAccount, retryAfterMs * 1000, batchSize],
-    );
-    const queue = rows.map((r) => r.id);
+    const age = all ? '' : 'AND updated_at <= CURRENT_TIMESTAMP(3) - INTERVAL ? MICROSECOND';
+    const { token, rows } = await ctx.claims.compensations.claim<{ id: number }>({
+      limit: batchSize,
+      leaseMs: ctx.claims.leaseMs,
+      due: `state = 'issuing' ${age} AND ${THIS_ACCOUNT} AND ${PROVIDER_WORK}`,
+      dueParams: all ? [ctx.providerAccount] : [retryAfterMs * 1000, ctx.providerAccount],
+      orderBy: 'updated_at, id',
+      alsoSet: KEEP_UPDATED_AT,
+    });
+    const queue = rows.map((r) => Number(r.id));
     const lane = async () => {
       for (let id = queue.shift(); id !== undefined; id = queue.shift()) {
-        if (stopRequested) return;
-        await issuer.attempt(id);
+        if (stopRequested) break;
+        await issuer.attemptClaimed(id, token);
       }
     };
     await Promise.all(Array.from({ length: Math.min(concurrency, queue.length) }, lane));
+    // Stopping: what was claimed and not tried goes back at once instead of waiting out the lease.
+    for (const id of queue) await ctx.claims.compensations.finish(token, id, KEEP_UPDATED_AT);
     return rows.length;
   }
 

@@ -31,7 +31,7 @@ export async function applyTransfer(em: EntityManager, attemptKey: string, payme
   if (RANK[payout.state] < RANK.processing) await markSent(em, payout, comp, payment.id, actor);
   if (RANK[target] <= Math.max(RANK[payout.state], RANK.processing)) return;
   recordEffect(em, flightChanged(comp.flightId, comp.stationId, ['compensations']));
-  await em.update(PayoutEntity, { id: payout.id }, { state: target, providerPaymentId: payment.id, claimedUntil: null });
+  await em.update(PayoutEntity, { id: payout.id }, { state: target, providerPaymentId: payment.id, claimedBy: null, leaseUntil: null });
   if (target === 'posted') {
     if (comp.state !== 'issued') return;
     await em.update(CompensationEntity, { id: comp.id }, { state: 'settled' });
@@ -49,7 +49,7 @@ export async function applyTransfer(em: EntityManager, attemptKey: string, payme
 }
 
 async function markSent(em: EntityManager, payout: PayoutEntity, comp: CompensationEntity, paymentId: string, actor: Actor): Promise<void> {
-  await em.update(PayoutEntity, { id: payout.id }, { state: 'processing', providerPaymentId: paymentId, claimedUntil: null, lastError: null });
+  await em.update(PayoutEntity, { id: payout.id }, { state: 'processing', providerPaymentId: paymentId, claimedBy: null, leaseUntil: null, lastError: null });
   if (comp.state !== 'issuing' || comp.idempotencyKey !== payout.attemptKey) return;
   await em.update(CompensationEntity, { id: comp.id }, { state: 'issued', lastError: null });
   comp.state = 'issued';

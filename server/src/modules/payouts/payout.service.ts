@@ -1,7 +1,7 @@
 // A compensation paid by bank transfer: the passenger is mailed a payout link, enters their own account on their own
 // phone (never a staff screen), the provider keeps it as a payment method (we keep its id and last four digits),
 // and the transfer goes out as one Treasury OutboundPayment under a key fixed by the payment attempt. A worker
-// claims the row (claimed_until) before it calls, so two processes never send the same row at once, and the key
+// claims the row (db/claim-rows) before it calls, so two processes never send the same row at once, and the key
 // makes even a lost answer or a crash mid-call resolve to the one payment the provider already made.
 import type { EntityManager } from 'typeorm';
 import type { BookingProof, PayoutLink } from '@shared/schemas/payouts';
@@ -18,9 +18,6 @@ import { bookingLanguage, countWrongTry, createLink, findLink, linkState, markUs
 import { payoutLinkNotice } from './payout-notices';
 import { transferCurrencyProblem } from './transfer-currencies';
 import { recordTransferSent } from './payout-record';
-
-/** How long a worker's claim holds; longer than the SDK's timeout with its retries, so a live call is never joined. */
-const CLAIM_SECONDS = 120;
 
 export const transferKey = (attemptKey: string) => `${attemptKey}-transfer`;
 
@@ -59,24 +56,25 @@ async function openPayout(em: EntityManager, ctx: PaymentsContext, compensationI
   return { ready: null };
 }
 
-/** The claim: one UPDATE that only one process can win; a claim past its time (a dead worker) is free again. */
-async function claim(ctx: PaymentsContext, attemptKey: string): Promise<boolean> {
-  const result: { affectedRows?: number } = await ctx.db.query(
-    `UPDATE payouts SET claimed_until = CURRENT_TIMESTAMP(3) + INTERVAL ${CLAIM_SECONDS} SECOND
-      WHERE attempt_key = ? AND state = 'ready' AND (claimed_until IS NULL OR claimed_until < CURRENT_TIMESTAMP(3))`,
-    [attemptKey],
-  );
-  return (result.affectedRows ?? 0) === 1;
+/**
+ * The claim (db/claim-rows): only one process wins a ready row; a claim past its lease (a dead worker) is free again.
+ * The lease is longer than the SDK's timeout with its retries, so a live call is never joined. Resolves with the
+ * claim's token, or null when someone else holds the row.
+ */
+async function claim(ctx: PaymentsContext, attemptKey: string): Promise<string | null> {
+  const claimed = await ctx.claims.payouts.claim({ limit: 1, leaseMs: ctx.claims.leaseMs, due: `state = 'ready'`, keys: [attemptKey] });
+  return claimed.rows.length === 1 ? claimed.token : null;
 }
 
-async function release(ctx: PaymentsContext, attemptKey: string, reason: string | null): Promise<void> {
-  await ctx.db.query('UPDATE payouts SET claimed_until = NULL, last_error = ? WHERE attempt_key = ? AND state = \'ready\'', [reason, attemptKey]);
+async function release(ctx: PaymentsContext, token: string, attemptKey: string, reason: string | null): Promise<void> {
+  await ctx.claims.payouts.finish(token, attemptKey, 'last_error = ?', [reason]);
 }
 
 async function sendTransfer(ctx: PaymentsContext, attemptKey: string): Promise<void> {
-  if (!(await claim(ctx, attemptKey))) return;
+  const token = await claim(ctx, attemptKey);
+  if (!token) return;
   const payout = await ctx.db.getRepository(PayoutEntity).findOneByOrFail({ attemptKey });
-  if (!payout.paymentMethodId) return release(ctx, attemptKey, 'no payment method on record');
+  if (!payout.paymentMethodId) return release(ctx, token, attemptKey, 'no payment method on record');
   const row = await compensationRow(ctx.db, payout.compensationId);
   let sent;
   try {
@@ -90,9 +88,9 @@ async function sendTransfer(ctx: PaymentsContext, attemptKey: string): Promise<v
     );
   } catch (error) {
     const failure = classifyProviderError(error, 'sending the bank transfer');
-    if (failure.retryable) return release(ctx, attemptKey, failure.reason);
+    if (failure.retryable) return release(ctx, token, attemptKey, failure.reason);
     return ctx.db.transaction(async (em) => {
-      await em.update(PayoutEntity, { id: payout.id }, { state: 'failed', claimedUntil: null, lastError: failure.reason });
+      await em.update(PayoutEntity, { id: payout.id }, { state: 'failed', claimedBy: null, leaseUntil: null, lastError: failure.reason });
       await recordRefused(em, payout.compensationId, failure.reason, WORKER_ACTOR);
     });
   }
