@@ -16,24 +16,6 @@ export interface Applied {
 
 const rejected = (field: string, rule: string) => unprocessable('event_rejected', `${field}: ${rule}`, [{ field, rule }]);
 
-/** Flights looked up once per batch: a burst of check-ins names the same few flights again and again. */
-export class BatchFlights {
-  private readonly flights = new Map<string, Promise<FlightEntity | null>>();
-  constructor(private readonly em: EntityManager, private readonly stationId: number) {}
-
-  async of(e: IntegrationEvent): Promise<FlightEntity> {
-    const key = `${e.flight.carrier}|${e.flight.number}|${e.flight.date}`;
-    let found = this.flights.get(key);
-    if (!found) {
-      found = this.em.findOneBy(FlightEntity, { stationId: this.stationId, carrierCode: e.flight.carrier, flightNumber: e.flight.number, serviceDate: e.flight.date });
-      this.flights.set(key, found);
-    }
-    const flight = await found;
-    if (!flight) throw rejected('flight', `no flight ${e.flight.carrier}${e.flight.number} on ${e.flight.date} departs from this station`);
-    return flight;
-  }
-}
-
 async function targets(em: EntityManager, flightId: number, pnr: string, sequence: number | undefined) {
   const booking = await em.findOneBy(BookingEntity, { flightId, pnr });
   if (!booking) throw rejected('pnr', `no booking ${pnr} on this flight`);
@@ -55,6 +37,7 @@ const STATUS_CHANGES: Record<string, { to: PassengerStatus; set: string; times: 
 };
 
 type StatusEvent = Extract<IntegrationEvent, { type: 'passenger.checked-in' | 'check-in.cancelled' | 'passenger.boarded' | 'passenger.offloaded' }>;
+const isStatusEvent = (e: IntegrationEvent): e is StatusEvent => e.type in STATUS_CHANGES;
 
 interface HeldRow {
   id: number;
@@ -64,13 +47,63 @@ interface HeldRow {
   checked_in: Date | string | null;
 }
 
+/** Flights looked up once per batch: a burst of check-ins names the same few flights again and again. */
+export class BatchFlights {
+  private readonly flights = new Map<string, Promise<FlightEntity | null>>();
+  constructor(private readonly em: EntityManager, private readonly stationId: number) {}
+
+  async of(e: IntegrationEvent): Promise<FlightEntity> {
+    const key = `${e.flight.carrier}|${e.flight.number}|${e.flight.date}`;
+    let found = this.flights.get(key);
+    if (!found) {
+      found = this.em.findOneBy(FlightEntity, { stationId: this.stationId, carrierCode: e.flight.carrier, flightNumber: e.flight.number, serviceDate: e.flight.date });
+      this.flights.set(key, found);
+    }
+    const flight = await found;
+    if (!flight) throw rejected('flight', `no flight ${e.flight.carrier}${e.flight.number} on ${e.flight.date} departs from this station`);
+    return flight;
+  }
+
+  /** Passengers locked ahead for the batch's status events, by flight and booking reference. */
+  private readonly locked = new Map<string, HeldRow[]>();
+
+  /**
+   * Reads and locks, in one statement, the passengers of every booking the batch's status events name, instead of
+   * one locking read per event. Only for a batch of status events alone: a booking added or cancelled in the same
+   * batch would change the rows after they were read.
+   */
+  async lockAhead(events: readonly IntegrationEvent[]): Promise<void> {
+    if (events.length < 2 || !events.every(isStatusEvent)) return;
+    const pairs = new Map<string, [number, string]>();
+    for (const e of events) {
+      const flight = await this.of(e).catch(() => null);
+      if (flight) pairs.set(`${flight.id}|${e.pnr}`, [flight.id, e.pnr]);
+    }
+    if (pairs.size === 0) return;
+    const rows: (HeldRow & { flight_id: number; pnr: string })[] = await this.em.query(
+      `SELECT p.id, p.pnr_sequence AS seq, p.status, p.status_changed_at AS changed, p.checked_in_at AS checked_in, b.flight_id, b.pnr
+         FROM passengers p JOIN bookings b ON b.id = p.booking_id WHERE (b.flight_id, b.pnr) IN (?) ORDER BY p.id FOR UPDATE`,
+      [[...pairs.values()]],
+    );
+    for (const key of pairs.keys()) this.locked.set(key, []);
+    for (const r of rows) this.locked.get(`${r.flight_id}|${r.pnr}`)?.push(r);
+    for (const list of this.locked.values()) list.sort((a, b) => Number(a.seq) - Number(b.seq));
+  }
+
+  /** The rows locked ahead for this booking (kept up to date by each update), or undefined to read them now. */
+  lockedRows(flightId: number, pnr: string): HeldRow[] | undefined {
+    return this.locked.get(`${flightId}|${pnr}`);
+  }
+}
+
+
 /**
  * A status event in two statements: the booking's passengers read and locked (one join), then one guarded UPDATE.
  * Every check comes before the write, so a rejected event has changed nothing and needs no savepoint.
  */
-async function applyStatus(em: EntityManager, flight: FlightEntity, e: StatusEvent, at: Date): Promise<Applied> {
+async function applyStatus(em: EntityManager, flights: BatchFlights, flight: FlightEntity, e: StatusEvent, at: Date): Promise<Applied> {
   const rule = STATUS_CHANGES[e.type];
-  const rows: HeldRow[] = await em.query(
+  const rows: HeldRow[] = flights.lockedRows(flight.id, e.pnr) ?? await em.query(
     `SELECT p.id, p.pnr_sequence AS seq, p.status, p.status_changed_at AS changed, p.checked_in_at AS checked_in
        FROM passengers p JOIN bookings b ON b.id = p.booking_id WHERE b.flight_id = ? AND b.pnr = ? ORDER BY p.pnr_sequence FOR UPDATE`,
     [flight.id, e.pnr],
@@ -90,6 +123,16 @@ async function applyStatus(em: EntityManager, flight: FlightEntity, e: StatusEve
     );
   }
   if (filled.length) await em.query('UPDATE passengers SET checked_in_at = ? WHERE id IN (?) AND checked_in_at IS NULL', [at, filled]);
+  // The rows held for the batch follow what was written, for the batch's later events about the same passengers.
+  for (const p of chosen) {
+    if (moved.includes(Number(p.id))) {
+      p.status = rule.to;
+      p.changed = at;
+      if (e.type === 'passenger.checked-in') p.checked_in = at;
+      else if (e.type === 'check-in.cancelled') p.checked_in = null;
+      else if (e.type === 'passenger.boarded') p.checked_in ??= at;
+    } else if (filled.includes(Number(p.id))) p.checked_in = at;
+  }
   if (e.type === 'passenger.checked-in' && e.seat && moved.length) await em.query('UPDATE passengers SET seat = ? WHERE id IN (?)', [e.seat, moved]);
   const who = e.sequence === undefined ? `${e.pnr} (${chosen.length})` : `${e.pnr}/${e.sequence}`;
   const newest = moved.length > 0;
@@ -164,5 +207,5 @@ export async function applyEvent(em: EntityManager, flights: BatchFlights, e: In
     return { flightId: flight.id, status: 'applied', summary: `Booking ${e.pnr} cancelled` };
   }
 
-  return applyStatus(em, flight, e, at);
+  return applyStatus(em, flights, flight, e, at);
 }

@@ -38,8 +38,9 @@ async function recordEvents(em: EntityManager, stationId: number, rows: { event:
 /**
  * Applies a batch in one transaction: ids already stored (or repeated in the batch) are acknowledged without being
  * applied twice, a bad event is rejected alone (every check of an event comes before its first write, so a rejected
- * event has changed nothing), and the batch commits once. Statements per status event: one locking read and one
- * guarded update; per batch: the id look-up, each flight's look-up and one insert of all event rows. A deadlock, or a
+ * event has changed nothing), and the batch commits once. Statements per status event: one guarded update; per batch:
+ * the id look-up, each flight's look-up, one locking read of every booking the status events name, and one insert of
+ * all event rows. A deadlock, or a
  * concurrent batch storing one of our ids, retries the whole batch.
  */
 export async function applyEventBatch(db: DataSource, stationId: number, raw: unknown[]): Promise<{ results: EventResult[]; touchedFlights: Set<number> }> {
@@ -59,6 +60,7 @@ export async function applyEventBatch(db: DataSource, stationId: number, raw: un
         await db.transaction(async (em) => {
           const seen = await storedIds(em, stationId, [...new Set(valid.map((p) => p.event.id))]);
           const flights = new BatchFlights(em, stationId);
+          await flights.lockAhead(valid.filter((p) => !seen.has(p.event.id)).map((p) => p.event));
           const rows: { event: IntegrationEvent; a: Applied }[] = [];
           for (const p of valid) {
             if (seen.has(p.event.id)) {
