@@ -108,6 +108,27 @@ describe('forecast scheduler', () => {
     expect(h.calls.map((c) => c.flightId)).toEqual([1, 2, 3, 1]);
   });
 
+  it('does not ask the queue again when a recompute ends and the line was already empty', async () => {
+    const queue = memoryRecomputeQueue();
+    let claims = 0;
+    const counted = { ...queue, claim: (limit: number) => ((claims += 1), queue.claim(limit)) };
+    let finish: (() => void) | null = null;
+    const recompute: Recompute = () => new Promise((resolve) => (finish = () => resolve({ status: 'unmoved' })));
+    const scheduler = createForecastScheduler(noDb, () => undefined, { recompute, parallel: 2, queue: counted });
+    scheduler.markDirty(5);
+    await turn();
+    expect(claims).toBe(1); // it found one flight where it had room for two: the line is empty
+    finish!();
+    await scheduler.flush();
+    expect(claims).toBe(1);
+    // A new ask is a sign of work: claimed at once.
+    scheduler.markDirty(6);
+    await turn();
+    expect(claims).toBe(2);
+    finish!();
+    await scheduler.flush();
+  });
+
   it('whatever the order of changes and completions: never two at once for a flight, and every change is followed by a recompute that started after it', async () => {
     await fc.assert(
       fc.asyncProperty(fc.array(fc.oneof(fc.integer({ min: 1, max: 3 }), fc.constant(0)), { maxLength: 40 }), async (ops) => {

@@ -117,15 +117,22 @@ export function createForecastScheduler(db: DataSource, onRecomputed: (o: Recomp
 
   // One loop at a time: it claims waiting flights up to `parallel` and goes round again as each finishes or as new
   // asks are queued. A flight asked for again while it runs goes back into the line when it finishes (see finish()).
+  // A claim that found fewer flights than it had room for emptied the line: the next claim waits for a sign of new
+  // work (an ask written, a flight put back, the sweep) instead of costing a transaction each time a slot frees.
   const pump = async () => {
     const inFlight = new Set<Promise<void>>();
+    let drained = false;
     for (;;) {
+      const signalled = wanted;
       wanted = false;
       let claims: ClaimedRecompute[] = [];
-      if (inFlight.size < parallel) {
+      if (inFlight.size < parallel && (signalled || !drained)) {
+        const room = parallel - inFlight.size;
         try {
-          claims = await queue.claim(parallel - inFlight.size);
+          claims = await queue.claim(room);
+          drained = claims.length < room;
         } catch (err) {
+          drained = false;
           log('could not claim recomputes', err);
         }
       }
