@@ -29,13 +29,10 @@ const publisher = socketPublisher(() => ioRef.io);
 const forecast = createForecastScheduler(db, forecastAnnouncer(db), {
   leaseMs: env.RECOMPUTE_LEASE_SECONDS * 1000,
 });
-forecast.startClock();
 const mailTransport = createMailTransport(env);
 const outbox = createOutboxWorker(db, mailTransport, { leaseMs: env.OUTBOX_LEASE_SECONDS * 1000 });
 outbox.start();
-// Its first pass retries every compensation a stopped server left 'issuing', with the keys fixed on each row.
 const payments = createPaymentsRuntime({ db, env });
-await payments.start();
 // Reconciliation runs a stopped process left 'running' are closed as interrupted, never left hanging.
 await markInterruptedRuns(db);
 const reconciliation = createReconciliationRunner({ db, reader: payments.reader, log: (line) => console.warn(line) });
@@ -46,7 +43,6 @@ const learning = createLearningRuntime(db, {
     for (const s of stations) announceCommitted(db, ...(await openFlightIds(db, s)).map(forecastStale));
   }).catch(() => undefined),
 });
-await learning.start();
 const stopDeadlineWatch = watchPaymentDeadlines(db);
 const app = createApp({
   payments,
@@ -65,6 +61,12 @@ const app = createApp({
     if (ioRef.io) refreshUserSockets(ioRef.io, db, id).catch((err: unknown) => console.error(`[server] could not refresh the sockets of user ${id}: ${String(err)}`));
   },
 });
+// Started once the app has subscribed to committed changes, so nothing they announce (a recompute asked for, a
+// payment's notice) leaves before anyone listens. The payments worker's first pass retries every compensation a
+// stopped server left 'issuing', with the keys fixed on each row; a training run left unfinished is queued again.
+forecast.startClock();
+await payments.start();
+await learning.start();
 const http = createServer(app);
 ioRef.io = createSocketServer(http, { db, sessionMiddleware: session.middleware });
 // Several processes: rooms and the flights' news shared through Redis (one process alone needs neither).
