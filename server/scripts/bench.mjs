@@ -84,7 +84,7 @@ async function main() {
     db.resetDatabase();
     migrateAndLoadDemo(db.url, { local });
     // No simulator: the only feed traffic is the bench's own, so every count it checks is its own doing.
-    env = { ...serviceEnv({ local, ports, databaseUrl: db.url }), SIMULATOR: 'off' };
+    env = { ...serviceEnv({ local, ports, databaseUrl: db.url, databaseSocket: db.socket }), SIMULATOR: 'off' };
     server = startChild('server', TSX, [...(process.env.BENCH_PROFILE_DIR ? ['--cpu-prof', `--cpu-prof-dir=${process.env.BENCH_PROFILE_DIR}`] : []), 'server/src/main.ts'], { env });
     await waitForHttp(`http://127.0.0.1:${ports.app}/api/health`);
     return `app on 127.0.0.1:${ports.app}, MariaDB on 127.0.0.1:${ports.db}`;

@@ -54,7 +54,7 @@ try {
   migrateAndLoadDemo(db.url, { local, demo: !production });
   if (!dev) buildClientIfStale();
   // In production every secret and address comes from the environment; the stand-ins and the simulator stay off.
-  const env = production ? { ...process.env, PORT: String(appPort), SIMULATOR: 'off' } : serviceEnv({ local, ports, databaseUrl: db.url });
+  const env = production ? { ...process.env, PORT: String(appPort), SIMULATOR: 'off' } : serviceEnv({ local, ports, databaseUrl: db.url, databaseSocket: db.socket });
   // CLUSTER=1 without REDIS_URL: a private Redis on loopback, for app processes started beside this one (README).
   if (process.env.CLUSTER === '1' && !process.env.REDIS_URL) env.REDIS_URL = (await startPrivateRedis({ port: appPort + 30, dir: `${local}/redis` })).url;
   await startServices(env, { dev, standIns: !production });

@@ -21,7 +21,7 @@ import { watchPaymentDeadlines } from './modules/compensations/payment-deadlines
 import { forecastAnnouncer } from './modules/denials/ranking-notices';
 
 const env = loadEnv();
-const db = createDataSource(env.DATABASE_URL);
+const db = createDataSource(env.DATABASE_URL, { socketPath: env.DATABASE_SOCKET });
 await db.initialize();
 const session = createSessionSetup(env);
 const ioRef: { io?: AppIo } = {};

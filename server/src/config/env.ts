@@ -26,6 +26,11 @@ const envSchema = z
     PORT: z.coerce.number().int().min(0).max(65535).default(4600),
     HOST: z.string().default('127.0.0.1'),
     DATABASE_URL: z.string().regex(/^(mariadb|mysql):\/\//, 'DATABASE_URL must start with mariadb:// or mysql://'),
+    /**
+     * MariaDB on the same machine: its Unix socket, used instead of the URL's host and port (user, password and
+     * database still come from the URL). A statement then costs the kernel far less than through loopback TCP.
+     */
+    DATABASE_SOCKET: z.string().startsWith('/', 'DATABASE_SOCKET must be an absolute path to the MariaDB socket').optional(),
     SESSION_SECRET: z.string().min(32, 'SESSION_SECRET must be at least 32 characters'),
     APP_BASE_URL: z.url().default('http://127.0.0.1:4600'),
     SESSION_IDLE_MINUTES: z.coerce.number().int().positive().default(30),

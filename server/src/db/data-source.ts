@@ -5,7 +5,7 @@ import { migrations } from './migrations';
 import { pinSessionsToUtc } from './utc-session';
 
 /** Schema changes go through migrations only: synchronize stays off everywhere, tests included. */
-export function createDataSource(url: string): DataSource {
+export function createDataSource(url: string, options: { socketPath?: string } = {}): DataSource {
   return pinSessionsToUtc(new DataSource({
     type: 'mariadb',
     url,
@@ -16,7 +16,7 @@ export function createDataSource(url: string): DataSource {
     timezone: 'Z',
     dateStrings: false,
     charset: 'utf8mb4_unicode_ci',
-    extra: { connectionLimit: 20 },
+    extra: { connectionLimit: 20, ...(options.socketPath ? { socketPath: options.socketPath } : {}) },
     logging: ['error'],
   }));
 }
