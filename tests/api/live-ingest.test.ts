@@ -62,13 +62,19 @@ async function flightOf(n: number) {
   return { flight, pnrs };
 }
 
+/** Check-ins for every passenger of two new flights of `n` each, all at one moment, once their first recompute is done. */
+async function checkInsOnTwoFlights(n: number) {
+  const a = await flightOf(n);
+  const b = await flightOf(n);
+  await scheduler.flush();
+  const now = Date.now();
+  const events = [...a.pnrs.map((p) => event(a.flight, p, 'passenger.checked-in', now)), ...b.pnrs.map((p) => event(b.flight, p, 'passenger.checked-in', now))];
+  return { a, b, now, events };
+}
+
 describe('a burst from the feed', () => {
   it('costs at most 4 statements per event, the recompute of its flights included', async () => {
-    const a = await flightOf(20);
-    const b = await flightOf(20);
-    await scheduler.flush();
-    const now = Date.now();
-    const events = [...a.pnrs.map((p) => event(a.flight, p, 'passenger.checked-in', now)), ...b.pnrs.map((p) => event(b.flight, p, 'passenger.checked-in', now))];
+    const { a, now, events } = await checkInsOnTwoFlights(20);
     statements = 0;
     const res = await feed(events).expect(200);
     await scheduler.flush();
@@ -82,11 +88,7 @@ describe('a burst from the feed', () => {
   });
 
   it('locks the passengers of a batch of status events in one read: 47 statements for 40 check-ins on two flights', async () => {
-    const a = await flightOf(20);
-    const b = await flightOf(20);
-    await scheduler.flush();
-    const now = Date.now();
-    const events = [...a.pnrs.map((p) => event(a.flight, p, 'passenger.checked-in', now)), ...b.pnrs.map((p) => event(b.flight, p, 'passenger.checked-in', now))];
+    const { a, events } = await checkInsOnTwoFlights(20);
     statements = 0;
     const { results } = await applyEventBatch(db, a.flight.stationId, events);
     // Counted before the recomputes it asks for start (they are queued for after this turn).
@@ -99,11 +101,7 @@ describe('a burst from the feed', () => {
   });
 
   it('written together when they arrive together: single-event POSTs at once cost at most 4 statements per event', async () => {
-    const a = await flightOf(30);
-    const b = await flightOf(30);
-    await scheduler.flush();
-    const now = Date.now();
-    const events = [...a.pnrs.map((p) => event(a.flight, p, 'passenger.checked-in', now)), ...b.pnrs.map((p) => event(b.flight, p, 'passenger.checked-in', now))];
+    const { a, b, events } = await checkInsOnTwoFlights(30);
     statements = 0;
     // As a feed sends at its rate, one event per POST, many open at once: the first is written alone, the other 59
     // arrive while it is being written and go together in the next batch.
