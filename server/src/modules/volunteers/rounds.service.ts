@@ -109,6 +109,16 @@ export async function closeRound(db: DataSource, user: SessionUser, roundId: num
  * Records a booking's offer to give up its seats. A party volunteers whole unless it chooses to split: naming only
  * some of its members records that choice on the booking.
  */
+/** An agent puts passengers of the flight forward as volunteers in an open round (the first one names the booking). */
+export async function addVolunteerAtDesk(db: DataSource, user: SessionUser, roundId: number, passengerIds: number[], askMinor: number | null) {
+  return db.transaction(async (em) => {
+    const round = await roundForUser(em, user, roundId, true);
+    const first = await em.findOneBy(PassengerEntity, { id: passengerIds[0], flightId: round.flightId });
+    if (!first) throw badRequest('passengerIds: must be passengers of this flight', [{ field: 'passengerIds', rule: 'must be passengers of this flight' }]);
+    return addVolunteer(em, round, first.bookingId, passengerIds, askMinor, 'agent', user);
+  });
+}
+
 export async function addVolunteer(em: EntityManager, round: VolunteerRoundEntity, bookingId: number, passengerIds: number[] | null, askMinor: number | null, source: 'agent' | 'passenger-link', actor: SessionUser | { label: string }) {
   assertOpen(round);
   await assertNotDeparted(em, round.flightId, 'offering a seat');

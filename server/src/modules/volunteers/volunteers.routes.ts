@@ -3,18 +3,16 @@ import { z } from 'zod';
 import type { DataSource } from 'typeorm';
 import { idParamSchema } from '@shared/schemas/common';
 import { addVolunteerBodySchema, openRoundBodySchema, raiseOfferBodySchema, rebookBodySchema, volunteerPolicySchema } from '@shared/schemas/volunteers';
-import { PassengerEntity, StationEntity, VolunteerPolicyEntity } from '../../db/entities';
-import { badRequest, notFound } from '../../http/errors';
+import { notFound } from '../../http/errors';
 import { canSeeStation, currentUser, requireRole } from '../../http/require-role';
 import { parse } from '../../http/validate';
-import { audit } from '../audit/audit.service';
 import { flightForUser } from '../flights/flight-desk.service';
 import { acceptVolunteer, declineVolunteer } from './accept.service';
 import { flightToken } from './bid-link';
-import { policyFor } from './policy.service';
+import { policyFor, savePolicy } from './policy.service';
 import { alternatesFor, rebookVolunteer } from './rebooking.service';
 import { presentRounds } from './rounds.presenter';
-import { addVolunteer, closeRound, openRound, raiseOffer, roundForUser } from './rounds.service';
+import { addVolunteerAtDesk, closeRound, openRound, raiseOffer } from './rounds.service';
 
 export interface VolunteerDeps {
   db: DataSource;
@@ -64,12 +62,7 @@ export function volunteersRouter(deps: VolunteerDeps) {
     const user = currentUser(req);
     const { id } = parse(idParamSchema, req.params, 'params');
     const body = parse(addVolunteerBodySchema, req.body);
-    const v = await deps.db.transaction(async (em) => {
-      const round = await roundForUser(em, user, id, true);
-      const first = await em.findOneBy(PassengerEntity, { id: body.passengerIds[0], flightId: round.flightId });
-      if (!first) throw badRequest('passengerIds: must be passengers of this flight', [{ field: 'passengerIds', rule: 'must be passengers of this flight' }]);
-      return addVolunteer(em, round, first.bookingId, body.passengerIds, body.askMinor ?? null, 'agent', user);
-    });
+    const v = await addVolunteerAtDesk(deps.db, user, id, body.passengerIds, body.askMinor ?? null);
     res.status(201).json({ id: v.id });
   });
 
@@ -104,14 +97,7 @@ export function volunteersRouter(deps: VolunteerDeps) {
     const { stationId } = parse(stationParams, req.params, 'params');
     if (!canSeeStation(user, stationId)) throw notFound('Station');
     const policy = parse(volunteerPolicySchema, req.body);
-    const station = await deps.db.getRepository(StationEntity).findOneByOrFail({ id: stationId });
-    // Rounds and compensations take the policy's currency; one the station does not pay in would reach finance unreconciled.
-    if (policy.currency !== station.currency) throw badRequest(`currency: must be the station's currency, ${station.currency}`, [{ field: 'currency', rule: `must be the station's currency, ${station.currency}` }]);
-    await deps.db.transaction(async (em) => {
-      const before = await policyFor(em, stationId);
-      await em.upsert(VolunteerPolicyEntity, { stationId, policy }, ['stationId']);
-      await audit(em, { actor: user, action: 'volunteer_policy.updated', entityType: 'station', entityId: stationId, stationId, before, after: policy });
-    });
+    await savePolicy(deps.db, user, stationId, policy);
     res.json(policy);
   });
 
