@@ -8,8 +8,8 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { AuditLogEntity, CompensationEntity, OfferApprovalEntity, StationEntity, VolunteerEntity, type FlightEntity } from '../../server/src/db/entities';
 import { defaultPolicy } from '../../server/src/modules/volunteers/policy.service';
 import { Client, startTestApp, type TestApp } from './harness';
-import { TEST_PASSWORD, foreignStation, insertUser, removeRunUsers } from './helpers';
-import { addBooking, makeFlight, removeFlights, settle, tokenOf } from './volunteers-fixtures';
+import { TEST_PASSWORD, foreignStation, insertUser } from './helpers';
+import { addBooking, makeFlight, tokenOf, closeAfterFlights } from './volunteers-fixtures';
 
 // The station's own limits, set by this test (figures of our own): agents $600, supervisors $1,000.
 const AGENT_LIMIT = 60_000;
@@ -46,12 +46,7 @@ beforeAll(async () => {
   await users.admin.client.put(`/api/stations/${station.id}/volunteer-policy`, { ...defaultPolicy('USD'), agentLimitMinor: AGENT_LIMIT, supervisorLimitMinor: SUPERVISOR_LIMIT, sealedBidPricing: 'own-ask' }).expect(200);
 }, 180_000);
 
-afterAll(async () => {
-  await settle(t);
-  await removeFlights(t.db, flightIds);
-  await removeRunUsers(t.db);
-  await t.close();
-});
+afterAll(() => closeAfterFlights(t, flightIds));
 
 async function flightWith(parties: number): Promise<{ flight: FlightEntity; passengerIds: number[]; pnrs: string[] }> {
   const flight = await makeFlight(t.db, { stationId: station.id, origin: 'BTV', destination: 'EWR' });

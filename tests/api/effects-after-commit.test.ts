@@ -7,8 +7,8 @@ import { domainEventsOf, type DomainEvent } from '../../server/src/events';
 import { enqueueMessage } from '../../server/src/modules/outbox/outbox.service';
 import type { Publisher } from '../../server/src/realtime/publisher';
 import { Client, startTestApp, type TestApp } from './harness';
-import { RUN_ID, TEST_PASSWORD, insertUser, removeRunUsers } from './helpers';
-import { addBooking, makeFlight, removeFlights, settle } from './volunteers-fixtures';
+import { RUN_ID, TEST_PASSWORD, insertUser } from './helpers';
+import { addBooking, makeFlight, closeAfterFlights } from './volunteers-fixtures';
 
 let t: TestApp;
 let station: StationEntity;
@@ -33,12 +33,7 @@ beforeAll(async () => {
   if ((await agent.signIn(user.email, TEST_PASSWORD)).status !== 200) throw new Error('sign-in failed');
 }, 120_000);
 
-afterAll(async () => {
-  await settle(t);
-  await removeFlights(t.db, flightIds);
-  await removeRunUsers(t.db);
-  await t.close();
-});
+afterAll(() => closeAfterFlights(t, flightIds));
 
 async function flight() {
   const f = await makeFlight(t.db, { stationId: station.id, origin: 'BTV', destination: 'BOS' });

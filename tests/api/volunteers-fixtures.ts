@@ -5,7 +5,7 @@ import type { DataSource } from 'typeorm';
 import { BookingEntity, FlightEntity, OutboxMessageEntity, PassengerEntity, StationEntity } from '../../server/src/db/entities';
 import { deleteInDependencyOrder } from '../../server/src/demo/delete-in-order';
 import { withFreeFlightNumber } from './free-flight-number';
-import { RUN_ID } from './helpers';
+import { RUN_ID, removeRunUsers } from './helpers';
 import { removeCompensations } from '../cleanup/compensations';
 
 const MINUTE = 60_000;
@@ -83,6 +83,14 @@ export async function outboxByKey(db: DataSource, dedupeKey: string): Promise<Ou
 
 /** Waits for the coalesced forecast recomputes the test's changes queued, so cleanup removes their rows too. */
 export const settle = (t: { forecast: { flush(): Promise<void> } }) => t.forecast.flush();
+
+/** A file's clean-up: the recomputes it started finish, then its flights and users go and the app closes. */
+export async function closeAfterFlights(t: { db: DataSource; forecast: { flush(): Promise<void> }; close(): Promise<void> }, flightIds: number[]): Promise<void> {
+  await settle(t);
+  await removeFlights(t.db, flightIds);
+  await removeRunUsers(t.db);
+  await t.close();
+}
 
 /**
  * Everything hanging off the given flights: outbox rows, voucher offers, compensations, seat holds, volunteers, approvals, rounds,

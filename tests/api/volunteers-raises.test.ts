@@ -8,8 +8,8 @@ import { AuditLogEntity, CompensationEntity, StationEntity, VolunteerEntity } fr
 import { confirmationKey } from '../../server/src/modules/volunteers/volunteer-notices';
 import { defaultPolicy } from '../../server/src/modules/volunteers/policy.service';
 import { Client, startTestApp, type TestApp } from './harness';
-import { TEST_PASSWORD, insertUser, removeRunUsers } from './helpers';
-import { addBooking, makeFlight, outboxByKey, removeFlights, settle, tokenOf } from './volunteers-fixtures';
+import { TEST_PASSWORD, insertUser } from './helpers';
+import { addBooking, makeFlight, outboxByKey, tokenOf, closeAfterFlights } from './volunteers-fixtures';
 
 let t: TestApp;
 let station: StationEntity;
@@ -37,12 +37,7 @@ beforeAll(async () => {
   [agent, admin] = await Promise.all([as('agent'), as('admin')]);
 }, 120_000);
 
-afterAll(async () => {
-  await settle(t);
-  await removeFlights(t.db, flightIds);
-  await removeRunUsers(t.db);
-  await t.close();
-});
+afterAll(() => closeAfterFlights(t, flightIds));
 
 const setRaisePolicy = (raisePolicy: 'lift-to-new-offer' | 'keep-agreed') =>
   admin.put(`/api/stations/${station.id}/volunteer-policy`, { ...defaultPolicy('USD'), raisePolicy }).expect(200);

@@ -8,8 +8,8 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { CompensationEntity, VolunteerEntity, type FlightEntity, type StationEntity } from '../../server/src/db/entities';
 import { defaultPolicy } from '../../server/src/modules/volunteers/policy.service';
 import { Client, startTestApp, type TestApp } from './harness';
-import { DEMO, TEST_PASSWORD, insertUser, removeRunUsers } from './helpers';
-import { addBooking, makeFlight, outboxByKey, policyTestStation, removeFlights, settle, tokenOf, type Booked } from './volunteers-fixtures';
+import { DEMO, TEST_PASSWORD, insertUser } from './helpers';
+import { addBooking, makeFlight, outboxByKey, policyTestStation, tokenOf, type Booked, closeAfterFlights } from './volunteers-fixtures';
 
 let t: TestApp;
 let station: StationEntity;
@@ -35,12 +35,7 @@ beforeAll(async () => {
   await demoAdmin.signIn(DEMO.admin);
 });
 
-afterAll(async () => {
-  await settle(t);
-  await removeFlights(t.db, flightIds);
-  await removeRunUsers(t.db);
-  await t.close();
-});
+afterAll(() => closeAfterFlights(t, flightIds));
 
 const policyUrl = () => `/api/stations/${station.id}/volunteer-policy`;
 const setPricing = (sealedBidPricing: 'own-ask' | 'common-price') => admin.put(policyUrl(), { ...defaultPolicy('USD'), sealedBidPricing }).expect(200);
