@@ -43,7 +43,7 @@ async function recordEvents(em: EntityManager, stationId: number, rows: { event:
  * all event rows. A deadlock, or a
  * concurrent batch storing one of our ids, retries the whole batch.
  */
-export async function applyEventBatch(db: DataSource, stationId: number, raw: unknown[]): Promise<{ results: EventResult[]; touchedFlights: Set<number> }> {
+export async function applyEventBatch(db: DataSource, stationId: number, raw: unknown[]): Promise<{ results: EventResult[] }> {
   const parsed = raw.map((item, index) => {
     const id = typeof (item as { id?: unknown })?.id === 'string' ? (item as { id: string }).id : null;
     const p = integrationEventSchema.safeParse(item);
@@ -53,7 +53,6 @@ export async function applyEventBatch(db: DataSource, stationId: number, raw: un
   });
   const valid = parsed.filter((p): p is typeof p & { event: IntegrationEvent } => p.event !== undefined);
   for (let attempt = 1; ; attempt++) {
-    const touchedFlights = new Set<number>();
     const outcome = new Map<number, Outcome>();
     try {
       if (valid.length) {
@@ -72,7 +71,6 @@ export async function applyEventBatch(db: DataSource, stationId: number, raw: un
               const a = await applyEvent(em, flights, p.event);
               rows.push({ event: p.event, a });
               outcome.set(p.index, { status: a.status, message: a.summary });
-              touchedFlights.add(a.flightId);
               // Once the batch commits, the flight is recomputed (its notice follows the new version).
               recordEffect(em, forecastStale(a.flightId));
             } catch (err) {
@@ -90,6 +88,6 @@ export async function applyEventBatch(db: DataSource, stationId: number, raw: un
       throw err;
     }
     const results = parsed.map((p) => ({ index: p.index, id: p.id, ...(p.rejected ?? outcome.get(p.index)!) }));
-    return { results, touchedFlights };
+    return { results };
   }
 }

@@ -9,7 +9,6 @@ import { applyEventBatch } from './events.service';
 
 export interface FeedAnswer {
   results: EventResult[];
-  touchedFlights: Set<number>;
 }
 
 interface Waiting {
@@ -65,7 +64,7 @@ class StationLine {
     for (const w of group) {
       const results = batch.results.slice(offset, offset + w.events.length).map((r) => ({ ...r, index: r.index - offset }));
       offset += w.events.length;
-      w.resolve({ results, touchedFlights: batch.touchedFlights });
+      w.resolve({ results });
     }
   }
 }
